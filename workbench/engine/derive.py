@@ -1,0 +1,408 @@
+"""derive(case): the whole combined-load calculation of one load case, step by step.
+
+Inputs are plain floats in the engine's units (N, mm, r/min, h, mm²/s, °C, degrees); the output is
+a :class:`~workbench.engine.record.Derivation` whose ``results`` hold the contract names
+``P e X Y L10 L10h Lnm P0 s0`` and more.  Standards: ISO 281:2007 (dynamic rating, life, a1, aISO),
+ISO 76:2006 (static), ISO 3448 / ASTM D341 / ASTM D2270 (viscosity), three-parameter Weibull.
+"""
+
+from __future__ import annotations
+
+import math
+from dataclasses import dataclass, fields
+
+from . import tables as T
+from . import viscosity
+from .kinds import (
+    DEFAULT_CONTACT_ANGLE, KIND_WORDS, ROLLER_KINDS, THRUST_KINDS, Arrangement, Kind,
+    contact_angle_from_e, dynamic_factors, equivalent_dynamic_load, equivalent_static_load,
+    life_exponent, parse_arrangement, parse_kind, static_factors,
+)
+from .life import (
+    AISO_CAP, KAPPA_MAX, KAPPA_MIN, a1_iso281, aiso, basic_rating_life, contamination_factor,
+    fatigue_load_limit_estimate, life_hours, reference_viscosity, weibull_life_factor,
+)
+from .record import Derivation, InputError
+
+NAN = math.nan
+RELIABILITY_MODELS = ("iso281", "weibull")
+
+
+@dataclass(frozen=True, slots=True)
+class CaseInputs:
+    """Everything one load case needs, in engine units.  ``None`` means "not given"."""
+
+    kind: str = "deep-groove"
+    arrangement: str = "single"
+    fr: float = 0.0                 # N, radial load
+    fa: float = 0.0                 # N, axial load
+    c: float = 0.0                  # N, basic dynamic load rating
+    c0: float = 0.0                 # N, basic static load rating
+    f0: float | None = None         # ISO 76 factor f0 (deep-groove, 15° angular-contact)
+    contact_angle: float | None = None  # degrees
+    e_given: float | None = None    # maker's e (tapered, spherical, self-aligning)
+    y_given: float | None = None    # maker's Y for Fa/Fr > e
+    speed: float = 0.0              # r/min; 0 leaves hours undefined
+    af: float = 1.0                 # application factor on P
+    outer_ring_rotates: bool = False  # rotation factor V = 1.2 (older practice)
+    reliability: float = 0.90
+    reliability_model: str = "iso281"
+    weibull_x0: float = T.WEIBULL_X0
+    weibull_theta: float = T.WEIBULL_THETA
+    weibull_b: float = T.WEIBULL_B
+    rating_life_mrev: float = 1.0   # LR, the rating basis life of C (Weibull model), 10⁶ rev
+    nu: float | None = None         # operating viscosity, mm²/s (overrides vg/temp)
+    vg: float | None = None         # ISO VG grade
+    vi: float | None = None         # viscosity index (default 100 when vg is given)
+    nu100: float | None = None      # viscosity at 100 °C, mm²/s (instead of vi)
+    temp: float | None = None       # operating temperature, °C
+    dm: float | None = None         # mean diameter (d + D)/2, mm
+    cu: float | None = None         # fatigue load limit, N
+    cleanliness: str | None = None  # named level from tables.CONTAMINATION_LEVELS
+    ec: float | None = None         # contamination factor eC as a number
+    static_duty: str = "normal"     # key of tables.STATIC_SAFETY_MINIMUMS
+    s0_min: float | None = None     # required static safety, overrides the duty's minimum
+
+
+NUMERIC_INPUTS: tuple[str, ...] = tuple(
+    f.name for f in fields(CaseInputs)
+    if f.name not in ("kind", "arrangement", "reliability_model", "cleanliness", "static_duty",
+                      "outer_ring_rotates")
+)
+
+
+def _check(name: str, value: float | None, *, positive: bool = False, optional: bool = False) -> None:
+    """Refuse non-finite or negative numbers (and zero where ``positive``), naming the input."""
+    if value is None:
+        if optional:
+            return
+        raise InputError(name, "a value is needed")
+    if isinstance(value, bool) or not isinstance(value, (int, float)):
+        raise InputError(name, f"expected a number, got {value!r}")
+    if not math.isfinite(value):
+        raise InputError(name, "must be a finite number")
+    if value < 0 or (positive and value == 0):
+        raise InputError(name, "must be greater than zero" if positive else "must not be negative")
+
+
+def validate(case: CaseInputs) -> tuple[Kind, Arrangement, float]:
+    """Check every input at the engine's door; return the kind, arrangement and contact angle."""
+    kind = parse_kind(case.kind)
+    arrangement = parse_arrangement(kind, case.arrangement)
+    for name in ("fr", "fa", "speed"):
+        _check(name, getattr(case, name))
+    for name in ("c", "c0", "af"):
+        _check(name, getattr(case, name), positive=True)
+    for name in ("f0", "e_given", "y_given", "nu", "vg", "vi", "nu100", "dm", "cu", "ec",
+                 "s0_min"):
+        _check(name, getattr(case, name), optional=True,
+               positive=name not in ("vi", "ec"))
+    _check("contact_angle", case.contact_angle, optional=True)
+    if case.temp is not None and not (math.isfinite(case.temp) and -60.0 <= case.temp <= 250.0):
+        raise InputError("temp", "operating temperature must lie between −60 °C and 250 °C")
+    if case.ec is not None and case.ec > 1.0:
+        raise InputError("ec", "eC lies between 0 and 1")
+    if case.cleanliness is not None and case.cleanliness not in T.CONTAMINATION_LEVELS:
+        names = ", ".join(T.CONTAMINATION_LEVELS)
+        raise InputError("cleanliness", f"unknown level {case.cleanliness!r}; use one of {names} or a number")
+    if case.static_duty not in T.STATIC_SAFETY_MINIMUMS:
+        names = ", ".join(T.STATIC_SAFETY_MINIMUMS)
+        raise InputError("static_duty", f"unknown duty {case.static_duty!r}; use one of {names}")
+    if case.reliability_model not in RELIABILITY_MODELS:
+        raise InputError("reliability_model", "use iso281 or weibull")
+    _check("reliability", case.reliability, positive=True)
+    if case.reliability_model == "iso281":
+        if not T.RELIABILITY_MIN <= case.reliability <= T.RELIABILITY_MAX + 1e-12:
+            raise InputError("reliability",
+                             "ISO 281 a1 covers 0.90 to 0.9995; use the Weibull model outside it")
+    else:
+        if not case.reliability < 1.0:
+            raise InputError("reliability", "must be below 1 (certain survival has no finite life)")
+        for name in ("weibull_theta", "weibull_b", "rating_life_mrev"):
+            _check(name, getattr(case, name), positive=True)
+        _check("weibull_x0", case.weibull_x0)
+        if case.weibull_x0 >= case.weibull_theta:
+            raise InputError("weibull_x0", "x0 must be below θ")
+    alpha = case.contact_angle
+    if alpha is None:
+        alpha = DEFAULT_CONTACT_ANGLE[kind]
+    if alpha is None:
+        if case.e_given is None:
+            raise InputError("contact_angle",
+                             f"a {KIND_WORDS[kind]} needs its contact angle or the maker's e")
+        alpha = contact_angle_from_e(case.e_given)
+    if kind in (Kind.SELF_ALIGNING, Kind.TAPERED, Kind.SPHERICAL) and not 0.0 < alpha < 90.0:
+        raise InputError("contact_angle", "must lie between 0° and 90° for this kind")
+    if kind in THRUST_KINDS and alpha > 90.0:
+        raise InputError("contact_angle", "cannot exceed 90°")
+    if case.fr == 0.0 and case.fa == 0.0:
+        raise InputError("fr", "Fr and Fa are both zero: there is no load to rate")
+    if kind is Kind.CYLINDRICAL and case.fr == 0.0:
+        raise InputError("fa", "a cylindrical roller bearing cannot carry a purely axial load")
+    if kind in THRUST_KINDS and alpha >= 90.0 and case.fr > 0.0:
+        raise InputError("fr", f"a {KIND_WORDS[kind]} with α = 90° takes no radial load")
+    if kind in THRUST_KINDS and case.fa == 0.0:
+        raise InputError("fa", f"a {KIND_WORDS[kind]} needs an axial load")
+    return kind, arrangement, alpha
+
+
+def derive(case: CaseInputs) -> Derivation:
+    """The full derivation of one load case (ISO 281:2007, ISO 76:2006); InputError on bad input."""
+    kind, arrangement, alpha = validate(case)
+    d = Derivation()
+    roller = kind in ROLLER_KINDS
+    _dynamic_load(d, case, kind, arrangement, alpha)
+    p = d.results["P"]
+    p_eff = p * case.af
+    if case.af != 1.0:
+        d.add("P_eff", "af·P", "Load with the application factor", "af·P", "{0} × {1}",
+              (case.af, p), p_eff, "N", "common practice", note=T.APPLICATION_FACTOR_HINT)
+    exponent = life_exponent(kind)
+    rating_mrev = case.rating_life_mrev if case.reliability_model == "weibull" else 1.0
+    l10 = rating_mrev * basic_rating_life(case.c, p_eff, exponent)
+    p_word = "10/3 (roller)" if roller else "3 (ball)"
+    if rating_mrev != 1.0:
+        d.add("L10", "L10", "Basic rating life", "LR·(C/P)^p", "{0} × ({1} / {2})^{3}",
+              (rating_mrev, case.c, p_eff, exponent), l10, "10⁶ rev", "ISO 281:2007 §7.1",
+              note=f"p = {p_word}; C rated at LR = {rating_mrev:g}·10⁶ revolutions")
+    else:
+        d.add("L10", "L10", "Basic rating life", "(C/P)^p", "({0} / {1})^{2}",
+              (case.c, p_eff, exponent), l10, "10⁶ rev", "ISO 281:2007 §7.1", note=f"p = {p_word}")
+    _hours(d, "L10h", "L10h", "Basic rating life in hours", l10, case.speed)
+    a_rel = _reliability(d, case)
+    a_iso = _lubrication(d, case, kind, p_eff)
+    lnm_mrev = a_rel * a_iso * l10
+    d.add("Lnm_mrev", "Lnm", "Modified rating life", "a1·aISO·L10", "{0} × {1} × {2}",
+          (a_rel, a_iso, l10), lnm_mrev, "10⁶ rev", "ISO 281:2007 §9.1")
+    _hours(d, "Lnm", "Lnm", "Modified rating life in hours", lnm_mrev, case.speed)
+    _static(d, case, kind, arrangement, alpha)
+    return d
+
+
+def _dynamic_load(d: Derivation, case: CaseInputs, kind: Kind, arrangement: Arrangement,
+                  alpha: float) -> None:
+    """Steps for e, the branch, X, Y and P (ISO 281:2007 §6, Table 3)."""
+    factors = dynamic_factors(kind, arrangement, alpha, case.fa, case.c0, case.f0,
+                              case.e_given, case.y_given)
+    v = 1.2 if case.outer_ring_rotates else 1.0
+    if case.outer_ring_rotates:
+        d.add("V", "V", "Rotation factor", "outer ring rotates relative to the load", "1.2", (), v,
+              "", "common practice (older practice; ISO 281:2007 no longer carries V)",
+              note="V multiplies Fr in the branch test and in X·V·Fr")
+    if kind is Kind.CYLINDRICAL:
+        d.add("P", "P", "Equivalent dynamic load", "P = Fr (α = 0)", "{0}", (case.fr,), case.fr,
+              "N", factors.source, warning=_cylindrical_axial_warning(case))
+        d.results.update(e=NAN, X=1.0, Y=0.0)
+        return
+    if kind in THRUST_KINDS and alpha >= 90.0:
+        d.add("P", "P", "Equivalent dynamic load", "P = Fa (α = 90°)", "{0}", (case.fa,), case.fa,
+              "N", factors.source)
+        d.results.update(e=NAN, X=0.0, Y=1.0)
+        return
+    if factors.index_formula:
+        clamp = factors.clamped
+        note = None
+        if clamp and case.fa > 0:
+            edge = "first" if clamp < 0 else "last"
+            note = f"index outside the table: e and Y taken at its {edge} row, not extrapolated"
+        d.add("index", factors.index_formula.split(" ")[0], "Table index for e and Y",
+              factors.index_formula, "{0} × {1} / {2}", _index_args(case, arrangement),
+              factors.index, "", factors.source, note=note)
+    d.add("e", "e", "Limit ratio e", factors.basis, "{0}", (factors.e,), factors.e, "",
+          factors.source)
+    p, ratio, high = equivalent_dynamic_load(factors, case.fr, case.fa, v)
+    vfr = "V·Fr" if case.outer_ring_rotates else "Fr"
+    side = f"Fa/{vfr} > e" if high else f"Fa/{vfr} ≤ e"
+    d.add("ratio", f"Fa/{vfr}", "Axial-to-radial load ratio",
+          f"Fa/{vfr}, compared with e", "{0} / {1}", (case.fa, v * case.fr), ratio, "",
+          "ISO 281:2007 §6.1", note=f"branch: {side}")
+    if kind in THRUST_KINDS and not high:
+        raise InputError("fa", f"a single-direction {KIND_WORDS[kind]} needs Fa/Fr > e "
+                               f"({ratio:.3g} ≤ {factors.e:.3g})")
+    x = factors.x_high if high else factors.x_low
+    y = factors.y_high if high else factors.y_low
+    warning = None
+    if factors.clamped and (high or factors.clamped > 0) and case.fa > 0:
+        warning = f"{factors.index_formula} lies outside the table; e and Y clamped at its end"
+    d.add("X", "X", f"Radial factor ({side})", "Table 3", "{0}", (x,), x, "", factors.source)
+    d.add("Y", "Y", f"Axial factor ({side})", "Table 3" if factors.index_formula else factors.basis,
+          "{0}", (y,), y, "", factors.source, warning=warning)
+    if case.outer_ring_rotates:
+        d.add("P", "P", "Equivalent dynamic load", "X·V·Fr + Y·Fa", "{0} × {1} × {2} + {3} × {4}",
+              (x, v, case.fr, y, case.fa), p, "N", "ISO 281:2007 §6.1")
+    else:
+        d.add("P", "P", "Equivalent dynamic load", "X·Fr + Y·Fa", "{0} × {1} + {2} × {3}",
+              (x, case.fr, y, case.fa), p, "N", "ISO 281:2007 §6.1")
+
+
+def _index_args(case: CaseInputs, arrangement: Arrangement) -> tuple[float, ...]:
+    rows = 2.0 if arrangement in (Arrangement.BACK_TO_BACK, Arrangement.FACE_TO_FACE) else 1.0
+    f0 = case.f0 if case.f0 is not None else T.DEEP_GROOVE_FOLDED_F0
+    return (rows * f0, case.fa, case.c0)
+
+
+def _cylindrical_axial_warning(case: CaseInputs) -> str | None:
+    """Axial load on a cylindrical roller bearing is carried by ribs only: warn beyond the limit."""
+    if case.fa <= 0.0:
+        return None
+    limit = T.CYLINDRICAL_AXIAL_RATIO_LIMIT
+    if case.fa > limit * case.fr:
+        return (f"Fa/Fr = {case.fa / case.fr:.3g} exceeds {limit:g}: more axial load than ribs of a "
+                "cylindrical roller bearing commonly carry (common practice); check the maker's limit")
+    return None
+
+
+def _hours(d: Derivation, key: str, symbol: str, label: str, life_mrev: float, speed: float) -> None:
+    """A life in hours at the case speed, or an undefined value with a warning at speed 0."""
+    if speed > 0.0:
+        d.add(key, symbol, label, "L·10⁶/(60·n)", "{0} × 10⁶ / (60 × {1})", (life_mrev, speed),
+              life_hours(life_mrev, speed), "h", "ISO 281:2007 §7.1")
+    else:
+        d.add(key, symbol, label, "L·10⁶/(60·n)", "speed is 0", (), NAN, "h", "ISO 281:2007 §7.1",
+              warning=f"speed is 0: {symbol} in hours is undefined (life in revolutions stands)")
+
+
+def _reliability(d: Derivation, case: CaseInputs) -> float:
+    """a1 by ISO 281:2007 Table 12, or the Weibull life factor, at the requested reliability."""
+    r = case.reliability
+    if case.reliability_model == "iso281":
+        a1 = a1_iso281(r)
+        return d.add("a1", "a1", "Life factor for reliability",
+                     "0.95·(ln(100/R)/ln(100/90))^(2/3) + 0.05",
+                     "0.95 × (ln(100/{0}) / ln(100/90))^(2/3) + 0.05", (100.0 * r,), a1, "",
+                     "ISO 281:2007 §9.2, Table 12")
+    x = weibull_life_factor(r, case.weibull_x0, case.weibull_theta, case.weibull_b)
+    return d.add("a1", "aR", "Life factor for reliability (Weibull)",
+                 "x0 + (θ − x0)·(ln 1/R)^(1/b)", "{0} + ({1} − {0}) × (ln 1/{2})^(1/{3})",
+                 (case.weibull_x0, case.weibull_theta, r, case.weibull_b), x, "",
+                 "three-parameter Weibull, R = exp(−((x − x0)/(θ − x0))^b)",
+                 note="life at R as a multiple of the rating life")
+
+
+def _operating_viscosity(d: Derivation, case: CaseInputs) -> float | None:
+    """ν at operating temperature: given directly, or from ISO VG and VI (ISO 3448, ASTM D341)."""
+    if case.nu is not None:
+        return d.add("nu", "ν", "Operating viscosity", "given", "{0}", (case.nu,), case.nu,
+                     "mm²/s", "input")
+    if case.vg is None or case.temp is None:
+        return None
+    nu40 = viscosity.nu40_of_grade(case.vg)
+    d.add("nu40", "ν40", "Viscosity at 40 °C", f"ISO VG {case.vg:g} midpoint", "{0}", (nu40,),
+          nu40, "mm²/s", "ISO 3448")
+    if case.nu100 is not None:
+        nu100 = case.nu100
+        d.add("nu100", "ν100", "Viscosity at 100 °C", "given", "{0}", (nu100,), nu100, "mm²/s",
+              "input")
+    else:
+        vi = 100.0 if case.vi is None else case.vi
+        nu100 = viscosity.nu100_from_viscosity_index(nu40, vi)
+        d.add("nu100", "ν100", "Viscosity at 100 °C", "from ν40 and VI", "VI {0}", (vi,), nu100,
+              "mm²/s", "ASTM D2270",
+              note="VI 100 assumed (no VI given)" if case.vi is None else None)
+    nu = viscosity.viscosity_at_temperature(nu40, nu100, case.temp)
+    return d.add("nu", "ν", "Operating viscosity", "log log(ν + 0.7) = A − B·log T",
+                 "at {0} °C through ν40 = {1}, ν100 = {2}", (case.temp, nu40, nu100), nu, "mm²/s",
+                 "ASTM D341")
+
+
+def _lubrication(d: Derivation, case: CaseInputs, kind: Kind, p_eff: float) -> float:
+    """aISO from κ, eC, Cu and P (ISO 281:2007 §9.3); 1 with a note when data is missing."""
+    missing = []
+    if case.nu is None and (case.vg is None or case.temp is None):
+        missing.append("viscosity (ν, or ISO VG with temperature)")
+    if case.dm is None:
+        missing.append("mean diameter dm")
+    if case.speed <= 0.0:
+        missing.append("a speed above 0")
+    if case.ec is None and case.cleanliness is None:
+        missing.append("cleanliness or eC")
+    if missing:
+        return d.add("aISO", "aISO", "Systems-approach factor", "not evaluated", "1", (), 1.0, "",
+                     "ISO 281:2007 §9.3", note="aISO = 1: no " + ", no ".join(missing))
+    nu = _operating_viscosity(d, case)
+    assert nu is not None and case.dm is not None
+    nu1 = d.add("nu1", "ν1", "Rated viscosity",
+                "45000·n^−0.83·dm^−0.5" if case.speed < 1000 else "4500·n^−0.5·dm^−0.5",
+                "45000 × {0}^−0.83 × {1}^−0.5" if case.speed < 1000 else "4500 × {0}^−0.5 × {1}^−0.5",
+                (case.speed, case.dm), reference_viscosity(case.speed, case.dm), "mm²/s",
+                "ISO 281:2007 §9.3.3")
+    kappa = nu / nu1
+    used, warning = kappa, None
+    if kappa > KAPPA_MAX:
+        used, warning = KAPPA_MAX, None
+    elif kappa < KAPPA_MIN:
+        used = KAPPA_MIN
+        warning = f"κ = {kappa:.3g} is below 0.1, outside the aISO method; κ = 0.1 used"
+    d.add("kappa", "κ", "Viscosity ratio", "ν/ν1", "{0} / {1}", (nu, nu1), used, "",
+          "ISO 281:2007 §9.3.3", warning=warning,
+          note=f"κ = {kappa:.3g} above 4: 4 used" if kappa > KAPPA_MAX else None)
+    if case.ec is not None:
+        ec = d.add("eC", "eC", "Contamination factor", "given", "{0}", (case.ec,), case.ec, "",
+                   "input")
+    else:
+        assert case.cleanliness is not None
+        ec, (low, high) = contamination_factor(case.cleanliness, case.dm)
+        d.add("eC", "eC", "Contamination factor", T.CONTAMINATION_WORDS[case.cleanliness],
+              "midpoint of {0}–{1}", (low, high), ec, "", "ISO 281:2007 §9.3.4, Table 13",
+              note="dpw ≥ 100 mm column" if case.dm >= 100 else "dpw < 100 mm column")
+    roller = kind in ROLLER_KINDS
+    if case.cu is not None:
+        cu = d.add("Cu", "Cu", "Fatigue load limit", "given", "{0}", (case.cu,), case.cu, "N",
+                   "input")
+    else:
+        cu = fatigue_load_limit_estimate(case.c0, case.dm, roller)
+        formula = "C0/8.2" if roller else "C0/22"
+        if case.dm > 100:
+            formula += "·(100/dpw)^0.3" if roller else "·(100/dpw)^0.5"
+        d.add("Cu", "Cu", "Fatigue load limit (estimated)", formula, "from C0 = {0}, dpw = {1}",
+              (case.c0, case.dm), cu, "N", "ISO 281:2007 Annex B (estimate)",
+              note="no Cu given: estimated from C0; the maker's value is better")
+    divisor = 3.0 if kind is Kind.THRUST_BALL else (2.5 if kind is Kind.THRUST_ROLLER else 1.0)
+    load_ratio = ec * cu / (divisor * p_eff)
+    if divisor != 1.0:
+        d.add("load_ratio", "eC·Cu/P", "Load ratio for aISO", f"eC·Cu/({divisor:g}·P)",
+              "{0} × {1} / ({2} × {3})", (ec, cu, divisor, p_eff), load_ratio, "",
+              "ISO 281:2007 §9.3.2")
+    else:
+        d.add("load_ratio", "eC·Cu/P", "Load ratio for aISO", "eC·Cu/P", "{0} × {1} / {2}",
+              (ec, cu, p_eff), load_ratio, "", "ISO 281:2007 §9.3.2")
+    a = aiso(used, load_ratio, roller)
+    family = "roller" if roller else "ball"
+    return d.add("aISO", "aISO", "Systems-approach factor", f"ISO 281 {family} relation in κ, eC·Cu/P",
+                 "κ = {0}, eC·Cu/P = {1}", (used, load_ratio), a, "", "ISO 281:2007 §9.3.2",
+                 note="capped at 50" if a >= AISO_CAP else None)
+
+
+def _static(d: Derivation, case: CaseInputs, kind: Kind, arrangement: Arrangement,
+            alpha: float) -> None:
+    """P0 and s0 = C0/P0 against the minimum for the duty (ISO 76:2006; minimums common practice)."""
+    sf = static_factors(kind, arrangement, alpha)
+    p0, floored = equivalent_static_load(sf, case.fr, case.fa)
+    if not sf.radial:
+        if sf.x0 == 0.0:
+            d.add("P0", "P0", "Equivalent static load", "P0 = Fa (α = 90°)", "{0}", (case.fa,), p0,
+                  "N", sf.source)
+        else:
+            d.add("P0", "P0", "Equivalent static load", "2.3·Fr·tan α + Fa", "{0} × {1} + {2}",
+                  (sf.x0, case.fr, case.fa), p0, "N", sf.source)
+    elif kind is Kind.CYLINDRICAL:
+        d.add("P0", "P0", "Equivalent static load", "P0 = Fr", "{0}", (case.fr,), p0, "N",
+              sf.source)
+    else:
+        d.add("P0", "P0", "Equivalent static load", "max(X0·Fr + Y0·Fa, Fr)",
+              "max({0} × {1} + {2} × {3}, {1})", (sf.x0, case.fr, sf.y0, case.fa), p0, "N",
+              sf.source, note="P0 = Fr rule applied" if floored else None)
+        d.results.update(X0=sf.x0, Y0=sf.y0)
+    s0 = case.c0 / p0
+    ball_min, roller_min, duty_words = T.STATIC_SAFETY_MINIMUMS[case.static_duty]
+    if case.s0_min is not None:
+        minimum, why = case.s0_min, "the required s0"
+    else:
+        minimum = roller_min if kind in ROLLER_KINDS else ball_min
+        why = f"the common-practice minimum for {duty_words}"
+    warning = None
+    if s0 < minimum:
+        warning = f"s0 = {s0:.3g} is below {minimum:g}, {why}"
+    d.add("s0", "s0", "Static safety factor", "C0/P0", "{0} / {1}", (case.c0, p0), s0, "",
+          "ISO 76:2006 §9", warning=warning, note=f"minimum {minimum:g}: {why}")
+    d.results["s0_min"] = minimum

@@ -1,0 +1,331 @@
+"""Bearing kinds, their arrangements, and the X, Y, e and X0, Y0 factors of each.
+
+Dynamic factors follow the ISO 281:2007 Table 3 family; static factors ISO 76:2006.  Each factor
+function takes floats or numpy arrays alike (through :mod:`workbench.engine.num`) so the scalar
+derivation and the catalog sweep use this one copy.
+"""
+
+from __future__ import annotations
+
+import math
+from dataclasses import dataclass
+from enum import StrEnum
+
+import numpy as np
+
+from . import tables as T
+from .num import Num, interp, is_array, safe_ratio, where
+from .record import InputError
+
+
+class Kind(StrEnum):
+    """Bearing kinds the engine knows, by their plain trade names."""
+
+    DEEP_GROOVE = "deep-groove"
+    ANGULAR_CONTACT = "angular-contact"
+    SELF_ALIGNING = "self-aligning"
+    CYLINDRICAL = "cylindrical"
+    TAPERED = "tapered"
+    SPHERICAL = "spherical"
+    THRUST_BALL = "thrust-ball"
+    THRUST_ROLLER = "thrust-roller"
+
+
+class Arrangement(StrEnum):
+    """How the rows or the bearings of a set are arranged."""
+
+    SINGLE = "single"
+    DOUBLE_ROW = "double-row"
+    TANDEM = "tandem"
+    BACK_TO_BACK = "back-to-back"
+    FACE_TO_FACE = "face-to-face"
+
+
+KIND_WORDS: dict[Kind, str] = {
+    Kind.DEEP_GROOVE: "deep-groove ball bearing",
+    Kind.ANGULAR_CONTACT: "angular-contact ball bearing",
+    Kind.SELF_ALIGNING: "self-aligning ball bearing",
+    Kind.CYLINDRICAL: "cylindrical roller bearing",
+    Kind.TAPERED: "tapered roller bearing",
+    Kind.SPHERICAL: "spherical roller bearing",
+    Kind.THRUST_BALL: "thrust ball bearing",
+    Kind.THRUST_ROLLER: "thrust roller bearing",
+}
+
+ARRANGEMENTS: dict[Kind, tuple[Arrangement, ...]] = {
+    Kind.DEEP_GROOVE: (Arrangement.SINGLE, Arrangement.DOUBLE_ROW),
+    Kind.ANGULAR_CONTACT: (Arrangement.SINGLE, Arrangement.TANDEM, Arrangement.BACK_TO_BACK,
+                           Arrangement.FACE_TO_FACE),
+    Kind.SELF_ALIGNING: (Arrangement.DOUBLE_ROW,),
+    Kind.CYLINDRICAL: (Arrangement.SINGLE,),
+    Kind.TAPERED: (Arrangement.SINGLE, Arrangement.BACK_TO_BACK, Arrangement.FACE_TO_FACE,
+                   Arrangement.DOUBLE_ROW),
+    Kind.SPHERICAL: (Arrangement.DOUBLE_ROW,),
+    Kind.THRUST_BALL: (Arrangement.SINGLE,),
+    Kind.THRUST_ROLLER: (Arrangement.SINGLE,),
+}
+
+DEFAULT_CONTACT_ANGLE: dict[Kind, float | None] = {
+    Kind.DEEP_GROOVE: 0.0,
+    Kind.ANGULAR_CONTACT: 40.0,
+    Kind.SELF_ALIGNING: None,
+    Kind.CYLINDRICAL: 0.0,
+    Kind.TAPERED: None,
+    Kind.SPHERICAL: None,
+    Kind.THRUST_BALL: 90.0,
+    Kind.THRUST_ROLLER: 90.0,
+}
+
+ROLLER_KINDS = frozenset({Kind.CYLINDRICAL, Kind.TAPERED, Kind.SPHERICAL, Kind.THRUST_ROLLER})
+THRUST_KINDS = frozenset({Kind.THRUST_BALL, Kind.THRUST_ROLLER})
+
+
+def parse_kind(text: str) -> Kind:
+    """The :class:`Kind` named by ``text``, or an InputError listing the names."""
+    try:
+        return Kind(text)
+    except ValueError:
+        names = ", ".join(k.value for k in Kind)
+        raise InputError("kind", f"unknown bearing kind {text!r}; use one of {names}") from None
+
+
+def parse_arrangement(kind: Kind, text: str) -> Arrangement:
+    """The arrangement named by ``text``, checked against what ``kind`` allows."""
+    allowed = ARRANGEMENTS[kind]
+    if text == "single" and Arrangement.SINGLE not in allowed:
+        return allowed[0]  # self-aligning and spherical are double-row by construction
+    try:
+        arrangement = Arrangement(text)
+    except ValueError:
+        arrangement = None
+    if arrangement not in allowed:
+        names = ", ".join(a.value for a in allowed)
+        raise InputError("arrangement", f"a {KIND_WORDS[kind]} comes as {names}, not {text!r}")
+    return arrangement
+
+
+def life_exponent(kind: Kind) -> float:
+    """ISO 281:2007 §7.1: p = 3 for ball bearings, 10/3 for roller bearings."""
+    return 10.0 / 3.0 if kind in ROLLER_KINDS else 3.0
+
+
+@dataclass(slots=True)
+class DynamicFactors:
+    """e and the X, Y pair on each side of it, plus how they were found.
+
+    ``basis`` says which table or relation gave them; ``index`` is the table index used (NaN when
+    there is none) and ``clamped`` is -1/0/+1 when the index fell below / inside / above the table.
+    """
+
+    e: Num
+    x_low: Num
+    y_low: Num
+    x_high: Num
+    y_high: Num
+    basis: str
+    source: str
+    index: Num = math.nan
+    index_formula: str = ""
+    clamped: Num = 0
+
+
+def _clamp_flag(index: Num, lo: float, hi: float) -> Num:
+    """-1 below the table, +1 above it, 0 inside."""
+    if is_array(index):
+        return np.where(index < lo, -1, np.where(index > hi, 1, 0))
+    return -1 if index < lo else (1 if index > hi else 0)
+
+
+def contact_angle_from_e(e: float) -> float:
+    """Contact angle in degrees from e = 1.5·tan α (ISO 281:2007 Table 3 roller/self-aligning rows)."""
+    return math.degrees(math.atan(e / 1.5))
+
+
+def dynamic_factors(
+    kind: Kind,
+    arrangement: Arrangement,
+    alpha_deg: float,
+    fa: Num = 0.0,
+    c0: Num = 1.0,
+    f0: Num | None = None,
+    e_given: float | None = None,
+    y_given: float | None = None,
+) -> DynamicFactors:
+    """e, X and Y for the kind (ISO 281:2007 Table 3 family).
+
+    Deep-groove and 15° angular-contact bearings read e and Y from the table by f0·Fa/C0r (or by
+    Fa/C0 with f0 ≈ 12.3 folded in when f0 is not known), interpolated linearly.  Bearings with a
+    contact angle take e = 1.5·tan α and Y ∝ cot α, unless the maker's e and Y are given.
+    """
+    if kind is Kind.DEEP_GROOVE:
+        return _table_factors(
+            fa, c0, f0, T.DEEP_GROOVE_INDEX_F0, T.DEEP_GROOVE_E, T.DEEP_GROOVE_Y,
+            x_high=T.DEEP_GROOVE_X, rows=1.0, x_low=1.0, y_low=0.0,
+            what="deep-groove", source="ISO 281:2007 Table 3 (deep-groove ball)",
+        )
+    if kind is Kind.ANGULAR_CONTACT:
+        paired = arrangement in (Arrangement.BACK_TO_BACK, Arrangement.FACE_TO_FACE)
+        angle = round(alpha_deg)
+        if abs(alpha_deg - angle) > 1e-9 or angle not in T.ANGULAR_ANGLES:
+            listed = ", ".join(f"{a}°" for a in T.ANGULAR_ANGLES)
+            raise InputError(
+                "contact_angle",
+                f"angular-contact factors are tabulated at {listed}; {alpha_deg:g}° is not one of them",
+            )
+        source = "ISO 281:2007 Table 3 (angular-contact ball)"
+        if angle == 15:
+            if paired:
+                y_low = _interp_index(fa, c0, f0, T.ANGULAR_15_INDEX, T.ANGULAR_15_PAIR_Y_LOW, 2.0)
+                return _table_factors(
+                    fa, c0, f0, T.ANGULAR_15_INDEX, T.ANGULAR_15_E, T.ANGULAR_15_PAIR_Y_HIGH,
+                    x_high=T.ANGULAR_15_PAIR_X_HIGH, rows=2.0, x_low=1.0, y_low=y_low,
+                    what="15° angular-contact pair", source=source,
+                )
+            return _table_factors(
+                fa, c0, f0, T.ANGULAR_15_INDEX, T.ANGULAR_15_E, T.ANGULAR_15_Y,
+                x_high=T.ANGULAR_15_X, rows=1.0, x_low=1.0, y_low=0.0,
+                what="15° angular-contact", source=source,
+            )
+        e, xs, ys, xl, yl, xh, yh = T.ANGULAR_FIXED[angle]
+        if paired:
+            return DynamicFactors(e, xl, yl, xh, yh, f"{angle}° contact angle, pair", source)
+        return DynamicFactors(e, 1.0, 0.0, xs, ys, f"{angle}° contact angle", source)
+    if kind is Kind.CYLINDRICAL:
+        return DynamicFactors(math.inf, 1.0, 0.0, 1.0, 0.0, "α = 0: P = Fr",
+                              "ISO 281:2007 §6.2 (radial roller, α = 0)")
+    if kind in THRUST_KINDS:
+        return _thrust_factors(kind, alpha_deg)
+    return _angle_factors(kind, arrangement, alpha_deg, e_given, y_given)
+
+
+def _index(fa: Num, c0: Num, f0: Num | None, rows: float) -> tuple[Num, str]:
+    """The table index: i·f0·Fa/C0r when f0 is known, else i·12.3·Fa/C0 (the folded form)."""
+    if f0 is None:
+        return rows * T.DEEP_GROOVE_FOLDED_F0 * fa / c0, "Fa/C0 (f0 ≈ 12.3 folded in)"
+    return rows * f0 * fa / c0, "f0·Fa/C0r" if rows == 1.0 else "i·f0·Fa/C0r"
+
+
+def _interp_index(fa: Num, c0: Num, f0: Num | None, xp: tuple[float, ...],
+                  fp: tuple[float, ...], rows: float) -> Num:
+    index, _ = _index(fa, c0, f0, rows)
+    return interp(index, xp, fp)
+
+
+def _table_factors(fa: Num, c0: Num, f0: Num | None, xp: tuple[float, ...],
+                   e_col: tuple[float, ...], y_col: tuple[float, ...], *, x_high: float,
+                   rows: float, x_low: float, y_low: Num, what: str, source: str) -> DynamicFactors:
+    """Linear interpolation of e and Y in a Table 3 block, clamped (and flagged) at its ends."""
+    index, formula = _index(fa, c0, f0, rows)
+    e = interp(index, xp, e_col)
+    y = interp(index, xp, y_col)
+    basis = f"{what} table by {formula}"
+    return DynamicFactors(e, x_low, y_low, x_high, y, basis, source, index, formula,
+                          _clamp_flag(index, xp[0], xp[-1]))
+
+
+def _angle_factors(kind: Kind, arrangement: Arrangement, alpha_deg: float,
+                   e_given: float | None, y_given: float | None) -> DynamicFactors:
+    """Self-aligning ball, tapered and spherical roller: e = 1.5·tan α, Y ∝ cot α (Table 3)."""
+    tan_a = math.tan(math.radians(alpha_deg))
+    double = arrangement is not Arrangement.SINGLE
+    if kind is Kind.SELF_ALIGNING:
+        low, high_x, high = 0.42, 0.65, 0.65
+        source = "ISO 281:2007 Table 3 (self-aligning ball)"
+    elif double:
+        low, high_x, high = 0.45, 0.67, 0.67
+        source = "ISO 281:2007 Table 3 (radial roller, double row, α ≠ 0)"
+    else:
+        low, high_x, high = 0.0, 0.4, 0.4
+        source = "ISO 281:2007 Table 3 (radial roller, single row, α ≠ 0)"
+    e = 1.5 * tan_a if e_given is None else e_given
+    y_high = high / tan_a if y_given is None else y_given
+    y_low = y_high * low / high  # both rows scale with cot α
+    if e_given is not None or y_given is not None:
+        basis = "maker's e and Y" if (e_given is not None and y_given is not None) else (
+            "maker's e, Y from α" if e_given is not None else "e from α, maker's Y")
+    else:
+        basis = f"α = {alpha_deg:g}°: e = 1.5·tan α, Y ∝ cot α"
+    x_low = 1.0
+    return DynamicFactors(e, x_low, y_low, high_x, y_high, basis, source)
+
+
+def _thrust_factors(kind: Kind, alpha_deg: float) -> DynamicFactors:
+    """Thrust bearings: α = 90° gives P = Fa; α < 90° has only the Fa/Fr > e branch (Table 3)."""
+    if abs(alpha_deg - 90.0) < 1e-9:
+        return DynamicFactors(0.0, 0.0, 1.0, 0.0, 1.0, "α = 90°: P = Fa",
+                              "ISO 281:2007 §6.1/§6.2 (thrust, α = 90°)")
+    tan_a = math.tan(math.radians(alpha_deg))
+    if kind is Kind.THRUST_ROLLER:
+        if not 45.0 <= alpha_deg < 90.0:
+            raise InputError("contact_angle", "a thrust roller bearing needs 45° ≤ α ≤ 90°")
+        return DynamicFactors(1.5 * tan_a, math.nan, math.nan, tan_a, 1.0,
+                              f"α = {alpha_deg:g}°: e = 1.5·tan α, X = tan α, Y = 1",
+                              "ISO 281:2007 Table 3 (thrust roller, α ≠ 90°)")
+    angle = round(alpha_deg)
+    if abs(alpha_deg - angle) > 1e-9 or angle not in T.THRUST_BALL_X:
+        listed = ", ".join(f"{a}°" for a in T.THRUST_BALL_X)
+        raise InputError("contact_angle",
+                         f"thrust ball factors are tabulated at {listed} and 90°, not {alpha_deg:g}°")
+    return DynamicFactors(1.25 * tan_a, math.nan, math.nan, T.THRUST_BALL_X[angle], 1.0,
+                          f"α = {angle}°: e = 1.25·tan α", "ISO 281:2007 Table 3 (thrust ball, α ≠ 90°)")
+
+
+def equivalent_dynamic_load(factors: DynamicFactors, fr: Num, fa: Num,
+                            v: float = 1.0) -> tuple[Num, Num, Num]:
+    """P = X·V·Fr + Y·Fa with X, Y from the side of e that Fa/(V·Fr) falls on (ISO 281:2007 §6).
+
+    Returns ``(P, ratio, high)`` where ``high`` is true on the Fa/(V·Fr) > e branch.  Fr = 0 with
+    Fa > 0 gives ratio = ∞, so the > e branch: P = Y·Fa.
+    """
+    ratio = safe_ratio(fa, v * fr)
+    high = ratio > factors.e
+    x = where(high, factors.x_high, factors.x_low)
+    y = where(high, factors.y_high, factors.y_low)
+    return x * v * fr + y * fa, ratio, high
+
+
+@dataclass(slots=True)
+class StaticFactors:
+    """X0 and Y0 with their source; ``radial`` bearings also obey P0 ≥ Fr."""
+
+    x0: float
+    y0: float
+    radial: bool
+    source: str
+
+
+def static_factors(kind: Kind, arrangement: Arrangement, alpha_deg: float) -> StaticFactors:
+    """X0, Y0 by ISO 76:2006 §6 for each kind (from memory; deep-groove row consistent with maker data)."""
+    paired = arrangement in (Arrangement.BACK_TO_BACK, Arrangement.FACE_TO_FACE,
+                             Arrangement.DOUBLE_ROW)
+    if kind is Kind.DEEP_GROOVE:
+        return StaticFactors(T.DEEP_GROOVE_X0, T.DEEP_GROOVE_Y0, True, "ISO 76:2006 §6.1 (radial ball)")
+    if kind is Kind.ANGULAR_CONTACT:
+        y0 = T.ANGULAR_Y0_SINGLE[round(alpha_deg)]
+        if paired:
+            return StaticFactors(1.0, 2.0 * y0, True, "ISO 76:2006 §6.1 (angular-contact pair)")
+        return StaticFactors(T.ANGULAR_X0_SINGLE, y0, True, "ISO 76:2006 §6.1 (angular-contact)")
+    if kind is Kind.CYLINDRICAL:
+        return StaticFactors(1.0, 0.0, True, "ISO 76:2006 §6.2 (radial roller, α = 0)")
+    if kind in THRUST_KINDS:
+        tan_a = math.tan(math.radians(alpha_deg)) if alpha_deg < 90 else math.inf
+        x0 = 0.0 if alpha_deg >= 90 else 2.3 * tan_a
+        return StaticFactors(x0, 1.0, False, "ISO 76:2006 §7 (thrust)")
+    cot_a = 1.0 / math.tan(math.radians(alpha_deg))
+    if kind is Kind.SELF_ALIGNING:
+        return StaticFactors(1.0, 0.44 * cot_a, True, "ISO 76:2006 §6.1 (self-aligning ball)")
+    if paired:
+        return StaticFactors(1.0, 0.44 * cot_a, True, "ISO 76:2006 §6.2 (radial roller, double row)")
+    return StaticFactors(0.5, 0.22 * cot_a, True, "ISO 76:2006 §6.2 (radial roller, single row)")
+
+
+def equivalent_static_load(factors: StaticFactors, fr: Num, fa: Num) -> tuple[Num, Num]:
+    """P0 = X0·Fr + Y0·Fa, and P0 = Fr for radial bearings when that is larger (ISO 76:2006 §6).
+
+    Returns ``(P0, floored)`` where ``floored`` is true where the P0 ≥ Fr rule applied.
+    """
+    combined = factors.x0 * fr + factors.y0 * fa
+    if not factors.radial:
+        return combined, False
+    floored = combined < fr
+    return where(floored, fr, combined), floored

@@ -1,0 +1,115 @@
+"""Rating life, reliability and the systems-approach life modification factor.
+
+ISO 281:2007 §7 (basic rating life), §9.2 (a1), §9.3 (aISO, κ, eC, Cu); the three-parameter
+Weibull reliability model of the machine-design literature.  Floats or numpy arrays alike.
+"""
+
+from __future__ import annotations
+
+import math
+
+import numpy as np
+
+from . import tables as T
+from .num import Num, is_array, maximum, minimum, where
+
+AISO_CAP = 50.0
+KAPPA_MIN, KAPPA_MAX = 0.1, 4.0
+
+
+def basic_rating_life(c: Num, p_eff: Num, exponent: float) -> Num:
+    """L10 = (C/P)^p in million revolutions (ISO 281:2007 §7.1); P here already includes af."""
+    return (c / p_eff) ** exponent
+
+
+def life_hours(life_mrev: Num, speed_rpm: Num) -> Num:
+    """Hours from million revolutions at constant speed: L·10⁶/(60·n) (ISO 281:2007 §7.1)."""
+    return life_mrev * (1e6 / 60.0) / speed_rpm
+
+
+def a1_iso281(reliability: Num) -> Num:
+    """ISO 281:2007 Table 12 life modification factor for reliability, closed form.
+
+    a1 = 0.95·(ln(100/R)/ln(100/90))^(2/3) + 0.05 for 90 % ≤ R ≤ 99.95 % (R as a fraction here).
+    """
+    if is_array(reliability):
+        ratio = np.log(1.0 / reliability) / math.log(1.0 / 0.9)
+    else:
+        ratio = math.log(1.0 / reliability) / math.log(1.0 / 0.9)
+    return 0.95 * ratio ** (2.0 / 3.0) + 0.05
+
+
+def weibull_life_factor(reliability: Num, x0: float, theta: float, b: float) -> Num:
+    """Life at reliability R as a multiple of the rating life: x = x0 + (θ − x0)·(ln 1/R)^(1/b).
+
+    Three-parameter Weibull survival R = exp(−((x − x0)/(θ − x0))^b); equals
+    ``scipy.stats.weibull_min(c=b, loc=x0, scale=θ − x0).ppf(1 − R)``.
+    """
+    if is_array(reliability):
+        return x0 + (theta - x0) * np.log(1.0 / reliability) ** (1.0 / b)
+    return x0 + (theta - x0) * math.log(1.0 / reliability) ** (1.0 / b)
+
+
+def weibull_required_rating(design_load: float, design_life_x: float, reliability: float,
+                            af: float, exponent: float, x0: float, theta: float, b: float) -> float:
+    """C10 = af·FD·[xD/(x0 + (θ − x0)(ln 1/RD)^(1/b))]^(1/a): catalogue rating for a design duty."""
+    return af * design_load * (design_life_x / weibull_life_factor(reliability, x0, theta, b)) ** (
+        1.0 / exponent)
+
+
+def reference_viscosity(speed_rpm: Num, dm_mm: Num) -> Num:
+    """ν1, the rated viscosity for adequate lubrication (ISO 281:2007 §9.3.3, from memory).
+
+    ν1 = 45000·n^−0.83·dm^−0.5 for n < 1000 r/min, 4500·n^−0.5·dm^−0.5 for n ≥ 1000 r/min.
+    """
+    slow = 45000.0 * speed_rpm ** -0.83 * dm_mm ** -0.5
+    fast = 4500.0 * speed_rpm ** -0.5 * dm_mm ** -0.5
+    return where(speed_rpm < 1000.0, slow, fast)
+
+
+def fatigue_load_limit_estimate(c0: Num, dpw_mm: Num, roller: bool) -> Num:
+    """Cu from C0 when the maker gives none (ISO 281:2007 Annex B approximation, from memory).
+
+    Ball: C0/22, ×(100/dpw)^0.5 above dpw = 100 mm; roller: C0/8.2, ×(100/dpw)^0.3 above.
+    """
+    if roller:
+        base, power = c0 / 8.2, 0.3
+    else:
+        base, power = c0 / 22.0, 0.5
+    size = where(dpw_mm > 100.0, (100.0 / maximum(dpw_mm, 100.0)) ** power, 1.0)
+    return base * size
+
+
+def contamination_factor(level: str, dpw_mm: float) -> tuple[float, tuple[float, float]]:
+    """eC for a named cleanliness level: the midpoint of its range and the range itself."""
+    small, large = T.CONTAMINATION_LEVELS[level]
+    low, high = small if dpw_mm < 100.0 else large
+    return 0.5 * (low + high), (low, high)
+
+
+# ISO 281:2007 §9.3 coefficients (from memory; the pieces join at κ = 0.4 and κ = 1):
+# kind family → (c1, c2 per κ range, exponent on κ per range, outer power, load-ratio power,
+#                final exponent, load-ratio divisor)
+_AISO_BALL = (2.5671, (2.2649, 1.9987, 1.9987), (0.054381, 0.19087, 0.071739), 0.83, 1.0 / 3.0, -9.3)
+_AISO_ROLLER = (1.5859, (1.3993, 1.2348, 1.2348), (0.054381, 0.19087, 0.071739), 1.0, 0.4, -9.185)
+
+
+def aiso(kappa: Num, load_ratio: Num, roller: bool) -> Num:
+    """Systems-approach factor aISO (ISO 281:2007 §9.3.2), capped at 50.
+
+    ``kappa`` is taken as given (callers clamp it to 0.1…4 and say so); ``load_ratio`` is eC·Cu/P
+    with the thrust divisors (3 for thrust ball, 2.5 for thrust roller) already applied.
+    """
+    c1, c2s, ks, outer, load_power, final = _AISO_ROLLER if roller else _AISO_BALL
+    c2 = where(kappa < 0.4, c2s[0], where(kappa < 1.0, c2s[1], c2s[2]))
+    k = where(kappa < 0.4, ks[0], where(kappa < 1.0, ks[1], ks[2]))
+    bracket = c1 - c2 / kappa ** k
+    bracket = maximum(bracket, 0.0)
+    inner = 1.0 - bracket ** outer * load_ratio ** load_power
+    if is_array(inner):
+        with np.errstate(divide="ignore", invalid="ignore"):
+            value = np.where(inner > 0, 0.1 * np.where(inner > 0, inner, 1.0) ** final, AISO_CAP)
+        return np.minimum(value, AISO_CAP)
+    if inner <= 0.0:
+        return AISO_CAP
+    return minimum(0.1 * inner ** final, AISO_CAP)

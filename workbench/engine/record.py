@@ -1,0 +1,141 @@
+"""The derivation record: every number the workbench shows comes from one of these.
+
+A :class:`Derivation` is an ordered list of :class:`Step` objects plus a ``results`` mapping and
+the warnings raised on the way.  Steps keep their numbers raw; the text with numbers substituted
+is formatted only when something displays it (``Step.substituted``), so building a record stays
+cheap in the hot path.
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass, field
+from typing import Any
+
+
+class InputError(ValueError):
+    """A value the engine refuses, with the name of the input it belongs to."""
+
+    def __init__(self, field_name: str, message: str) -> None:
+        super().__init__(f"{field_name}: {message}")
+        self.field = field_name
+        self.message = message
+
+
+def fmt(value: float, digits: int = 4) -> str:
+    """Format a number for a derivation line: ``digits`` significant figures, no exponent clutter."""
+    if value != value:  # NaN
+        return "undefined"
+    if value in (float("inf"), float("-inf")):
+        return "∞" if value > 0 else "−∞"
+    magnitude = abs(value)
+    if magnitude != 0 and (magnitude >= 1e7 or magnitude < 1e-4):
+        return f"{value:.{digits - 1}e}"
+    text = f"{value:.{digits}g}"
+    if "e" in text:  # e.g. 1.235e+05 at 4 digits: write it out in full
+        text = f"{value:.0f}"
+    return text
+
+
+@dataclass(slots=True)
+class Step:
+    """One line of a derivation.
+
+    ``template`` is the formula with ``{0}``, ``{1}`` … where ``args`` go; ``substituted`` fills
+    them in.  ``source`` names the standard and clause or table, or says ``common practice``.
+    """
+
+    key: str
+    symbol: str
+    label: str
+    formula: str
+    template: str
+    args: tuple[float, ...]
+    value: float
+    unit: str
+    source: str
+    warning: str | None = None
+    note: str | None = None
+
+    @property
+    def substituted(self) -> str:
+        """The formula with the numbers put in, for display."""
+        if not self.args:
+            return self.template
+        return self.template.format(*(fmt(a) for a in self.args))
+
+    @property
+    def value_text(self) -> str:
+        """The result formatted for display."""
+        return fmt(self.value)
+
+    def as_dict(self) -> dict[str, Any]:
+        """Plain data for JSON output and reports."""
+        return {
+            "key": self.key,
+            "symbol": self.symbol,
+            "label": self.label,
+            "formula": self.formula,
+            "substituted": self.substituted,
+            "value": None if self.value != self.value else self.value,
+            "unit": self.unit,
+            "source": self.source,
+            "warning": self.warning,
+            "note": self.note,
+        }
+
+
+@dataclass(slots=True)
+class Derivation:
+    """Steps in order, the named results, and every warning raised while deriving."""
+
+    steps: list[Step] = field(default_factory=list)
+    results: dict[str, float] = field(default_factory=dict)
+    warnings: list[str] = field(default_factory=list)
+    notes: list[str] = field(default_factory=list)
+
+    def add(
+        self,
+        key: str,
+        symbol: str,
+        label: str,
+        formula: str,
+        template: str,
+        args: tuple[float, ...],
+        value: float,
+        unit: str,
+        source: str,
+        warning: str | None = None,
+        note: str | None = None,
+        result: bool = True,
+    ) -> float:
+        """Append a step (and, unless ``result`` is false, record it under ``key``); return value."""
+        self.steps.append(
+            Step(key, symbol, label, formula, template, args, value, unit, source, warning, note)
+        )
+        if result:
+            self.results[key] = value
+        if warning is not None:
+            self.warnings.append(warning)
+        return value
+
+    def step(self, key: str) -> Step:
+        """The last step recorded under ``key``."""
+        for item in reversed(self.steps):
+            if item.key == key:
+                return item
+        raise KeyError(key)
+
+    @property
+    def sources(self) -> list[str]:
+        """Every distinct source cited, in order of first use."""
+        return list(dict.fromkeys(s.source for s in self.steps))
+
+    def as_dict(self) -> dict[str, Any]:
+        """Plain data: ``results``, ``steps``, ``warnings``, ``notes``, ``sources``."""
+        return {
+            "results": {k: (None if v != v else v) for k, v in self.results.items()},
+            "steps": [s.as_dict() for s in self.steps],
+            "warnings": list(self.warnings),
+            "notes": list(self.notes),
+            "sources": self.sources,
+        }

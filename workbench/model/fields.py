@@ -1,0 +1,182 @@
+"""The inputs of a load case as a person types them, and their one way into engine numbers.
+
+One table, :data:`FIELDS`, names every input: its engine field, command-line flag, label, the
+quantity it measures and its unit when a bare number is typed.  The command line, the session
+files and the case editor all go through :func:`parse_field`, so "2 kN" means one thing everywhere.
+"""
+
+from __future__ import annotations
+
+import math
+from dataclasses import dataclass
+from typing import Mapping
+
+from ..engine import tables as T
+from ..engine.derive import RELIABILITY_MODELS, CaseInputs
+from ..engine.kinds import ARRANGEMENTS, Kind
+from .quantities import QuantityError, parse
+
+MAX_TEXT = 200
+
+
+@dataclass(frozen=True, slots=True)
+class FieldSpec:
+    """One input: ``kind`` is quantity, number, fraction, choice or switch."""
+
+    name: str
+    flag: str
+    label: str
+    kind: str
+    quantity: str | None = None
+    default_unit: str | None = None
+    choices: tuple[str, ...] = ()
+    required: bool = False
+    hint: str = ""
+    group: str = "case"  # "bearing" fields belong to the bearing a case uses
+
+
+CLEANLINESS_CHOICES = tuple(T.CONTAMINATION_LEVELS)
+ALL_ARRANGEMENTS = tuple(dict.fromkeys(a.value for arr in ARRANGEMENTS.values() for a in arr))
+
+FIELDS: tuple[FieldSpec, ...] = (
+    FieldSpec("kind", "--kind", "Bearing kind", "choice", choices=tuple(k.value for k in Kind),
+              required=True, group="bearing"),
+    FieldSpec("arrangement", "--arrangement", "Arrangement", "choice", choices=ALL_ARRANGEMENTS, group="bearing"),
+    FieldSpec("c", "--c", "Dynamic rating C", "quantity", "force", "N", required=True, group="bearing"),
+    FieldSpec("c0", "--c0", "Static rating C0", "quantity", "force", "N", required=True, group="bearing"),
+    FieldSpec("f0", "--f0", "Factor f0", "number", hint="ISO 76 factor; blank: Fa/C0 basis", group="bearing"),
+    FieldSpec("contact_angle", "--contact-angle", "Contact angle α", "quantity", "angle", "deg", group="bearing"),
+    FieldSpec("e_given", "--e", "Maker's e", "number", hint="tapered, spherical, self-aligning", group="bearing"),
+    FieldSpec("y_given", "--y", "Maker's Y", "number", hint="Y for Fa/Fr > e", group="bearing"),
+    FieldSpec("fr", "--fr", "Radial load Fr", "quantity", "force", "N"),
+    FieldSpec("fa", "--fa", "Axial load Fa", "quantity", "force", "N"),
+    FieldSpec("speed", "--speed", "Speed n", "quantity", "speed", "rpm"),
+    FieldSpec("af", "--af", "Application factor af", "number", hint=T.APPLICATION_FACTOR_HINT),
+    FieldSpec("outer_ring_rotates", "--outer-ring-rotates", "Outer ring rotates (V = 1.2)",
+              "switch"),
+    FieldSpec("reliability", "--reliability", "Reliability R", "fraction",
+              hint="fraction, e.g. 0.95"),
+    FieldSpec("reliability_model", "--reliability-model", "Reliability model", "choice",
+              choices=RELIABILITY_MODELS),
+    FieldSpec("weibull_x0", "--weibull-x0", "Weibull x0", "number"),
+    FieldSpec("weibull_theta", "--weibull-theta", "Weibull θ", "number"),
+    FieldSpec("weibull_b", "--weibull-b", "Weibull b", "number"),
+    FieldSpec("rating_life_mrev", "--rating-life", "Rating basis life LR", "quantity",
+              "revolutions", "Mrev", hint="revolutions at which C is rated (Weibull model)"),
+    FieldSpec("vg", "--vg", "Oil grade ISO VG", "number"),
+    FieldSpec("vi", "--vi", "Viscosity index VI", "number", hint="blank: 100"),
+    FieldSpec("nu100", "--nu100", "Viscosity at 100 °C", "quantity", "viscosity", "mm**2/s"),
+    FieldSpec("temp", "--temp", "Operating temperature", "quantity", "temperature", "degC"),
+    FieldSpec("nu", "--nu", "Operating viscosity ν", "quantity", "viscosity", "mm**2/s",
+              hint="overrides ISO VG and temperature"),
+    FieldSpec("dm", "--dm", "Mean diameter dm", "quantity", "length", "mm", group="bearing"),
+    FieldSpec("cu", "--cu", "Fatigue load limit Cu", "quantity", "force", "N",
+              hint="blank: estimated from C0", group="bearing"),
+    FieldSpec("cleanliness", "--cleanliness", "Cleanliness (or eC)", "choice",
+              choices=CLEANLINESS_CHOICES, hint="a level or a number 0–1 for eC"),
+    FieldSpec("static_duty", "--static-duty", "Static duty", "choice",
+              choices=tuple(T.STATIC_SAFETY_MINIMUMS)),
+    FieldSpec("s0_min", "--s0-min", "Required s0", "number", hint="blank: the duty's minimum"),
+)
+FIELD_BY_NAME: dict[str, FieldSpec] = {f.name: f for f in FIELDS}
+BEARING_FIELDS: tuple[str, ...] = tuple(f.name for f in FIELDS if f.group == "bearing")
+CASE_FIELDS: tuple[str, ...] = tuple(f.name for f in FIELDS if f.group == "case")
+
+
+class FieldError(ValueError):
+    """A typed value that cannot be used, naming its field."""
+
+    def __init__(self, field_name: str, message: str) -> None:
+        super().__init__(f"{field_name}: {message}")
+        self.field = field_name
+        self.message = message
+
+
+def _plain_number(spec: FieldSpec, text: str) -> float:
+    """A dimensionless number, guarded like quantities (no expressions, finite)."""
+    try:
+        value = parse(text, "dimensionless", default_unit="")
+    except QuantityError as exc:
+        raise FieldError(spec.name, exc.message) from None
+    if not math.isfinite(value):
+        raise FieldError(spec.name, "must be a finite number")
+    return value
+
+
+def parse_field(name: str, text: str) -> object:
+    """The engine value of one typed field; ``None`` for a blank optional one.
+
+    The cleanliness field returns either a level name or a float (an eC value).
+    """
+    spec = FIELD_BY_NAME[name]
+    if len(text) > MAX_TEXT:
+        raise FieldError(name, f"too long ({len(text)} characters)")
+    text = text.strip()
+    if spec.kind == "switch":
+        lowered = text.lower()
+        if lowered in ("", "no", "false", "off", "0", "inner"):
+            return False
+        if lowered in ("yes", "true", "on", "1", "outer"):
+            return True
+        raise FieldError(name, "answer yes or no")
+    if not text:
+        if spec.required:
+            raise FieldError(name, "a value is needed")
+        return None
+    if spec.kind == "choice":
+        if text in spec.choices:
+            return text
+        if name == "cleanliness":
+            value = _plain_number(spec, text)
+            if not 0.0 <= value <= 1.0:
+                raise FieldError(name, "eC lies between 0 and 1")
+            return value
+        raise FieldError(name, f"use one of {', '.join(spec.choices)}")
+    if spec.kind == "quantity":
+        try:
+            return parse(text, spec.quantity or "dimensionless", default_unit=spec.default_unit)
+        except QuantityError as exc:
+            raise FieldError(name, exc.message) from None
+    value = _plain_number(spec, text)
+    if spec.kind == "fraction" and not 0.0 < value < 1.0:
+        raise FieldError(name, "give a fraction between 0 and 1, e.g. 0.95")
+    return value
+
+
+def inputs_from_values(values: Mapping[str, object]) -> CaseInputs:
+    """CaseInputs from parsed field values (blank optional fields keep the engine's defaults)."""
+    kwargs: dict[str, object] = {}
+    for name, value in values.items():
+        if value is None:
+            continue
+        if name == "cleanliness" and isinstance(value, float):
+            kwargs["ec"] = value
+            continue
+        kwargs[name] = value
+    return CaseInputs(**kwargs)  # type: ignore[arg-type]
+
+
+def parse_texts(texts: Mapping[str, str]) -> tuple[dict[str, object], dict[str, str]]:
+    """Parse every typed field: the good values, and a message per field that failed."""
+    values: dict[str, object] = {}
+    errors: dict[str, str] = {}
+    for name, text in texts.items():
+        if name not in FIELD_BY_NAME:
+            errors[name] = "unknown input"
+            continue
+        try:
+            values[name] = parse_field(name, text)
+        except FieldError as exc:
+            errors[name] = exc.message
+    return values, errors
+
+
+def inputs_from_texts(texts: Mapping[str, str]) -> CaseInputs:
+    """CaseInputs from typed text, or a FieldError for the first field that fails."""
+    values, errors = parse_texts(texts)
+    for name, message in errors.items():
+        raise FieldError(name, message)
+    for spec in FIELDS:
+        if spec.required and values.get(spec.name) is None:
+            raise FieldError(spec.name, "a value is needed")
+    return inputs_from_values(values)

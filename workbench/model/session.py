@@ -1,0 +1,176 @@
+"""A session: the bearings, the load cases that use them, the targets, and what the solver asks.
+
+Every value is kept as the text a person typed ("5.2 kN"), so a session file reads and edits by
+hand and shows again exactly as typed; :func:`evaluate_case` turns that text into engine numbers
+through :mod:`workbench.model.fields` and runs the engine's derivation.
+"""
+
+from __future__ import annotations
+
+import math
+from dataclasses import dataclass, field
+
+from ..engine.derive import CaseInputs, derive
+from ..engine.record import Derivation, InputError
+from .quantities import QuantityError, parse
+from .fields import BEARING_FIELDS, CASE_FIELDS, FieldError, inputs_from_values, parse_field
+
+SCHEMA_VERSION = 1
+UNIT_SYSTEMS = ("SI", "US")
+
+
+@dataclass
+class Bearing:
+    """A bearing the session's cases can use; ``texts`` holds its bearing fields as typed."""
+
+    name: str
+    texts: dict[str, str] = field(default_factory=dict)
+    notes: str = ""
+
+
+@dataclass
+class LoadCase:
+    """One operating condition on one bearing; ``texts`` holds the case fields as typed."""
+
+    name: str
+    bearing: str
+    texts: dict[str, str] = field(default_factory=dict)
+    notes: str = ""
+
+
+@dataclass
+class Targets:
+    """What every case must meet: a life in hours (on Lnm), a reliability, a static safety."""
+
+    life: str = ""
+    reliability: str = "0.90"
+    s0: str = ""
+
+
+@dataclass
+class SolverSetup:
+    """The reverse question: which input is unknown, which result must reach which value."""
+
+    unknown: str = "c"
+    target: str = "Lnm=20000 h"
+    case: str = ""
+
+
+@dataclass
+class Session:
+    """Everything a colleague needs to reopen the work."""
+
+    title: str = "Untitled session"
+    engineer: str = ""
+    notes: str = ""
+    units: str = "SI"
+    targets: Targets = field(default_factory=Targets)
+    bearings: list[Bearing] = field(default_factory=list)
+    cases: list[LoadCase] = field(default_factory=list)
+    solver: SolverSetup = field(default_factory=SolverSetup)
+    reserved: dict[str, object] = field(default_factory=dict)  # duty_cycles, shafts: kept as read
+
+    def bearing(self, name: str) -> Bearing | None:
+        """The bearing called ``name``, or None."""
+        for item in self.bearings:
+            if item.name == name:
+                return item
+        return None
+
+    def case(self, name: str) -> LoadCase | None:
+        """The load case called ``name``, or None."""
+        for item in self.cases:
+            if item.name == name:
+                return item
+        return None
+
+
+@dataclass
+class CaseResult:
+    """A case evaluated: its derivation (None when it could not be derived) and what went wrong."""
+
+    case: LoadCase
+    derivation: Derivation | None
+    inputs: CaseInputs | None
+    field_errors: dict[str, str]
+    error: str | None
+    error_field: str | None
+    life_target_h: float | None
+    s0_target: float | None
+
+    @property
+    def meets_life(self) -> bool | None:
+        """True/False against the session's life target on Lnm; None when there is no verdict."""
+        if self.derivation is None or self.life_target_h is None:
+            return None
+        lnm = self.derivation.results.get("Lnm", math.nan)
+        if math.isnan(lnm):
+            return None
+        return lnm >= self.life_target_h
+
+    @property
+    def meets_s0(self) -> bool | None:
+        """True/False against the static safety minimum in force for the case."""
+        if self.derivation is None:
+            return None
+        return self.derivation.results["s0"] >= self.derivation.results["s0_min"]
+
+
+def case_texts(session: Session, case: LoadCase) -> dict[str, str]:
+    """The typed text of every input of ``case``: its bearing's fields, then its own."""
+    bearing = session.bearing(case.bearing)
+    texts = {name: "" for name in BEARING_FIELDS + CASE_FIELDS}
+    if bearing is not None:
+        texts.update({k: v for k, v in bearing.texts.items() if k in BEARING_FIELDS})
+    texts.update({k: v for k, v in case.texts.items() if k in CASE_FIELDS})
+    if not texts.get("reliability", "").strip():
+        texts["reliability"] = session.targets.reliability
+    return texts
+
+
+def parse_target(name: str, text: str) -> float | None:
+    """A session target as a number (life in h, s0 plain), None when blank."""
+    if not text.strip():
+        return None
+    try:
+        if name == "life":
+            return parse(text, "time", default_unit="h")
+        return parse(text, "dimensionless", default_unit="")
+    except QuantityError as exc:
+        raise FieldError(name, exc.message) from None
+
+
+def evaluate_case(session: Session, case: LoadCase) -> CaseResult:
+    """Parse the case's texts and derive it; every problem is returned, none is raised."""
+    texts = case_texts(session, case)
+    values: dict[str, object] = {}
+    errors: dict[str, str] = {}
+    for name, text in texts.items():
+        try:
+            values[name] = parse_field(name, text)
+        except FieldError as exc:
+            errors[name] = exc.message
+    life_target = s0_target = None
+    try:
+        life_target = parse_target("life", session.targets.life)
+        s0_target = parse_target("s0", session.targets.s0)
+    except FieldError as exc:
+        errors[f"targets.{exc.field}"] = exc.message
+    if s0_target is not None and values.get("s0_min") is None:
+        values["s0_min"] = s0_target
+    if session.bearing(case.bearing) is None:
+        errors["bearing"] = f"no bearing called {case.bearing!r} in this session"
+    if errors:
+        first = next(iter(errors))
+        return CaseResult(case, None, None, errors, errors[first], first, life_target, s0_target)
+    inputs = inputs_from_values(values)
+    try:
+        derivation = derive(inputs)
+    except InputError as exc:
+        return CaseResult(case, None, inputs, {}, exc.message, exc.field, life_target, s0_target)
+    return CaseResult(case, derivation, inputs, {}, None, None, life_target, s0_target)
+
+
+def evaluate(session: Session) -> list[CaseResult]:
+    """Every case of the session, in order."""
+    return [evaluate_case(session, case) for case in session.cases]
