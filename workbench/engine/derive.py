@@ -16,7 +16,7 @@ from . import viscosity
 from .kinds import (
     DEFAULT_CONTACT_ANGLE, KIND_WORDS, ROLLER_KINDS, THRUST_KINDS, Arrangement, Kind,
     contact_angle_from_e, dynamic_factors, equivalent_dynamic_load, equivalent_static_load,
-    life_exponent, parse_arrangement, parse_kind, static_factors,
+    life_clause, life_exponent, load_clause, parse_arrangement, parse_kind, static_factors,
 )
 from .life import (
     AISO_CAP, KAPPA_MAX, KAPPA_MIN, a1_iso281, aiso, basic_rating_life, contamination_factor,
@@ -163,18 +163,18 @@ def derive(case: CaseInputs) -> Derivation:
     p_word = "10/3 (roller)" if roller else "3 (ball)"
     if rating_mrev != 1.0:
         d.add("L10", "L10", "Basic rating life", "LR·(C/P)^p", "{0} × ({1} / {2})^{3}",
-              (rating_mrev, case.c, p_eff, exponent), l10, "10⁶ rev", "ISO 281:2007 §7.1",
+              (rating_mrev, case.c, p_eff, exponent), l10, "10⁶ rev", life_clause(kind),
               note=f"p = {p_word}; C rated at LR = {rating_mrev:g}·10⁶ revolutions")
     else:
         d.add("L10", "L10", "Basic rating life", "(C/P)^p", "({0} / {1})^{2}",
-              (case.c, p_eff, exponent), l10, "10⁶ rev", "ISO 281:2007 §7.1", note=f"p = {p_word}")
-    _hours(d, "L10h", "L10h", "Basic rating life in hours", l10, case.speed)
+              (case.c, p_eff, exponent), l10, "10⁶ rev", life_clause(kind), note=f"p = {p_word}")
+    _hours(d, "L10h", "L10h", "Basic rating life in hours", l10, case.speed, kind)
     a_rel = _reliability(d, case)
     a_iso = _lubrication(d, case, kind, p_eff)
     lnm_mrev = a_rel * a_iso * l10
     d.add("Lnm_mrev", "Lnm", "Modified rating life", "a1·aISO·L10", "{0} × {1} × {2}",
           (a_rel, a_iso, l10), lnm_mrev, "10⁶ rev", "ISO 281:2007 §9.1")
-    _hours(d, "Lnm", "Lnm", "Modified rating life in hours", lnm_mrev, case.speed)
+    _hours(d, "Lnm", "Lnm", "Modified rating life in hours", lnm_mrev, case.speed, kind)
     _static(d, case, kind, arrangement, alpha)
     return d
 
@@ -215,7 +215,7 @@ def _dynamic_load(d: Derivation, case: CaseInputs, kind: Kind, arrangement: Arra
     side = f"Fa/{vfr} > e" if high else f"Fa/{vfr} ≤ e"
     d.add("ratio", f"Fa/{vfr}", "Axial-to-radial load ratio",
           f"Fa/{vfr}, compared with e", "{0} / {1}", (case.fa, v * case.fr), ratio, "",
-          "ISO 281:2007 §6.1", note=f"branch: {side}")
+          load_clause(kind), note=f"branch: {side}")
     if kind in THRUST_KINDS and not high:
         raise InputError("fa", f"a single-direction {KIND_WORDS[kind]} needs Fa/Fr > e "
                                f"({ratio:.3g} ≤ {factors.e:.3g})")
@@ -229,10 +229,10 @@ def _dynamic_load(d: Derivation, case: CaseInputs, kind: Kind, arrangement: Arra
           "{0}", (y,), y, "", factors.source, warning=warning)
     if case.outer_ring_rotates:
         d.add("P", "P", "Equivalent dynamic load", "X·V·Fr + Y·Fa", "{0} × {1} × {2} + {3} × {4}",
-              (x, v, case.fr, y, case.fa), p, "N", "ISO 281:2007 §6.1")
+              (x, v, case.fr, y, case.fa), p, "N", load_clause(kind))
     else:
         d.add("P", "P", "Equivalent dynamic load", "X·Fr + Y·Fa", "{0} × {1} + {2} × {3}",
-              (x, case.fr, y, case.fa), p, "N", "ISO 281:2007 §6.1")
+              (x, case.fr, y, case.fa), p, "N", load_clause(kind))
 
 
 def _index_args(case: CaseInputs, arrangement: Arrangement) -> tuple[float, ...]:
@@ -252,13 +252,14 @@ def _cylindrical_axial_warning(case: CaseInputs) -> str | None:
     return None
 
 
-def _hours(d: Derivation, key: str, symbol: str, label: str, life_mrev: float, speed: float) -> None:
+def _hours(d: Derivation, key: str, symbol: str, label: str, life_mrev: float, speed: float,
+           kind: Kind) -> None:
     """A life in hours at the case speed, or an undefined value with a warning at speed 0."""
     if speed > 0.0:
         d.add(key, symbol, label, "L·10⁶/(60·n)", "{0} × 10⁶ / (60 × {1})", (life_mrev, speed),
-              life_hours(life_mrev, speed), "h", "ISO 281:2007 §7.1")
+              life_hours(life_mrev, speed), "h", life_clause(kind))
     else:
-        d.add(key, symbol, label, "L·10⁶/(60·n)", "speed is 0", (), NAN, "h", "ISO 281:2007 §7.1",
+        d.add(key, symbol, label, "L·10⁶/(60·n)", "speed is 0", (), NAN, "h", life_clause(kind),
               warning=f"speed is 0: {symbol} in hours is undefined (life in revolutions stands)")
 
 
@@ -404,5 +405,5 @@ def _static(d: Derivation, case: CaseInputs, kind: Kind, arrangement: Arrangemen
     if s0 < minimum:
         warning = f"s0 = {s0:.3g} is below {minimum:g}, {why}"
     d.add("s0", "s0", "Static safety factor", "C0/P0", "{0} / {1}", (case.c0, p0), s0, "",
-          "ISO 76:2006 §9", warning=warning, note=f"minimum {minimum:g}: {why}")
+          "ISO 76:2006 (s0 = C0/P0); minimum: common practice", warning=warning, note=f"minimum {minimum:g}: {why}")
     d.results["s0_min"] = minimum

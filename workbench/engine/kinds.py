@@ -76,6 +76,29 @@ DEFAULT_CONTACT_ANGLE: dict[Kind, float | None] = {
     Kind.THRUST_ROLLER: 90.0,
 }
 
+# ISO 281:2007 clause per family (radial ball 5, thrust ball 6, radial roller 7, thrust roller 8;
+# from memory): §n.2 the dynamic equivalent load, §n.3 the basic rating life.
+_CLAUSE: dict[Kind, int] = {
+    Kind.DEEP_GROOVE: 5, Kind.ANGULAR_CONTACT: 5, Kind.SELF_ALIGNING: 5, Kind.THRUST_BALL: 6,
+    Kind.CYLINDRICAL: 7, Kind.TAPERED: 7, Kind.SPHERICAL: 7, Kind.THRUST_ROLLER: 8,
+}
+
+
+def load_clause(kind: Kind) -> str:
+    """The ISO 281:2007 clause for the dynamic equivalent load of ``kind``."""
+    return f"ISO 281:2007 §{_CLAUSE[kind]}.2"
+
+
+def life_clause(kind: Kind) -> str:
+    """The ISO 281:2007 clause for the basic rating life of ``kind``."""
+    return f"ISO 281:2007 §{_CLAUSE[kind]}.3"
+
+
+def static_clause(kind: Kind) -> str:
+    """The ISO 76:2006 clause for the static equivalent load of ``kind`` (same numbering)."""
+    return f"ISO 76:2006 §{_CLAUSE[kind]}.2"
+
+
 ROLLER_KINDS = frozenset({Kind.CYLINDRICAL, Kind.TAPERED, Kind.SPHERICAL, Kind.THRUST_ROLLER})
 THRUST_KINDS = frozenset({Kind.THRUST_BALL, Kind.THRUST_ROLLER})
 
@@ -105,7 +128,7 @@ def parse_arrangement(kind: Kind, text: str) -> Arrangement:
 
 
 def life_exponent(kind: Kind) -> float:
-    """ISO 281:2007 §7.1: p = 3 for ball bearings, 10/3 for roller bearings."""
+    """ISO 281:2007 §5.3–§8.3: p = 3 for ball bearings, 10/3 for roller bearings."""
     return 10.0 / 3.0 if kind in ROLLER_KINDS else 3.0
 
 
@@ -192,7 +215,7 @@ def dynamic_factors(
         return DynamicFactors(e, 1.0, 0.0, xs, ys, f"{angle}° contact angle", source)
     if kind is Kind.CYLINDRICAL:
         return DynamicFactors(math.inf, 1.0, 0.0, 1.0, 0.0, "α = 0: P = Fr",
-                              "ISO 281:2007 §6.2 (radial roller, α = 0)")
+                              "ISO 281:2007 §7.2 (radial roller, α = 0)")
     if kind in THRUST_KINDS:
         return _thrust_factors(kind, alpha_deg)
     return _angle_factors(kind, arrangement, alpha_deg, e_given, y_given)
@@ -233,10 +256,10 @@ def _angle_factors(kind: Kind, arrangement: Arrangement, alpha_deg: float,
         source = "ISO 281:2007 Table 3 (self-aligning ball)"
     elif double:
         low, high_x, high = 0.45, 0.67, 0.67
-        source = "ISO 281:2007 Table 3 (radial roller, double row, α ≠ 0)"
+        source = "ISO 281:2007 §7.2 (radial roller, double row, α ≠ 0)"
     else:
         low, high_x, high = 0.0, 0.4, 0.4
-        source = "ISO 281:2007 Table 3 (radial roller, single row, α ≠ 0)"
+        source = "ISO 281:2007 §7.2 (radial roller, single row, α ≠ 0)"
     e = 1.5 * tan_a if e_given is None else e_given
     y_high = high / tan_a if y_given is None else y_given
     y_low = y_high * low / high  # both rows scale with cot α
@@ -253,21 +276,21 @@ def _thrust_factors(kind: Kind, alpha_deg: float) -> DynamicFactors:
     """Thrust bearings: α = 90° gives P = Fa; α < 90° has only the Fa/Fr > e branch (Table 3)."""
     if abs(alpha_deg - 90.0) < 1e-9:
         return DynamicFactors(0.0, 0.0, 1.0, 0.0, 1.0, "α = 90°: P = Fa",
-                              "ISO 281:2007 §6.1/§6.2 (thrust, α = 90°)")
+                              f"{load_clause(kind)} (thrust, α = 90°)")
     tan_a = math.tan(math.radians(alpha_deg))
     if kind is Kind.THRUST_ROLLER:
         if not 45.0 <= alpha_deg < 90.0:
             raise InputError("contact_angle", "a thrust roller bearing needs 45° ≤ α ≤ 90°")
         return DynamicFactors(1.5 * tan_a, math.nan, math.nan, tan_a, 1.0,
                               f"α = {alpha_deg:g}°: e = 1.5·tan α, X = tan α, Y = 1",
-                              "ISO 281:2007 Table 3 (thrust roller, α ≠ 90°)")
+                              "ISO 281:2007 §8.2 (thrust roller, α ≠ 90°)")
     angle = round(alpha_deg)
     if abs(alpha_deg - angle) > 1e-9 or angle not in T.THRUST_BALL_X:
         listed = ", ".join(f"{a}°" for a in T.THRUST_BALL_X)
         raise InputError("contact_angle",
                          f"thrust ball factors are tabulated at {listed} and 90°, not {alpha_deg:g}°")
     return DynamicFactors(1.25 * tan_a, math.nan, math.nan, T.THRUST_BALL_X[angle], 1.0,
-                          f"α = {angle}°: e = 1.25·tan α", "ISO 281:2007 Table 3 (thrust ball, α ≠ 90°)")
+                          f"α = {angle}°: e = 1.25·tan α", "ISO 281:2007 §6.2 (thrust ball, α ≠ 90°)")
 
 
 def equivalent_dynamic_load(factors: DynamicFactors, fr: Num, fa: Num,
@@ -295,32 +318,32 @@ class StaticFactors:
 
 
 def static_factors(kind: Kind, arrangement: Arrangement, alpha_deg: float) -> StaticFactors:
-    """X0, Y0 by ISO 76:2006 §6 for each kind (from memory; deep-groove row consistent with maker data)."""
+    """X0, Y0 by ISO 76:2006 §5.2–§8.2 for each kind (from memory; deep-groove row consistent with maker data)."""
     paired = arrangement in (Arrangement.BACK_TO_BACK, Arrangement.FACE_TO_FACE,
                              Arrangement.DOUBLE_ROW)
     if kind is Kind.DEEP_GROOVE:
-        return StaticFactors(T.DEEP_GROOVE_X0, T.DEEP_GROOVE_Y0, True, "ISO 76:2006 §6.1 (radial ball)")
+        return StaticFactors(T.DEEP_GROOVE_X0, T.DEEP_GROOVE_Y0, True, f"{static_clause(kind)} (radial ball)")
     if kind is Kind.ANGULAR_CONTACT:
         y0 = T.ANGULAR_Y0_SINGLE[round(alpha_deg)]
         if paired:
-            return StaticFactors(1.0, 2.0 * y0, True, "ISO 76:2006 §6.1 (angular-contact pair)")
-        return StaticFactors(T.ANGULAR_X0_SINGLE, y0, True, "ISO 76:2006 §6.1 (angular-contact)")
+            return StaticFactors(1.0, 2.0 * y0, True, f"{static_clause(kind)} (angular-contact pair)")
+        return StaticFactors(T.ANGULAR_X0_SINGLE, y0, True, f"{static_clause(kind)} (angular-contact)")
     if kind is Kind.CYLINDRICAL:
-        return StaticFactors(1.0, 0.0, True, "ISO 76:2006 §6.2 (radial roller, α = 0)")
+        return StaticFactors(1.0, 0.0, True, f"{static_clause(kind)} (radial roller, α = 0)")
     if kind in THRUST_KINDS:
         tan_a = math.tan(math.radians(alpha_deg)) if alpha_deg < 90 else math.inf
         x0 = 0.0 if alpha_deg >= 90 else 2.3 * tan_a
-        return StaticFactors(x0, 1.0, False, "ISO 76:2006 §7 (thrust)")
+        return StaticFactors(x0, 1.0, False, static_clause(kind))
     cot_a = 1.0 / math.tan(math.radians(alpha_deg))
     if kind is Kind.SELF_ALIGNING:
-        return StaticFactors(1.0, 0.44 * cot_a, True, "ISO 76:2006 §6.1 (self-aligning ball)")
+        return StaticFactors(1.0, 0.44 * cot_a, True, f"{static_clause(kind)} (self-aligning ball)")
     if paired:
-        return StaticFactors(1.0, 0.44 * cot_a, True, "ISO 76:2006 §6.2 (radial roller, double row)")
-    return StaticFactors(0.5, 0.22 * cot_a, True, "ISO 76:2006 §6.2 (radial roller, single row)")
+        return StaticFactors(1.0, 0.44 * cot_a, True, f"{static_clause(kind)} (radial roller, double row)")
+    return StaticFactors(0.5, 0.22 * cot_a, True, f"{static_clause(kind)} (radial roller, single row)")
 
 
 def equivalent_static_load(factors: StaticFactors, fr: Num, fa: Num) -> tuple[Num, Num]:
-    """P0 = X0·Fr + Y0·Fa, and P0 = Fr for radial bearings when that is larger (ISO 76:2006 §6).
+    """P0 = X0·Fr + Y0·Fa, and P0 = Fr for radial bearings when that is larger (ISO 76:2006 §5.2, §7.2).
 
     Returns ``(P0, floored)`` where ``floored`` is true where the P0 ≥ Fr rule applied.
     """

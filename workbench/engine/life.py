@@ -18,12 +18,12 @@ KAPPA_MIN, KAPPA_MAX = 0.1, 4.0
 
 
 def basic_rating_life(c: Num, p_eff: Num, exponent: float) -> Num:
-    """L10 = (C/P)^p in million revolutions (ISO 281:2007 §7.1); P here already includes af."""
+    """L10 = (C/P)^p in million revolutions (ISO 281:2007 §5.3–§8.3); P here already includes af."""
     return (c / p_eff) ** exponent
 
 
 def life_hours(life_mrev: Num, speed_rpm: Num) -> Num:
-    """Hours from million revolutions at constant speed: L·10⁶/(60·n) (ISO 281:2007 §7.1)."""
+    """Hours from million revolutions at constant speed: L·10⁶/(60·n) (ISO 281:2007 §5.3–§8.3)."""
     return life_mrev * (1e6 / 60.0) / speed_rpm
 
 

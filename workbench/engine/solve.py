@@ -78,6 +78,7 @@ class Solution:
     bracket: tuple[float, float]
     branch: str
     derivation: Derivation
+    inputs: CaseInputs
 
     def as_dict(self) -> dict[str, object]:
         """The ``solved`` object of ``calc --json``."""
@@ -181,7 +182,7 @@ def solve(case: CaseInputs, unknown: str, target: str, target_value: float) -> S
                 "brentq on [{0}, {1}]", bracket, x, spec.unit, "root finding (Brent's method)",
                 note=f"{counter[0]} evaluations, relative residual {rel:.1e}", result=False)
     return Solution(unknown, x, spec.unit, target, target_value, achieved, rel, counter[0],
-                    bracket, _branch(forward), forward)
+                    bracket, _branch(forward), forward, solved_case)
 
 
 def _grid(low: float, high: float, count: int) -> list[float]:

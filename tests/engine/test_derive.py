@@ -1,0 +1,192 @@
+"""The whole derivation of one case: hand-worked cases, bad input at the door, and properties."""
+
+from __future__ import annotations
+
+import math
+import subprocess
+import sys
+from dataclasses import replace
+
+import pytest
+from hypothesis import given, settings
+from hypothesis import strategies as st
+
+from workbench.engine.derive import CaseInputs, derive
+from workbench.engine.kinds import Kind
+from workbench.engine.record import InputError
+
+BASE = CaseInputs(kind="deep-groove", fr=5200.0, fa=2500.0, c=33000.0, c0=19000.0, f0=14.0,
+                  speed=1450.0)
+
+
+def test_hand_worked_deep_groove_high_branch() -> None:
+    """ISO 281:2007 §6.1, Table 3 and §7.1, worked by hand:
+    f0·Fa/C0r = 14·2500/19000 = 1.84211, between rows 1.38 (e 0.30, Y 1.45) and 2.07 (0.34, 1.31):
+    t = 0.669718, e = 0.326789, Y = 1.356239; Fa/Fr = 0.480769 > e, so
+    P = 0.56·5200 + 1.356239·2500 = 6302.60 N; L10 = (33000/6302.60)^3; L10h = 10⁶·L10/(60·1450)."""
+    d = derive(BASE)
+    t = (14 * 2500 / 19000 - 1.38) / (2.07 - 1.38)
+    e = 0.30 + t * 0.04
+    y = 1.45 - t * 0.14
+    p = 0.56 * 5200 + y * 2500
+    assert d.results["e"] == pytest.approx(e, rel=1e-12)
+    assert d.results["Y"] == pytest.approx(y, rel=1e-12)
+    assert d.results["X"] == 0.56
+    assert d.results["P"] == pytest.approx(p, rel=1e-12)
+    assert d.results["P"] == pytest.approx(6302.60, abs=0.01)
+    assert d.results["L10"] == pytest.approx((33000 / p) ** 3, rel=1e-12)
+    assert d.results["L10h"] == pytest.approx((33000 / p) ** 3 * 1e6 / (60 * 1450), rel=1e-12)
+    assert "Fa/Fr > e" in d.step("ratio").note
+
+
+def test_hand_worked_static_safety() -> None:
+    """ISO 76:2006: P0 = max(0.6·5200 + 0.5·2500, 5200) = 5200 N; s0 = 19000/5200."""
+    d = derive(BASE)
+    assert d.results["P0"] == pytest.approx(5200.0)
+    assert d.results["s0"] == pytest.approx(19000 / 5200)
+
+
+def test_low_branch_and_reliability_and_af() -> None:
+    """Fa/Fr ≤ e: P = Fr; af multiplies P; a1 at 95 % is the ISO 281:2007 closed form."""
+    case = replace(BASE, fa=500.0, af=1.2, reliability=0.95)
+    d = derive(case)
+    assert d.results["P"] == 5200.0
+    a1 = 0.95 * (math.log(100 / 95) / math.log(100 / 90)) ** (2 / 3) + 0.05
+    l10 = (33000 / (1.2 * 5200)) ** 3
+    assert d.results["L10"] == pytest.approx(l10, rel=1e-12)
+    assert d.results["Lnm"] == pytest.approx(a1 * l10 * 1e6 / (60 * 1450), rel=1e-12)
+
+
+def test_outer_ring_rotation_factor() -> None:
+    """V = 1.2 multiplies Fr in the branch test and in X·V·Fr (older practice, common practice)."""
+    d = derive(replace(BASE, outer_ring_rotates=True))
+    y = d.results["Y"]
+    assert d.results["P"] == pytest.approx(0.56 * 1.2 * 5200 + y * 2500)
+    assert d.step("V").value == 1.2
+
+
+def test_lubrication_chain_by_hand() -> None:
+    """aISO chain (ISO 281:2007 §9.3, from memory) with ν given: κ = ν/ν1, eC midpoint of 'normal'
+    (0.5–0.6 → 0.55), Cu = C0/22 for dpw ≤ 100 mm, ball relation for 1 ≤ κ ≤ 4."""
+    case = replace(BASE, nu=20.0, dm=60.0, cleanliness="normal")
+    d = derive(case)
+    nu1 = 4500 * 1450 ** -0.5 * 60 ** -0.5
+    kappa = 20.0 / nu1
+    ratio = 0.55 * (19000 / 22) / d.results["P"]
+    a = 0.1 * (1 - (2.5671 - 1.9987 / kappa ** 0.071739) ** 0.83 * ratio ** (1 / 3)) ** -9.3
+    assert d.results["kappa"] == pytest.approx(kappa, rel=1e-12)
+    assert d.results["aISO"] == pytest.approx(a, rel=1e-12)
+    assert d.results["Lnm"] == pytest.approx(a * d.results["L10h"], rel=1e-12)
+
+
+def test_no_lubrication_data_means_aiso_one_and_says_so() -> None:
+    """Without viscosity, dm and cleanliness aISO = 1 and the step says what is missing."""
+    d = derive(BASE)
+    assert d.results["aISO"] == 1.0
+    assert "no viscosity" in d.step("aISO").note
+
+
+def test_viscosity_from_grade_and_temperature() -> None:
+    """ISO VG 68 at 40 °C is 68 mm²/s (ISO 3448): at 40 °C the operating viscosity is ν40 itself."""
+    d = derive(replace(BASE, vg=68.0, temp=40.0, dm=60.0, cleanliness="high"))
+    assert d.results["nu"] == pytest.approx(68.0, rel=1e-9)
+    hot = derive(replace(BASE, vg=68.0, temp=80.0, dm=60.0, cleanliness="high"))
+    assert hot.results["nu"] < 68.0
+
+
+def test_speed_zero_leaves_hours_undefined() -> None:
+    """n = 0: hours are undefined and the derivation says so; revolutions still stand."""
+    d = derive(replace(BASE, speed=0.0))
+    assert math.isnan(d.results["L10h"]) and math.isnan(d.results["Lnm"])
+    assert d.results["L10"] > 0
+    assert any("speed is 0" in w for w in d.warnings)
+
+
+@pytest.mark.parametrize(
+    ("changes", "field"),
+    [
+        ({"fr": math.nan}, "fr"),
+        ({"fa": -3000.0}, "fa"),
+        ({"c": 0.0}, "c"),
+        ({"c0": math.inf}, "c0"),
+        ({"speed": -1.0}, "speed"),
+        ({"reliability": 0.5}, "reliability"),
+        ({"reliability": 0.99999}, "reliability"),
+        ({"kind": "ball"}, "kind"),
+        ({"fr": 0.0, "fa": 0.0}, "fr"),
+        ({"kind": "cylindrical", "fr": 0.0, "fa": 1000.0}, "fa"),
+        ({"kind": "thrust-ball", "fr": 1000.0}, "fr"),
+        ({"kind": "angular-contact", "contact_angle": 22.0}, "contact_angle"),
+        ({"kind": "tapered"}, "contact_angle"),
+        ({"cleanliness": "dusty"}, "cleanliness"),
+        ({"temp": 900.0}, "temp"),
+        ({"af": 0.0}, "af"),
+        ({"arrangement": "tandem"}, "arrangement"),
+    ],
+)
+def test_bad_input_names_the_input(changes: dict, field: str) -> None:
+    """Every refusal is an InputError naming the input, never a bare Python exception."""
+    with pytest.raises(InputError) as info:
+        derive(replace(BASE, **changes))
+    assert info.value.field == field
+    assert info.value.message
+
+
+def test_pure_thrust_deep_groove_is_y_times_fa() -> None:
+    """Fr = 0 with Fa > 0 on a deep-groove bearing: P = Y·Fa (ISO 281:2007 §6.1)."""
+    d = derive(replace(BASE, fr=0.0, fa=3000.0))
+    assert d.results["P"] == pytest.approx(d.results["Y"] * 3000.0)
+    assert d.results["X"] == 0.56
+
+
+def test_table_clamp_warns() -> None:
+    """An index beyond Table 3 is clamped with a warning, never extrapolated silently."""
+    d = derive(replace(BASE, fa=15000.0, f0=14.0))  # 14·15000/19000 = 11.05 > 6.89
+    assert d.results["e"] == 0.44 and d.results["Y"] == 1.0
+    assert any("outside the table" in w for w in d.warnings)
+
+
+def test_cylindrical_axial_load_warns() -> None:
+    """Cylindrical roller: P = Fr, axial load beyond common practice (0.4·Fr) is a warning."""
+    d = derive(replace(BASE, kind="cylindrical", fa=3000.0, f0=None))
+    assert d.results["P"] == 5200.0
+    assert any("ribs" in w for w in d.warnings)
+
+
+@pytest.mark.parametrize("kind", [k.value for k in Kind])
+def test_every_kind_derives(kind: str) -> None:
+    """Each kind has a derivation with the contract results and sourced steps."""
+    fr, fa, alpha = 4000.0, 1500.0, None
+    if kind in ("thrust-ball", "thrust-roller"):
+        fr = 0.0
+    if kind in ("tapered", "spherical", "self-aligning"):
+        alpha = 12.0
+    arrangement = "double-row" if kind in ("spherical", "self-aligning") else "single"
+    d = derive(CaseInputs(kind=kind, arrangement=arrangement, fr=fr, fa=fa, c=60000.0,
+                          c0=50000.0, contact_angle=alpha, speed=900.0))
+    for key in ("P", "e", "X", "Y", "L10", "L10h", "Lnm", "P0", "s0"):
+        assert key in d.results
+    assert all(step.source for step in d.steps)
+    assert d.results["L10"] == pytest.approx((60000.0 / d.results["P"]) ** (
+        10 / 3 if kind in ("cylindrical", "tapered", "spherical", "thrust-roller") else 3))
+
+
+loads = st.floats(min_value=10.0, max_value=40000.0)
+
+
+@settings(max_examples=150, deadline=None)
+@given(fr=loads, fa=st.floats(min_value=0.0, max_value=15000.0), scale=st.floats(1.01, 3.0))
+def test_life_falls_with_load_and_rises_with_rating(fr: float, fa: float, scale: float) -> None:
+    """Monotonic: scaling both loads up never raises life; raising C always does."""
+    case = replace(BASE, fr=fr, fa=fa)
+    base = derive(case).results["L10"]
+    assert derive(replace(case, fr=fr * scale, fa=fa * scale)).results["L10"] <= base * (1 + 1e-12)
+    assert derive(replace(case, c=case.c * scale)).results["L10"] > base
+
+
+def test_engine_imports_neither_textual_nor_pint() -> None:
+    """The engine layer stays free of the UI and of pint (architecture contract)."""
+    code = ("import sys, workbench.engine.derive, workbench.engine.solve; "
+            "print(any(m.split('.')[0] in ('textual', 'pint') for m in sys.modules))")
+    out = subprocess.run([sys.executable, "-c", code], capture_output=True, text=True, check=True)
+    assert out.stdout.strip() == "False"

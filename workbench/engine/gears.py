@@ -1,0 +1,174 @@
+"""Gear-mesh and belt forces on a shaft: where the bearing loads come from.
+
+Closed forms of the gear-force relations (spur, helical, straight bevel) and T = P/ω.  Floats or
+numpy arrays alike.
+
+Shaft frame used throughout the engine
+--------------------------------------
+``x`` runs along the shaft axis; ``y`` and ``z`` are transverse and (x, y, z) is right-handed.
+The shaft's sense of rotation is ``rotation = +1`` when it turns positively about +x (right-hand
+rule: thumb along +x, fingers curl the way the shaft turns) and ``−1`` the other way.
+
+:class:`MeshForces` gives the tangential load Wt and the radial load Wr as magnitudes (Wr always
+points from the mesh point toward the gear's axis; Wt opposes the motion of the mesh point on a
+driving gear and follows it on a driven one).  The axial load Wa is signed:
+
+* helical gears: Wa > 0 pushes the gear (and its shaft) toward +x.  On a driving gear turning
+  positively about +x a right-hand helix is thrust toward +x; a left hand, a driven gear or the
+  opposite rotation each flip the sign once.  So ``Wa = s_hand·s_role·rotation·Wt·tan ψ`` with
+  ``s_hand`` = +1 right / −1 left and ``s_role`` = +1 driving / −1 driven.  (This is the tooth normal
+  force being perpendicular to the tooth line; the two gears of a mesh come out equal and
+  opposite.)
+* straight bevel gears: the thrust on either member, whichever way it turns, points away from the
+  pitch-cone apex toward the back cone; Wa is returned as that positive magnitude and the caller
+  gives it the sign of the direction apex → back cone in the shaft frame.
+"""
+
+from __future__ import annotations
+
+import math
+import numbers
+from dataclasses import dataclass
+from typing import Literal
+
+import numpy as np
+
+from .num import Num, is_array
+from .record import InputError
+
+#: Shaft-load factor f in F = f·Wt for belt and chain drives, with the usual spread [common
+#: practice]: the pull on the shaft from both strands together, the belt pre-tension included, as a
+#: multiple of the effective (tangential) pull 2T/D.
+BELT_PULL_FACTORS: dict[str, tuple[float, tuple[float, float]]] = {
+    "v_belt": (2.0, (1.5, 2.5)),
+    "flat_belt": (2.5, (2.0, 3.0)),
+    "toothed_belt": (1.3, (1.1, 1.5)),
+    "chain": (1.3, (1.2, 1.5)),
+}
+V_BELT_PULL_FACTOR = BELT_PULL_FACTORS["v_belt"][0]
+
+
+@dataclass(frozen=True, slots=True)
+class MeshForces:
+    """Tangential Wt, radial Wr (magnitudes) and axial Wa (signed, see module notes), in N."""
+
+    tangential: Num
+    radial: Num
+    axial: Num
+
+
+@dataclass(frozen=True, slots=True)
+class BeltPull:
+    """Resultant pull of a belt or chain on its shaft, in N, and its y and z components."""
+
+    force: Num
+    fy: Num
+    fz: Num
+
+
+def checked(field_name: str, value: Num, *, low: float | None = None, high: float | None = None,
+            low_open: bool = False, high_open: bool = False) -> Num:
+    """``value`` if it is finite and within the bounds given, else an InputError for ``field_name``.
+
+    Works on a float or on every element of a numpy array.
+    """
+    if is_array(value):
+        values = np.asarray(value, dtype=float)
+        if values.size == 0:
+            return value
+        finite = bool(np.all(np.isfinite(values)))
+        smallest, largest = float(values.min()), float(values.max())
+    else:
+        if not isinstance(value, numbers.Real) or isinstance(value, bool):
+            raise InputError(field_name, f"a number is needed, not {value!r}")
+        finite = math.isfinite(value)
+        smallest = largest = float(value)
+    if not finite:
+        raise InputError(field_name, "must be a finite number")
+    if low is not None and (smallest < low or (low_open and smallest == low)):
+        raise InputError(field_name, f"must be {'>' if low_open else '≥'} {low:g}")
+    if high is not None and (largest > high or (high_open and largest == high)):
+        raise InputError(field_name, f"must be {'<' if high_open else '≤'} {high:g}")
+    return value
+
+
+def _tan_deg(angle_deg: Num) -> Num:
+    return np.tan(np.radians(angle_deg)) if is_array(angle_deg) else math.tan(math.radians(angle_deg))
+
+
+def _cos_deg(angle_deg: Num) -> Num:
+    return np.cos(np.radians(angle_deg)) if is_array(angle_deg) else math.cos(math.radians(angle_deg))
+
+
+def _sin_deg(angle_deg: Num) -> Num:
+    return np.sin(np.radians(angle_deg)) if is_array(angle_deg) else math.sin(math.radians(angle_deg))
+
+
+def tangential_load(torque_Nm: Num, diameter_mm: Num) -> Num:
+    """Wt = T/(d/2) in N, T in N·m and d in mm (gear-force relations; also the belt effective pull)."""
+    checked("torque", torque_Nm, low=0.0)
+    checked("diameter", diameter_mm, low=0.0, low_open=True)
+    return 2000.0 * torque_Nm / diameter_mm
+
+
+def torque_from_power(power_W: Num, speed_rpm: Num) -> Num:
+    """T = P/ω in N·m with ω = 2π·n/60 (power P in W, speed n in r/min)."""
+    checked("power", power_W, low=0.0)
+    checked("speed", speed_rpm, low=0.0, low_open=True)
+    return power_W * 60.0 / (2.0 * math.pi * speed_rpm)
+
+
+def spur_forces(torque_Nm: Num, pitch_diameter_mm: Num, pressure_angle_deg: Num) -> MeshForces:
+    """Spur gear: Wt = T/(d/2), Wr = Wt·tan φ, Wa = 0 (gear-force relations, spur gears)."""
+    checked("pressure_angle", pressure_angle_deg, low=0.0, high=90.0, low_open=True, high_open=True)
+    wt = tangential_load(torque_Nm, pitch_diameter_mm)
+    return MeshForces(wt, wt * _tan_deg(pressure_angle_deg), 0.0 * wt)
+
+
+def helical_forces(torque_Nm: Num, pitch_diameter_mm: Num, normal_pressure_angle_deg: Num,
+                   helix_angle_deg: Num, hand: Literal["left", "right"], driving: bool,
+                   *, rotation: int = 1) -> MeshForces:
+    """Helical gear: Wt = T/(d/2), Wr = Wt·tan φn/cos ψ, Wa = ±Wt·tan ψ (helical gear force relations).
+
+    ``d`` is the transverse pitch diameter.  The sign of Wa follows the module's shaft-frame
+    convention from ``hand``, ``driving`` and ``rotation`` (+1 or −1 about +x).
+    """
+    checked("normal_pressure_angle", normal_pressure_angle_deg, low=0.0, high=90.0,
+            low_open=True, high_open=True)
+    checked("helix_angle", helix_angle_deg, low=0.0, high=90.0, high_open=True)
+    if hand not in ("left", "right"):
+        raise InputError("hand", f"a helix is 'left' or 'right', not {hand!r}")
+    if rotation not in (1, -1):
+        raise InputError("rotation", f"rotation is +1 or −1 about +x, not {rotation!r}")
+    wt = tangential_load(torque_Nm, pitch_diameter_mm)
+    sign = (1 if hand == "right" else -1) * (1 if driving else -1) * rotation
+    radial = wt * _tan_deg(normal_pressure_angle_deg) / _cos_deg(helix_angle_deg)
+    return MeshForces(wt, radial, sign * wt * _tan_deg(helix_angle_deg))
+
+
+def straight_bevel_forces(torque_Nm: Num, mean_pitch_diameter_mm: Num, pressure_angle_deg: Num,
+                          pitch_cone_angle_deg: Num) -> MeshForces:
+    """Straight bevel gear: Wt at the mean pitch radius, Wr = Wt·tan φ·cos γ, Wa = Wt·tan φ·sin γ.
+
+    Gear-force relations for straight bevel gears; Wa is the magnitude of the thrust, which points
+    from the pitch-cone apex toward the back cone.
+    """
+    checked("pressure_angle", pressure_angle_deg, low=0.0, high=90.0, low_open=True, high_open=True)
+    checked("pitch_cone_angle", pitch_cone_angle_deg, low=0.0, high=90.0)
+    wt = tangential_load(torque_Nm, mean_pitch_diameter_mm)
+    separating = wt * _tan_deg(pressure_angle_deg)
+    return MeshForces(wt, separating * _cos_deg(pitch_cone_angle_deg),
+                      separating * _sin_deg(pitch_cone_angle_deg))
+
+
+def belt_pull(torque_Nm: Num, pulley_diameter_mm: Num, factor: Num = V_BELT_PULL_FACTOR,
+              direction_deg: Num = 0.0) -> BeltPull:
+    """Shaft load of a belt or chain drive: F = f·2T/D, resolved at ``direction_deg`` in the y–z plane.
+
+    ``f`` is the shaft-load factor (:data:`BELT_PULL_FACTORS`, common practice; default the V-belt
+    value).  ``direction_deg`` is the angle of the pull on the shaft, measured from +y toward +z.
+    """
+    checked("belt_pull_factor", factor, low=1.0)
+    checked("belt_direction", direction_deg)
+    force = factor * tangential_load(torque_Nm, pulley_diameter_mm)
+    return BeltPull(force, force * _cos_deg(direction_deg), force * _sin_deg(direction_deg))

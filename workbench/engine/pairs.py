@@ -1,0 +1,105 @@
+"""Axial loads of two angular-contact or tapered-roller bearings adjusted against each other.
+
+Under radial load a bearing with contact angle α > 0 pushes its rings apart axially: the induced
+axial component Fi.  With two such bearings locating a shaft in opposite directions, each
+bearing's axial load is at least its own Fi, and together with the external thrust Ka they must
+balance on the shaft.  Axial equilibrium of the shaft under that condition gives the usual
+two-bearing thrust-sharing rule (tapered: Fi = Fr/(2Y), the ISO form):
+
+* the *receiving* bearing is the one that resists the direction in which Ka pushes the shaft;
+* if Fi,other + Ka ≥ Fi,receiving: Fa,other = Fi,other and Fa,receiving = Fi,other + Ka;
+* otherwise: Fa,receiving = Fi,receiving and Fa,other = Fi,receiving − Ka.
+
+Mountings, defined by geometry (names for them differ between sources, so the geometry rules):
+
+* ``"O"`` — back-to-back (direct): the contact lines meet the axis *outside* the bearing span.
+  Each bearing pushes the shaft away from the other bearing, so a thrust on the shaft toward B
+  is taken by A, and a thrust toward A by B.
+* ``"X"`` — face-to-face (indirect): the contact lines meet the axis *inside* the span; a thrust
+  toward B is taken by B, a thrust toward A by A.
+
+Sign of the external thrust: ``external_thrust > 0`` pushes the shaft from A toward B (the +x
+direction of :mod:`workbench.engine.shaft`, where A lies at the smaller x); ``< 0`` toward A.
+"""
+
+from __future__ import annotations
+
+from typing import Literal
+
+from .gears import checked
+from .num import Num, safe_ratio
+from .record import InputError, fmt
+
+Mounting = Literal["O", "X"]
+MOUNTING_NAMES = {"O": "back-to-back (O)", "X": "face-to-face (X)"}
+
+
+def induced_thrust_tapered(fr: Num, y: Num) -> Num:
+    """Induced axial component of a single-row tapered roller bearing, Fi = Fr/(2Y).
+
+    ISO-form relation with Y the bearing's axial load factor for Fa/Fr > e (ISO 281:2007 §6
+    equivalent-load factors).
+    """
+    checked("radial_load", fr, low=0.0)
+    checked("Y", y, low=0.0, low_open=True)
+    return fr / (2.0 * y)
+
+
+def induced_thrust_angular_contact(fr: Num, e: Num, *, factor: Num | None = None) -> Num:
+    """Induced axial component of a single-row angular-contact ball bearing, Fi = e·Fr.
+
+    Taking the limiting ratio e of ISO 281:2007 Table 3 as the factor is common practice (from
+    memory); pass ``factor`` to use the maker's own factor instead of e.
+    """
+    checked("radial_load", fr, low=0.0)
+    ratio = checked("e", e, low=0.0, low_open=True) if factor is None else checked(
+        "induced_thrust_factor", factor, low=0.0)
+    return ratio * fr
+
+
+def receiving_bearing(external_thrust: float, mounting: Mounting) -> Literal["A", "B"]:
+    """The bearing of the pair that resists the external thrust's direction (see module notes)."""
+    toward_b = external_thrust >= 0.0
+    if mounting == "O":
+        return "A" if toward_b else "B"
+    return "B" if toward_b else "A"
+
+
+def share_thrust(fr_a: float, fr_b: float, induced_a: float, induced_b: float,
+                 external_thrust: float, mounting: Mounting) -> tuple[float, float, str]:
+    """Axial loads (Fa,A, Fa,B) of a bearing pair and a sentence saying which case applied.
+
+    The two-bearing thrust-sharing rule for paired angular-contact or tapered roller bearings
+    (shaft axial equilibrium with each Fa ≥ its own Fi), in ``mounting`` "O" or "X";
+    ``external_thrust`` > 0 pushes the shaft toward B.  Forces in N.
+    """
+    for name, value in (("radial_load_A", fr_a), ("radial_load_B", fr_b),
+                        ("induced_thrust_A", induced_a), ("induced_thrust_B", induced_b)):
+        checked(name, value, low=0.0)
+    checked("external_thrust", external_thrust)
+    if mounting not in MOUNTING_NAMES:
+        raise InputError("mounting", f"use 'O' (back-to-back) or 'X' (face-to-face), not {mounting!r}")
+
+    receiver = receiving_bearing(external_thrust, mounting)
+    other = "B" if receiver == "A" else "A"
+    induced = {"A": induced_a, "B": induced_b}
+    ka = abs(external_thrust)
+    toward = "B" if external_thrust >= 0.0 else "A"
+    if induced[other] + ka >= induced[receiver]:
+        fa = {other: induced[other], receiver: induced[other] + ka}
+        case = (f"Fi,{other} + Ka = {fmt(induced[other])} + {fmt(ka)} ≥ Fi,{receiver} = "
+                f"{fmt(induced[receiver])}: bearing {other} carries its own induced thrust, "
+                f"Fa,{other} = {fmt(fa[other])} N; bearing {receiver} carries "
+                f"Fa,{receiver} = Fi,{other} + Ka = {fmt(fa[receiver])} N")
+    else:
+        fa = {receiver: induced[receiver], other: induced[receiver] - ka}
+        case = (f"Fi,{other} + Ka = {fmt(induced[other])} + {fmt(ka)} < Fi,{receiver} = "
+                f"{fmt(induced[receiver])}: bearing {receiver} carries its own induced thrust, "
+                f"Fa,{receiver} = {fmt(fa[receiver])} N; bearing {other} carries "
+                f"Fa,{other} = Fi,{receiver} − Ka = {fmt(fa[other])} N")
+    ratios = ", ".join(
+        f"Fa,{side}/Fr,{side} = {fmt(safe_ratio(fa[side], fr))}"
+        for side, fr in (("A", fr_a), ("B", fr_b)))
+    explanation = (f"{MOUNTING_NAMES[mounting]}, external thrust Ka = {fmt(ka)} N toward {toward} "
+                   f"is resisted by bearing {receiver}. {case}. {ratios}.")
+    return fa["A"], fa["B"], explanation

@@ -1,0 +1,586 @@
+"""Session files: a versioned TOML layout, strict reading, safe saving, and crash recovery.
+
+The layout (schema 1) uses plain engineering words and keeps every value as the text a person
+typed, so a file reads and edits by hand::
+
+    schema = 1
+
+    [session]
+    title = "Input shaft, reducer R2"
+    engineer = "A. Person"
+    notes = ""
+    units = "SI"                 # "SI" or "US"
+
+    [targets]
+    life = "20000 h"             # on the modified rating life Lnm
+    reliability = "0.95"
+    s0 = "1.5"
+
+    [[bearings]]
+    name = "DG-40-80"
+    notes = ""
+    kind = "deep-groove"         # and every other bearing field of workbench.model.fields
+    c = "31 kN"
+
+    [[cases]]
+    name = "full load"
+    bearing = "DG-40-80"
+    notes = ""
+    fr = "5.2 kN"                # and every other case field
+
+    [solver]
+    unknown = "c"
+    target = "Lnm=20000 h"
+    case = "full load"
+
+    [duty_cycles]                # reserved: kept as read and written back unchanged
+    [shafts]                     # reserved likewise
+
+Reading is strict.  An unknown key is an error, never silently ignored: a misspelt ``fa`` would
+otherwise leave the axial load at zero and give a life that looks fine.  Every field text is
+checked with :func:`workbench.model.fields.parse_field`, so a bad unit is reported when the file
+is opened, not when a result is shown.  Errors are :class:`SessionFileError`, one line naming the
+file, the key and its line.  Keys of repeated tables are counted from 1 in the order they appear:
+``cases[2].fr`` is ``fr`` in the second ``[[cases]]`` table of the file.
+
+Saving never leaves a half-written file: the text goes to a temporary file in the same folder,
+is flushed and synced to disk, then replaces the old file in one ``os.replace``.  The version
+replaced is kept as ``NAME.toml.bak``.  The TOML writer does not keep comments, so the first time
+a file holding a person's comments is overwritten, it is copied to ``NAME.toml.orig``.
+"""
+
+from __future__ import annotations
+
+import contextlib
+import difflib
+import hashlib
+import os
+import re
+import tempfile
+import tomllib
+from dataclasses import dataclass, field
+from importlib import resources
+from pathlib import Path
+from typing import Any, Mapping
+
+import platformdirs
+import tomli_w
+
+from ..engine.solve import UNKNOWNS
+from .fields import BEARING_FIELDS, CASE_FIELDS, FieldError, parse_field
+from .session import (
+    SCHEMA_VERSION, UNIT_SYSTEMS, Bearing, LoadCase, Session, SolverSetup, Targets, parse_target,
+)
+from .targets import parse_target_text
+
+APP_NAME = "bearing-workbench"
+DEMO_SESSION = "demo.toml"
+RESERVED_TABLES = ("duty_cycles", "shafts")
+TOP_LEVEL_KEYS = ("schema", "session", "targets", "bearings", "cases", "solver") + RESERVED_TABLES
+SESSION_KEYS = ("title", "engineer", "notes", "units")
+TARGET_KEYS = ("life", "reliability", "s0")
+SOLVER_KEYS = ("unknown", "target", "case")
+BEARING_KEYS = ("name", "notes") + BEARING_FIELDS
+CASE_KEYS = ("name", "bearing", "notes") + CASE_FIELDS
+SESSION_FILE_MODE = 0o644
+RECOVERY_FILE_MODE = 0o600
+
+KeyPath = tuple[str | int, ...]  # ("cases", 2, "fr"); table indexes count from 1
+
+
+class SessionFileError(Exception):
+    """A session file that cannot be read or written; ``str()`` is one line for the user."""
+
+    def __init__(self, path: str | os.PathLike[str], message: str, key: str | None = None,
+                 line: int | None = None) -> None:
+        self.path = str(path)
+        self.message = " ".join(message.split())
+        self.key = key
+        self.line = line
+        super().__init__(self.path, self.message, key, line)
+
+    def __str__(self) -> str:
+        where = [self.path]
+        if self.line is not None:
+            where.append(f"line {self.line}")
+        if self.key:
+            where.append(self.key)
+        return f"{', '.join(where)}: {self.message}"
+
+
+@dataclass
+class SaveOutcome:
+    """What a save did: the file written, the backup and original copies, notes for the screen."""
+
+    path: Path
+    backup: Path | None = None
+    original: Path | None = None
+    messages: list[str] = field(default_factory=list)
+
+
+# ---- reading ---------------------------------------------------------------------------------
+_TOML_POSITION = re.compile(r"\s*\(at line (\d+), column (\d+)\)\s*$")
+_TOML_END = re.compile(r"\s*\(at end of document\)\s*$")
+_HEADER = re.compile(r"^\s*(\[\[?)\s*([^\[\]]+?)\s*\]\]?")
+
+
+def _key_text(path: KeyPath) -> str:
+    """``("cases", 2, "fr")`` as ``cases[2].fr``."""
+    text = ""
+    for part in path:
+        text += f"[{part}]" if isinstance(part, int) else (f".{part}" if text else part)
+    return text
+
+
+def _type_words(value: object) -> str:
+    """A TOML value's type in words, for a wrong-type message."""
+    if isinstance(value, bool):
+        return "true/false"
+    if isinstance(value, int):
+        return "a whole number"
+    if isinstance(value, float):
+        return "a number"
+    if isinstance(value, str):
+        return "text"
+    if isinstance(value, dict):
+        return "a table"
+    if isinstance(value, list):
+        return "a list"
+    return "a date or time"
+
+
+class _Reader:
+    """One pass over a parsed file, raising SessionFileError at the first problem."""
+
+    def __init__(self, text: str, source: str, check_values: bool) -> None:
+        self.lines = text.splitlines()
+        self.source = source
+        self.check_values = check_values
+        self.headers = self._headers()
+
+    def _headers(self) -> list[tuple[int, str]]:
+        """(line index, table name) of every ``[name]`` and ``[[name]]`` header line."""
+        found = []
+        for index, line in enumerate(self.lines):
+            match = _HEADER.match(line)
+            if match:
+                found.append((index, match[2].strip().strip("\"'")))
+        return found
+
+    def line_of(self, path: KeyPath) -> int | None:
+        """The 1-based line of ``path`` in the text (its table's header when the key is absent)."""
+        table = path[0] if len(path) > 1 else None
+        occurrence = path[1] if len(path) > 1 and isinstance(path[1], int) else 1
+        key = path[-1] if isinstance(path[-1], str) else None
+        if table is None:
+            start, end, header = 0, (self.headers[0][0] if self.headers else len(self.lines)), None
+        else:
+            matches = [i for i, (_, name) in enumerate(self.headers) if name == table]
+            if len(matches) < occurrence:
+                return self._key_line(0, len(self.lines), str(table))
+            number = matches[occurrence - 1]
+            header = self.headers[number][0]
+            start = header + 1
+            end = self.headers[number + 1][0] if number + 1 < len(self.headers) else len(self.lines)
+        if key is not None and key != table:
+            found = self._key_line(start, end, key)
+            if found is not None:
+                return found
+        return None if header is None else header + 1
+
+    def _key_line(self, start: int, end: int, key: str) -> int | None:
+        pattern = re.compile(rf"^\s*(?:{re.escape(key)}|\"{re.escape(key)}\"|'{re.escape(key)}')\s*=")
+        for index in range(start, end):
+            if pattern.match(self.lines[index]):
+                return index + 1
+        return None
+
+    def fail(self, path: KeyPath, message: str) -> SessionFileError:
+        """The error for ``path``, with its line found by scanning the text."""
+        return SessionFileError(self.source, message, _key_text(path), self.line_of(path))
+
+    def table(self, value: object, path: KeyPath, allowed: tuple[str, ...]) -> dict[str, Any]:
+        """A table whose keys are all in ``allowed``."""
+        if not isinstance(value, dict):
+            raise self.fail(path, f"should be a table, found {_type_words(value)}")
+        for key in value:
+            if key not in allowed:
+                close = difflib.get_close_matches(key, allowed, n=1)
+                hint = f"did you mean {close[0]!r}?" if close else f"allowed: {', '.join(allowed)}"
+                raise self.fail(path + (key,), f"unknown key {key!r}; {hint}")
+        return value
+
+    def text(self, table: Mapping[str, Any], path: KeyPath, key: str, default: str = "") -> str:
+        """A text value of ``table`` (``default`` when absent)."""
+        value = table.get(key, default)
+        if not isinstance(value, str):
+            raise self.fail(path + (key,), f'should be text in quotes, e.g. {key} = "…", '
+                                           f"found {_type_words(value)}")
+        return value
+
+    def texts(self, table: Mapping[str, Any], path: KeyPath, names: tuple[str, ...]) -> dict[str, str]:
+        """The field texts of a bearing or case table, each checked by ``parse_field``."""
+        texts = {name: self.text(table, path, name) for name in names if name in table}
+        if self.check_values:
+            for name in names:
+                try:
+                    parse_field(name, texts.get(name, ""))
+                except FieldError as exc:
+                    raise self.fail(path + (name,), exc.message) from None
+        return texts
+
+    def named_list(self, doc: Mapping[str, Any], name: str) -> list[dict[str, Any]]:
+        """An array of tables (``[[name]]``), each checked to be a table."""
+        value = doc.get(name, [])
+        if not isinstance(value, list):
+            raise self.fail((name,), f"should be [[{name}]] tables, found {_type_words(value)}")
+        return value
+
+    def unique_name(self, table: Mapping[str, Any], path: KeyPath, seen: set[str], what: str) -> str:
+        """The required, unique ``name`` of a bearing or case."""
+        name = self.text(table, path, "name")
+        if not name.strip():
+            raise self.fail(path + ("name",), f"every {what} needs a name")
+        if name in seen:
+            raise self.fail(path + ("name",), f"a second {what} called {name!r}; names must differ")
+        seen.add(name)
+        return name
+
+    def session(self, doc: dict[str, Any]) -> Session:
+        """The whole session, checked table by table."""
+        self.table(doc, (), TOP_LEVEL_KEYS)
+        self.schema(doc)
+        head = self.table(doc.get("session", {}), ("session",), SESSION_KEYS)
+        units = self.text(head, ("session",), "units", "SI")
+        if units not in UNIT_SYSTEMS:
+            raise self.fail(("session", "units"), f"use {' or '.join(UNIT_SYSTEMS)}, not {units!r}")
+        result = Session(
+            title=self.text(head, ("session",), "title", Session.title),
+            engineer=self.text(head, ("session",), "engineer"),
+            notes=self.text(head, ("session",), "notes"),
+            units=units,
+            targets=self.targets(doc),
+            bearings=self.bearings(doc),
+            solver=SolverSetup(),
+            reserved={name: doc[name] for name in RESERVED_TABLES if name in doc},
+        )
+        result.cases = self.cases(doc, {b.name for b in result.bearings})
+        result.solver = self.solver(doc, {c.name for c in result.cases})
+        return result
+
+    def schema(self, doc: Mapping[str, Any]) -> None:
+        """``schema`` present, a whole number, and not newer than this workbench reads."""
+        if "schema" not in doc:
+            raise self.fail(("schema",), f"no 'schema = {SCHEMA_VERSION}' at the top: "
+                                         "not a bearing-workbench session file")
+        version = doc["schema"]
+        if type(version) is not int:
+            raise self.fail(("schema",), f"should be a whole number, found {_type_words(version)}")
+        if version > SCHEMA_VERSION:
+            raise self.fail(("schema",), f"written by a newer workbench (schema {version}); this "
+                                         f"one reads schema {SCHEMA_VERSION}: please update it")
+        if version < 1:
+            raise self.fail(("schema",), f"unknown schema version {version}")
+
+    def targets(self, doc: Mapping[str, Any]) -> Targets:
+        """The [targets] table; life and s0 read as session targets, reliability as a fraction."""
+        path: KeyPath = ("targets",)
+        table = self.table(doc.get("targets", {}), path, TARGET_KEYS)
+        targets = Targets(**{k: self.text(table, path, k, getattr(Targets, k)) for k in TARGET_KEYS})
+        if self.check_values:
+            for key in TARGET_KEYS:
+                try:
+                    if key == "reliability":
+                        parse_field("reliability", targets.reliability)
+                    else:
+                        parse_target(key, getattr(targets, key))
+                except FieldError as exc:
+                    raise self.fail(path + (key,), exc.message) from None
+        return targets
+
+    def bearings(self, doc: Mapping[str, Any]) -> list[Bearing]:
+        """Every [[bearings]] table."""
+        seen: set[str] = set()
+        result = []
+        for number, value in enumerate(self.named_list(doc, "bearings"), start=1):
+            path: KeyPath = ("bearings", number)
+            table = self.table(value, path, BEARING_KEYS)
+            name = self.unique_name(table, path, seen, "bearing")
+            result.append(Bearing(name, self.texts(table, path, BEARING_FIELDS),
+                                  self.text(table, path, "notes")))
+        return result
+
+    def cases(self, doc: Mapping[str, Any], bearing_names: set[str]) -> list[LoadCase]:
+        """Every [[cases]] table; each names a bearing of the file."""
+        seen: set[str] = set()
+        result = []
+        for number, value in enumerate(self.named_list(doc, "cases"), start=1):
+            path: KeyPath = ("cases", number)
+            table = self.table(value, path, CASE_KEYS)
+            name = self.unique_name(table, path, seen, "case")
+            bearing = self.text(table, path, "bearing")
+            if self.check_values and bearing not in bearing_names:
+                message = (f"no bearing called {bearing!r} in this file" if bearing.strip()
+                           else "every case names the bearing it loads")
+                raise self.fail(path + ("bearing",), message)
+            result.append(LoadCase(name, bearing, self.texts(table, path, CASE_FIELDS),
+                                   self.text(table, path, "notes")))
+        return result
+
+    def solver(self, doc: Mapping[str, Any], case_names: set[str]) -> SolverSetup:
+        """The [solver] table: a known unknown, a readable target, an existing case (or none)."""
+        path: KeyPath = ("solver",)
+        table = self.table(doc.get("solver", {}), path, SOLVER_KEYS)
+        setup = SolverSetup(**{k: self.text(table, path, k, getattr(SolverSetup, k))
+                               for k in SOLVER_KEYS})
+        if not self.check_values:
+            return setup
+        if setup.unknown not in UNKNOWNS:
+            raise self.fail(path + ("unknown",), f"cannot solve for {setup.unknown!r}; "
+                                                 f"use one of {', '.join(UNKNOWNS)}")
+        try:
+            parse_target_text(setup.target)
+        except FieldError as exc:
+            raise self.fail(path + ("target",), exc.message) from None
+        if setup.case and setup.case not in case_names:
+            raise self.fail(path + ("case",), f"no case called {setup.case!r} in this file")
+        return setup
+
+
+def loads_session(text: str, source: str = "<text>", *, check_values: bool = True) -> Session:
+    """The session in TOML ``text``; ``source`` names it in errors.
+
+    Raises :class:`SessionFileError` for TOML syntax, unknown keys, wrong types, missing required
+    values, a newer schema and (unless ``check_values`` is false, as for a recovery file saved
+    mid-edit) for any field text that :func:`~workbench.model.fields.parse_field` refuses.
+    """
+    try:
+        doc = tomllib.loads(text)
+    except tomllib.TOMLDecodeError as exc:
+        message = str(exc)
+        position = _TOML_POSITION.search(message)
+        if position:
+            message = f"{message[:position.start()]} (column {position[2]})"
+            raise SessionFileError(source, f"not valid TOML: {message}",
+                                   line=int(position[1])) from None
+        message = _TOML_END.sub(" at the end of the file", message)
+        raise SessionFileError(source, f"not valid TOML: {message}") from None
+    return _Reader(text, source, check_values).session(doc)
+
+
+def load_session(path: str | os.PathLike[str], *, check_values: bool = True) -> Session:
+    """The session in the file at ``path`` (UTF-8 TOML); see :func:`loads_session`."""
+    target = Path(path)
+    if target.is_dir():
+        raise SessionFileError(target, "is a folder, not a session file")
+    try:
+        data = target.read_bytes()
+    except FileNotFoundError:
+        raise SessionFileError(target, "no such file") from None
+    except OSError as exc:
+        raise SessionFileError(target, f"cannot read it: {exc.strerror or exc}") from None
+    try:
+        text = data.decode("utf-8")
+    except UnicodeDecodeError as exc:
+        raise SessionFileError(target, f"not UTF-8 text (byte {exc.start})") from None
+    return loads_session(text, str(target), check_values=check_values)
+
+
+# ---- writing ---------------------------------------------------------------------------------
+def _field_table(head: dict[str, str], texts: Mapping[str, str], names: tuple[str, ...],
+                 owner: str) -> dict[str, str]:
+    """``head`` followed by the field texts in the order of the FIELDS table."""
+    stray = [key for key in texts if key not in names]
+    if stray:
+        raise ValueError(f"{owner} holds {', '.join(map(repr, stray))}, not a field it can have")
+    return head | {name: texts[name] for name in names if name in texts}
+
+
+def dumps_session(session: Session) -> str:
+    """The session as schema-1 TOML text (``tomli_w``); loads back equal with loads_session."""
+    stray = [key for key in session.reserved if key not in RESERVED_TABLES]
+    if stray:
+        raise ValueError(f"reserved tables are {', '.join(RESERVED_TABLES)}, not {', '.join(stray)}")
+    doc: dict[str, Any] = {
+        "schema": SCHEMA_VERSION,
+        "session": {"title": session.title, "engineer": session.engineer,
+                    "notes": session.notes, "units": session.units},
+        "targets": {key: getattr(session.targets, key) for key in TARGET_KEYS},
+    }
+    if session.bearings:
+        doc["bearings"] = [
+            _field_table({"name": b.name, "notes": b.notes}, b.texts, BEARING_FIELDS,
+                         f"bearing {b.name!r}")
+            for b in session.bearings
+        ]
+    if session.cases:
+        doc["cases"] = [
+            _field_table({"name": c.name, "bearing": c.bearing, "notes": c.notes}, c.texts,
+                         CASE_FIELDS, f"case {c.name!r}")
+            for c in session.cases
+        ]
+    doc["solver"] = {key: getattr(session.solver, key) for key in SOLVER_KEYS}
+    doc.update(session.reserved)
+    return tomli_w.dumps(doc, multiline_strings=True)
+
+
+def has_comments(text: str) -> bool:
+    """True when TOML ``text`` holds a comment: a ``#`` outside every string.
+
+    A plain scan, not a TOML parser: it follows one-line and multi-line basic and literal strings
+    (and backslash escapes in basic ones) so a ``#`` inside a value is not taken for a comment.
+    """
+    closing: str | None = None  # the delimiter of the multi-line string we are inside
+    for line in text.splitlines():
+        i, n = 0, len(line)
+        while i < n:
+            if closing is not None:
+                end = line.find(closing, i)
+                while end > 0 and closing == '"""' and line[end - 1] == "\\":
+                    end = line.find(closing, end + 1)
+                if end < 0:
+                    break
+                i, closing = end + 3, None
+                continue
+            char = line[i]
+            if char == "#":
+                return True
+            if line.startswith('"""', i) or line.startswith("'''", i):
+                closing, i = line[i:i + 3], i + 3
+            elif char == '"':
+                i += 1
+                while i < n and line[i] != '"':
+                    i += 2 if line[i] == "\\" else 1
+                i += 1
+            elif char == "'":
+                end = line.find("'", i + 1)
+                i = n if end < 0 else end + 1
+            else:
+                i += 1
+    return False
+
+
+def _sibling(path: Path, suffix: str) -> Path:
+    """``NAME.toml`` → ``NAME.toml.bak`` and the like."""
+    return path.with_name(path.name + suffix)
+
+
+def _sync_folder(folder: Path) -> None:
+    """fsync a folder so a rename in it survives a power cut (POSIX; a no-op elsewhere)."""
+    if not hasattr(os, "O_DIRECTORY"):
+        return
+    descriptor = os.open(folder, os.O_RDONLY | os.O_DIRECTORY)
+    try:
+        os.fsync(descriptor)
+    finally:
+        os.close(descriptor)
+
+
+def _atomic_write(path: Path, data: bytes, mode: int) -> None:
+    """Write ``data`` to ``path`` so that ``path`` holds either its old or its new bytes, never part.
+
+    Temporary file in the same folder, flush and fsync, then one ``os.replace``.
+    """
+    descriptor, temporary = tempfile.mkstemp(dir=path.parent, prefix=f".{path.name}.", suffix=".tmp")
+    try:
+        with os.fdopen(descriptor, "wb") as handle:
+            handle.write(data)
+            handle.flush()
+            os.fsync(handle.fileno())
+        os.chmod(temporary, mode)
+        os.replace(temporary, path)
+    except BaseException:
+        with contextlib.suppress(OSError):
+            os.unlink(temporary)
+        raise
+    _sync_folder(path.parent)
+
+
+def save_session(session: Session, path: str | os.PathLike[str]) -> SaveOutcome:
+    """Save atomically; keep the replaced version as ``.bak`` and a commented original as ``.orig``.
+
+    Raises SessionFileError when the file or its folder cannot be written.
+    """
+    target = Path(path)
+    data = dumps_session(session).encode("utf-8")
+    if target.is_dir():
+        raise SessionFileError(target, "is a folder, not a session file")
+    outcome = SaveOutcome(target)
+    try:
+        old = target.read_bytes() if target.exists() else None
+        mode = target.stat().st_mode & 0o777 if old is not None else SESSION_FILE_MODE
+        if old is not None:
+            if has_comments(old.decode("utf-8", errors="replace")):
+                original = _sibling(target, ".orig")
+                if not original.exists():
+                    _atomic_write(original, old, mode)
+                    outcome.original = original
+                    outcome.messages.append(
+                        f"{target.name} held comments, which saving does not keep: "
+                        f"the file as it was is kept as {original.name}")
+                else:
+                    outcome.messages.append(
+                        f"{target.name} held comments, which saving does not keep: the version "
+                        f"just replaced is in {target.name}.bak ({original.name} keeps the first)")
+            outcome.backup = _sibling(target, ".bak")
+            _atomic_write(outcome.backup, old, mode)
+        _atomic_write(target, data, mode)
+    except OSError as exc:
+        raise SessionFileError(target, f"cannot save: {exc.strerror or exc}") from None
+    return outcome
+
+
+# ---- recovery and the demo -------------------------------------------------------------------
+def recovery_path(session_path: str | os.PathLike[str] | None) -> Path:
+    """Where the recovery copy of ``session_path`` lives (one per absolute path; one for untitled)."""
+    folder = Path(platformdirs.user_data_dir(APP_NAME, appauthor=False)) / "recovery"
+    if session_path is None:
+        return folder / "untitled.toml"
+    absolute = Path(session_path).expanduser().absolute()
+    digest = hashlib.sha256(str(absolute).encode("utf-8")).hexdigest()[:12]
+    return folder / f"{absolute.stem}-{digest}.toml"
+
+
+def write_recovery(session: Session, session_path: str | os.PathLike[str] | None) -> Path:
+    """Write the recovery copy of an unsaved session (atomically, readable by its owner only)."""
+    target = recovery_path(session_path)
+    try:
+        target.parent.mkdir(parents=True, exist_ok=True)
+        _atomic_write(target, dumps_session(session).encode("utf-8"), RECOVERY_FILE_MODE)
+    except OSError as exc:
+        raise SessionFileError(target, f"cannot write the recovery copy: {exc.strerror or exc}") from None
+    return target
+
+
+def find_recovery(session_path: str | os.PathLike[str] | None) -> Path | None:
+    """The recovery copy of ``session_path`` if there is one newer than the file itself.
+
+    Read it with ``load_session(path, check_values=False)``: it may hold a value typed half-way.
+    """
+    candidate = recovery_path(session_path)
+    try:
+        saved_at = candidate.stat().st_mtime_ns
+    except OSError:
+        return None
+    if session_path is None:
+        return candidate
+    try:
+        file_at = Path(session_path).stat().st_mtime_ns
+    except OSError:
+        return candidate
+    return candidate if saved_at > file_at else None
+
+
+def discard_recovery(session_path: str | os.PathLike[str] | None) -> None:
+    """Remove the recovery copy of ``session_path`` (after a save, or when the person declines it)."""
+    with contextlib.suppress(FileNotFoundError):
+        recovery_path(session_path).unlink()
+
+
+def demo_session_path() -> Path:
+    """The demo session shipped in the package ``workbench.sessions`` (top-level ``sessions/``)."""
+    try:
+        folder = resources.files("workbench.sessions")
+    except ModuleNotFoundError:  # a source checkout run without installing: the folder itself
+        return Path(__file__).resolve().parents[2] / "sessions" / DEMO_SESSION
+    return Path(str(folder / DEMO_SESSION))

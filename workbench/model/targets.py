@@ -1,0 +1,53 @@
+"""Solver targets as a person types them: "Lnm=20000 h", "L10=900 Mrev", "s0=2".
+
+The name is one of :data:`workbench.engine.solve.TARGETS`; the value is read through the unit
+edge (:mod:`workbench.model.quantities`) into the engine's unit for that result: hours for the
+lives in hours, millions of revolutions (10⁶ rev) for the lives in revolutions, a plain number
+for the static safety factor s0 (ISO 76:2006 §9).
+"""
+
+from __future__ import annotations
+
+import math
+
+from ..engine.solve import TARGETS
+from .fields import FieldError
+from .quantities import QuantityError, parse
+
+MILLION_REV_SPELLINGS = ("10⁶ rev", "10^6 rev", "1e6 rev")
+
+
+def _target_value(name: str, text: str) -> float:
+    """The value text in the engine unit of result ``name``."""
+    unit = TARGETS[name][1]
+    if unit == "h":
+        return parse(text, "time", default_unit="h")
+    if unit == "10⁶ rev":
+        for spelling in MILLION_REV_SPELLINGS:
+            if text.rstrip().endswith(spelling):
+                text = text.rstrip()[: -len(spelling)] + "Mrev"
+                break
+        return parse(text, "revolutions", default_unit="Mrev")
+    return parse(text, "dimensionless", default_unit="")
+
+
+def parse_target_text(text: str) -> tuple[str, float]:
+    """``(result name, value in the engine unit)`` from text like "Lnm=20000 h".
+
+    A bare number takes the result's own unit (h, 10⁶ rev, or none for s0).  Raises
+    :class:`~workbench.model.fields.FieldError` on the field ``target`` with a one-line message.
+    """
+    name, equals, value_text = text.partition("=")
+    name = name.strip()
+    names = ", ".join(TARGETS)
+    if not equals or not name:
+        raise FieldError("target", f"write a result, '=' and a value, e.g. Lnm=20000 h ({names})")
+    if name not in TARGETS:
+        raise FieldError("target", f"unknown result {name!r}; use one of {names}")
+    try:
+        value = _target_value(name, value_text)
+    except QuantityError as exc:
+        raise FieldError("target", exc.message) from None
+    if not (math.isfinite(value) and value > 0):
+        raise FieldError("target", "the target value must be above zero")
+    return name, value
