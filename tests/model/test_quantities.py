@@ -165,7 +165,7 @@ def test_repeated_parses_do_not_touch_pint(monkeypatch: pytest.MonkeyPatch) -> N
     def no_pint() -> None:
         raise AssertionError("pint was consulted on a cached unit")
 
-    monkeypatch.setattr(quantities, "_ureg", no_pint)
+    monkeypatch.setattr(quantities, "unit_registry", no_pint)
     assert parse("7 lbf", "force") == pytest.approx(2 * first)
 
 

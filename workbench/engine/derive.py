@@ -85,19 +85,38 @@ def _check(name: str, value: float | None, *, positive: bool = False, optional: 
         raise InputError(name, "must be greater than zero" if positive else "must not be negative")
 
 
+_NON_NEGATIVE = ("fr", "fa", "speed")
+_POSITIVE = ("c", "c0", "af")
+_OPTIONAL_POSITIVE = ("f0", "e_given", "y_given", "nu", "vg", "nu100", "dm", "cu", "s0_min")
+_OPTIONAL_NON_NEGATIVE = ("vi", "ec", "contact_angle")
+_INF = math.inf
+
+
+def _plain(value: object, low_open: bool) -> bool:
+    """Fast test: a real finite number ≥ 0 (> 0 when ``low_open``); anything else goes to _check."""
+    if type(value) is not float and type(value) is not int:
+        return False
+    return (0.0 < value < _INF) if low_open else (0.0 <= value < _INF)
+
+
 def validate(case: CaseInputs) -> tuple[Kind, Arrangement, float]:
     """Check every input at the engine's door; return the kind, arrangement and contact angle."""
     kind = parse_kind(case.kind)
     arrangement = parse_arrangement(kind, case.arrangement)
-    for name in ("fr", "fa", "speed"):
-        _check(name, getattr(case, name))
-    for name in ("c", "c0", "af"):
-        _check(name, getattr(case, name), positive=True)
-    for name in ("f0", "e_given", "y_given", "nu", "vg", "vi", "nu100", "dm", "cu", "ec",
-                 "s0_min"):
-        _check(name, getattr(case, name), optional=True,
-               positive=name not in ("vi", "ec"))
-    _check("contact_angle", case.contact_angle, optional=True)
+    for name in _NON_NEGATIVE:
+        if not _plain(getattr(case, name), False):
+            _check(name, getattr(case, name))
+    for name in _POSITIVE:
+        if not _plain(getattr(case, name), True):
+            _check(name, getattr(case, name), positive=True)
+    for name in _OPTIONAL_POSITIVE:
+        value = getattr(case, name)
+        if value is not None and not _plain(value, True):
+            _check(name, value, positive=True)
+    for name in _OPTIONAL_NON_NEGATIVE:
+        value = getattr(case, name)
+        if value is not None and not _plain(value, False):
+            _check(name, value)
     if case.temp is not None and not (math.isfinite(case.temp) and -60.0 <= case.temp <= 250.0):
         raise InputError("temp", "operating temperature must lie between −60 °C and 250 °C")
     if case.ec is not None and case.ec > 1.0:

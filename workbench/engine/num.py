@@ -16,14 +16,20 @@ import numpy as np
 Num: TypeAlias = Union[float, np.ndarray]
 
 
+_ARRAY = np.ndarray
+
+
 def is_array(*values: object) -> bool:
     """True when any value is a numpy array (then the array path is taken)."""
-    return any(isinstance(v, np.ndarray) for v in values)
+    for v in values:
+        if isinstance(v, _ARRAY):
+            return True
+    return False
 
 
 def where(condition: object, if_true: Num, if_false: Num) -> Num:
     """``if_true`` where ``condition`` holds, else ``if_false`` (elementwise on arrays)."""
-    if is_array(condition, if_true, if_false):
+    if isinstance(condition, _ARRAY) or isinstance(if_true, _ARRAY) or isinstance(if_false, _ARRAY):
         return np.where(condition, if_true, if_false)
     return if_true if condition else if_false
 
@@ -44,21 +50,21 @@ def interp(x: Num, xp: Sequence[float], fp: Sequence[float]) -> Num:
 
 def minimum(a: Num, b: Num) -> Num:
     """Elementwise minimum."""
-    if is_array(a, b):
+    if isinstance(a, _ARRAY) or isinstance(b, _ARRAY):
         return np.minimum(a, b)
     return a if a < b else b
 
 
 def maximum(a: Num, b: Num) -> Num:
     """Elementwise maximum."""
-    if is_array(a, b):
+    if isinstance(a, _ARRAY) or isinstance(b, _ARRAY):
         return np.maximum(a, b)
     return a if a > b else b
 
 
 def safe_ratio(numerator: Num, denominator: Num) -> Num:
     """numerator/denominator, +inf where the denominator is zero and the numerator positive, 0 for 0/0."""
-    if is_array(numerator, denominator):
+    if isinstance(numerator, _ARRAY) or isinstance(denominator, _ARRAY):
         num = np.asarray(numerator, dtype=float)
         den = np.asarray(denominator, dtype=float)
         with np.errstate(divide="ignore", invalid="ignore"):

@@ -17,6 +17,7 @@ from .record import Derivation, InputError, fmt
 
 REL_TOL = 1e-9
 MAX_EVALUATIONS = 400
+GRID_POINTS = 25  # scan for sign changes before brentq: catches a second root or a jump
 
 
 @dataclass(frozen=True, slots=True)
@@ -157,7 +158,7 @@ def solve(case: CaseInputs, unknown: str, target: str, target_value: float) -> S
         u_low, u_high = math.log(low), math.log(high)
     else:
         u_low, u_high = low, high
-    grid = _grid(u_low, u_high, 41)
+    grid = _grid(u_low, u_high, GRID_POINTS)
     values = [residual(u) for u in grid]
     brackets, lo_val, hi_val = _sign_changes(grid, values)
     if not brackets:

@@ -108,7 +108,7 @@ def _shown(text: str) -> str:
     return text if len(text) <= 40 else text[:37] + "…"
 
 
-def _ureg() -> pint.UnitRegistry:
+def unit_registry() -> pint.UnitRegistry:
     """The pint registry, created on first use (with pint's on-disk cache when it can write one)."""
     global _registry
     if _registry is None:
@@ -125,14 +125,14 @@ def _ureg() -> pint.UnitRegistry:
 
 def _root(units: pint.Unit) -> object:
     """pint root units, keeping the radian (so angles and plain numbers stay distinct)."""
-    return _ureg().get_root_units(units)[1]
+    return unit_registry().get_root_units(units)[1]
 
 
 def _noun_for(units: pint.Unit) -> str | None:
     """The table's noun for a unit's dimension, if any quantity has it (the first row wins:
     an angle and a number of revolutions share pint's root unit, the radian)."""
     root = _root(units)
-    ureg = _ureg()
+    ureg = unit_registry()
     for spec in QUANTITIES.values():
         if _root(ureg.parse_units(spec.internal)) == root:
             return spec.noun
@@ -148,7 +148,7 @@ def _conversion(unit_text: str, quantity: str, shown: str) -> tuple[float, float
     spec = _spec(quantity)
     import pint
 
-    ureg = _ureg()
+    ureg = unit_registry()
     try:
         units = ureg.parse_units(unit_text)
     except pint.UndefinedUnitError as error:
