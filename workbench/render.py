@@ -2,25 +2,71 @@
 
 from __future__ import annotations
 
-from .engine.record import Derivation
+from typing import TYPE_CHECKING, Sequence
+
+from .engine.record import Derivation, fmt
+
+if TYPE_CHECKING:
+    from .engine.sensitivity import SensitivityItem
+
+
+def step_lines(derivation: Derivation, indent: str = "  ") -> list[str]:
+    """Numbered steps: symbol, label and source, then formula = numbers = result, notes, warnings."""
+    lines: list[str] = []
+    for index, step in enumerate(derivation.steps, start=1):
+        unit = f" {step.unit}" if step.unit else ""
+        lines.append(f"{indent}{index:2d}. {step.symbol}  {step.label}  [{step.source}]")
+        worked = [step.formula, step.substituted, f"{step.value_text}{unit}"]
+        lines.append(f"{indent}    " + "  =  ".join(dict.fromkeys(worked)))
+        if step.note:
+            lines.append(f"{indent}    note: {step.note}")
+        if step.warning:
+            lines.append(f"{indent}    WARNING: {step.warning}")
+    return lines
 
 
 def derivation_text(derivation: Derivation) -> str:
-    """Every step on its own lines: label, formula, the numbers put in, result and source."""
-    lines: list[str] = []
-    for step in derivation.steps:
-        unit = f" {step.unit}" if step.unit else ""
-        lines.append(f"{step.symbol:<9} {step.label}")
-        lines.append(f"{'':<9}   {step.formula}")
-        if step.substituted not in (step.formula, step.value_text):
-            lines.append(f"{'':<9}   = {step.substituted}")
-        lines.append(f"{'':<9}   = {step.value_text}{unit}    [{step.source}]")
-        if step.note:
-            lines.append(f"{'':<9}   note: {step.note}")
-        if step.warning:
-            lines.append(f"{'':<9}   WARNING: {step.warning}")
+    """The whole derivation as text, with its warnings gathered at the end."""
+    lines = step_lines(derivation, indent="")
     if derivation.warnings:
-        lines.append("")
-        lines.append("Warnings:")
-        lines.extend(f"  - {w}" for w in derivation.warnings)
+        lines += ["", "Warnings:", *(f"  - {w}" for w in derivation.warnings)]
     return "\n".join(lines)
+
+
+def sensitivity_text(items: Sequence[SensitivityItem]) -> str:
+    """The elasticity of life to each input as an aligned table, notes listed under it."""
+    if not items:
+        return "Sensitivity: no numeric input to vary."
+    headers = ("input", "value", "ε life", "ε s0", "−10 %", "+10 %", "method")
+    rows = [
+        (item.label, _with_unit(item.value, item.unit), _signed(item.elasticity),
+         _signed(item.elasticity_s0), _percent(item.minus10), _percent(item.plus10), item.method)
+        for item in items
+    ]
+    widths = [max(len(h), *(len(r[i]) for r in rows)) for i, h in enumerate(headers)]
+    right = (False, True, True, True, True, True, False)
+
+    def line(cells: Sequence[str]) -> str:
+        return "  ".join(c.rjust(w) if r else c.ljust(w)
+                         for c, w, r in zip(cells, widths, right)).rstrip()
+
+    lives = ", ".join(sorted({item.life for item in items}))
+    lines = [f"Sensitivity of {lives}: ε = d ln L / d ln x; ±10 % = life change for x·0.9 and x·1.1",
+             line(headers), line(["-" * w for w in widths])]
+    lines.extend(line(r) for r in rows)
+    notes = [(item.label, item.note) for item in items if item.note]
+    if notes:
+        lines += ["", "Notes:", *(f"  - {label}: {note}" for label, note in notes)]
+    return "\n".join(lines)
+
+
+def _with_unit(value: float, unit: str) -> str:
+    return f"{fmt(value)} {unit}" if unit else fmt(value)
+
+
+def _signed(value: float | None) -> str:
+    return "n/a" if value is None else f"{value + 0.0:+.3f}"
+
+
+def _percent(value: float | None) -> str:
+    return "n/a" if value is None else f"{100.0 * value + 0.0:+.1f} %"

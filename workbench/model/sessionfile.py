@@ -186,6 +186,8 @@ class _Reader:
             found = self._key_line(start, end, key)
             if found is not None:
                 return found
+        if header is None:  # a top-level name: its own table header, if it has one
+            header = next((i for i, name in self.headers if name == key), None)
         return None if header is None else header + 1
 
     def _key_line(self, start: int, end: int, key: str) -> int | None:
@@ -254,19 +256,19 @@ class _Reader:
         units = self.text(head, ("session",), "units", "SI")
         if units not in UNIT_SYSTEMS:
             raise self.fail(("session", "units"), f"use {' or '.join(UNIT_SYSTEMS)}, not {units!r}")
-        result = Session(
+        bearings = self.bearings(doc)
+        cases = self.cases(doc, {b.name for b in bearings})
+        return Session(
             title=self.text(head, ("session",), "title", Session.title),
             engineer=self.text(head, ("session",), "engineer"),
             notes=self.text(head, ("session",), "notes"),
             units=units,
             targets=self.targets(doc),
-            bearings=self.bearings(doc),
-            solver=SolverSetup(),
+            bearings=bearings,
+            cases=cases,
+            solver=self.solver(doc, {c.name for c in cases}),
             reserved={name: doc[name] for name in RESERVED_TABLES if name in doc},
         )
-        result.cases = self.cases(doc, {b.name for b in result.bearings})
-        result.solver = self.solver(doc, {c.name for c in result.cases})
-        return result
 
     def schema(self, doc: Mapping[str, Any]) -> None:
         """``schema`` present, a whole number, and not newer than this workbench reads."""
@@ -397,7 +399,10 @@ def _field_table(head: dict[str, str], texts: Mapping[str, str], names: tuple[st
 
 
 def dumps_session(session: Session) -> str:
-    """The session as schema-1 TOML text (``tomli_w``); loads back equal with loads_session."""
+    """The session as schema-1 TOML text (``tomli_w``); loads back equal with loads_session.
+
+    Raises ValueError when the session holds a key the schema has no place for.
+    """
     stray = [key for key in session.reserved if key not in RESERVED_TABLES]
     if stray:
         raise ValueError(f"reserved tables are {', '.join(RESERVED_TABLES)}, not {', '.join(stray)}")

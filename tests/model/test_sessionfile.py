@@ -1,0 +1,356 @@
+"""Session files: round trip, one-line errors with key and line, crash-safe saving, recovery.
+
+References outside the project: the TOML parser of the standard library (``tomllib``, which
+implements TOML 1.0) reads every file the workbench writes and gives the line of syntax errors;
+POSIX ``rename`` semantics (``os.replace``) are what a killed save must leave intact.
+"""
+
+from __future__ import annotations
+
+import multiprocessing
+import os
+import random
+import signal
+import time
+import tomllib
+from dataclasses import replace
+from pathlib import Path
+
+import pytest
+from hypothesis import given, settings
+from hypothesis import strategies as st
+
+from workbench.engine.solve import TARGETS, UNKNOWNS
+from workbench.model.fields import BEARING_FIELDS, CASE_FIELDS, FIELD_BY_NAME, FieldSpec
+from workbench.model.session import Bearing, LoadCase, Session, SolverSetup, Targets
+from workbench.model.sessionfile import (
+    SessionFileError,
+    demo_session_path,
+    discard_recovery,
+    dumps_session,
+    find_recovery,
+    has_comments,
+    load_session,
+    loads_session,
+    recovery_path,
+    save_session,
+    write_recovery,
+)
+
+SESSIONS = Path(__file__).resolve().parents[2] / "sessions"
+EXAMPLES = sorted(SESSIONS.glob("*.toml"))
+
+# ---- strategies: sessions whose every field text parses ------------------------------------
+UNITS = {
+    "force": ("N", "kN", "lbf"),
+    "angle": ("°", "deg"),
+    "length": ("mm", "in"),
+    "speed": ("rpm", "r/min"),
+    "revolutions": ("Mrev",),
+    "viscosity": ("mm²/s", "cSt"),
+    "temperature": ("°C", "degC"),
+}
+free_text = st.text(st.characters(blacklist_categories=("Cs",)), max_size=40)
+name_text = free_text.filter(lambda s: bool(s.strip()))
+
+
+def field_texts(spec: FieldSpec) -> st.SearchStrategy[str]:
+    """Valid typed text for one field (blank allowed where the field is optional)."""
+    if spec.kind == "choice":
+        texts = st.sampled_from(spec.choices)
+    elif spec.kind == "switch":
+        texts = st.sampled_from(("yes", "no", "true", "outer"))
+    elif spec.kind == "fraction":
+        texts = st.floats(0.01, 0.98).map(lambda v: f"{v:.3f}")
+    elif spec.kind == "number":
+        texts = st.floats(0.001, 1e5).map(lambda v: f"{v:.4g}")
+    else:
+        assert spec.quantity is not None
+        texts = st.tuples(st.floats(0.0, 200.0), st.sampled_from(UNITS[spec.quantity])).map(
+            lambda pair: f"{pair[0]:.4g} {pair[1]}")
+    return texts if spec.required else st.one_of(st.just(""), texts)
+
+
+def texts_of(names: tuple[str, ...]) -> st.SearchStrategy[dict[str, str]]:
+    specs = [FIELD_BY_NAME[n] for n in names]
+    return st.fixed_dictionaries({s.name: field_texts(s) for s in specs if s.required},
+                                 optional={s.name: field_texts(s) for s in specs if not s.required})
+
+
+@st.composite
+def sessions(draw: st.DrawFn) -> Session:
+    bearings = draw(st.lists(st.builds(Bearing, name_text, texts_of(BEARING_FIELDS), free_text),
+                             max_size=3, unique_by=lambda b: b.name))
+    cases: list[LoadCase] = []
+    if bearings:
+        bearing_names = st.sampled_from([b.name for b in bearings])
+        cases = draw(st.lists(st.builds(LoadCase, name_text, bearing_names, texts_of(CASE_FIELDS),
+                                        free_text), max_size=3, unique_by=lambda c: c.name))
+    target_value = st.floats(1.0, 1e5).map(lambda v: f"{v:.5g}")
+    solver = SolverSetup(
+        draw(st.sampled_from(sorted(UNKNOWNS))),
+        f"{draw(st.sampled_from(sorted(TARGETS)))}={draw(target_value)}",
+        draw(st.sampled_from([""] + [c.name for c in cases])),
+    )
+    targets = Targets(draw(st.one_of(st.just(""), target_value.map(lambda v: f"{v} h"))),
+                      draw(st.sampled_from(("0.9", "0.95", "0.99"))),
+                      draw(st.one_of(st.just(""), st.sampled_from(("1", "1.5", "2.5")))))
+    reserved = draw(st.fixed_dictionaries({}, optional={
+        "duty_cycles": st.fixed_dictionaries({"note": free_text}),
+        "shafts": st.lists(st.fixed_dictionaries({"name": free_text}), max_size=2),
+    }))
+    return Session(draw(free_text), draw(free_text), draw(free_text), draw(st.sampled_from(("SI", "US"))),
+                   targets, bearings, cases, solver, reserved)
+
+
+@settings(max_examples=100, deadline=None)
+@given(sessions())
+def test_any_valid_session_saves_and_loads_back_equal(session: Session) -> None:
+    text = dumps_session(session)
+    assert loads_session(text) == session
+    # the file opens with the version, and the standard-library TOML parser reads it
+    assert text.startswith("schema = 1\n")
+    assert tomllib.loads(text)["schema"] == 1
+    # a file the workbench wrote is never mistaken for one holding a person's comments
+    assert not has_comments(text)
+
+
+@pytest.mark.parametrize("path", EXAMPLES, ids=lambda p: p.name)
+def test_example_sessions_load_and_round_trip(path: Path) -> None:
+    session = load_session(path)
+    assert session.cases and session.bearings
+    assert loads_session(dumps_session(session)) == session
+    assert has_comments(path.read_text(encoding="utf-8"))  # they carry notes for the reader
+
+
+def test_demo_session_is_shipped_in_the_package() -> None:
+    path = demo_session_path()
+    assert path.name == "demo.toml" and path.is_file()
+    assert load_session(path).solver.case
+
+
+def test_reserved_tables_are_kept_as_read() -> None:
+    text = ('schema = 1\n[duty_cycles]\nblocks = [{share = 0.7, case = "a"}]\n'
+            '[[shafts]]\nname = "input"\nspan = "220 mm"\n')
+    session = loads_session(text)
+    assert session.reserved == {k: v for k, v in tomllib.loads(text).items() if k != "schema"}
+    assert loads_session(dumps_session(session)).reserved == session.reserved
+
+
+# ---- bad files: one line naming the file, the key and the line -----------------------------
+GOOD_BEARING = '[[bearings]]\nname = "B1"\nkind = "deep-groove"\nc = "30 kN"\nc0 = "18 kN"\n'
+GOOD_CASE = '[[cases]]\nname = "C1"\nbearing = "B1"\nfr = "2 kN"\n'
+
+BAD_FILES: list[tuple[str, str, str | None, int | None]] = [
+    # (id, file text, key named, line named); lines counted by hand in each text
+    ("toml-syntax", 'schema = 1\n[session]\ntitle = "unclosed\n', None, 3),
+    ("toml-syntax-at-end", "schema = 1\n[session\n", None, 2),
+    ("unknown-key", 'schema = 1\n[session]\ntitel = "x"\n', "session.titel", 3),
+    ("unknown-table", 'schema = 1\n[sesion]\ntitle = "x"\n', "sesion", 2),
+    ("unknown-case-field", f"schema = 1\n{GOOD_BEARING}{GOOD_CASE}fa_n = \"1 kN\"\n",
+     "cases[1].fa_n", 11),
+    ("number-not-text", 'schema = 1\n[[bearings]]\nname = "B1"\nkind = "deep-groove"\nc = 30000\n'
+     'c0 = "18 kN"\n', "bearings[1].c", 5),
+    ("table-not-text", 'schema = 1\n[session]\ntitle = {a = 1}\n', "session.title", 3),
+    ("list-not-tables", 'schema = 1\nbearings = "B1"\n', "bearings", 2),
+    ("bad-unit", f'schema = 1\n{GOOD_BEARING}{GOOD_CASE}[[cases]]\nname = "C2"\nbearing = "B1"\n'
+     'fr = "2 kNN"\n', "cases[2].fr", 14),
+    ("wrong-dimension", f"schema = 1\n{GOOD_BEARING}{GOOD_CASE}speed = \"3 kg\"\n",
+     "cases[1].speed", 11),
+    ("bad-choice", f"schema = 1\n{GOOD_BEARING}{GOOD_CASE}cleanliness = \"spotless\"\n",
+     "cases[1].cleanliness", 11),
+    ("fraction-out-of-range", 'schema = 1\n[targets]\nreliability = "95"\n', "targets.reliability", 3),
+    ("bad-life-target", 'schema = 1\n[targets]\nlife = "20000 N"\n', "targets.life", 3),
+    ("missing-rating", 'schema = 1\n[[bearings]]\nname = "B1"\nkind = "deep-groove"\nc0 = "18 kN"\n',
+     "bearings[1].c", 2),
+    ("missing-name", 'schema = 1\n[[bearings]]\nkind = "deep-groove"\n', "bearings[1].name", 2),
+    ("case-without-bearing", f"schema = 1\n{GOOD_BEARING}[[cases]]\nname = \"C1\"\n",
+     "cases[1].bearing", 7),
+    ("case-unknown-bearing", f"schema = 1\n{GOOD_BEARING}{GOOD_CASE}".replace('bearing = "B1"',
+                                                                            'bearing = "B9"'),
+     "cases[1].bearing", 9),
+    ("duplicate-name", f"schema = 1\n{GOOD_BEARING}{GOOD_BEARING}", "bearings[2].name", 8),
+    ("units", 'schema = 1\n[session]\nunits = "metric"\n', "session.units", 3),
+    ("solver-unknown", 'schema = 1\n[solver]\nunknown = "colour"\n', "solver.unknown", 3),
+    ("solver-target", 'schema = 1\n[solver]\ntarget = "Lnm 20000"\n', "solver.target", 3),
+    ("solver-case", 'schema = 1\n[solver]\ncase = "nowhere"\n', "solver.case", 3),
+    ("newer-schema", "schema = 2\n", "schema", 1),
+    ("schema-not-number", 'schema = "1"\n', "schema", 1),
+    ("no-schema", '[session]\ntitle = "x"\n', "schema", None),
+]
+
+
+@pytest.mark.parametrize(("text", "key", "line"), [b[1:] for b in BAD_FILES],
+                         ids=[b[0] for b in BAD_FILES])
+def test_bad_file_names_key_and_line(tmp_path: Path, text: str, key: str | None,
+                                     line: int | None) -> None:
+    path = tmp_path / "bad.toml"
+    path.write_text(text, encoding="utf-8")
+    with pytest.raises(SessionFileError) as caught:
+        load_session(path)
+    error = caught.value
+    assert (error.key, error.line) == (key, line)
+    message = str(error)
+    assert "\n" not in message and message.startswith(str(path))
+    if key:
+        assert key in message
+    if line:
+        assert f"line {line}" in message
+
+
+def test_syntax_error_line_agrees_with_tomllib() -> None:
+    # reference: the standard library's own report of where the TOML goes wrong
+    text = 'schema = 1\n\n[session]\ntitle = "a"\nengineer = = "b"\n'
+    with pytest.raises(tomllib.TOMLDecodeError) as reference:
+        tomllib.loads(text)
+    with pytest.raises(SessionFileError) as caught:
+        loads_session(text, "x.toml")
+    assert f"line {caught.value.line}," in str(reference.value)
+
+
+@pytest.mark.parametrize("kind", ["missing", "folder", "under-a-file", "not-utf8"])
+def test_unreadable_paths(tmp_path: Path, kind: str) -> None:
+    blocker = tmp_path / "plain.txt"
+    blocker.write_text("x", encoding="utf-8")
+    latin = tmp_path / "latin.toml"
+    latin.write_bytes('schema = 1\n[session]\ntitle = "Müller"\n'.encode("latin-1"))
+    path = {"missing": tmp_path / "none.toml", "folder": tmp_path,
+            "under-a-file": blocker / "x.toml", "not-utf8": latin}[kind]
+    with pytest.raises(SessionFileError) as caught:
+        load_session(path)
+    assert str(caught.value).startswith(str(path)) and "\n" not in str(caught.value)
+
+
+def test_values_unchecked_for_a_recovery_copy() -> None:
+    text = f"schema = 1\n{GOOD_BEARING}{GOOD_CASE}fa = \"1.5 k\"\n"
+    with pytest.raises(SessionFileError):
+        loads_session(text)
+    assert loads_session(text, check_values=False).cases[0].texts["fa"] == "1.5 k"
+    with pytest.raises(SessionFileError):  # structure is still checked
+        loads_session(text + "colour = \"red\"\n", check_values=False)
+
+
+# ---- saving ----------------------------------------------------------------------------------
+def small_session(title: str, notes: str = "") -> Session:
+    return Session(title=title, notes=notes,
+                   bearings=[Bearing("B1", {"kind": "deep-groove", "c": "30 kN", "c0": "18 kN"})],
+                   cases=[LoadCase("C1", "B1", {"fr": "2 kN", "speed": "900 rpm"})])
+
+
+def test_save_keeps_previous_version_as_bak(tmp_path: Path) -> None:
+    path = tmp_path / "work.toml"
+    first = save_session(small_session("one"), path)
+    assert first.backup is None and first.original is None and first.messages == []
+    second = save_session(small_session("two"), path)
+    assert second.backup == tmp_path / "work.toml.bak"
+    assert load_session(second.backup).title == "one"
+    assert load_session(path).title == "two"
+    assert sorted(p.name for p in tmp_path.iterdir()) == ["work.toml", "work.toml.bak"]
+
+
+def test_commented_file_is_copied_to_orig_once(tmp_path: Path) -> None:
+    path = tmp_path / "hand.toml"
+    handwritten = dumps_session(small_session("by hand")).replace(
+        'units = "SI"', 'units = "SI"  # we report in SI')
+    path.write_text(handwritten, encoding="utf-8")
+    outcome = save_session(small_session("saved"), path)
+    assert outcome.original == tmp_path / "hand.toml.orig"
+    assert outcome.original.read_text(encoding="utf-8") == handwritten
+    assert any("hand.toml.orig" in m for m in outcome.messages)
+    # comments written again later do not replace the first original
+    path.write_text(path.read_text(encoding="utf-8") + "# later note\n", encoding="utf-8")
+    again = save_session(small_session("saved again"), path)
+    assert again.original is None and again.messages
+    assert outcome.original.read_text(encoding="utf-8") == handwritten
+
+
+@pytest.mark.parametrize(("text", "expected"), [
+    ('a = "x" # note\n', True),
+    ("# heading\na = 1\n", True),
+    ('a = "#1 pump"\n', False),
+    ("a = '#1 pump'\n", False),
+    ('a = "quote \\" # still text"\n', False),
+    ('a = """\nline # inside\n"""\n', False),
+    ("a = '''\n# inside\n'''\nb = 1 # after\n", True),
+])
+def test_comment_detection(text: str, expected: bool) -> None:
+    assert tomllib.loads(text)  # each sample is valid TOML (reference: tomllib)
+    assert has_comments(text) is expected
+
+
+def test_save_into_missing_folder_is_a_session_file_error(tmp_path: Path) -> None:
+    with pytest.raises(SessionFileError) as caught:
+        save_session(small_session("x"), tmp_path / "no" / "such.toml")
+    assert "cannot save" in str(caught.value)
+
+
+def _save_forever(path: str, first: Session, second: Session) -> None:
+    """Child process: save the two versions in turn until killed."""
+    versions = (first, second)
+    count = 0
+    while True:
+        save_session(versions[count % 2], path)
+        count += 1
+
+
+def test_save_killed_mid_write_leaves_old_or_new(tmp_path: Path) -> None:
+    # Each saving process is killed with SIGKILL at a random moment (seeded); POSIX rename is
+    # atomic, so the file must always read back as one whole version.
+    path = tmp_path / "crash.toml"
+    bulk = "n" * 20_000  # a save takes a few ms, so kills land in every phase of it
+    first, second = small_session("first", bulk), small_session("second", bulk[:-1] + "s")
+    save_session(first, path)
+    rng = random.Random(281)
+    context = multiprocessing.get_context("fork")  # a child process that starts at once
+    started = time.monotonic()
+    titles = set()
+    for _ in range(30):
+        child = context.Process(target=_save_forever, args=(str(path), first, second))
+        child.start()
+        time.sleep(rng.uniform(0.005, 0.08))
+        assert child.pid is not None
+        os.kill(child.pid, signal.SIGKILL)
+        child.join()
+        loaded = load_session(path)
+        assert loaded in (first, second)
+        titles.add(loaded.title)
+        backup = path.with_name("crash.toml.bak")
+        if backup.exists():
+            assert load_session(backup) in (first, second)
+    assert titles == {"first", "second"}  # the children really did save between kills
+    assert time.monotonic() - started < 15
+
+
+# ---- recovery --------------------------------------------------------------------------------
+@pytest.fixture
+def data_home(tmp_path: Path, monkeypatch: pytest.MonkeyPatch) -> Path:
+    """platformdirs reads XDG_DATA_HOME on Linux: point it at a temporary folder."""
+    home = tmp_path / "data"
+    monkeypatch.setenv("XDG_DATA_HOME", str(home))
+    return home
+
+
+@pytest.mark.skipif(os.name != "posix", reason="XDG_DATA_HOME is read on Linux")
+def test_recovery_lifecycle(tmp_path: Path, data_home: Path) -> None:
+    path = tmp_path / "work.toml"
+    save_session(small_session("saved"), path)
+    assert find_recovery(path) is None
+    edited = replace(small_session("edited"), cases=[LoadCase("C1", "B1", {"fr": "2.5 k"})])
+    written = write_recovery(edited, path)
+    assert written == recovery_path(path) and data_home in written.parents
+    os.utime(path, ns=(1, 1))  # the session file is older than its recovery copy
+    assert find_recovery(path) == written
+    assert load_session(written, check_values=False) == edited
+    os.utime(written, ns=(1, 1))
+    assert find_recovery(path) is None  # a recovery copy older than the file is not offered
+    discard_recovery(path)
+    assert not written.exists()
+    discard_recovery(path)  # discarding twice is harmless
+
+
+@pytest.mark.skipif(os.name != "posix", reason="XDG_DATA_HOME is read on Linux")
+def test_recovery_paths_differ_per_file_and_for_untitled(tmp_path: Path, data_home: Path) -> None:
+    one, two = recovery_path(tmp_path / "a" / "s.toml"), recovery_path(tmp_path / "b" / "s.toml")
+    assert one != two and one.parent == two.parent == data_home / "bearing-workbench" / "recovery"
+    untitled = write_recovery(small_session("new"), None)
+    assert find_recovery(None) == untitled
