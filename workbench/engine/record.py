@@ -8,7 +8,7 @@ cheap in the hot path.
 
 from __future__ import annotations
 
-from dataclasses import dataclass, field
+from dataclasses import dataclass
 from typing import Any
 
 
@@ -84,14 +84,22 @@ class Step:
         }
 
 
-@dataclass(slots=True)
 class Derivation:
-    """Steps in order, the named results, and every warning raised while deriving."""
+    """Steps in order, the named results, and every warning raised while deriving.
 
-    steps: list[Step] = field(default_factory=list)
-    results: dict[str, float] = field(default_factory=dict)
-    warnings: list[str] = field(default_factory=list)
-    notes: list[str] = field(default_factory=list)
+    ``add`` stores each step as a plain tuple; :attr:`steps` turns them into :class:`Step`
+    objects the first time something reads them.  The solver and the sensitivity sweep read only
+    ``results``, so they never pay for building steps.
+    """
+
+    __slots__ = ("_raw", "_steps", "results", "warnings", "notes")
+
+    def __init__(self) -> None:
+        self._raw: list[tuple[Any, ...]] = []
+        self._steps: list[Step] | None = None
+        self.results: dict[str, float] = {}
+        self.warnings: list[str] = []
+        self.notes: list[str] = []
 
     def add(
         self,
@@ -109,14 +117,28 @@ class Derivation:
         result: bool = True,
     ) -> float:
         """Append a step (and, unless ``result`` is false, record it under ``key``); return value."""
-        self.steps.append(
-            Step(key, symbol, label, formula, template, args, value, unit, source, warning, note)
-        )
+        self._raw.append((key, symbol, label, formula, template, args, value, unit, source,
+                          warning, note))
+        self._steps = None
         if result:
             self.results[key] = value
         if warning is not None:
             self.warnings.append(warning)
         return value
+
+    @property
+    def steps(self) -> list[Step]:
+        """The steps in order (built on first read)."""
+        if self._steps is None:
+            self._steps = [Step(*raw) for raw in self._raw]
+        return self._steps
+
+    def peek(self, key: str) -> Step | None:
+        """The last step recorded under ``key``, built alone (cheap), or None if there is none."""
+        for raw in reversed(self._raw):
+            if raw[0] == key:
+                return Step(*raw)
+        return None
 
     def step(self, key: str) -> Step:
         """The last step recorded under ``key``."""
@@ -128,7 +150,7 @@ class Derivation:
     @property
     def sources(self) -> list[str]:
         """Every distinct source cited, in order of first use."""
-        return list(dict.fromkeys(s.source for s in self.steps))
+        return list(dict.fromkeys(raw[8] for raw in self._raw))
 
     def as_dict(self) -> dict[str, Any]:
         """Plain data: ``results``, ``steps``, ``warnings``, ``notes``, ``sources``."""

@@ -109,9 +109,9 @@ def _bounds(case: CaseInputs, unknown: Unknown) -> tuple[float, float]:
 
 def _branch(derivation: Derivation) -> str:
     """Which side of e the solution fell on, in words."""
-    for step in derivation.steps:
-        if step.key == "ratio" and step.note:
-            return step.note.removeprefix("branch: ")
+    ratio = derivation.peek("ratio")
+    if ratio is not None and ratio.note:
+        return ratio.note.removeprefix("branch: ")
     return "no e switch for this kind"
 
 
