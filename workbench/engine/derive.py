@@ -15,12 +15,13 @@ from . import tables as T
 from . import viscosity
 from .kinds import (
     DEFAULT_CONTACT_ANGLE, KIND_WORDS, ROLLER_KINDS, THRUST_KINDS, Arrangement, Kind,
-    contact_angle_from_e, dynamic_factors, equivalent_dynamic_load, equivalent_static_load,
+    aiso_load_divisor, contact_angle_from_e, dynamic_factors, dynamic_load, equivalent_static_load,
     life_clause, life_exponent, load_clause, parse_arrangement, parse_kind, static_factors,
 )
 from .life import (
     AISO_CAP, KAPPA_MAX, KAPPA_MIN, a1_iso281, aiso, basic_rating_life, contamination_factor,
-    fatigue_load_limit_estimate, life_hours, reference_viscosity, weibull_life_factor,
+    fatigue_load_limit_estimate, kappa_in_range, life_hours, reference_viscosity,
+    weibull_life_factor,
 )
 from .record import Derivation, InputError
 
@@ -177,7 +178,7 @@ def derive(case: CaseInputs) -> Derivation:
         d.add("P_eff", "af·P", "Load with the application factor", "af·P", "{0} × {1}",
               (case.af, p), p_eff, "N", "common practice", note=T.APPLICATION_FACTOR_HINT)
     exponent = life_exponent(kind)
-    rating_mrev = case.rating_life_mrev if case.reliability_model == "weibull" else 1.0
+    rating_mrev = rating_basis_mrev(case)
     l10 = rating_mrev * basic_rating_life(case.c, p_eff, exponent)
     p_word = "10/3 (roller)" if roller else "3 (ball)"
     if rating_mrev != 1.0:
@@ -203,13 +204,14 @@ def _dynamic_load(d: Derivation, case: CaseInputs, kind: Kind, arrangement: Arra
     """Steps for e, the branch, X, Y and P (ISO 281:2007 §6, Table 3)."""
     factors = dynamic_factors(kind, arrangement, alpha, case.fa, case.c0, case.f0,
                               case.e_given, case.y_given)
-    v = 1.2 if case.outer_ring_rotates else 1.0
+    v = rotation_factor(case)
+    p, ratio, high, possible = dynamic_load(kind, factors, case.fr, case.fa, v)
     if case.outer_ring_rotates:
         d.add("V", "V", "Rotation factor", "outer ring rotates relative to the load", "1.2", (), v,
               "", "common practice (older practice; ISO 281:2007 no longer carries V)",
               note="V multiplies Fr in the branch test and in X·V·Fr")
     if kind is Kind.CYLINDRICAL:
-        d.add("P", "P", "Equivalent dynamic load", "P = Fr (α = 0)", "{0}", (case.fr,), case.fr,
+        d.add("P", "P", "Equivalent dynamic load", "P = Fr (α = 0)", "{0}", (case.fr,), p,
               "N", factors.source, warning=_cylindrical_axial_warning(case))
         d.results.update(e=NAN, X=1.0, Y=0.0)
         return
@@ -229,13 +231,12 @@ def _dynamic_load(d: Derivation, case: CaseInputs, kind: Kind, arrangement: Arra
               factors.index, "", factors.source, note=note)
     d.add("e", "e", "Limit ratio e", factors.basis, "{0}", (factors.e,), factors.e, "",
           factors.source)
-    p, ratio, high = equivalent_dynamic_load(factors, case.fr, case.fa, v)
     vfr = "V·Fr" if case.outer_ring_rotates else "Fr"
     side = f"Fa/{vfr} > e" if high else f"Fa/{vfr} ≤ e"
     d.add("ratio", f"Fa/{vfr}", "Axial-to-radial load ratio",
           f"Fa/{vfr}, compared with e", "{0} / {1}", (case.fa, v * case.fr), ratio, "",
           load_clause(kind), note=f"branch: {side}")
-    if kind in THRUST_KINDS and not high:
+    if not possible:
         raise InputError("fa", f"a single-direction {KIND_WORDS[kind]} needs Fa/Fr > e "
                                f"({ratio:.3g} ≤ {factors.e:.3g})")
     x = factors.x_high if high else factors.x_low
@@ -252,6 +253,11 @@ def _dynamic_load(d: Derivation, case: CaseInputs, kind: Kind, arrangement: Arra
     else:
         d.add("P", "P", "Equivalent dynamic load", "X·Fr + Y·Fa", "{0} × {1} + {2} × {3}",
               (x, case.fr, y, case.fa), p, "N", load_clause(kind))
+
+
+def rotation_factor(case: CaseInputs) -> float:
+    """V: 1.2 when the outer ring rotates relative to the load, else 1 (common practice, older practice)."""
+    return 1.2 if case.outer_ring_rotates else 1.0
 
 
 def _index_args(case: CaseInputs, arrangement: Arrangement) -> tuple[float, ...]:
@@ -282,24 +288,35 @@ def _hours(d: Derivation, key: str, symbol: str, label: str, life_mrev: float, s
               warning=f"speed is 0: {symbol} in hours is undefined (life in revolutions stands)")
 
 
+def rating_basis_mrev(case: CaseInputs) -> float:
+    """LR, the life in 10⁶ revolutions at which C is rated: 1 under ISO 281, the case's LR under Weibull."""
+    return case.rating_life_mrev if case.reliability_model == "weibull" else 1.0
+
+
+def reliability_life_factor(case: CaseInputs) -> float:
+    """a1 (ISO 281:2007 §9.2, Table 12) or the three-parameter Weibull life factor at the case's R."""
+    if case.reliability_model == "iso281":
+        return a1_iso281(case.reliability)
+    return weibull_life_factor(case.reliability, case.weibull_x0, case.weibull_theta, case.weibull_b)
+
+
 def _reliability(d: Derivation, case: CaseInputs) -> float:
     """a1 by ISO 281:2007 Table 12, or the Weibull life factor, at the requested reliability."""
     r = case.reliability
+    a1 = reliability_life_factor(case)
     if case.reliability_model == "iso281":
-        a1 = a1_iso281(r)
         return d.add("a1", "a1", "Life factor for reliability",
                      "0.95·(ln(100/R)/ln(100/90))^(2/3) + 0.05",
                      "0.95 × (ln(100/{0}) / ln(100/90))^(2/3) + 0.05", (100.0 * r,), a1, "",
                      "ISO 281:2007 §9.2, Table 12")
-    x = weibull_life_factor(r, case.weibull_x0, case.weibull_theta, case.weibull_b)
     return d.add("a1", "aR", "Life factor for reliability (Weibull)",
                  "x0 + (θ − x0)·(ln 1/R)^(1/b)", "{0} + ({1} − {0}) × (ln 1/{2})^(1/{3})",
-                 (case.weibull_x0, case.weibull_theta, r, case.weibull_b), x, "",
+                 (case.weibull_x0, case.weibull_theta, r, case.weibull_b), a1, "",
                  "three-parameter Weibull, R = exp(−((x − x0)/(θ − x0))^b)",
                  note="life at R as a multiple of the rating life")
 
 
-def _operating_viscosity(d: Derivation, case: CaseInputs) -> float | None:
+def operating_viscosity(d: Derivation, case: CaseInputs) -> float | None:
     """ν at operating temperature: given directly, or from ISO VG and VI (ISO 3448, ASTM D341)."""
     if case.nu is not None:
         return d.add("nu", "ν", "Operating viscosity", "given", "{0}", (case.nu,), case.nu,
@@ -325,8 +342,8 @@ def _operating_viscosity(d: Derivation, case: CaseInputs) -> float | None:
                  "ASTM D341")
 
 
-def _lubrication(d: Derivation, case: CaseInputs, kind: Kind, p_eff: float) -> float:
-    """aISO from κ, eC, Cu and P (ISO 281:2007 §9.3); 1 with a note when data is missing."""
+def lubrication_gaps(case: CaseInputs) -> list[str]:
+    """What the case lacks for aISO (ISO 281:2007 §9.3); empty when aISO can be evaluated."""
     missing = []
     if case.nu is None and (case.vg is None or case.temp is None):
         missing.append("viscosity (ν, or ISO VG with temperature)")
@@ -336,10 +353,16 @@ def _lubrication(d: Derivation, case: CaseInputs, kind: Kind, p_eff: float) -> f
         missing.append("a speed above 0")
     if case.ec is None and case.cleanliness is None:
         missing.append("cleanliness or eC")
+    return missing
+
+
+def _lubrication(d: Derivation, case: CaseInputs, kind: Kind, p_eff: float) -> float:
+    """aISO from κ, eC, Cu and P (ISO 281:2007 §9.3); 1 with a note when data is missing."""
+    missing = lubrication_gaps(case)
     if missing:
         return d.add("aISO", "aISO", "Systems-approach factor", "not evaluated", "1", (), 1.0, "",
                      "ISO 281:2007 §9.3", note="aISO = 1: no " + ", no ".join(missing))
-    nu = _operating_viscosity(d, case)
+    nu = operating_viscosity(d, case)
     assert nu is not None and case.dm is not None
     nu1 = d.add("nu1", "ν1", "Rated viscosity",
                 "45000·n^−0.83·dm^−0.5" if case.speed < 1000 else "4500·n^−0.5·dm^−0.5",
@@ -347,11 +370,8 @@ def _lubrication(d: Derivation, case: CaseInputs, kind: Kind, p_eff: float) -> f
                 (case.speed, case.dm), reference_viscosity(case.speed, case.dm), "mm²/s",
                 "ISO 281:2007 §9.3.3")
     kappa = nu / nu1
-    used, warning = kappa, None
-    if kappa > KAPPA_MAX:
-        used, warning = KAPPA_MAX, None
-    elif kappa < KAPPA_MIN:
-        used = KAPPA_MIN
+    used, warning = kappa_in_range(kappa), None
+    if kappa < KAPPA_MIN:
         warning = f"κ = {kappa:.3g} is below 0.1, outside the aISO method; κ = 0.1 used"
     d.add("kappa", "κ", "Viscosity ratio", "ν/ν1", "{0} / {1}", (nu, nu1), used, "",
           "ISO 281:2007 §9.3.3", warning=warning,
@@ -377,7 +397,7 @@ def _lubrication(d: Derivation, case: CaseInputs, kind: Kind, p_eff: float) -> f
         d.add("Cu", "Cu", "Fatigue load limit (estimated)", formula, "from C0 = {0}, dpw = {1}",
               (case.c0, case.dm), cu, "N", "ISO 281:2007 Annex B (estimate)",
               note="no Cu given: estimated from C0; the maker's value is better")
-    divisor = 3.0 if kind is Kind.THRUST_BALL else (2.5 if kind is Kind.THRUST_ROLLER else 1.0)
+    divisor = aiso_load_divisor(kind)
     load_ratio = ec * cu / (divisor * p_eff)
     if divisor != 1.0:
         d.add("load_ratio", "eC·Cu/P", "Load ratio for aISO", f"eC·Cu/({divisor:g}·P)",
@@ -391,6 +411,15 @@ def _lubrication(d: Derivation, case: CaseInputs, kind: Kind, p_eff: float) -> f
     return d.add("aISO", "aISO", "Systems-approach factor", f"ISO 281 {family} relation in κ, eC·Cu/P",
                  "κ = {0}, eC·Cu/P = {1}", (used, load_ratio), a, "", "ISO 281:2007 §9.3.2",
                  note="capped at 50" if a >= AISO_CAP else None)
+
+
+def static_safety_minimum(case: CaseInputs, kind: Kind) -> tuple[float, str]:
+    """The s0 the case must reach and why: the required s0, or the common-practice duty minimum."""
+    if case.s0_min is not None:
+        return case.s0_min, "the required s0"
+    ball_min, roller_min, duty_words = T.STATIC_SAFETY_MINIMUMS[case.static_duty]
+    minimum = roller_min if kind in ROLLER_KINDS else ball_min
+    return minimum, f"the common-practice minimum for {duty_words}"
 
 
 def _static(d: Derivation, case: CaseInputs, kind: Kind, arrangement: Arrangement,
@@ -414,12 +443,7 @@ def _static(d: Derivation, case: CaseInputs, kind: Kind, arrangement: Arrangemen
               sf.source, note="P0 = Fr rule applied" if floored else None)
         d.results.update(X0=sf.x0, Y0=sf.y0)
     s0 = case.c0 / p0
-    ball_min, roller_min, duty_words = T.STATIC_SAFETY_MINIMUMS[case.static_duty]
-    if case.s0_min is not None:
-        minimum, why = case.s0_min, "the required s0"
-    else:
-        minimum = roller_min if kind in ROLLER_KINDS else ball_min
-        why = f"the common-practice minimum for {duty_words}"
+    minimum, why = static_safety_minimum(case, kind)
     warning = None
     if s0 < minimum:
         warning = f"s0 = {s0:.3g} is below {minimum:g}, {why}"

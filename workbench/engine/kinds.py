@@ -294,7 +294,7 @@ def _thrust_factors(kind: Kind, alpha_deg: float) -> DynamicFactors:
 
 
 def equivalent_dynamic_load(factors: DynamicFactors, fr: Num, fa: Num,
-                            v: float = 1.0) -> tuple[Num, Num, Num]:
+                            v: Num = 1.0) -> tuple[Num, Num, Num]:
     """P = X·V·Fr + Y·Fa with X, Y from the side of e that Fa/(V·Fr) falls on (ISO 281:2007 §6).
 
     Returns ``(P, ratio, high)`` where ``high`` is true on the Fa/(V·Fr) > e branch.  Fr = 0 with
@@ -305,6 +305,29 @@ def equivalent_dynamic_load(factors: DynamicFactors, fr: Num, fa: Num,
     x = where(high, factors.x_high, factors.x_low)
     y = where(high, factors.y_high, factors.y_low)
     return x * v * fr + y * fa, ratio, high
+
+
+def dynamic_load(kind: Kind, factors: DynamicFactors, fr: Num, fa: Num,
+                 v: Num = 1.0) -> tuple[Num, Num, Num, Num]:
+    """P for ``kind``: Fr for a cylindrical roller bearing (α = 0, ISO 281:2007 §7.2), else
+    :func:`equivalent_dynamic_load` (ISO 281:2007 §5.2–§8.2).
+
+    Returns ``(P, ratio, high, possible)``; ``possible`` is false where a single-direction thrust
+    bearing meets Fa/(V·Fr) ≤ e, a load it cannot carry (ISO 281:2007 §6.2, §8.2).
+    """
+    p, ratio, high = equivalent_dynamic_load(factors, fr, fa, v)
+    if kind is Kind.CYLINDRICAL:
+        return fr, ratio, high, True
+    return p, ratio, high, (high if kind in THRUST_KINDS else True)
+
+
+def aiso_load_divisor(kind: Kind) -> float:
+    """The divisor on eC·Cu/P in aISO: 3 thrust ball, 2.5 thrust roller, 1 radial (ISO 281:2007 §9.3.2)."""
+    if kind is Kind.THRUST_BALL:
+        return 3.0
+    if kind is Kind.THRUST_ROLLER:
+        return 2.5
+    return 1.0
 
 
 @dataclass(slots=True)

@@ -80,11 +80,21 @@ def fatigue_load_limit_estimate(c0: Num, dpw_mm: Num, roller: bool) -> Num:
     return base * size
 
 
-def contamination_factor(level: str, dpw_mm: float) -> tuple[float, tuple[float, float]]:
-    """eC for a named cleanliness level: the midpoint of its range and the range itself."""
+def contamination_factor(level: str, dpw_mm: Num) -> tuple[Num, tuple[Num, Num]]:
+    """eC for a named cleanliness level: the midpoint of its range and the range itself.
+
+    ISO 281:2007 §9.3.4, Table 13 (from memory): the dpw < 100 mm or the dpw ≥ 100 mm column.
+    """
     small, large = T.CONTAMINATION_LEVELS[level]
-    low, high = small if dpw_mm < 100.0 else large
+    small_column = dpw_mm < 100.0
+    low = where(small_column, small[0], large[0])
+    high = where(small_column, small[1], large[1])
     return 0.5 * (low + high), (low, high)
+
+
+def kappa_in_range(kappa: Num) -> Num:
+    """κ held to the range of the aISO method, 0.1 ≤ κ ≤ 4 (ISO 281:2007 §9.3.2)."""
+    return minimum(maximum(kappa, KAPPA_MIN), KAPPA_MAX)
 
 
 # ISO 281:2007 §9.3 coefficients (from memory; the pieces join at κ = 0.4 and κ = 1):
@@ -94,6 +104,30 @@ _AISO_BALL = (2.5671, (2.2649, 1.9987, 1.9987), (0.054381, 0.19087, 0.071739), 0
 _AISO_ROLLER = (1.5859, (1.3993, 1.2348, 1.2348), (0.054381, 0.19087, 0.071739), 1.0, 0.4, -9.185)
 
 
+def _kappa_piece(kappa: Num) -> Num:
+    """Which piece of the aISO relation applies: 0 for κ < 0.4, 1 for 0.4 ≤ κ < 1, 2 above."""
+    if is_array(kappa):
+        return 2 - (kappa < 0.4) - (kappa < 1.0)
+    return 0 if kappa < 0.4 else (1 if kappa < 1.0 else 2)
+
+
+def _pick(values: tuple[float, float, float], piece: Num) -> Num:
+    """The coefficient of each κ piece (elementwise on arrays)."""
+    if is_array(piece):
+        return np.take(values, piece)
+    return values[piece]
+
+
+def _capped(inner: Num, final: float) -> Num:
+    """0.1·inner^final, capped at 50; 50 where inner ≤ 0 (the relation's pole and beyond)."""
+    if is_array(inner):
+        with np.errstate(divide="ignore", invalid="ignore"):
+            return np.fmin(0.1 * np.maximum(inner, 0.0) ** final, AISO_CAP)
+    if inner <= 0.0:
+        return AISO_CAP
+    return minimum(0.1 * inner ** final, AISO_CAP)
+
+
 def aiso(kappa: Num, load_ratio: Num, roller: bool) -> Num:
     """Systems-approach factor aISO (ISO 281:2007 §9.3.2), capped at 50.
 
@@ -101,15 +135,8 @@ def aiso(kappa: Num, load_ratio: Num, roller: bool) -> Num:
     with the thrust divisors (3 for thrust ball, 2.5 for thrust roller) already applied.
     """
     c1, c2s, ks, outer, load_power, final = _AISO_ROLLER if roller else _AISO_BALL
-    c2 = where(kappa < 0.4, c2s[0], where(kappa < 1.0, c2s[1], c2s[2]))
-    k = where(kappa < 0.4, ks[0], where(kappa < 1.0, ks[1], ks[2]))
-    bracket = c1 - c2 / kappa ** k
+    piece = _kappa_piece(kappa)
+    bracket = c1 - _pick(c2s, piece) / kappa ** _pick(ks, piece)
     bracket = maximum(bracket, 0.0)
     inner = 1.0 - bracket ** outer * load_ratio ** load_power
-    if is_array(inner):
-        with np.errstate(divide="ignore", invalid="ignore"):
-            value = np.where(inner > 0, 0.1 * np.where(inner > 0, inner, 1.0) ** final, AISO_CAP)
-        return np.minimum(value, AISO_CAP)
-    if inner <= 0.0:
-        return AISO_CAP
-    return minimum(0.1 * inner ** final, AISO_CAP)
+    return _capped(inner, final)
