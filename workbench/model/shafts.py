@@ -1,0 +1,737 @@
+"""Shafts: where the bearing loads come from, turned into load cases the engine already derives.
+
+A :class:`Shaft` sits on two bearings of the session (A at the smaller axial position, B at the
+larger) and carries gears and pulleys (:class:`Element`); each :class:`OperatingState` gives the
+torque (or power) and speed it runs at and its share of the time.  Like the rest of the session,
+every value is the text a person typed ("80 mm", "20°", "15 kW").
+
+:func:`solve_shaft` works the free body of one state: the mesh or belt force of each element by
+the gear-force relations, the bearing reactions by shaft statics (:mod:`workbench.engine.shaft`),
+and for a pair of angular-contact or tapered roller bearings adjusted against each other the axial
+loads by the two-bearing thrust-sharing rule (:mod:`workbench.engine.pairs`).
+:func:`generated_cases` turns each shaft × state × bearing into an ordinary :class:`LoadCase`, so
+``evaluate_case``, the solver and the selection apply to it unchanged.
+
+Frame and signs (those of :mod:`workbench.engine.gears`): x runs along the shaft from A toward B;
+y and z are transverse, right-handed.  ``rotation = "+"`` turns the shaft positively about +x
+(clockwise as seen from A looking toward B), ``"-"`` the other way.  ``mesh_angle`` is the
+direction in the y–z plane, from +y toward +z, from this shaft's axis toward the mating gear (the
+mesh point lies there at the pitch radius) or toward the other pulley (the belt pull points
+there).  A straight bevel gear's ``apex`` says on which side of the gear its pitch-cone apex lies
+("A" or "B"); its thrust points away from the apex.
+
+Table layout (TOML, an array of tables; every value is text)::
+
+    [[shafts]]
+    name = "input shaft"
+    bearing_a = "DG-45-85"           # a bearing of the session, at position_a
+    bearing_b = "TR-40-90"
+    position_a = "0 mm"
+    position_b = "210 mm"            # greater than position_a
+    locating = "B"                   # "A", "B" (that bearing takes all thrust) or "pair"
+    mounting = ""                    # "O" or "X" for a pair, else blank
+    rotation = "+"                   # "+" or "-" about +x (default "+")
+    [shafts.case_fields]             # other case inputs copied into every generated case
+    reliability = "0.95"
+    [[shafts.elements]]
+    name = "pinion"
+    kind = "helical"                 # "spur", "helical", "bevel" or "pulley"
+    position = "70 mm"
+    diameter = "62 mm"               # pitch (spur, helical), mean pitch (bevel), pulley diameter
+    pressure_angle = "20°"           # normal pressure angle for a helical gear
+    helix_angle = "15°"
+    hand = "right"
+    driving = "yes"                  # does this element drive its mate?
+    mesh_angle = "90°"
+    share = "1"                      # fraction of the state's torque this element carries
+    [[shafts.states]]
+    name = "full load"
+    power = "15 kW"                  # or torque = "97 N·m"
+    speed = "1480 rpm"
+    share = "0.7"                    # of the time
+
+Errors are :class:`~workbench.model.fields.FieldError` naming the key, counted from 1 like the
+session file: ``shafts[1].elements[2].helix_angle``.
+
+Y for the induced thrust: the induced axial component of a tapered roller bearing is taken in its
+ISO form Fi = Fr/(2Y), with Y the bearing's axial factor on the Fa/Fr > e branch as
+``engine.kinds.dynamic_factors`` gives it — the maker's Y when the bearing has one, else
+0.4·cot α from its contact angle (or from the maker's e through e = 1.5·tan α) — that is, the very
+Y the bearing's own derivation shows on that branch.  An angular-contact ball bearing takes
+Fi = e·Fr with its ISO 281 Table 3 e (common practice); where e depends on the bearing's own axial
+load (the 15° rows, by f0·Fa/C0) the loads are found by fixed-point iteration, which rises
+monotonically from Fa = 0 because e grows with Fa.
+"""
+
+from __future__ import annotations
+
+import difflib
+import math
+from collections.abc import Iterator, Mapping, Sequence
+from contextlib import contextmanager
+from dataclasses import dataclass, field, fields
+from typing import Any
+
+from ..engine.derive import CaseInputs, validate
+from ..engine.gears import (
+    BELT_PULL_FACTORS, V_BELT_PULL_FACTOR, belt_pull, helical_forces, spur_forces,
+    straight_bevel_forces, torque_from_power,
+)
+from ..engine.kinds import Arrangement, DynamicFactors, Kind, dynamic_factors
+from ..engine.pairs import induced_thrust_angular_contact, induced_thrust_tapered, share_thrust
+from ..engine.record import Derivation, InputError
+from ..engine.shaft import PointLoad, ShaftLayout, ShaftReactions, derivation_steps, solve_reactions
+from .fields import BEARING_FIELDS, CASE_FIELDS, FieldError, inputs_from_values, parse_field
+from .quantities import QuantityError, parse
+from .session import LoadCase, Session
+
+ELEMENT_KINDS = ("spur", "helical", "bevel", "pulley")
+LOCATING = ("A", "B", "pair")
+MOUNTINGS = ("O", "X")
+ROTATIONS = {"+": 1, "-": -1, "−": -1}
+HANDS = ("left", "right")
+SIDES = ("A", "B")
+YES = ("yes", "true", "on", "1")
+NO = ("no", "false", "off", "0")
+#: case inputs a shaft fills in itself; the rest may be given in ``case_fields``
+SOLVED_FIELDS = ("fr", "fa", "speed")
+CASE_FIELD_KEYS = tuple(name for name in CASE_FIELDS if name not in SOLVED_FIELDS)
+SEPARATOR = " · "
+GENERATED_NOTE = "generated from shaft "
+
+SPUR_SOURCE = "spur gear force relations: Wt = 2T/d, Wr = Wt·tan φ"
+HELICAL_SOURCE = "helical gear force relations: Wt = 2T/d, Wr = Wt·tan φn/cos ψ, Wa = Wt·tan ψ"
+BEVEL_SOURCE = ("straight bevel gear force relations: Wt = 2T/dm, Wr = Wt·tan φ·cos γ, "
+                "Wa = Wt·tan φ·sin γ")
+PULLEY_SOURCE = "belt or chain shaft load F = f·2T/D (factor f: common practice)"
+RESOLVE_SOURCE = "gear-force relations resolved in the shaft frame (x from A toward B)"
+TORQUE_SOURCE = "T = P/ω, ω = 2π·n/60"
+TAPERED_SOURCE = "induced axial component of a tapered roller bearing, Fi = Fr/(2Y) (ISO form)"
+ANGULAR_SOURCE = "induced axial component of an angular-contact ball bearing, Fi = e·Fr (common practice)"
+SHARING_SOURCE = "two-bearing thrust-sharing rule: shaft axial equilibrium with each Fa ≥ its Fi"
+PAIR_KINDS = (Kind.ANGULAR_CONTACT, Kind.TAPERED)
+PAIR_ITERATIONS = 100
+
+
+# ---- the typed text ------------------------------------------------------------------------
+@dataclass
+class Element:
+    """A gear or pulley on the shaft; every value is typed text (see the module notes)."""
+
+    name: str
+    kind: str
+    position: str = ""
+    diameter: str = ""
+    pressure_angle: str = ""
+    helix_angle: str = ""
+    hand: str = ""
+    driving: str = ""
+    pitch_cone_angle: str = ""
+    apex: str = ""
+    mesh_angle: str = ""
+    pull_factor: str = ""
+    share: str = "1"
+
+
+@dataclass
+class OperatingState:
+    """One way the shaft runs: power or torque, speed, and its share of the time."""
+
+    name: str
+    power: str = ""
+    torque: str = ""
+    speed: str = ""
+    share: str = "1"
+
+
+@dataclass
+class Shaft:
+    """A shaft on two of the session's bearings, its gears and pulleys, and how it runs."""
+
+    name: str
+    bearing_a: str
+    bearing_b: str
+    position_a: str
+    position_b: str
+    locating: str
+    mounting: str = ""
+    rotation: str = "+"
+    elements: list[Element] = field(default_factory=list)
+    states: list[OperatingState] = field(default_factory=list)
+    case_fields: dict[str, str] = field(default_factory=dict)
+
+
+ELEMENT_TEXTS = tuple(f.name for f in fields(Element) if f.name not in ("name", "kind"))
+STATE_TEXTS = ("power", "torque", "speed", "share")
+SHAFT_TEXTS = ("bearing_a", "bearing_b", "position_a", "position_b", "locating", "mounting",
+               "rotation")
+ELEMENT_KEYS = ("name", "kind") + ELEMENT_TEXTS
+STATE_KEYS = ("name",) + STATE_TEXTS
+SHAFT_KEYS = ("name",) + SHAFT_TEXTS + ("case_fields", "elements", "states")
+
+_GEAR_TEXTS = ("position", "diameter", "pressure_angle", "driving", "mesh_angle")
+#: the element texts each kind needs, and those it may leave blank
+REQUIRED_TEXTS: dict[str, tuple[str, ...]] = {
+    "spur": _GEAR_TEXTS,
+    "helical": _GEAR_TEXTS + ("helix_angle", "hand"),
+    "bevel": _GEAR_TEXTS + ("pitch_cone_angle", "apex"),
+    "pulley": ("position", "diameter", "mesh_angle"),
+}
+OPTIONAL_TEXTS: dict[str, tuple[str, ...]] = {
+    "spur": ("share",), "helical": ("share",), "bevel": ("share",),
+    "pulley": ("pull_factor", "share"),
+}
+KIND_WORDS = {"spur": "spur gear", "helical": "helical gear", "bevel": "straight bevel gear",
+              "pulley": "pulley"}
+
+
+# ---- reading and writing tables (shared with duty_cycles) ----------------------------------
+def type_words(value: object) -> str:
+    """A TOML value's type in words, for a wrong-type message."""
+    if isinstance(value, bool):
+        return "true/false"
+    if isinstance(value, (int, float)):
+        return "a number"
+    if isinstance(value, str):
+        return "text"
+    if isinstance(value, dict):
+        return "a table"
+    if isinstance(value, list):
+        return "a list"
+    return "a date or time"
+
+
+def checked_table(value: object, key: str, allowed: tuple[str, ...]) -> Mapping[str, Any]:
+    """``value`` as a table whose keys are all in ``allowed``, else a FieldError naming the key."""
+    if not isinstance(value, dict):
+        raise FieldError(key, f"should be a table, found {type_words(value)}")
+    for name in value:
+        if name not in allowed:
+            close = difflib.get_close_matches(str(name), allowed, n=1)
+            hint = f"did you mean {close[0]!r}?" if close else f"allowed: {', '.join(allowed)}"
+            raise FieldError(f"{key}.{name}", f"unknown key {name!r}; {hint}")
+    return value
+
+
+def table_text(table: Mapping[str, Any], key: str, name: str, default: str = "") -> str:
+    """The text value ``name`` of ``table`` (``default`` when absent)."""
+    value = table.get(name, default)
+    if not isinstance(value, str):
+        raise FieldError(f"{key}.{name}", f'should be text in quotes, e.g. {name} = "…", '
+                                           f"found {type_words(value)}")
+    return value
+
+
+def table_list(table: Mapping[str, Any], key: str, name: str) -> list[Any]:
+    """The array of tables ``name`` of ``table`` (empty when absent)."""
+    value = table.get(name, [])
+    if not isinstance(value, list):
+        raise FieldError(f"{key}.{name}", f"should be [[{name}]] tables, found {type_words(value)}")
+    return value
+
+
+def required_name(table: Mapping[str, Any], key: str, seen: set[str], what: str) -> str:
+    """The non-blank ``name`` of a table, different from every name in ``seen`` (then added)."""
+    name = table_text(table, key, "name")
+    if not name.strip():
+        raise FieldError(f"{key}.name", f"every {what} needs a name")
+    if name in seen:
+        raise FieldError(f"{key}.name", f"a second {what} called {name!r}; names must differ")
+    seen.add(name)
+    return name
+
+
+def _without_defaults(item: object) -> dict[str, str]:
+    """The text fields of a dataclass in order, leaving out those equal to their default."""
+    return {f.name: getattr(item, f.name) for f in fields(item)  # type: ignore[arg-type]
+            if isinstance(getattr(item, f.name), str) and getattr(item, f.name) != f.default}
+
+
+def shaft_from_table(data: Mapping[str, Any], key: str = "shafts[1]") -> Shaft:
+    """A :class:`Shaft` from its TOML table, every text checked; FieldError names the bad key."""
+    table = checked_table(data, key, SHAFT_KEYS)
+    name = required_name(table, key, set(), "shaft")
+    texts = {n: table_text(table, key, n, getattr(Shaft, n, "")) for n in SHAFT_TEXTS}
+    case_table = checked_table(table.get("case_fields", {}), f"{key}.case_fields", CASE_FIELDS)
+    case_fields = {n: table_text(case_table, f"{key}.case_fields", n) for n in case_table}
+    element_names: set[str] = set()
+    elements = []
+    for number, value in enumerate(table_list(table, key, "elements"), start=1):
+        where = f"{key}.elements[{number}]"
+        item = checked_table(value, where, ELEMENT_KEYS)
+        elements.append(Element(
+            required_name(item, where, element_names, "element"), table_text(item, where, "kind"),
+            **{n: table_text(item, where, n, getattr(Element, n)) for n in ELEMENT_TEXTS}))
+    state_names: set[str] = set()
+    states = []
+    for number, value in enumerate(table_list(table, key, "states"), start=1):
+        where = f"{key}.states[{number}]"
+        item = checked_table(value, where, STATE_KEYS)
+        states.append(OperatingState(
+            required_name(item, where, state_names, "state"),
+            **{n: table_text(item, where, n, getattr(OperatingState, n)) for n in STATE_TEXTS}))
+    shaft = Shaft(name, elements=elements, states=states, case_fields=case_fields, **texts)
+    _parsed_shaft(shaft, key)
+    for number, state in enumerate(shaft.states, start=1):
+        _parsed_state(state, f"{key}.states[{number}]")
+    return shaft
+
+
+def shaft_to_table(shaft: Shaft) -> dict[str, Any]:
+    """The TOML-ready table of ``shaft``; :func:`shaft_from_table` reads it back equal."""
+    table: dict[str, Any] = _without_defaults(shaft)
+    table["case_fields"] = dict(shaft.case_fields)
+    table["elements"] = [_without_defaults(element) for element in shaft.elements]
+    table["states"] = [_without_defaults(state) for state in shaft.states]
+    return table
+
+
+def shafts_from_tables(value: object, key: str = "shafts") -> list[Shaft]:
+    """Every shaft of a ``[[shafts]]`` array of tables; names must differ."""
+    if not isinstance(value, list):
+        raise FieldError(key, f"should be [[{key}]] tables, found {type_words(value)}")
+    shafts = [shaft_from_table(item, f"{key}[{number}]") for number, item in enumerate(value, 1)]
+    seen: set[str] = set()
+    for number, shaft in enumerate(shafts, start=1):
+        required_name({"name": shaft.name}, f"{key}[{number}]", seen, "shaft")
+    return shafts
+
+
+def shafts_to_tables(shafts: Sequence[Shaft]) -> list[dict[str, Any]]:
+    """The ``[[shafts]]`` array of tables for ``shafts``."""
+    return [shaft_to_table(shaft) for shaft in shafts]
+
+
+# ---- typed text to numbers -----------------------------------------------------------------
+def _quantity(key: str, text: str, quantity: str, default_unit: str | None) -> float:
+    try:
+        return parse(text, quantity, default_unit=default_unit)
+    except QuantityError as exc:
+        raise FieldError(key, exc.message) from None
+
+
+def _choice(key: str, text: str, choices: Sequence[str]) -> str:
+    if text.strip() in choices:
+        return text.strip()
+    raise FieldError(key, f"use {' or '.join(repr(c) for c in choices)}, not {text!r}")
+
+
+def _yes_no(key: str, text: str) -> bool:
+    lowered = text.strip().lower()
+    if lowered in YES:
+        return True
+    if lowered in NO:
+        return False
+    raise FieldError(key, "answer yes or no")
+
+
+def _share(key: str, text: str) -> float:
+    value = _quantity(key, text, "dimensionless", "")
+    if not (math.isfinite(value) and value >= 0.0):
+        raise FieldError(key, "a share is a number of 0 or more")
+    return value
+
+
+_ELEMENT_PARSERS = {
+    "position": lambda k, t: _quantity(k, t, "length", "mm"),
+    "diameter": lambda k, t: _quantity(k, t, "length", "mm"),
+    "pressure_angle": lambda k, t: _quantity(k, t, "angle", "deg"),
+    "helix_angle": lambda k, t: _quantity(k, t, "angle", "deg"),
+    "pitch_cone_angle": lambda k, t: _quantity(k, t, "angle", "deg"),
+    "mesh_angle": lambda k, t: _quantity(k, t, "angle", "deg"),
+    "pull_factor": lambda k, t: _quantity(k, t, "dimensionless", ""),
+    "share": _share,
+    "hand": lambda k, t: _choice(k, t, HANDS),
+    "driving": _yes_no,
+    "apex": lambda k, t: _choice(k, t, SIDES),
+}
+
+
+@dataclass(frozen=True, slots=True)
+class _ParsedShaft:
+    position_a: float
+    position_b: float
+    locating: str
+    mounting: str
+    rotation: int
+    elements: tuple[dict[str, Any], ...]
+
+
+def _parsed_element(element: Element, key: str) -> dict[str, Any]:
+    """The element's texts as values, after checking each kind has what it needs and no more."""
+    kind = _choice(f"{key}.kind", element.kind, ELEMENT_KINDS)
+    required, optional = REQUIRED_TEXTS[kind], OPTIONAL_TEXTS[kind]
+    values: dict[str, Any] = {"name": element.name, "kind": kind}
+    for name in ELEMENT_TEXTS:
+        text = getattr(element, name)
+        if not text.strip():
+            if name in required:
+                raise FieldError(f"{key}.{name}", f"a {KIND_WORDS[kind]} needs its {name}")
+            values[name] = None
+            continue
+        if name not in required and name not in optional:
+            raise FieldError(f"{key}.{name}", f"a {KIND_WORDS[kind]} takes no {name}; leave it blank")
+        values[name] = _ELEMENT_PARSERS[name](f"{key}.{name}", text)
+    if values["share"] is None:
+        values["share"] = 1.0
+    return values
+
+
+def _parsed_shaft(shaft: Shaft, key: str) -> _ParsedShaft:
+    """Every text of ``shaft`` but its states, checked and turned into numbers."""
+    for side in ("bearing_a", "bearing_b"):
+        if not getattr(shaft, side).strip():
+            raise FieldError(f"{key}.{side}", "name the session bearing that sits here")
+    locating = _choice(f"{key}.locating", shaft.locating, LOCATING)
+    if locating == "pair":
+        mounting = _choice(f"{key}.mounting", shaft.mounting, MOUNTINGS)
+    elif shaft.mounting.strip():
+        raise FieldError(f"{key}.mounting", "a mounting is given only for locating = 'pair'")
+    else:
+        mounting = ""
+    rotation = ROTATIONS[_choice(f"{key}.rotation", shaft.rotation, tuple(ROTATIONS))]
+    for name, text in shaft.case_fields.items():
+        if name not in CASE_FIELD_KEYS:
+            raise FieldError(f"{key}.case_fields.{name}",
+                             "fr, fa and speed come from the shaft" if name in SOLVED_FIELDS
+                             else "not a case input")
+        try:
+            parse_field(name, text)
+        except FieldError as exc:
+            raise FieldError(f"{key}.case_fields.{name}", exc.message) from None
+    return _ParsedShaft(
+        _quantity(f"{key}.position_a", shaft.position_a, "length", "mm"),
+        _quantity(f"{key}.position_b", shaft.position_b, "length", "mm"),
+        locating, mounting, rotation,
+        tuple(_parsed_element(e, f"{key}.elements[{n}]") for n, e in enumerate(shaft.elements, 1)))
+
+
+def _parsed_state(state: OperatingState, key: str) -> tuple[float | None, float | None, float, float]:
+    """(power W or None, torque N·m or None, speed r/min, time share) of a state."""
+    has_power, has_torque = bool(state.power.strip()), bool(state.torque.strip())
+    if has_power == has_torque:
+        raise FieldError(f"{key}.power", "give either the power or the torque, not both"
+                         if has_power else "give the power or the torque")
+    if not state.speed.strip():
+        raise FieldError(f"{key}.speed", "give the shaft speed, e.g. 1480 rpm")
+    values = {"power": _quantity(f"{key}.power", state.power, "power", None) if has_power else None,
+              "torque": _quantity(f"{key}.torque", state.torque, "torque", "N·m")
+              if has_torque else None,
+              "speed": _quantity(f"{key}.speed", state.speed, "speed", "rpm")}
+    for name, value in values.items():
+        if value is not None and value < 0.0:
+            raise FieldError(f"{key}.{name}", "must not be negative (the shaft's rotation gives "
+                                              "the sense of turning)")
+    return values["power"], values["torque"], values["speed"], _share(f"{key}.share", state.share)
+
+
+@contextmanager
+def _engine_keys(prefix: str, names: Mapping[str, str]) -> Iterator[None]:
+    """Turn an engine InputError into a FieldError naming the shaft-table key it came from."""
+    try:
+        yield
+    except InputError as exc:
+        if exc.field in names:
+            raise FieldError(f"{prefix}.{names[exc.field]}", exc.message) from None
+        raise FieldError(prefix, f"{exc.field}: {exc.message}") from None
+
+
+_ELEMENT_ENGINE_KEYS = {
+    "pressure_angle": "pressure_angle", "normal_pressure_angle": "pressure_angle",
+    "helix_angle": "helix_angle", "pitch_cone_angle": "pitch_cone_angle",
+    "diameter": "diameter", "belt_pull_factor": "pull_factor", "belt_direction": "mesh_angle",
+    "hand": "hand", "torque": "share",
+}
+_LAYOUT_ENGINE_KEYS = {"bearing_a_position": "position_a", "bearing_b_position": "position_b"}
+
+
+# ---- the free body -------------------------------------------------------------------------
+@dataclass(frozen=True, slots=True)
+class ShaftSolution:
+    """One state of a shaft solved: the loads on it, the reactions and per bearing (Fr, Fa) in N."""
+
+    shaft: Shaft
+    state: OperatingState
+    torque: float
+    speed: float
+    loads: tuple[PointLoad, ...]
+    reactions: ShaftReactions
+    bearing_loads: dict[str, tuple[float, float]]
+    derivation: Derivation
+
+
+def _torque(d: Derivation, power: float | None, torque: float | None, speed: float,
+            key: str) -> float:
+    """The state's torque: as given, or T = P/ω."""
+    if torque is not None:
+        return d.add("T", "T", "Torque through the shaft", "given", "{0}", (torque,), torque,
+                     "N·m", "input")
+    assert power is not None
+    with _engine_keys(key, {"power": "power", "speed": "speed"}):
+        value = torque_from_power(power, speed)
+    return d.add("T", "T", "Torque through the shaft", "T = P/(2π·n/60)",
+                 "{0} / (2π × {1} / 60)", (power, speed), value, "N·m", TORQUE_SOURCE)
+
+
+def _element_load(d: Derivation, values: Mapping[str, Any], torque: float, rotation: int,
+                  key: str) -> PointLoad:
+    """The element's force on the shaft as a point load, with its steps."""
+    name, kind = values["name"], values["kind"]
+    share = values["share"]
+    if share != 1.0:
+        torque = d.add(f"T[{name}]", f"T,{name}", f"Torque carried by {name}", "share·T",
+                       "{0} × {1}", (share, torque), share * torque, "N·m", "input",
+                       result=False)
+    theta = values["mesh_angle"]
+    cos_t, sin_t = math.cos(math.radians(theta)), math.sin(math.radians(theta))
+    with _engine_keys(key, _ELEMENT_ENGINE_KEYS):
+        if kind == "pulley":
+            factor = V_BELT_PULL_FACTOR if values["pull_factor"] is None else values["pull_factor"]
+            pull = belt_pull(torque, values["diameter"], factor, theta)
+            note = None if values["pull_factor"] is not None else (
+                f"no pull factor given: the V-belt value {V_BELT_PULL_FACTOR:g} "
+                f"(spread {BELT_PULL_FACTORS['v_belt'][1][0]:g}–{BELT_PULL_FACTORS['v_belt'][1][1]:g})")
+            d.add(f"F[{name}]", f"F,{name}", f"Belt pull of {name}", "F = f·2T/D",
+                  "{0} × 2 × {1} / {2}", (factor, torque, values["diameter"]), pull.force, "N",
+                  PULLEY_SOURCE, note=note, result=False)
+            d.add(f"Fy[{name}]", f"Fy,{name}", f"Pull of {name}, y", "F·cos θ",
+                  "{0} × cos {1}°", (pull.force, theta), pull.fy, "N", RESOLVE_SOURCE, result=False)
+            d.add(f"Fz[{name}]", f"Fz,{name}", f"Pull of {name}, z", "F·sin θ",
+                  "{0} × sin {1}°", (pull.force, theta), pull.fz, "N", RESOLVE_SOURCE, result=False)
+            return PointLoad(values["position"], pull.fy, pull.fz, 0.0, 0.0, theta, name)
+        if kind == "spur":
+            forces = spur_forces(torque, values["diameter"], values["pressure_angle"])
+            source, fx = SPUR_SOURCE, 0.0
+            radial_formula, radial_template = "Wt·tan φ", "{0} × tan {1}°"
+            angles: tuple[float, ...] = (values["pressure_angle"],)
+        elif kind == "helical":
+            forces = helical_forces(torque, values["diameter"], values["pressure_angle"],
+                                    values["helix_angle"], values["hand"], values["driving"],
+                                    rotation=rotation)
+            source, fx = HELICAL_SOURCE, forces.axial
+            radial_formula, radial_template = "Wt·tan φn/cos ψ", "{0} × tan {1}° / cos {2}°"
+            angles = (values["pressure_angle"], values["helix_angle"])
+        else:
+            forces = straight_bevel_forces(torque, values["diameter"], values["pressure_angle"],
+                                           values["pitch_cone_angle"])
+            source = BEVEL_SOURCE
+            fx = -forces.axial if values["apex"] == "B" else forces.axial
+            radial_formula, radial_template = "Wt·tan φ·cos γ", "{0} × tan {1}° × cos {2}°"
+            angles = (values["pressure_angle"], values["pitch_cone_angle"])
+    d.add(f"Wt[{name}]", f"Wt,{name}", f"Tangential load of {name}", "Wt = 2T/d",
+          "2 × {0} / {1}", (torque, values["diameter"]), forces.tangential, "N", source,
+          result=False)
+    d.add(f"Wr[{name}]", f"Wr,{name}", f"Radial load of {name}", radial_formula, radial_template,
+          (forces.tangential, *angles), forces.radial, "N", source, note="toward the axis",
+          result=False)
+    if kind == "helical":
+        role = "driving" if values["driving"] else "driven"
+        d.add(f"Wa[{name}]", f"Wa,{name}", f"Axial load of {name}, + toward B", "±Wt·tan ψ",
+              "({2}) × {0} × tan {1}°", (forces.tangential, values["helix_angle"],
+                                         math.copysign(1.0, fx)), fx, "N", source,
+              note=f"{values['hand']} hand, {role}, rotation {'+' if rotation > 0 else '−'}: "
+                   f"thrust toward {'B' if fx >= 0 else 'A'}", result=False)
+    elif kind == "bevel":
+        d.add(f"Wa[{name}]", f"Wa,{name}", f"Axial load of {name}, + toward B", "±Wt·tan φ·sin γ",
+              "({3}) × {0} × tan {1}° × sin {2}°", (forces.tangential, *angles,
+                                                   math.copysign(1.0, fx)), fx, "N", source,
+              note=f"apex on the {values['apex']} side: thrust away from it", result=False)
+    # radial load toward the axis, tangential load against (driving) or with (driven) the motion
+    # of the mesh point, which moves along rotation·(−sin θ, cos θ) in (y, z)
+    along = -rotation if values["driving"] else rotation
+    fy = -forces.radial * cos_t - along * forces.tangential * sin_t
+    fz = -forces.radial * sin_t + along * forces.tangential * cos_t
+    role_words = "against the mesh-point motion (driving)" if values["driving"] else \
+        "with the mesh-point motion (driven)"
+    d.add(f"Fy[{name}]", f"Fy,{name}", f"Force of {name}, y", "−Wr·cos θ ∓ Wt·sin θ",
+          "−{0} × cos {2}° − ({3}) × {1} × sin {2}°", (forces.radial, forces.tangential, theta,
+                                                       float(along)),
+          fy, "N", RESOLVE_SOURCE, note=f"Wr toward the axis; Wt {role_words}", result=False)
+    d.add(f"Fz[{name}]", f"Fz,{name}", f"Force of {name}, z", "−Wr·sin θ ± Wt·cos θ",
+          "−{0} × sin {2}° + ({3}) × {1} × cos {2}°", (forces.radial, forces.tangential, theta,
+                                                       float(along)),
+          fz, "N", RESOLVE_SOURCE, result=False)
+    return PointLoad(values["position"], fy, fz, fx, values["diameter"] / 2.0, theta, name)
+
+
+@dataclass(frozen=True, slots=True)
+class _PairBearing:
+    inputs: CaseInputs
+    kind: Kind
+    arrangement: Arrangement
+    alpha: float
+
+
+def _bearing_inputs(session: Session, name: str, key: str) -> _PairBearing:
+    """The session bearing ``name`` as engine inputs; errors name ``bearings[n].<field>``."""
+    for number, bearing in enumerate(session.bearings, start=1):
+        if bearing.name == name:
+            break
+    else:
+        raise FieldError(key, f"no bearing called {name!r} in this session")
+    where = f"bearings[{number}]"
+    values: dict[str, object] = {}
+    for field_name in BEARING_FIELDS:
+        try:
+            values[field_name] = parse_field(field_name, bearing.texts.get(field_name, ""))
+        except FieldError as exc:
+            raise FieldError(f"{where}.{exc.field}", exc.message) from None
+    inputs = inputs_from_values(values | {"fr": 1.0})  # a unit load: validate needs one
+    try:
+        kind, arrangement, alpha = validate(inputs)
+    except InputError as exc:
+        raise FieldError(f"{where}.{exc.field}", exc.message) from None
+    return _PairBearing(inputs, kind, arrangement, alpha)
+
+
+def _induced(bearing: _PairBearing, fr: float, fa: float) -> tuple[float, float, DynamicFactors]:
+    """(factor, Fi, factors): Y for a tapered bearing (Fi = Fr/(2Y)), e for angular contact."""
+    inputs = bearing.inputs
+    factors = dynamic_factors(bearing.kind, bearing.arrangement, bearing.alpha, fa, inputs.c0,
+                              inputs.f0, inputs.e_given, inputs.y_given)
+    if bearing.kind is Kind.TAPERED:
+        return factors.y_high, induced_thrust_tapered(fr, factors.y_high), factors
+    return factors.e, induced_thrust_angular_contact(fr, factors.e), factors
+
+
+def _pair_steps(d: Derivation, pair: dict[str, _PairBearing], reactions: ShaftReactions,
+                mounting: str) -> dict[str, float]:
+    """Induced thrusts and the thrust-sharing rule; returns Fa per side (fixed point, see notes)."""
+    fr = {"A": reactions.radial_a, "B": reactions.radial_b}
+    fa = {"A": 0.0, "B": 0.0}
+    for _ in range(PAIR_ITERATIONS):
+        induced = {side: _induced(pair[side], fr[side], fa[side]) for side in SIDES}
+        fa_a, fa_b, explanation = share_thrust(fr["A"], fr["B"], induced["A"][1], induced["B"][1],
+                                               reactions.thrust, mounting)  # type: ignore[arg-type]
+        settled = max(abs(fa_a - fa["A"]), abs(fa_b - fa["B"])) <= 1e-9 * max(fa_a, fa_b, 1.0)
+        fa = {"A": fa_a, "B": fa_b}
+        if settled:
+            break
+    warning = None if settled else (
+        f"the axial loads of the pair did not settle in {PAIR_ITERATIONS} rounds (e depends on Fa)")
+    for side in SIDES:
+        factor, fi, factors = induced[side]
+        if pair[side].kind is Kind.TAPERED:
+            d.add(f"Y_{side}", f"Y,{side}", f"Axial factor of bearing {side} (Fa/Fr > e)",
+                  factors.basis, "{0}", (factor,), factor, "", factors.source,
+                  note="the Y of the bearing's own derivation on the Fa/Fr > e branch")
+            d.add(f"Fi_{side}", f"Fi,{side}", f"Induced thrust of bearing {side}", "Fr/(2Y)",
+                  "{0} / (2 × {1})", (fr[side], factor), fi, "N", TAPERED_SOURCE)
+        else:
+            d.add(f"e_{side}", f"e,{side}", f"Limit ratio e of bearing {side}", factors.basis,
+                  "{0}", (factor,), factor, "", factors.source,
+                  note="at the bearing's own Fa" if factors.index_formula else None)
+            d.add(f"Fi_{side}", f"Fi,{side}", f"Induced thrust of bearing {side}", "e·Fr",
+                  "{0} × {1}", (factor, fr[side]), fi, "N", ANGULAR_SOURCE)
+    for side in SIDES:
+        d.add(f"Fa_{side}", f"Fa,{side}", f"Axial load on bearing {side}",
+              "thrust-sharing rule", "{0}", (fa[side],), fa[side], "N", SHARING_SOURCE,
+              note=explanation, warning=warning if side == "B" else None)
+    return fa
+
+
+def _merge(target: Derivation, more: Derivation) -> None:
+    target.steps.extend(more.steps)
+    target.results.update(more.results)
+    target.warnings.extend(more.warnings)
+    target.notes.extend(more.notes)
+
+
+def _state_key(shaft: Shaft, state: OperatingState, key: str) -> str:
+    for number, item in enumerate(shaft.states, start=1):
+        if item is state:
+            return f"{key}.states[{number}]"
+    return f"{key}.state"
+
+
+def solve_shaft(shaft: Shaft, state: OperatingState, session: Session, *,
+                key: str = "shaft") -> ShaftSolution:
+    """Free body of ``shaft`` in ``state``: mesh and belt forces, reactions, per bearing (Fr, Fa).
+
+    Gear-force relations (spur, helical, straight bevel), belt pull, shaft statics (ΣF = 0,
+    ΣM = 0), and for a pair the induced thrusts and the two-bearing thrust-sharing rule.  Bad
+    input raises FieldError naming the key under ``key`` (``shafts[1]`` when reading a file).
+    """
+    parsed = _parsed_shaft(shaft, key)
+    state_key = _state_key(shaft, state, key)
+    power, torque, speed, _ = _parsed_state(state, state_key)
+    pair = None
+    if parsed.locating == "pair":
+        pair = {side: _bearing_inputs(session, getattr(shaft, f"bearing_{side.lower()}"),
+                                      f"{key}.bearing_{side.lower()}") for side in SIDES}
+        for side, bearing in pair.items():
+            if bearing.kind not in PAIR_KINDS or bearing.arrangement is not Arrangement.SINGLE:
+                raise FieldError(f"{key}.bearing_{side.lower()}",
+                                 "a pair needs single angular-contact or tapered roller bearings, "
+                                 f"not {bearing.kind.value} ({bearing.arrangement.value})")
+    else:
+        for side in ("bearing_a", "bearing_b"):
+            if session.bearing(getattr(shaft, side)) is None:
+                raise FieldError(f"{key}.{side}",
+                                 f"no bearing called {getattr(shaft, side)!r} in this session")
+    d = Derivation()
+    total_torque = _torque(d, power, torque, speed, state_key)
+    loads = tuple(_element_load(d, values, total_torque, parsed.rotation,
+                                f"{key}.elements[{number}]")
+                  for number, values in enumerate(parsed.elements, start=1))
+    layout = ShaftLayout(parsed.position_a, parsed.position_b,
+                         "both" if pair is not None else parsed.locating, loads)  # type: ignore[arg-type]
+    with _engine_keys(key, _LAYOUT_ENGINE_KEYS):
+        reactions = solve_reactions(layout)
+        _merge(d, derivation_steps(layout, reactions))
+    if pair is not None:
+        fa = _pair_steps(d, pair, reactions, parsed.mounting)
+    else:
+        fa = {"A": reactions.axial_a, "B": reactions.axial_b}
+    bearing_loads = {"A": (reactions.radial_a, fa["A"]), "B": (reactions.radial_b, fa["B"])}
+    return ShaftSolution(shaft, state, total_torque, speed, loads, reactions, bearing_loads, d)
+
+
+# ---- load cases ----------------------------------------------------------------------------
+def case_name(shaft: Shaft, state: OperatingState, side: str) -> str:
+    """The name of a generated case: ``<shaft> · <state> · A``."""
+    return SEPARATOR.join((shaft.name, state.name, side))
+
+
+def is_generated(case: LoadCase) -> bool:
+    """True for a case made by :func:`generated_cases` (the screen shows it read-only)."""
+    return case.notes.startswith(GENERATED_NOTE)
+
+
+def _force_text(value: float) -> str:
+    return f"{value:.6g} N"
+
+
+def shaft_cases(session: Session, shaft: Shaft, *, key: str = "shaft",
+                taken: set[str] | None = None) -> list[LoadCase]:
+    """The generated cases of one shaft (see :func:`generated_cases`); errors named under ``key``.
+
+    ``taken`` holds case names already in use (the session's when not given); it is updated.
+    """
+    taken = {case.name for case in session.cases} if taken is None else taken
+    result = []
+    for state_number, state in enumerate(shaft.states, start=1):
+        solution = solve_shaft(shaft, state, session, key=key)
+        for side in SIDES:
+            name = case_name(shaft, state, side)
+            if name in taken:
+                raise FieldError(f"{key}.states[{state_number}].name",
+                                 f"the case name {name!r} is already taken")
+            taken.add(name)
+            fr, fa = solution.bearing_loads[side]
+            texts = dict(shaft.case_fields) | {
+                "fr": _force_text(fr), "fa": _force_text(fa), "speed": f"{solution.speed:.6g} rpm"}
+            result.append(LoadCase(name, getattr(shaft, f"bearing_{side.lower()}"), texts,
+                                   f"{GENERATED_NOTE}{shaft.name}"))
+    return result
+
+
+def generated_cases(session: Session, shafts: Sequence[Shaft]) -> list[LoadCase]:
+    """One load case per shaft × state × bearing, with Fr, Fa and speed from :func:`solve_shaft`.
+
+    Each case also carries its shaft's ``case_fields`` and the note ``generated from shaft
+    <name>``.  FieldError names ``shafts[n]…`` for bad input or a case name already taken.
+    """
+    taken = {case.name for case in session.cases}
+    return [case for number, shaft in enumerate(shafts, start=1)
+            for case in shaft_cases(session, shaft, key=f"shafts[{number}]", taken=taken)]
