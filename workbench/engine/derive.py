@@ -220,7 +220,7 @@ def _dynamic_load(d: Derivation, case: CaseInputs, kind: Kind, arrangement: Arra
               "N", factors.source)
         d.results.update(e=NAN, X=0.0, Y=1.0)
         return
-    if factors.index_formula:
+    if factors.index_formula and case.fa > 0:  # with no axial load the table plays no part
         clamp = factors.clamped
         note = None
         if clamp and case.fa > 0:
