@@ -25,14 +25,14 @@ def test_life_curve_points_are_derivations() -> None:
 
 
 def test_e_switch_is_marked_between_the_samples_where_the_branch_changes() -> None:
-    """Scaling both loads keeps Fa/Fr = 0.25 but moves e with the Table 3 index: the switch is
-    where e crosses 0.25, and the mark sits between samples on either side of it."""
+    """Scaling both loads keeps Fa/Fr = 0.25 but moves e with the Table 3 index (e rises with
+    Fa/C0): below the switch Fa/Fr > e, above it Fa/Fr ≤ e, and the mark sits between."""
     curve = life_curve(CASE)
     (name, at), = curve.marks
     assert name == "e switch"
     below = derive(apply_unknown(CASE, "load_scale", at * 0.97))
     above = derive(apply_unknown(CASE, "load_scale", at * 1.03))
-    assert "≤ e" in below.peek("ratio").note and "> e" in above.peek("ratio").note
+    assert "> e" in below.peek("ratio").note and "≤ e" in above.peek("ratio").note
 
 
 def test_aiso_curve_uses_the_case_load_ratio() -> None:
