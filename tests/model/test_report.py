@@ -18,8 +18,9 @@ import pytest
 
 from workbench.engine.derive import derive
 from workbench.model.caution import SAFETY_CAUTION
+from workbench.model.analysis import analyse
 from workbench.model.fields import FieldError
-from workbench.model.session import Bearing, LoadCase, Session, SolverSetup, Targets, evaluate
+from workbench.model.session import Bearing, LoadCase, Session, SolverSetup, Targets
 from workbench.model.sessionfile import dumps_session, load_session
 from workbench.model.targets import parse_target_text
 from workbench.report import FORMATS, render_report, run_report
@@ -72,7 +73,8 @@ def test_example_sessions_report_cleanly_in_every_format(path: Path, tmp_path: P
 def test_json_results_are_derive_results(path: Path) -> None:
     session = load_session(path)
     data = strict_json(render_report(session, "json", path.name))
-    for case, evaluated in zip(data["cases"], evaluate(session), strict=True):
+    # the session's cases, then those generated from its shafts
+    for case, evaluated in zip(data["cases"], analyse(session).cases, strict=True):
         assert evaluated.inputs is not None
         reference = derive(evaluated.inputs).results
         assert case["results"].keys() == reference.keys()
@@ -85,7 +87,7 @@ def test_json_results_are_derive_results(path: Path) -> None:
 def test_text_report_shows_every_step_and_source(path: Path) -> None:
     session = load_session(path)
     text = render_report(session, "text", path.name)
-    for evaluated in evaluate(session):
+    for evaluated in analyse(session).cases:
         assert evaluated.derivation is not None
         assert f": {evaluated.case.name}\n" in text
         for step in evaluated.derivation.steps:
@@ -103,7 +105,7 @@ def test_markdown_tables_are_well_formed(path: Path) -> None:
             continue
         assert len(set(widths)) <= 1, "a table whose rows have different numbers of cells"
         widths = []
-    assert markdown.count("### Derivation") == len(load_session(path).cases)
+    assert markdown.count("### Derivation") == len(analyse(load_session(path)).cases)
 
 
 # ---- numbers against closed forms ------------------------------------------------------------

@@ -33,15 +33,35 @@ typed, so a file reads and edits by hand::
     target = "Lnm=20000 h"
     case = "full load"
 
-    [duty_cycles]                # reserved: kept as read and written back unchanged
-    [shafts]                     # reserved likewise
+    [[shafts]]                   # a shaft on two bearings of the file: workbench.model.shafts
+    name = "input shaft"
+    bearing_a = "DG-40-80"
+    ...
+    [[shafts.elements]]          # its gears and pulleys
+    ...
+    [[shafts.states]]            # how it runs: power or torque, speed, share of the time
+    ...
+
+    [[duty_cycles]]              # states of one bearing: workbench.model.duty_cycles
+    name = "locating end"
+    [[duty_cycles.states]]
+    case = "full load"           # a case of the file or one generated from a shaft
+    share = "0.7"
+
+The ``[[shafts]]`` and ``[[duty_cycles]]`` arrays are kept in ``Session.reserved`` as read and
+written back unchanged; on reading they are checked with
+:func:`~workbench.model.shafts.shafts_from_tables` and
+:func:`~workbench.model.duty_cycles.duty_cycles_from_tables`, and every bearing a shaft sits on
+and every case a duty cycle names must exist.
 
 Reading is strict.  An unknown key is an error, never silently ignored: a misspelt ``fa`` would
 otherwise leave the axial load at zero and give a life that looks fine.  Every field text is
 checked with :func:`workbench.model.fields.parse_field`, so a bad unit is reported when the file
 is opened, not when a result is shown.  Errors are :class:`SessionFileError`, one line naming the
 file, the key and its line.  Keys of repeated tables are counted from 1 in the order they appear:
-``cases[2].fr`` is ``fr`` in the second ``[[cases]]`` table of the file.
+``cases[2].fr`` is ``fr`` in the second ``[[cases]]`` table of the file, and
+``shafts[2].elements[1].helix_angle`` is ``helix_angle`` in the first ``[[shafts.elements]]``
+table inside the second ``[[shafts]]`` table.
 
 Saving never leaves a half-written file: the text goes to a temporary file in the same folder,
 is flushed and synced to disk, then replaces the old file in one ``os.replace``.  The version
@@ -67,10 +87,12 @@ import platformdirs
 import tomli_w
 
 from ..engine.solve import UNKNOWNS
+from .duty_cycles import duty_cycles_from_tables
 from .fields import BEARING_FIELDS, CASE_FIELDS, FieldError, parse_field
 from .session import (
     SCHEMA_VERSION, UNIT_SYSTEMS, Bearing, LoadCase, Session, SolverSetup, Targets, parse_target,
 )
+from .shafts import SIDES, Shaft, case_name, shafts_from_tables
 from .targets import parse_target_text
 
 APP_NAME = "bearing-workbench"
@@ -122,6 +144,7 @@ class SaveOutcome:
 _TOML_POSITION = re.compile(r"\s*\(at line (\d+), column (\d+)\)\s*$")
 _TOML_END = re.compile(r"\s*\(at end of document\)\s*$")
 _HEADER = re.compile(r"^\s*(\[\[?)\s*([^\[\]]+?)\s*\]\]?")
+_KEY_PART = re.compile(r"\[(\d+)\]|([^.\[\]]+)")
 
 
 def _key_text(path: KeyPath) -> str:
@@ -130,6 +153,11 @@ def _key_text(path: KeyPath) -> str:
     for part in path:
         text += f"[{part}]" if isinstance(part, int) else (f".{part}" if text else part)
     return text
+
+
+def _key_path(text: str) -> KeyPath:
+    """``shafts[2].elements[1].helix_angle`` as ``("shafts", 2, "elements", 1, "helix_angle")``."""
+    return tuple(int(match[1]) if match[1] else match[2] for match in _KEY_PART.finditer(text))
 
 
 def _type_words(value: object) -> str:
@@ -159,39 +187,64 @@ class _Reader:
         self.headers = self._headers()
 
     def _headers(self) -> list[tuple[int, str]]:
-        """(line index, table name) of every ``[name]`` and ``[[name]]`` header line."""
+        """(line index, dotted table name) of every ``[name]`` and ``[[name]]`` header line."""
         found = []
         for index, line in enumerate(self.lines):
             match = _HEADER.match(line)
             if match:
-                found.append((index, match[2].strip().strip("\"'")))
+                name = ".".join(part.strip().strip("\"'") for part in match[2].split("."))
+                found.append((index, name))
         return found
 
+    def _own_end(self, start: int, end: int) -> int:
+        """The end of a table's own key lines: the next header after ``start`` (or ``end``)."""
+        return next((index for index, _ in self.headers if start <= index < end), end)
+
+    def _nth_header(self, start: int, end: int, name: str, occurrence: int) -> int | None:
+        """The line index of the ``occurrence``-th header called ``name`` in lines start…end."""
+        matches = [index for index, found in self.headers if start <= index < end and found == name]
+        return matches[occurrence - 1] if len(matches) >= occurrence else None
+
+    def _block_end(self, header: int, end: int, name: str) -> int:
+        """The end of table ``name`` opened at ``header``: the next header not inside it."""
+        inside = name + "."
+        return next((index for index, found in self.headers
+                     if header < index < end and not found.startswith(inside)), end)
+
     def line_of(self, path: KeyPath) -> int | None:
-        """The 1-based line of ``path`` in the text (its table's header when the key is absent)."""
-        table = path[0] if len(path) > 1 else None
-        occurrence = path[1] if len(path) > 1 and isinstance(path[1], int) else 1
-        key = path[-1] if isinstance(path[-1], str) else None
-        if table is None:
-            start, end, header = 0, (self.headers[0][0] if self.headers else len(self.lines)), None
-        else:
-            matches = [i for i, (_, name) in enumerate(self.headers) if name == table]
-            if len(matches) < occurrence:
-                return self._key_line(0, len(self.lines), str(table))
-            number = matches[occurrence - 1]
-            header = self.headers[number][0]
-            start = header + 1
-            end = self.headers[number + 1][0] if number + 1 < len(self.headers) else len(self.lines)
-        if key is not None and key != table:
-            found = self._key_line(start, end, key)
-            if found is not None:
-                return found
-        if header is None:  # a top-level name: its own table header, if it has one
-            header = next((i for i, name in self.headers if name == key), None)
+        """The 1-based line of ``path`` in the text (the deepest table header found when absent).
+
+        Each name followed by a number is the Nth ``[[name]]`` header inside the table found so
+        far, counted by position in the text: ``("shafts", 2, "elements", 1, "helix_angle")``
+        looks for the first ``[[shafts.elements]]`` after the second ``[[shafts]]`` header and
+        before the table that ends it.  A table written inline (``name = {…}`` or ``[…]``) is
+        found by its key line.
+        """
+        start, end, header, prefix = 0, len(self.lines), None, ""
+        position = 0
+        while position < len(path):
+            key = str(path[position])
+            following = path[position + 1] if position + 1 < len(path) else None
+            occurrence = following if isinstance(following, int) else None
+            name = prefix + key
+            if following is None:  # the last name: a key line, else a table of that name
+                found = self._key_line(start, self._own_end(start, end), key)
+                if found is not None:
+                    return found
+                table = self._nth_header(start, end, name, 1)
+                return table + 1 if table is not None else (None if header is None else header + 1)
+            table = self._nth_header(start, end, name, occurrence or 1)
+            if table is None:  # an inline table or array, or a table that is missing
+                found = self._key_line(start, self._own_end(start, end), key)
+                return found if found is not None else (None if header is None else header + 1)
+            header, start, end = table, table + 1, self._block_end(table, end, name)
+            prefix = name + "."
+            position += 1 if occurrence is None else 2
         return None if header is None else header + 1
 
     def _key_line(self, start: int, end: int, key: str) -> int | None:
-        pattern = re.compile(rf"^\s*(?:{re.escape(key)}|\"{re.escape(key)}\"|'{re.escape(key)}')\s*=")
+        pattern = re.compile(
+            rf"^\s*(?:{re.escape(key)}|\"{re.escape(key)}\"|'{re.escape(key)}')\s*[=.]")
         for index in range(start, end):
             if pattern.match(self.lines[index]):
                 return index + 1
@@ -200,6 +253,10 @@ class _Reader:
     def fail(self, path: KeyPath, message: str) -> SessionFileError:
         """The error for ``path``, with its line found by scanning the text."""
         return SessionFileError(self.source, message, _key_text(path), self.line_of(path))
+
+    def field_failure(self, error: FieldError) -> SessionFileError:
+        """The error for a FieldError whose key is a full key text (``shafts[1].speed``)."""
+        return self.fail(_key_path(error.field), error.message)
 
     def table(self, value: object, path: KeyPath, allowed: tuple[str, ...]) -> dict[str, Any]:
         """A table whose keys are all in ``allowed``."""
@@ -258,6 +315,11 @@ class _Reader:
             raise self.fail(("session", "units"), f"use {' or '.join(UNIT_SYSTEMS)}, not {units!r}")
         bearings = self.bearings(doc)
         cases = self.cases(doc, {b.name for b in bearings})
+        if self.check_values:
+            shafts = self.shafts(doc, {b.name for b in bearings})
+            self.duty_cycles(doc, {c.name for c in cases} | {
+                case_name(shaft, state, side)
+                for shaft in shafts for state in shaft.states for side in SIDES})
         return Session(
             title=self.text(head, ("session",), "title", Session.title),
             engineer=self.text(head, ("session",), "engineer"),
@@ -328,6 +390,36 @@ class _Reader:
             result.append(LoadCase(name, bearing, self.texts(table, path, CASE_FIELDS),
                                    self.text(table, path, "notes")))
         return result
+
+    def shafts(self, doc: Mapping[str, Any], bearing_names: set[str]) -> list[Shaft]:
+        """The [[shafts]] tables checked; each sits on two bearings of the file."""
+        if "shafts" not in doc:
+            return []
+        try:
+            shafts = shafts_from_tables(doc["shafts"])
+        except FieldError as exc:
+            raise self.field_failure(exc) from None
+        for number, shaft in enumerate(shafts, start=1):
+            for side in ("bearing_a", "bearing_b"):
+                if getattr(shaft, side) not in bearing_names:
+                    raise self.fail(("shafts", number, side),
+                                    f"no bearing called {getattr(shaft, side)!r} in this file")
+        return shafts
+
+    def duty_cycles(self, doc: Mapping[str, Any], case_names: set[str]) -> None:
+        """The [[duty_cycles]] tables checked; each state names a case of the file or a shaft's."""
+        if "duty_cycles" not in doc:
+            return
+        try:
+            cycles = duty_cycles_from_tables(doc["duty_cycles"])
+        except FieldError as exc:
+            raise self.field_failure(exc) from None
+        for number, cycle in enumerate(cycles, start=1):
+            for state_number, (case, _) in enumerate(cycle.states, start=1):
+                if case not in case_names:
+                    raise self.fail(("duty_cycles", number, "states", state_number, "case"),
+                                    f"no case called {case!r} in this file, nor generated "
+                                    "from one of its shafts")
 
     def solver(self, doc: Mapping[str, Any], case_names: set[str]) -> SolverSetup:
         """The [solver] table: a known unknown, a readable target, an existing case (or none)."""
@@ -426,7 +518,19 @@ def dumps_session(session: Session) -> str:
         ]
     doc["solver"] = {key: getattr(session.solver, key) for key in SOLVER_KEYS}
     doc.update(session.reserved)
-    return tomli_w.dumps(doc, multiline_strings=True)
+    # tomli_w writes "\r\n" raw inside a multi-line string, where TOML reads it back as "\n"
+    return tomli_w.dumps(doc, multiline_strings=not _holds_carriage_return(doc))
+
+
+def _holds_carriage_return(value: object) -> bool:
+    """True when some text anywhere in ``value`` (tables, lists) holds a carriage return."""
+    if isinstance(value, str):
+        return "\r" in value
+    if isinstance(value, dict):
+        return any(_holds_carriage_return(item) for item in value.values())
+    if isinstance(value, list):
+        return any(_holds_carriage_return(item) for item in value)
+    return False
 
 
 def has_comments(text: str) -> bool:
