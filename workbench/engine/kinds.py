@@ -103,17 +103,30 @@ ROLLER_KINDS = frozenset({Kind.CYLINDRICAL, Kind.TAPERED, Kind.SPHERICAL, Kind.T
 THRUST_KINDS = frozenset({Kind.THRUST_BALL, Kind.THRUST_ROLLER})
 
 
+_KIND_BY_NAME: dict[str, Kind] = {k.value: k for k in Kind}
+# (kind, text) → arrangement, filled as names are met (an Enum call costs a microsecond).
+_ARRANGEMENT_SEEN: dict[tuple[Kind, str], Arrangement] = {}
+
+
 def parse_kind(text: str) -> Kind:
     """The :class:`Kind` named by ``text``, or an InputError listing the names."""
-    try:
-        return Kind(text)
-    except ValueError:
-        names = ", ".join(k.value for k in Kind)
-        raise InputError("kind", f"unknown bearing kind {text!r}; use one of {names}") from None
+    kind = _KIND_BY_NAME.get(text)
+    if kind is None:
+        names = ", ".join(_KIND_BY_NAME)
+        raise InputError("kind", f"unknown bearing kind {text!r}; use one of {names}")
+    return kind
 
 
 def parse_arrangement(kind: Kind, text: str) -> Arrangement:
     """The arrangement named by ``text``, checked against what ``kind`` allows."""
+    seen = _ARRANGEMENT_SEEN.get((kind, text))
+    if seen is not None:
+        return seen
+    _ARRANGEMENT_SEEN[(kind, text)] = arrangement = _arrangement(kind, text)
+    return arrangement
+
+
+def _arrangement(kind: Kind, text: str) -> Arrangement:
     allowed = ARRANGEMENTS[kind]
     if text == "single" and Arrangement.SINGLE not in allowed:
         return allowed[0]  # self-aligning and spherical are double-row by construction
