@@ -1,0 +1,254 @@
+"""Every key in the table does what its footer words say; the palette offers every one."""
+
+from __future__ import annotations
+
+from collections.abc import Awaitable, Callable
+
+import pytest
+from textual.widgets import Input, TabbedContent
+
+from tui_helpers import editor, retype
+
+from workbench.tui.about_screen import AboutScreen
+from workbench.tui.actions import ACTIONS
+from workbench.tui.app import WorkbenchApp
+from workbench.tui.commands import WorkbenchCommands
+from workbench.tui.dialogs import ChoiceDialog, TextPrompt
+from workbench.tui.help_screen import HelpScreen
+
+Check = Callable[..., Awaitable[None]]
+
+
+def first_key(action_id: str) -> str:
+    """The first key of an action in the table."""
+    return next(a for a in ACTIONS if a.id == action_id).keys.split(",")[0]
+
+
+async def press(pilot, action_id: str) -> None:
+    await pilot.press(first_key(action_id))
+    await pilot.pause()
+
+
+async def check_help(pilot, app: WorkbenchApp) -> None:
+    await press(pilot, "app.help")
+    assert isinstance(app.screen, HelpScreen)
+    shown = app.screen.query_one("#help-keys").render().plain  # type: ignore[union-attr]
+    assert all(action.title in shown for action in ACTIONS)
+
+
+async def check_about(pilot, app: WorkbenchApp) -> None:
+    await press(pilot, "app.about")
+    assert isinstance(app.screen, AboutScreen)
+    from workbench.model.caution import SAFETY_CAUTION
+    assert str(app.screen.query_one("#about-caution").render()) == SAFETY_CAUTION
+
+
+async def check_save(pilot, app: WorkbenchApp, calls) -> None:
+    await press(pilot, "file.save")  # no file yet: asks for a name
+    assert isinstance(app.screen, TextPrompt)
+    await pilot.press("enter")
+    await pilot.pause()
+    assert any(call[0] == "save" for call in calls) and not app.workbench.dirty
+
+
+async def check_save_as(pilot, app: WorkbenchApp, calls) -> None:
+    await press(pilot, "file.save_as")
+    assert isinstance(app.screen, TextPrompt)
+    app.screen.query_one(Input).value = "elsewhere.toml"
+    await pilot.press("enter")
+    await pilot.pause()
+    assert ("save", app.workbench.path) in calls and app.workbench.path.name == "elsewhere.toml"
+
+
+async def check_open(pilot, app: WorkbenchApp, calls) -> None:
+    await press(pilot, "file.open")
+    assert isinstance(app.screen, TextPrompt)
+    app.screen.query_one(Input).value = "missing.toml"
+    await pilot.press("enter")
+    await pilot.pause()
+    assert calls[-1][0] == "open" and app.is_running  # the failure is a notice, not a crash
+
+
+async def check_undo_redo(pilot, app: WorkbenchApp) -> None:
+    await retype(pilot, app, "fr", "4 kN")
+    await pilot.press("f3")
+    await press(pilot, "edit.undo")
+    assert app.workbench.session.cases[0].texts["fr"] == "3 kN"
+    await press(pilot, "edit.redo")
+    assert app.workbench.session.cases[0].texts["fr"] == "4 kN"
+
+
+async def check_add(pilot, app: WorkbenchApp) -> None:
+    await press(pilot, "case.add")
+    assert len(app.workbench.session.cases) == 4 and app.workbench.selected == 1
+
+
+async def check_duplicate(pilot, app: WorkbenchApp) -> None:
+    await press(pilot, "case.duplicate")
+    cases = app.workbench.session.cases
+    assert cases[1].name == "Steady run copy" and cases[1].texts == cases[0].texts
+
+
+async def check_rename(pilot, app: WorkbenchApp) -> None:
+    await press(pilot, "case.rename")
+    assert isinstance(app.screen, TextPrompt)
+    app.screen.query_one(Input).value = "Peak torque"  # taken: refused in the dialog
+    await pilot.press("enter")
+    await pilot.pause()
+    assert isinstance(app.screen, TextPrompt)
+    app.screen.query_one(Input).value = "Cruise"
+    await pilot.press("enter")
+    await pilot.pause()
+    assert app.workbench.session.cases[0].name == "Cruise"
+
+
+async def check_delete(pilot, app: WorkbenchApp) -> None:
+    await press(pilot, "case.delete")
+    assert [c.name for c in app.workbench.session.cases] == ["Peak torque", "Idler end"]
+    await press(pilot, "edit.undo")
+    assert app.workbench.session.cases[0].name == "Steady run"
+
+
+async def check_move(pilot, app: WorkbenchApp) -> None:
+    await press(pilot, "case.move_down")
+    assert app.workbench.session.cases[1].name == "Steady run" and app.workbench.selected == 1
+    await press(pilot, "case.move_up")
+    assert app.workbench.session.cases[0].name == "Steady run"
+
+
+def _nudge_check(action_id: str, expected: str) -> Check:
+    async def check(pilot, app: WorkbenchApp) -> None:
+        app.workbench_screen.query_one("#field-fa", Input).focus()
+        await pilot.pause()
+        await press(pilot, action_id)
+        assert app.workbench.session.cases[0].texts["fa"] == expected
+    return check
+
+
+async def check_solve(pilot, app: WorkbenchApp) -> None:
+    await press(pilot, "solver.solve")
+    assert app.workbench.solved is not None
+    assert app.workbench_screen.query_one(TabbedContent).active == "tab-solver"
+
+
+async def check_apply(pilot, app: WorkbenchApp) -> None:
+    await press(pilot, "solver.solve")
+    await press(pilot, "solver.apply")
+    assert app.workbench.session.bearing("Drive").texts["c"] != "30 kN"
+
+
+async def check_units(pilot, app: WorkbenchApp) -> None:
+    await press(pilot, "view.units")
+    assert app.workbench.session.units == "US"
+
+
+def _pane_check(action_id: str, pane: str) -> Check:
+    async def check(pilot, app: WorkbenchApp) -> None:
+        await press(pilot, "view.solver" if pane == "derivation" else "view.derivation")
+        await press(pilot, action_id)
+        assert app.workbench_screen.query_one(TabbedContent).active == f"tab-{pane}"
+    return check
+
+
+async def check_focus_cases(pilot, app: WorkbenchApp) -> None:
+    await press(pilot, "focus.editor")
+    await press(pilot, "focus.cases")
+    assert app.focused is not None and app.focused.id == "cases"
+
+
+async def check_focus_editor(pilot, app: WorkbenchApp) -> None:
+    await press(pilot, "focus.editor")
+    assert editor(app).focused_field() == "kind"
+
+
+async def check_theme(pilot, app: WorkbenchApp) -> None:
+    before = app.theme
+    await press(pilot, "app.theme")
+    assert app.theme != before
+
+
+async def check_quit(pilot, app: WorkbenchApp) -> None:
+    await retype(pilot, app, "fr", "4 kN")
+    await press(pilot, "app.quit")
+    assert isinstance(app.screen, ChoiceDialog)  # unsaved work: asks first
+    await pilot.press("escape")
+    await pilot.pause()
+    assert app.is_running
+    app.workbench.dirty = False
+    await press(pilot, "app.quit")
+    assert app.return_value == 0
+
+
+CHECKS: dict[str, Check] = {
+    "app.help": check_help,
+    "app.about": check_about,
+    "file.save": check_save,
+    "file.save_as": check_save_as,
+    "file.open": check_open,
+    "edit.undo": check_undo_redo,
+    "edit.redo": check_undo_redo,
+    "case.add": check_add,
+    "case.duplicate": check_duplicate,
+    "case.rename": check_rename,
+    "case.delete": check_delete,
+    "case.move_up": check_move,
+    "case.move_down": check_move,
+    # ±5 % and ±1 % of "1 kN", the unit kept (1 × 1.05, 1 × 0.95, 1 × 1.01, 1 × 0.99).
+    "whatif.up5": _nudge_check("whatif.up5", "1.05 kN"),
+    "whatif.down5": _nudge_check("whatif.down5", "0.95 kN"),
+    "whatif.up1": _nudge_check("whatif.up1", "1.01 kN"),
+    "whatif.down1": _nudge_check("whatif.down1", "0.99 kN"),
+    "solver.solve": check_solve,
+    "solver.apply": check_apply,
+    "view.units": check_units,
+    "view.derivation": _pane_check("view.derivation", "derivation"),
+    "view.solver": _pane_check("view.solver", "solver"),
+    "focus.cases": check_focus_cases,
+    "focus.editor": check_focus_editor,
+    "app.theme": check_theme,
+    "app.quit": check_quit,
+}
+
+
+def test_every_action_has_a_check_and_a_unique_id() -> None:
+    ids = [action.id for action in ACTIONS]
+    assert len(ids) == len(set(ids))
+    assert set(ids) == set(CHECKS)
+
+
+@pytest.mark.parametrize("action_id", [action.id for action in ACTIONS])
+async def test_binding_does_what_it_says(make_app, no_disk, action_id: str) -> None:
+    app = make_app()
+    async with app.run_test(size=(80, 24)) as pilot:
+        await pilot.pause()
+        check = CHECKS[action_id]
+        if check in (check_save, check_save_as, check_open):
+            await check(pilot, app, no_disk)
+        else:
+            await check(pilot, app)
+
+
+async def test_footer_shows_every_screen_action(make_app) -> None:
+    app = make_app()
+    async with app.run_test(size=(200, 24)) as pilot:
+        await pilot.pause()
+        shown = {binding.id for _, binding, _, _ in app.screen.active_bindings.values()
+                 if binding.show}
+        assert {a.id for a in ACTIONS} <= shown
+
+
+async def test_palette_offers_every_action(make_app) -> None:
+    app = make_app()
+    async with app.run_test(size=(80, 24)) as pilot:
+        await pilot.pause()
+        provider = WorkbenchCommands(app.screen)
+        titles = [hit.text async for hit in provider.discover()]
+        assert len(titles) == len(ACTIONS)
+        hits = [hit async for hit in provider.search("duplicate")]
+        assert hits and "Duplicate" in str(hits[0].match_display)
+        await pilot.press("ctrl+p")
+        await pilot.pause()
+        await pilot.press(*"Add case", "enter")
+        await pilot.pause()
+        await pilot.pause()
+        assert len(app.workbench.session.cases) == 4

@@ -1,0 +1,31 @@
+"""Pictures of the main screen (pytest-textual-snapshot): 80×24 and 120×40, dark and light.
+
+They complement the behavioural tests; accept an intended change with ``--snapshot-update``.
+"""
+
+from __future__ import annotations
+
+import pytest
+
+THEMES = ("bench-night", "bench-paper")
+SIZES = ((80, 24), (120, 40))
+
+
+@pytest.mark.parametrize("theme", THEMES)
+@pytest.mark.parametrize("size", SIZES, ids=lambda size: f"{size[0]}x{size[1]}")
+def test_main_screen(snap_compare, make_app, theme: str, size: tuple[int, int]) -> None:
+    async def choose_theme(pilot) -> None:
+        await pilot.pause()
+        pilot.app.theme = theme
+        await pilot.pause()
+
+    assert snap_compare(make_app(), terminal_size=size, run_before=choose_theme)
+
+
+def test_derivation_with_a_warning(snap_compare, make_app) -> None:
+    async def slow_the_shaft(pilot) -> None:
+        await pilot.pause()
+        pilot.app.workbench_screen.query_one("#field-speed").value = "0"
+        await pilot.pause()
+
+    assert snap_compare(make_app(), terminal_size=(80, 24), run_before=slow_the_shaft)

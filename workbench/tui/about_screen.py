@@ -1,0 +1,48 @@
+"""The about screen: what the numbers follow, and the safety caution."""
+
+from __future__ import annotations
+
+from importlib.metadata import PackageNotFoundError, version
+
+from textual.app import ComposeResult
+from textual.binding import Binding
+from textual.containers import VerticalScroll
+from textual.content import Content
+from textual.widgets import Label, Static
+
+from ..model.caution import SAFETY_CAUTION
+from .dialogs import OnceModal
+
+STANDARDS = (
+    "ISO 281:2007 — dynamic load ratings, equivalent dynamic load, rating life, a1, aISO",
+    "ISO 76:2006 — static load ratings, equivalent static load, static safety factor s0",
+    "ISO 3448 — ISO viscosity grades (VG) for industrial lubricants",
+    "ASTM D341 — viscosity–temperature relation of petroleum oils",
+    "ASTM D2270 — viscosity index",
+    "Three-parameter Weibull life distribution — reliability beyond the ISO 281 a1 table",
+    "Brent's method — the back-solver's root finding",
+)
+
+
+def _version() -> str:
+    try:
+        return version("bearing-workbench")
+    except PackageNotFoundError:
+        return "development copy"
+
+
+class AboutScreen(OnceModal[None]):
+    """The standards and the caution; escape closes it."""
+
+    BINDINGS = [Binding("escape,q", "dismiss_none", "Close", id="about.close")]
+
+    def compose(self) -> ComposeResult:
+        """Title, standards, caution."""
+        with VerticalScroll(classes="dialog-box info-box"):
+            yield Label(f"Bearing workbench {_version()}", classes="dialog-title")
+            yield Static("The numbers follow:")
+            yield Static(Content("\n".join("• " + line for line in STANDARDS)),
+                         id="about-standards")
+            yield Label("Caution", classes="dialog-title")
+            yield Static(Content(SAFETY_CAUTION), id="about-caution")
+            yield Static("escape: close", classes="dialog-hint")

@@ -1,0 +1,95 @@
+"""The one table of what a person can do: keys, footer words, palette titles and help.
+
+The app's and the workbench screen's ``BINDINGS``, the command palette
+(:mod:`workbench.tui.commands`) and the help screen are all built from :data:`ACTIONS`, so a key
+and its command can never drift apart.  Each binding carries an ``id`` so a keymap
+(``App.set_keymap``) can move it to another key.
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass
+from typing import Literal
+
+from textual.binding import Binding
+
+Scope = Literal["app", "screen"]
+
+NUDGE_GROUP = Binding.Group("What-if ±5 % / ±1 %", compact=True)
+MOVE_GROUP = Binding.Group("Move case", compact=True)
+PANE_GROUP = Binding.Group("Derivation / Solver", compact=True)
+
+
+@dataclass(frozen=True, slots=True)
+class Action:
+    """One thing to do: ``action`` names an ``action_*`` method in ``scope``."""
+
+    id: str
+    keys: str
+    action: str
+    title: str
+    help: str
+    scope: Scope = "screen"
+    group: Binding.Group | None = None
+
+    def binding(self) -> Binding:
+        """The Textual binding for this action (shown in the footer)."""
+        return Binding(self.keys, self.action, self.title, id=self.id, group=self.group,
+                       tooltip=self.help)
+
+    @property
+    def key_text(self) -> str:
+        """The keys as a person reads them ("ctrl+s, f12")."""
+        return ", ".join(key.strip() for key in self.keys.split(","))
+
+
+ACTIONS: tuple[Action, ...] = (
+    Action("app.help", "f1", "help", "Help", "List every key and what it does", "app"),
+    Action("file.save", "ctrl+s", "save", "Save", "Save the session to its file"),
+    Action("edit.undo", "ctrl+z", "undo", "Undo", "Undo the last edit, delete, move or apply"),
+    Action("edit.redo", "ctrl+y", "redo", "Redo", "Redo what was undone"),
+    Action("case.add", "ctrl+n", "add_case", "Add case",
+           "Add an empty load case after the selected one"),
+    Action("case.duplicate", "ctrl+b", "duplicate_case", "Duplicate",
+           "Copy the selected load case"),
+    Action("case.rename", "f2", "rename_case", "Rename", "Rename the selected load case"),
+    Action("case.delete", "ctrl+delete,f8", "delete_case", "Delete",
+           "Delete the selected load case (undo brings it back)"),
+    Action("case.move_up", "alt+up", "move_case(-1)", "Move case up",
+           "Move the selected load case up the list", group=MOVE_GROUP),
+    Action("case.move_down", "alt+down", "move_case(1)", "Move case down",
+           "Move the selected load case down the list", group=MOVE_GROUP),
+    Action("whatif.up5", "ctrl+up", "nudge(1.05)", "Field +5 %",
+           "Raise the focused number by 5 %, unit kept", group=NUDGE_GROUP),
+    Action("whatif.down5", "ctrl+down", "nudge(0.95)", "Field −5 %",
+           "Lower the focused number by 5 %, unit kept", group=NUDGE_GROUP),
+    Action("whatif.up1", "ctrl+shift+up", "nudge(1.01)", "Field +1 %",
+           "Raise the focused number by 1 %, unit kept", group=NUDGE_GROUP),
+    Action("whatif.down1", "ctrl+shift+down", "nudge(0.99)", "Field −1 %",
+           "Lower the focused number by 1 %, unit kept", group=NUDGE_GROUP),
+    Action("solver.solve", "f9", "solve", "Solve",
+           "Back-solve the chosen input so the chosen result meets its target"),
+    Action("solver.apply", "f10,ctrl+g", "apply_solution", "Apply",
+           "Write the solved value into the case (undoable)"),
+    Action("view.units", "f7", "toggle_units", "SI/US",
+           "Show results in SI or US customary units (typed values stay as typed)"),
+    Action("view.derivation", "f5", "show_pane('derivation')", "Derivation",
+           "Show the derivation of the selected case", group=PANE_GROUP),
+    Action("view.solver", "f6", "show_pane('solver')", "Solver",
+           "Show the back-solver", group=PANE_GROUP),
+    Action("focus.cases", "f3", "focus_cases", "Cases", "Go to the load-case list"),
+    Action("focus.editor", "f4", "focus_editor", "Editor", "Go to the case editor"),
+    Action("file.open", "ctrl+o", "open", "Open", "Open another session file"),
+    Action("file.save_as", "f12", "save_as", "Save as", "Save the session under a new name"),
+    Action("app.theme", "ctrl+t", "next_theme", "Theme", "Switch to the next colour theme",
+           "app"),
+    Action("app.about", "shift+f1", "about", "About",
+           "The standards the numbers follow, and the safety caution", "app"),
+    Action("app.quit", "ctrl+q", "quit", "Quit", "Leave the workbench (asks about unsaved work)",
+           "app"),
+)
+
+
+def bindings(scope: Scope) -> list[Binding]:
+    """The bindings of every action in ``scope``, in table order."""
+    return [action.binding() for action in ACTIONS if action.scope == scope]

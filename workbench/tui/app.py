@@ -1,0 +1,181 @@
+"""The workbench application: global keys, themes, the main screen, quitting and recovery.
+
+``run_app(path)`` opens a session file (None: the shipped demo session) and runs the screen.
+"""
+
+from __future__ import annotations
+
+import os
+import sys
+from pathlib import Path
+
+from textual.app import App
+from textual.binding import Binding
+from textual.notifications import SeverityLevel
+
+from ..model.session import Session
+from . import files, settings
+from .about_screen import AboutScreen
+from .actions import bindings
+from .commands import WorkbenchCommands
+from .dialogs import ChoiceDialog
+from .help_screen import HelpScreen
+from .state import Workbench
+from .theme_files import DEFAULT_THEME, MONOCHROME_THEME, load_theme_files
+from .workbench_screen import AUTOSAVE_DELAY_S, WorkbenchScreen
+
+
+def no_color_requested() -> bool:
+    """Whether the NO_COLOR convention asks for no colour (set and not empty)."""
+    return bool(os.environ.get("NO_COLOR"))
+
+
+class WorkbenchApp(App[int]):
+    """A keyboard-first workbench for one session of load cases."""
+
+    CSS_PATH = "app.tcss"
+    TITLE = "Bearing workbench"
+    COMMANDS = App.COMMANDS | {WorkbenchCommands}
+    BINDINGS = [Binding("ctrl+c", "help_quit", show=False, system=True), *bindings("app")]
+
+    def __init__(self, session: Session | None = None, path: Path | None = None, *,
+                 offer_recovery: bool = True,
+                 autosave_delay: float | None = AUTOSAVE_DELAY_S,
+                 theme_folder: Path | None = None) -> None:
+        super().__init__()
+        self.workbench = Workbench(session if session is not None else Session(), path)
+        self._offer_recovery = offer_recovery
+        self._autosave_delay = autosave_delay
+        self._theme_folder = theme_folder
+        self._our_themes: list[str] = []
+        self._remember_theme = False
+        self._theme_problem = self._install_themes()
+
+    def notify(self, message: str, *, title: str = "", severity: SeverityLevel = "information",
+               timeout: float | None = None, markup: bool = False) -> None:
+        """A notification; its text (names, paths, messages quoting what was typed) is shown as
+        written, never read as markup."""
+        super().notify(message, title=title, severity=severity, timeout=timeout, markup=False)
+
+    def get_default_screen(self) -> WorkbenchScreen:
+        """The workbench screen is the base of the screen stack."""
+        return WorkbenchScreen(self.workbench, self._autosave_delay)
+
+    @property
+    def workbench_screen(self) -> WorkbenchScreen:
+        """The main screen (under any dialog)."""
+        screen = self.screen_stack[0]
+        assert isinstance(screen, WorkbenchScreen)
+        return screen
+
+    def on_mount(self) -> None:
+        """Report theme files that failed, then offer a recovery copy if one was left behind."""
+        if self._theme_problem is not None:
+            self.notify(self._theme_problem, title="Themes", severity="warning", timeout=8)
+        if self._offer_recovery:
+            self._ask_about_recovery()
+
+    # ---- themes -----------------------------------------------------------------------------
+    def _install_themes(self) -> str | None:
+        """Register the theme files and choose the theme (before the first styling, so the
+        screen is styled once); the message naming the files that failed, if any."""
+        load = load_theme_files(self._theme_folder)
+        for theme in load.themes:
+            self.register_theme(theme)
+        self._our_themes = [theme.name for theme in load.themes]
+        wanted = MONOCHROME_THEME if no_color_requested() else settings.saved_theme()
+        for name in (wanted, DEFAULT_THEME):
+            if name and name in self.available_themes:
+                self.theme = name
+                break
+        self._remember_theme = not no_color_requested()
+        return load.failure_message()
+
+    def watch_theme(self, name: str) -> None:
+        """Remember a theme the person chose (not the one set at start)."""
+        if self._remember_theme:
+            problem = settings.save_theme(name)
+            if problem is not None:
+                self.notify(problem, severity="warning")
+
+    def action_next_theme(self) -> None:
+        """Switch to the next of the workbench's own themes."""
+        names = self._our_themes or [self.theme]
+        index = names.index(self.theme) if self.theme in names else -1
+        self.theme = names[(index + 1) % len(names)]
+        self.notify(f"Theme {self.theme}")
+
+    # ---- screens ----------------------------------------------------------------------------
+    def action_help(self) -> None:
+        """Show every key and what it does."""
+        if not isinstance(self.screen, HelpScreen):
+            self.push_screen(HelpScreen())
+
+    def action_about(self) -> None:
+        """Show the standards and the safety caution."""
+        if not isinstance(self.screen, AboutScreen):
+            self.push_screen(AboutScreen())
+
+    async def action_quit(self) -> None:
+        """Leave, asking first when there is unsaved work."""
+        if not self.workbench.dirty:
+            self.exit(0)
+            return
+        if isinstance(self.screen, ChoiceDialog):
+            return
+
+        def answered(answer: str | None) -> None:
+            if answer == "quit":
+                files.discard_recovery_copy(self.workbench.path)
+                self.exit(0)
+            elif answer == "save":
+                self.workbench_screen.save(then=lambda: self.exit(0))
+
+        self.push_screen(ChoiceDialog(
+            "Unsaved changes", "This session has changes that are not saved.",
+            [("save", "Save and quit"), ("quit", "Quit without saving"), ("stay", "Stay")]),
+            answered)
+
+    # ---- recovery ---------------------------------------------------------------------------
+    def _ask_about_recovery(self) -> None:
+        found = files.recovery_for(self.workbench.path)
+        if found is None:
+            return
+
+        def answered(answer: str | None) -> None:
+            if answer != "recover":
+                files.discard_recovery_copy(self.workbench.path)
+                return
+            outcome = files.open_session(found, recovered=True)
+            if outcome.session is None:
+                self.notify(outcome.error or "recovery copy unreadable", severity="error")
+                return
+            self.workbench_screen.open_session(outcome.session, self.workbench.path, dirty=True)
+            self.notify("Recovered the unsaved work: save it to keep it")
+
+        self.push_screen(ChoiceDialog(
+            "Recover unsaved work?",
+            f"A recovery copy from a run that did not end cleanly was found:\n{found}",
+            [("recover", "Recover it"), ("ignore", "Open the file as saved")]), answered)
+
+
+def run_app(path: str | None) -> int:
+    """Run the workbench on the session file at ``path`` (None: the demo session); exit code."""
+    if path is None:
+        demo = files.demo_path()
+        if demo is None:
+            print("workbench: the demo session is not available", file=sys.stderr)
+            return 2
+        outcome = files.open_session(demo)
+        file_path = None  # the demo is read-only: the first save asks for a name
+    else:
+        file_path = Path(path)
+        if not file_path.exists():
+            outcome = files.FileOutcome(session=Session(title=file_path.stem), path=file_path)
+        else:
+            outcome = files.open_session(file_path)
+    if outcome.session is None:
+        print(f"workbench: {outcome.error}", file=sys.stderr)
+        return 2
+    result = WorkbenchApp(outcome.session, file_path).run()
+    return result if isinstance(result, int) else 0

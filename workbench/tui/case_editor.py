@@ -1,0 +1,277 @@
+"""The case editor: every input of the selected load case, grouped, as the person typed it.
+
+The editor never writes to the session itself: each edit is announced with
+:class:`CaseEditor.Changed` (field name and text) and the screen answers with
+:meth:`CaseEditor.reject` or :meth:`CaseEditor.accept`.  A rejected text stays in its box with
+the message beside it while the last valid value stays in force.
+"""
+
+from __future__ import annotations
+
+from collections.abc import Mapping, Sequence
+
+from textual import on
+from rich.text import Text
+from textual.app import ComposeResult
+from textual.containers import Horizontal, VerticalScroll
+from textual.content import Content
+from textual.message import Message
+from textual.suggester import SuggestFromList
+from textual.widget import Widget
+from textual.widgets import Checkbox, Input, Label, Select, Static
+
+from ..model.fields import FIELD_BY_NAME, FieldError, FieldSpec, parse_field
+from ..model.quantities import QUANTITIES
+from .whatif import scale_text
+
+EDITOR_GROUPS: tuple[tuple[str, tuple[str, ...]], ...] = (
+    ("Bearing", ("kind", "arrangement", "c", "c0", "f0", "contact_angle", "e_given", "y_given",
+                 "dm", "cu")),
+    ("Loads and speed", ("fr", "fa", "speed", "af", "outer_ring_rotates")),
+    ("Reliability", ("reliability", "reliability_model", "weibull_x0", "weibull_theta",
+                     "weibull_b", "rating_life_mrev")),
+    ("Lubrication", ("vg", "vi", "nu100", "temp", "nu", "cleanliness")),
+    ("Static", ("static_duty", "s0_min")),
+)
+NUDGEABLE_KINDS = ("quantity", "number", "fraction")
+SWITCH_TEXT = {True: "yes", False: "no"}
+FIELD_PREFIX = "field-"
+
+
+def field_id(name: str) -> str:
+    """The DOM id of a field's widget."""
+    return FIELD_PREFIX + name
+
+
+def _placeholder(spec: FieldSpec) -> str:
+    if spec.hint:
+        return spec.hint
+    if spec.kind == "quantity" and spec.quantity in QUANTITIES:
+        return "e.g. " + QUANTITIES[spec.quantity].example
+    return ""
+
+
+def _field_widget(spec: FieldSpec) -> Widget:
+    """The widget that edits one field: a Select for a fixed choice, a Checkbox for a switch,
+    an Input for numbers, quantities and the cleanliness level (which also takes an eC number)."""
+    if spec.kind == "switch":
+        return Checkbox("V = 1.2" if spec.name == "outer_ring_rotates" else "", compact=True,
+                        id=field_id(spec.name))
+    if spec.kind == "choice" and spec.name != "cleanliness":
+        return Select([(choice, choice) for choice in spec.choices], prompt="(default)",
+                      allow_blank=not spec.required, compact=True, id=field_id(spec.name))
+    suggester = SuggestFromList(spec.choices) if spec.choices else None
+    return Input(placeholder=_placeholder(spec), compact=True, suggester=suggester,
+                 id=field_id(spec.name), select_on_focus=False)
+
+
+class CaseEditor(VerticalScroll):
+    """The inputs of one load case, grouped as an engineer reads them."""
+
+    class Changed(Message):
+        """A field was edited to ``text`` (not yet checked) in the case loaded as ``token``;
+        ``done`` when the edit is complete in itself (a choice, a switch, a nudge)."""
+
+        def __init__(self, field: str, text: str, token: int, done: bool = False) -> None:
+            super().__init__()
+            self.field = field
+            self.text = text
+            self.token = token
+            self.done = done
+
+    class Done(Message):
+        """Typing in a field ended (enter, or the focus moved on)."""
+
+    class BearingChosen(Message):
+        """The case should use the bearing called ``name``."""
+
+        def __init__(self, name: str) -> None:
+            super().__init__()
+            self.name = name
+
+    def __init__(self, *, id: str | None = None) -> None:
+        super().__init__(id=id)
+        self.token = 0
+        """Which case is loaded; the screen ignores edits announced for another one."""
+        self._nudging = False
+        self._rejected: dict[str, str] = {}
+        self._case_error: tuple[str, str] | None = None
+
+    def compose(self) -> ComposeResult:
+        """Group headings, a bearing chooser, and one row per field with its message line."""
+        yield Static("No load case selected: add one with ctrl+n.", id="editor-empty")
+        for title, names in EDITOR_GROUPS:
+            yield Label(title, classes="group-title", id=f"group-{title.split()[0].lower()}")
+            if title == "Bearing":
+                with Horizontal(classes="field-row"):
+                    yield Label("Bearing used", classes="field-label")
+                    yield Select([], prompt="(none)", allow_blank=True, compact=True,
+                                 id="bearing-choice")
+            for name in names:
+                spec = FIELD_BY_NAME[name]
+                with Horizontal(classes="field-row"):
+                    yield Label(spec.label, classes="field-label")
+                    widget = _field_widget(spec)
+                    widget.tooltip = spec.hint or None
+                    yield widget
+                yield Static("", classes="field-message", id=f"message-{name}")
+
+    # ---- what the screen tells the editor ---------------------------------------------------
+    def load(self, texts: Mapping[str, str], bearings: Sequence[str], bearing: str | None,
+             bearing_users: int = 1) -> None:
+        """Show a case's texts (empty ``texts``: no case) without announcing them as edits."""
+        self._rejected.clear()
+        empty = not texts
+        self.query_one("#editor-empty").display = empty
+        for row in self.query(".field-row, .group-title"):
+            row.display = not empty
+        if empty:
+            self._show_messages()
+            return
+        title = f"Bearing {bearing}" if bearing else "Bearing"
+        if bearing_users > 1:
+            title += f" (shared by {bearing_users} cases)"
+        self.query_one("#group-bearing", Label).update(Content(title))
+        chooser = self.query_one("#bearing-choice", Select)
+        with chooser.prevent(Select.Changed):
+            chooser.set_options([(Text(name), name) for name in bearings])
+            chooser.value = bearing if bearing in bearings else Select.NULL
+        for name, text in texts.items():
+            if name in FIELD_BY_NAME:
+                self._set_widget(name, text)
+        self._show_messages()
+
+    def _set_widget(self, name: str, text: str) -> None:
+        widget = self.query_one(f"#{field_id(name)}")
+        if isinstance(widget, Input):
+            with widget.prevent(Input.Changed):
+                widget.value = text
+                widget.cursor_position = len(text)
+        elif isinstance(widget, Select):
+            with widget.prevent(Select.Changed):
+                choices = FIELD_BY_NAME[name].choices
+                widget.value = text.strip() if text.strip() in choices else Select.NULL
+        elif isinstance(widget, Checkbox):
+            try:
+                checked = bool(parse_field(name, text))
+            except FieldError:
+                checked = False
+            with widget.prevent(Checkbox.Changed):
+                widget.value = checked
+
+    def reject(self, field: str, message: str) -> None:
+        """Show why the text typed in ``field`` was not taken."""
+        self._rejected[field] = message
+        self._show_messages()
+
+    def accept(self, field: str) -> None:
+        """The text typed in ``field`` was taken: clear its message."""
+        if self._rejected.pop(field, None) is not None:
+            self._show_messages()
+
+    def show_case_error(self, field: str | None, message: str | None) -> None:
+        """Show the case's own error (the engine's refusal) beside the field it names."""
+        error = (field, message) if field and message else None
+        if error != self._case_error:
+            self._case_error = error
+            self._show_messages()
+
+    def _show_messages(self) -> None:
+        for line in self.query(".field-message"):
+            name = (line.id or "").removeprefix("message-")
+            text, kind = self._rejected.get(name), "-rejected"
+            if text is None and self._case_error and self._case_error[0] == name:
+                text, kind = self._case_error[1], "-case-error"
+            line.set_class(text is not None and kind == "-rejected", "-rejected")
+            line.set_class(text is not None and kind == "-case-error", "-case-error")
+            line.display = text is not None
+            if text is not None and isinstance(line, Static):
+                line.update(Content(("✘ " if kind == "-rejected" else "⚠ ") + text))
+
+    def message_for(self, field: str) -> str | None:
+        """The message shown beside ``field`` (a rejected text's, else the case's), or None."""
+        if field in self._rejected:
+            return self._rejected[field]
+        if self._case_error and self._case_error[0] == field:
+            return self._case_error[1]
+        return None
+
+    def field_text(self, field: str) -> str:
+        """What the field's widget shows now, as text."""
+        widget = self.query_one(f"#{field_id(field)}")
+        if isinstance(widget, Input):
+            return widget.value
+        if isinstance(widget, Select):
+            return "" if widget.value is Select.NULL else str(widget.value)
+        if isinstance(widget, Checkbox):
+            return SWITCH_TEXT[widget.value]
+        return ""
+
+    def focused_field(self) -> str | None:
+        """The field whose widget has focus, or None."""
+        focused = self.screen.focused
+        if focused is None or focused.id is None or not focused.id.startswith(FIELD_PREFIX):
+            return None
+        if focused not in self.query(f"#{focused.id}"):
+            return None
+        return focused.id.removeprefix(FIELD_PREFIX)
+
+    def focus_field(self, field: str) -> None:
+        """Move the focus to ``field``'s widget."""
+        self.query_one(f"#{field_id(field)}").focus()
+
+    def focus_first(self) -> None:
+        """Focus the first field (or the editor itself when there is no case)."""
+        if self.query_one("#editor-empty").display:
+            self.focus()
+        else:
+            self.focus_field(EDITOR_GROUPS[0][1][0])
+
+    def nudge(self, factor: float) -> str | None:
+        """Scale the number in the focused field by ``factor``, keeping its unit; a message
+        when there is no numeric field in focus or nothing to scale."""
+        name = self.focused_field()
+        if name is None or FIELD_BY_NAME[name].kind not in NUDGEABLE_KINDS:
+            return "put the cursor in a numeric field to nudge it"
+        widget = self.query_one(f"#{field_id(name)}", Input)
+        scaled = scale_text(widget.value, factor)
+        if scaled is None:
+            return f"{FIELD_BY_NAME[name].label}: no number to nudge"
+        self._nudging = True
+        try:
+            widget.value = scaled
+        finally:
+            self._nudging = False
+        widget.cursor_position = len(scaled)
+        return None
+
+    # ---- what the person does ---------------------------------------------------------------
+    def _announce(self, widget: Widget | None, text: str, done: bool) -> None:
+        if widget is not None and widget.id and widget.id.startswith(FIELD_PREFIX):
+            self.post_message(self.Changed(widget.id.removeprefix(FIELD_PREFIX), text,
+                                           self.token, done))
+
+    @on(Input.Changed)
+    def _input_changed(self, event: Input.Changed) -> None:
+        event.stop()
+        self._announce(event.input, event.value, self._nudging)
+
+    @on(Input.Submitted)
+    @on(Input.Blurred)
+    def _typing_done(self, event: Input.Submitted | Input.Blurred) -> None:
+        event.stop()
+        self.post_message(self.Done())
+
+    @on(Select.Changed)
+    def _select_changed(self, event: Select.Changed) -> None:
+        event.stop()
+        if event.select.id == "bearing-choice":
+            if event.value is not Select.NULL:
+                self.post_message(self.BearingChosen(str(event.value)))
+            return
+        self._announce(event.select, "" if event.value is Select.NULL else str(event.value), True)
+
+    @on(Checkbox.Changed)
+    def _checkbox_changed(self, event: Checkbox.Changed) -> None:
+        event.stop()
+        self._announce(event.checkbox, SWITCH_TEXT[event.value], True)

@@ -1,0 +1,202 @@
+"""The derivation pane: every step of the selected case, as the engine recorded it.
+
+The pane draws a :class:`~workbench.model.session.CaseResult` it is given and computes nothing:
+label, formula, the numbers substituted, the result with its unit (in the session's display
+system) and the source; the e-branch taken is repeated at the top; warnings carry the theme's
+warning colour and a ⚠ mark so they stand out in monochrome too.  Redrawing keeps the scroll place.
+"""
+
+from __future__ import annotations
+
+import math
+
+from textual.content import Content
+from textual.geometry import Size
+from textual.scroll_view import ScrollView
+from textual.strip import Strip
+
+from ..engine.record import Step, fmt
+from ..model.fields import FIELD_BY_NAME
+from ..model.quantities import format_quantity
+from ..model.session import CaseResult
+from .state import input_field
+
+# Engine units that have a display quantity (the rest are shown as the engine writes them).
+UNIT_QUANTITY = {"N": "force", "h": "time", "mm²/s": "viscosity", "rpm": "speed", "mm": "length"}
+SYMBOL_STYLE = "bold $accent"
+RESULT_STYLE = "bold"
+SOURCE_STYLE = "italic $foreground 60%"
+WARNING_STYLE = "bold $text-warning on $warning-muted"
+ERROR_STYLE = "bold $text-error on $error-muted"
+BRANCH_STYLE = "bold $text-primary"
+INDENT = 1
+MIN_WRAP = 10
+
+
+def step_result_text(step: Step, system: str) -> str:
+    """A step's value with its unit, in ``system`` where the unit has a display quantity."""
+    quantity = UNIT_QUANTITY.get(step.unit)
+    if quantity is not None and math.isfinite(step.value):
+        return format_quantity(step.value, quantity, system)  # type: ignore[arg-type]
+    return f"{step.value_text} {step.unit}".rstrip()
+
+
+def branch_text(result: CaseResult) -> str | None:
+    """The e-branch taken ("Fa/Fr > e"), from the ratio step's note, or None."""
+    if result.derivation is None:
+        return None
+    for step in result.derivation.steps:
+        if step.key == "ratio" and step.note:
+            return step.note.removeprefix("branch: ")
+    return None
+
+
+def _summary(result: CaseResult, system: str) -> list[Content]:
+    values = result.derivation.results if result.derivation else {}
+    lines = [Content.styled(f"Load case {result.case.name}", "bold")]
+    branch = branch_text(result)
+    if branch:
+        lines.append(Content.assemble("Branch taken: ", (branch, BRANCH_STYLE)))
+    if values:
+        lnm = values.get("Lnm", math.nan)
+        lnm_text = format_quantity(lnm, "time", system) if math.isfinite(lnm) else "undefined"  # type: ignore[arg-type]
+        lines.append(Content.assemble(
+            "P = ", (format_quantity(values["P"], "force", system), RESULT_STYLE),  # type: ignore[arg-type]
+            "   s0 = ", (fmt(values["s0"], 3), RESULT_STYLE)))
+        lines.append(Content.assemble("Lnm = ", (lnm_text, RESULT_STYLE)))
+    if result.life_target_h is not None and result.meets_life is not None:
+        word = "meets" if result.meets_life else "misses"
+        lines.append(Content.assemble(
+            (f"Lnm {word} the life target {fmt(result.life_target_h)} h",
+             "$text-success" if result.meets_life else ERROR_STYLE)))
+    if result.meets_s0 is not None and result.derivation is not None:
+        word = "meets" if result.meets_s0 else "misses"
+        minimum = result.derivation.results["s0_min"]
+        lines.append(Content.assemble(
+            (f"s0 {word} the minimum {fmt(minimum, 3)}",
+             "$text-success" if result.meets_s0 else ERROR_STYLE)))
+    if result.derivation is not None and result.derivation.warnings:
+        count = len(result.derivation.warnings)
+        lines.append(Content.styled(f"⚠ {count} warning{'s' if count > 1 else ''} below",
+                                    WARNING_STYLE))
+    return lines
+
+
+def _step_lines(step: Step, system: str) -> list[Content]:
+    lines = [Content.assemble((step.symbol, SYMBOL_STYLE), "  ", (step.label, "bold"))]
+    substituted = step.substituted
+    if step.formula and step.formula not in (substituted, "given"):
+        lines.append(Content("  " + step.formula))
+    if substituted and substituted != step.value_text:
+        lines.append(Content("  = " + substituted))
+    lines.append(Content.assemble("  = ", (step_result_text(step, system), RESULT_STYLE)))
+    lines.append(Content.styled("  " + step.source, SOURCE_STYLE))
+    if step.warning:
+        lines.append(Content.styled("  ⚠ " + step.warning, WARNING_STYLE))
+    if step.note:
+        if step.key == "ratio":
+            lines.append(Content.assemble("  ▶ ", (step.note, BRANCH_STYLE)))
+        else:
+            lines.append(Content.styled("  · " + step.note, "italic"))
+    return lines
+
+
+def derivation_lines(result: CaseResult | None, system: str) -> list[Content]:
+    """The pane line by line: summary, then every step, or the reason there is none."""
+    if result is None:
+        return [Content("No load case selected.")]
+    lines = _summary(result, system)
+    if result.derivation is None:
+        field = input_field(result.error_field)
+        where = FIELD_BY_NAME[field].label if field in FIELD_BY_NAME else (field or "case")
+        lines.append(Content.styled(f"✘ Cannot derive: {where}: {result.error}", ERROR_STYLE))
+        for name, message in result.field_errors.items():
+            if name != result.error_field:
+                label = FIELD_BY_NAME[name].label if name in FIELD_BY_NAME else name
+                lines.append(Content.styled(f"✘ {label}: {message}", ERROR_STYLE))
+        return lines
+    for step in result.derivation.steps:
+        lines.append(Content(""))
+        lines.extend(_step_lines(step, system))
+    for note in result.derivation.notes:
+        lines.append(Content.styled("· " + note, "italic"))
+    return lines
+
+
+class DerivationPane(ScrollView, can_focus=True):
+    """A scrolling view of one case's derivation; keeps its scroll place when redrawn.
+
+    Each line is wrapped to the pane's width once and kept (most lines stay the same from one
+    keystroke to the next), and the pane paints line by line, so a redraw never asks the
+    screen for a new layout.
+    """
+
+    DEFAULT_CSS = """
+    DerivationPane {
+        scrollbar-size-vertical: 1;
+    }
+    """
+
+    text: Content = Content("")
+    """What the pane shows now (its plain text is ``text.plain``)."""
+
+    def __init__(self, *, id: str | None = None) -> None:
+        super().__init__(id=id)
+        self._lines: list[Content] = []
+        self._strips: list[Strip] = []
+        self._wrapped: dict[tuple[str, tuple[object, ...]], list[Strip]] = {}
+        self._wrapped_width = 0
+
+    def show(self, result: CaseResult | None, system: str) -> None:
+        """Redraw for ``result`` in the display ``system``."""
+        self._lines = derivation_lines(result, system)
+        self.text = Content("\n").join(self._lines)
+        self._wrap()
+
+    def _wrap(self) -> None:
+        width = self._text_width
+        if width != self._wrapped_width:
+            self._wrapped.clear()
+            self._wrapped_width = width
+        style = self.visual_style
+        strips: list[Strip] = []
+        kept: dict[tuple[str, tuple[object, ...]], list[Strip]] = {}
+        for line in self._lines:
+            key = (line.plain, tuple(line.spans))
+            wrapped = self._wrapped.get(key)
+            if wrapped is None:
+                wrapped = [Strip(part.render_segments(style)) for part in line.wrap(width)]
+            kept[key] = wrapped
+            strips.extend(wrapped)
+        self._wrapped = kept
+        self._strips = strips
+        self.virtual_size = Size(width, len(strips))
+        self.refresh()
+
+    @property
+    def _text_width(self) -> int:
+        return max(self.scrollable_content_region.width - INDENT, MIN_WRAP)
+
+    def on_resize(self) -> None:
+        """Wrap again for the new width."""
+        if self._text_width != self._wrapped_width:
+            self._wrap()
+
+    def notify_style_update(self) -> None:
+        """Re-render the styled lines when the theme changes."""
+        super().notify_style_update()
+        self._wrapped.clear()
+        self._wrapped_width = 0
+        if self._lines:
+            self.call_later(self._wrap)
+
+    def render_line(self, y: int) -> Strip:
+        """One screen line: the wrapped line at the scroll position, indented by one cell."""
+        scroll_x, scroll_y = self.scroll_offset
+        width = self.scrollable_content_region.width
+        style = self.rich_style
+        index = scroll_y + y
+        if index >= len(self._strips):
+            return Strip.blank(width, style)
+        line = Strip.join([Strip.blank(INDENT, style), self._strips[index]])
+        return line.crop_extend(scroll_x, scroll_x + width, style).apply_offsets(scroll_x, index)

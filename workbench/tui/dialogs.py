@@ -1,0 +1,91 @@
+"""Small modal dialogs: ask for a line of text (names, file paths) or a choice among buttons."""
+
+from __future__ import annotations
+
+from collections.abc import Callable, Sequence
+from typing import Generic, TypeVar
+
+from textual import on
+from textual.app import ComposeResult
+from textual.binding import Binding
+from textual.containers import Horizontal, Vertical
+from textual.content import Content
+from textual.screen import ModalScreen
+from textual.widgets import Button, Input, Label, Static
+
+
+ResultType = TypeVar("ResultType")
+
+
+class OnceModal(ModalScreen[ResultType], Generic[ResultType]):
+    """A modal screen that closes once: a second enter or escape already queued is ignored
+    (dismissing twice would pop the screen underneath)."""
+
+    _answered = False
+
+    def close(self, result: ResultType) -> None:
+        """Dismiss with ``result`` unless already closing or no longer on top."""
+        if self._answered or self.app.screen is not self:
+            return
+        self._answered = True
+        self.dismiss(result)
+
+    def action_dismiss_none(self) -> None:
+        """Close without an answer."""
+        self.close(None)  # type: ignore[arg-type]
+
+
+class TextPrompt(OnceModal[str | None]):
+    """Ask for one line of text; ``check`` returns why a text is refused (None: accept)."""
+
+    BINDINGS = [Binding("escape", "dismiss_none", "Cancel", id="dialog.cancel")]
+
+    def __init__(self, title: str, value: str = "",
+                 check: Callable[[str], str | None] | None = None) -> None:
+        super().__init__(classes="dialog")
+        self._title = title
+        self._value = value
+        self._check = check
+
+    def compose(self) -> ComposeResult:
+        """Title, the input, a message line and the hint."""
+        with Vertical(classes="dialog-box"):
+            yield Label(Content(self._title), classes="dialog-title")
+            yield Input(self._value, id="prompt-input")
+            yield Static("", id="prompt-message")
+            yield Static("enter: accept   escape: cancel", classes="dialog-hint")
+
+    @on(Input.Submitted, "#prompt-input")
+    def _submitted(self, event: Input.Submitted) -> None:
+        event.stop()
+        problem = self._check(event.value) if self._check else None
+        if problem is not None:
+            self.query_one("#prompt-message", Static).update(Content("✘ " + problem))
+            return
+        self.close(event.value)
+
+
+class ChoiceDialog(OnceModal[str | None]):
+    """A question with a few answers, one button each; escape answers None."""
+
+    BINDINGS = [Binding("escape", "dismiss_none", "Cancel", id="dialog.cancel")]
+
+    def __init__(self, title: str, message: str, choices: Sequence[tuple[str, str]]) -> None:
+        super().__init__(classes="dialog")
+        self._title = title
+        self._message = message
+        self._choices = choices
+
+    def compose(self) -> ComposeResult:
+        """Title, message and one button per answer."""
+        with Vertical(classes="dialog-box"):
+            yield Label(Content(self._title), classes="dialog-title")
+            yield Static(Content(self._message), classes="dialog-message")
+            with Horizontal(classes="dialog-buttons"):
+                for answer, words in self._choices:
+                    yield Button(words, id=f"answer-{answer}", compact=True)
+
+    @on(Button.Pressed)
+    def _pressed(self, event: Button.Pressed) -> None:
+        event.stop()
+        self.close((event.button.id or "").removeprefix("answer-"))

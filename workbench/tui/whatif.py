@@ -1,0 +1,45 @@
+"""What-if edits on typed text: scale the number a person typed and keep the unit they typed.
+
+"3 kN" nudged by +5 % becomes "3.15 kN"; "1200 r/min" scaled by 0.5 becomes "600 r/min".  The
+text after the number is left exactly as typed, so the unit edge
+(:mod:`workbench.model.quantities`) reads the result the same way it read the original.
+"""
+
+from __future__ import annotations
+
+import math
+import re
+
+SIGNIFICANT_DIGITS = 7
+_LEADING_NUMBER = re.compile(
+    r"(?P<lead>\s*)(?P<number>[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d{1,3})?)(?P<rest>.*)",
+    re.DOTALL,
+)
+
+
+def number_text(value: float) -> str:
+    """A number written with up to seven significant figures and no trailing zeros."""
+    return f"{value:.{SIGNIFICANT_DIGITS}g}"
+
+
+def leading_number(text: str) -> float | None:
+    """The number at the start of ``text`` ("3.2 kN" → 3.2), or None when there is none."""
+    match = _LEADING_NUMBER.fullmatch(text)
+    if match is None:
+        return None
+    value = float(match["number"])
+    return value if math.isfinite(value) else None
+
+
+def scale_text(text: str, factor: float) -> str | None:
+    """``text`` with its leading number multiplied by ``factor``, the rest kept as typed.
+
+    None when the text has no leading number or the product is not a finite number.
+    """
+    match = _LEADING_NUMBER.fullmatch(text)
+    if match is None:
+        return None
+    value = float(match["number"]) * factor
+    if not math.isfinite(value):
+        return None
+    return f"{match['lead']}{number_text(value)}{match['rest']}"

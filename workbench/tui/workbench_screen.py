@@ -1,0 +1,415 @@
+"""The workbench screen: load-case list, case editor, and the derivation and solver panes.
+
+State lives in :class:`~workbench.tui.state.Workbench`; the panes announce what a person does
+with messages, this screen asks the state to do it and tells each pane what to draw.  At 80×24
+the list and the editor share the left column and the derivation and the solver share the right
+one as tabs (f5 / f6).
+"""
+
+from __future__ import annotations
+
+from collections.abc import Callable
+from pathlib import Path
+
+from textual import on
+from textual.app import ComposeResult
+from textual.containers import Horizontal, Vertical
+from textual.lazy import Lazy
+from textual.screen import Screen
+from textual.timer import Timer
+from textual.widgets import Header, TabbedContent, TabPane
+
+from ..engine.record import InputError
+from ..engine.solve import NoSolution
+from ..model.fields import FieldError
+from ..model.session import Session
+from . import files
+from .actions import bindings
+from .case_editor import CaseEditor
+from .case_list import CaseList
+from .derivation_pane import DerivationPane
+from .dialogs import ChoiceDialog, TextPrompt
+from .key_footer import KeyFooter
+from .solver_pane import SolverPane
+from .state import Workbench, input_field
+
+AUTOSAVE_DELAY_S = 2.0
+DEFAULT_SAVE_NAME = "session.toml"
+
+
+class WorkbenchScreen(Screen[None]):
+    """The main screen; every key action here comes from :data:`~workbench.tui.actions.ACTIONS`."""
+
+    BINDINGS = bindings("screen")
+
+    def __init__(self, workbench: Workbench, autosave_delay: float | None = AUTOSAVE_DELAY_S) -> None:
+        super().__init__(id="workbench")
+        self.workbench = workbench
+        self._autosave_delay = autosave_delay
+        self._autosave_timer: Timer | None = None
+        self._autosave_failed = False
+        self._saved_revision = workbench.revision
+
+    def compose(self) -> ComposeResult:
+        """Left: the list over the editor; right: derivation and solver as tabs."""
+        yield Header()
+        with Horizontal(id="body"):
+            with Vertical(id="left"):
+                yield CaseList(id="cases")
+                yield CaseEditor(id="editor")
+            with TabbedContent(id="panes", initial="tab-derivation"):
+                with TabPane("Derivation", id="tab-derivation"):
+                    yield DerivationPane(id="derivation")
+                with TabPane("Solver", id="tab-solver"):
+                    yield Lazy(SolverPane(self.workbench.session.solver, id="solver"))
+        yield KeyFooter()
+
+    def on_mount(self) -> None:
+        """Draw the session."""
+        self.redraw_all()
+        self.query_one(CaseList).focus()
+
+    # ---- drawing ----------------------------------------------------------------------------
+    def _solver(self) -> SolverPane | None:
+        """The solver pane, once mounted (it is mounted just after the first frame)."""
+        panes = self.query(SolverPane)
+        return panes.first() if panes else None
+
+    def _title(self) -> None:
+        state = self.workbench
+        self.app.title = state.session.title or "Bearing workbench"
+        where = state.path.name if state.path else "not saved yet"
+        mark = " ●" if state.dirty else ""
+        self.app.sub_title = f"{where}{mark} · {state.units}"
+
+    def _show_case(self) -> None:
+        """The derivation and the editor's case error of the selected case."""
+        state = self.workbench
+        result = state.result
+        self.query_one(DerivationPane).show(result, state.units)
+        editor = self.query_one(CaseEditor)
+        if result is None or result.derivation is not None:
+            editor.show_case_error(None, None)
+        else:
+            editor.show_case_error(input_field(result.error_field), result.error)
+
+    def redraw_all(self) -> None:
+        """Redraw every pane (after a structural change, an undo or an open)."""
+        state = self.workbench
+        self.query_one(CaseList).show(state.results, state.selected, state.units)
+        self._load_editor()
+        self._show_case()
+        self._title()
+
+    def _load_editor(self) -> None:
+        state = self.workbench
+        case = state.case
+        editor = self.query_one(CaseEditor)
+        editor.token += 1  # edits announced before this load belong to what was shown then
+        bearing = case.bearing if case is not None else None
+        editor.load(state.texts(), [b.name for b in state.session.bearings], bearing,
+                    state.bearing_users(bearing) if bearing else 0)
+
+    def _after_change(self) -> None:
+        self._title()
+        if self.workbench.revision != self._saved_revision:
+            self._schedule_autosave()
+
+    # ---- messages from the panes ------------------------------------------------------------
+    @on(CaseList.Chosen)
+    def _case_chosen(self, event: CaseList.Chosen) -> None:
+        """Move the editor and the derivation to the case highlighted in the list."""
+        if event.index == self.workbench.selected:
+            return
+        self.workbench.select(event.index)
+        self._load_editor()
+        self._show_case()
+
+    @on(CaseEditor.Changed)
+    def _field_changed(self, event: CaseEditor.Changed) -> None:
+        """Check a typed value; write it and re-derive, or show why it was not taken."""
+        editor = self.query_one(CaseEditor)
+        if event.token != editor.token:
+            return  # typed into what the editor showed before its last load
+        state = self.workbench
+        problem = state.set_text(event.field, event.text)
+        if event.done:
+            state.end_run()
+        if problem is not None:
+            in_force = state.texts().get(event.field, "")
+            editor.reject(event.field, f"{problem} · in force: {in_force or '(blank)'}")
+            self._show_case()
+            self._refresh_rows()
+            self._after_change()
+            return
+        editor.accept(event.field)
+        self._refresh_rows()
+        self._show_case()
+        self._after_change()
+
+    def _refresh_rows(self) -> None:
+        """Redraw the list rows an edit of the selected case can touch (its bearing's cases)."""
+        state = self.workbench
+        case_list = self.query_one(CaseList)
+        case = state.case
+        for index, other in enumerate(state.session.cases):
+            if other is case or (case is not None and other.bearing == case.bearing):
+                case_list.show_row(index, state.results[index], state.units)
+
+    @on(CaseEditor.Done)
+    def _typing_done(self) -> None:
+        """Enter or leaving a field ends its edit run: the value now in force stands."""
+        self.workbench.end_run()
+
+    @on(CaseEditor.BearingChosen)
+    def _bearing_chosen(self, event: CaseEditor.BearingChosen) -> None:
+        """Let the selected case use another bearing of the session."""
+        problem = self.workbench.choose_bearing(event.name)
+        if problem is not None:
+            self.notify(problem, severity="warning")
+            return
+        self.redraw_all()
+        self._after_change()
+
+    @on(SolverPane.SolveRequested)
+    def _solve_requested(self, event: SolverPane.SolveRequested) -> None:
+        """Solve from the pane's button or its value field."""
+        self._solve(event.unknown, event.target_text)
+
+    @on(SolverPane.ApplyRequested)
+    def _apply_requested(self) -> None:
+        """Apply from the pane's button."""
+        self.action_apply_solution()
+
+    # ---- actions (keys, footer and palette) -------------------------------------------------
+    def action_add_case(self) -> None:
+        """Add an empty load case after the selected one."""
+        name = self.workbench.add_case()
+        self.redraw_all()
+        self._after_change()
+        self.notify(f"Added {name}: give its loads in the editor")
+
+    def action_duplicate_case(self) -> None:
+        """Copy the selected load case."""
+        name = self.workbench.duplicate_case()
+        if name is None:
+            self.notify("No case to duplicate", severity="warning")
+            return
+        self.redraw_all()
+        self._after_change()
+
+    def action_rename_case(self) -> None:
+        """Ask for a new name for the selected case."""
+        case = self.workbench.case
+        if case is None:
+            self.notify("No case to rename", severity="warning")
+            return
+
+        def renamed(name: str | None) -> None:
+            if name is None:
+                return
+            problem = self.workbench.rename_case(name)
+            if problem is not None:
+                self.notify(problem, severity="warning")
+                return
+            self.redraw_all()
+            self._after_change()
+
+        self.app.push_screen(TextPrompt("Rename load case", case.name,
+                                        self.workbench.name_problem), renamed)
+
+    def action_delete_case(self) -> None:
+        """Delete the selected case (ctrl+z brings it back)."""
+        name = self.workbench.delete_case()
+        if name is None:
+            self.notify("No case to delete", severity="warning")
+            return
+        self.redraw_all()
+        self._after_change()
+        self.notify(f"Deleted {name} (ctrl+z brings it back)")
+
+    def action_move_case(self, delta: int) -> None:
+        """Move the selected case up or down the list."""
+        if self.workbench.move_case(delta):
+            self.redraw_all()
+            self._after_change()
+
+    def _undo_redo(self, step: Callable[[], str | None], verb: str) -> None:
+        label = step()
+        if label is None:
+            self.notify(f"Nothing to {verb.lower()}", severity="warning")
+            return
+        self.redraw_all()
+        if (pane := self._solver()) is not None:
+            pane.show_note("")
+        self._after_change()
+        self.notify(f"{verb}: {label}")
+
+    def action_undo(self) -> None:
+        """Undo the last change."""
+        self._undo_redo(self.workbench.undo, "Undone")
+
+    def action_redo(self) -> None:
+        """Redo what was undone."""
+        self._undo_redo(self.workbench.redo, "Redone")
+
+    def action_nudge(self, factor: float) -> None:
+        """Scale the focused numeric field by ``factor`` (what-if), its unit kept."""
+        self.workbench.end_run()
+        problem = self.query_one(CaseEditor).nudge(factor)
+        if problem is not None:
+            self.notify(problem, severity="warning")
+
+    def _solve(self, unknown: str, target_text: str) -> None:
+        pane = self._solver()
+        if pane is None:
+            return
+        self.query_one(TabbedContent).active = "tab-solver"
+        state = self.workbench
+        try:
+            solution = state.solve(unknown, target_text)
+        except NoSolution as exc:
+            pane.show_failure(exc.message, exc.reachable)
+        except (FieldError, InputError) as exc:
+            pane.show_failure(exc.message)
+        else:
+            case = state.case
+            pane.show_solution(case.name if case else "", solution, state.units)
+        self._after_change()
+
+    def action_solve(self) -> None:
+        """Back-solve the chosen input for the chosen target."""
+        pane = self._solver()
+        if pane is not None:
+            self._solve(*pane.request())
+
+    def action_apply_solution(self) -> None:
+        """Write the solved value into its case (undoable)."""
+        try:
+            done = self.workbench.apply_solution()
+        except InputError as exc:
+            self.notify(exc.message, severity="warning")
+            return
+        self.redraw_all()
+        if (pane := self._solver()) is not None:
+            pane.show_note(f"Applied: {done} (ctrl+z undoes it)")
+        self._after_change()
+        self.notify(f"Applied {done}")
+
+    def action_toggle_units(self) -> None:
+        """Switch the display system between SI and US customary."""
+        system = self.workbench.toggle_units()
+        self.redraw_all()
+        self._after_change()
+        self.notify(f"Results in {'US customary' if system == 'US' else 'SI'} units")
+
+    def action_show_pane(self, name: str) -> None:
+        """Show the derivation or the solver in the right column."""
+        self.query_one(TabbedContent).active = f"tab-{name}"
+
+    def action_focus_cases(self) -> None:
+        """Go to the load-case list."""
+        self.query_one(CaseList).focus()
+
+    def action_focus_editor(self) -> None:
+        """Go to the case editor."""
+        self.query_one(CaseEditor).focus_first()
+
+    # ---- files ------------------------------------------------------------------------------
+    def save_to(self, path: Path, then: Callable[[], object] | None = None) -> None:
+        """Write the session to ``path`` and report what the writer said."""
+        outcome = files.save(self.workbench.session, path)
+        if outcome.error is not None:
+            self.notify(outcome.error, title="Not saved", severity="error")
+            return
+        for saved_from in {self.workbench.path, path}:
+            files.discard_recovery_copy(saved_from)
+        if self._autosave_timer is not None:
+            self._autosave_timer.stop()
+            self._autosave_timer = None
+        self.workbench.mark_saved(path)
+        self._saved_revision = self.workbench.revision
+        for message in outcome.messages:
+            self.notify(message, title="Saved")
+        if not outcome.messages:
+            self.notify(f"Saved {path}")
+        self._title()
+        if then is not None:
+            then()
+
+    def save_as(self, then: Callable[[], object] | None = None) -> None:
+        """Ask for a file name and save there."""
+        current = self.workbench.path
+
+        def chosen(text: str | None) -> None:
+            if text:
+                self.save_to(Path(text).expanduser(), then)
+
+        self.app.push_screen(
+            TextPrompt("Save session as", str(current) if current else DEFAULT_SAVE_NAME,
+                       lambda text: None if text.strip() else "a file name is needed"),
+            chosen)
+
+    def save(self, then: Callable[[], object] | None = None) -> None:
+        """Save to the session's file, asking for one the first time."""
+        if self.workbench.path is None:
+            self.save_as(then)
+        else:
+            self.save_to(self.workbench.path, then)
+
+    def action_save(self) -> None:
+        """Save the session."""
+        self.save()
+
+    def action_save_as(self) -> None:
+        """Save the session under a new name."""
+        self.save_as()
+
+    def action_open(self) -> None:
+        """Open another session file (asking first when there is unsaved work)."""
+        def chosen(text: str | None) -> None:
+            if not text:
+                return
+            outcome = files.open_session(Path(text).expanduser())
+            if outcome.session is None:
+                self.notify(outcome.error or "not opened", title="Not opened", severity="error")
+                return
+            self.open_session(outcome.session, outcome.path)
+
+        def ask_path(answer: str | None = "discard") -> None:
+            if answer == "discard":
+                self.app.push_screen(TextPrompt("Open session file", "",
+                                                lambda t: None if t.strip() else "a file name is needed"),
+                                     chosen)
+
+        if self.workbench.dirty:
+            self.app.push_screen(ChoiceDialog(
+                "Unsaved changes", "Open another file and drop the changes made here?",
+                [("discard", "Drop changes and open"), ("stay", "Stay")]), ask_path)
+        else:
+            ask_path()
+
+    def open_session(self, session: Session, path: Path | None, dirty: bool = False) -> None:
+        """Put ``session`` under edit and redraw."""
+        self.workbench.replace_session(session, path, dirty)
+        self._saved_revision = -1 if dirty else self.workbench.revision
+        if (pane := self._solver()) is not None:
+            pane.load(session.solver)
+            pane.show_note("")
+        self.redraw_all()
+
+    # ---- recovery ---------------------------------------------------------------------------
+    def _schedule_autosave(self) -> None:
+        if self._autosave_delay is None:
+            return
+        if self._autosave_timer is not None:
+            self._autosave_timer.stop()
+        self._autosave_timer = self.set_timer(self._autosave_delay, self.autosave)
+
+    def autosave(self) -> None:
+        """Write the recovery copy now (called after a quiet spell following a change)."""
+        self._autosave_timer = None
+        problem = files.write_recovery_copy(self.workbench.session, self.workbench.path)
+        if problem is not None and not self._autosave_failed:
+            self._autosave_failed = True
+            self.notify(problem, title="Recovery", severity="warning")
