@@ -48,9 +48,9 @@ from ..engine.record import Derivation, InputError
 from .fields import FieldError
 from .quantities import QuantityError, parse
 from .session import CaseResult, LoadCase, Session, evaluate_case
+from .toml_tables import checked_table, required_name, table_list, table_text, type_words
 from .shafts import (
-    SIDES, Shaft, case_name, checked_table, required_name, shaft_cases, table_list,
-    table_text, type_words,
+    SIDES, Shaft, case_name, shaft_cases,
 )
 
 BASES = ("time", "revolutions")

@@ -72,7 +72,6 @@ a file holding a person's comments is overwritten, it is copied to ``NAME.toml.o
 from __future__ import annotations
 
 import contextlib
-import difflib
 import hashlib
 import os
 import re
@@ -81,7 +80,7 @@ import tomllib
 from dataclasses import dataclass, field
 from importlib import resources
 from pathlib import Path
-from typing import Any, Mapping
+from typing import Any, Callable, Mapping, TypeVar
 
 import platformdirs
 import tomli_w
@@ -94,6 +93,7 @@ from .session import (
 )
 from .shafts import SIDES, Shaft, case_name, shafts_from_tables
 from .targets import parse_target_text
+from .toml_tables import checked_table, required_name, table_list, table_text, type_words
 
 APP_NAME = "bearing-workbench"
 DEMO_SESSION = "demo.toml"
@@ -107,6 +107,7 @@ CASE_KEYS = ("name", "bearing", "notes") + CASE_FIELDS
 SESSION_FILE_MODE = 0o644
 RECOVERY_FILE_MODE = 0o600
 
+T = TypeVar("T")
 KeyPath = tuple[str | int, ...]  # ("cases", 2, "fr"); table indexes count from 1
 
 
@@ -158,23 +159,6 @@ def _key_text(path: KeyPath) -> str:
 def _key_path(text: str) -> KeyPath:
     """``shafts[2].elements[1].helix_angle`` as ``("shafts", 2, "elements", 1, "helix_angle")``."""
     return tuple(int(match[1]) if match[1] else match[2] for match in _KEY_PART.finditer(text))
-
-
-def _type_words(value: object) -> str:
-    """A TOML value's type in words, for a wrong-type message."""
-    if isinstance(value, bool):
-        return "true/false"
-    if isinstance(value, int):
-        return "a whole number"
-    if isinstance(value, float):
-        return "a number"
-    if isinstance(value, str):
-        return "text"
-    if isinstance(value, dict):
-        return "a table"
-    if isinstance(value, list):
-        return "a list"
-    return "a date or time"
 
 
 class _Reader:
@@ -258,24 +242,20 @@ class _Reader:
         """The error for a FieldError whose key is a full key text (``shafts[1].speed``)."""
         return self.fail(_key_path(error.field), error.message)
 
+    def checked(self, read: Callable[..., T], *args: Any) -> T:
+        """Run a :mod:`toml_tables` reader, turning its FieldError into this file's error."""
+        try:
+            return read(*args)
+        except FieldError as exc:
+            raise self.fail(_key_path(exc.field), exc.message) from None
+
     def table(self, value: object, path: KeyPath, allowed: tuple[str, ...]) -> dict[str, Any]:
         """A table whose keys are all in ``allowed``."""
-        if not isinstance(value, dict):
-            raise self.fail(path, f"should be a table, found {_type_words(value)}")
-        for key in value:
-            if key not in allowed:
-                close = difflib.get_close_matches(key, allowed, n=1)
-                hint = f"did you mean {close[0]!r}?" if close else f"allowed: {', '.join(allowed)}"
-                raise self.fail(path + (key,), f"unknown key {key!r}; {hint}")
-        return value
+        return self.checked(checked_table, value, _key_text(path), allowed)
 
     def text(self, table: Mapping[str, Any], path: KeyPath, key: str, default: str = "") -> str:
         """A text value of ``table`` (``default`` when absent)."""
-        value = table.get(key, default)
-        if not isinstance(value, str):
-            raise self.fail(path + (key,), f'should be text in quotes, e.g. {key} = "…", '
-                                           f"found {_type_words(value)}")
-        return value
+        return self.checked(table_text, table, _key_text(path), key, default)
 
     def texts(self, table: Mapping[str, Any], path: KeyPath, names: tuple[str, ...]) -> dict[str, str]:
         """The field texts of a bearing or case table, each checked by ``parse_field``."""
@@ -289,21 +269,12 @@ class _Reader:
         return texts
 
     def named_list(self, doc: Mapping[str, Any], name: str) -> list[dict[str, Any]]:
-        """An array of tables (``[[name]]``), each checked to be a table."""
-        value = doc.get(name, [])
-        if not isinstance(value, list):
-            raise self.fail((name,), f"should be [[{name}]] tables, found {_type_words(value)}")
-        return value
+        """An array of tables (``[[name]]``)."""
+        return self.checked(table_list, doc, "", name)
 
     def unique_name(self, table: Mapping[str, Any], path: KeyPath, seen: set[str], what: str) -> str:
         """The required, unique ``name`` of a bearing or case."""
-        name = self.text(table, path, "name")
-        if not name.strip():
-            raise self.fail(path + ("name",), f"every {what} needs a name")
-        if name in seen:
-            raise self.fail(path + ("name",), f"a second {what} called {name!r}; names must differ")
-        seen.add(name)
-        return name
+        return self.checked(required_name, table, _key_text(path), seen, what)
 
     def session(self, doc: dict[str, Any]) -> Session:
         """The whole session, checked table by table."""
@@ -339,7 +310,7 @@ class _Reader:
                                          "not a bearing-workbench session file")
         version = doc["schema"]
         if type(version) is not int:
-            raise self.fail(("schema",), f"should be a whole number, found {_type_words(version)}")
+            raise self.fail(("schema",), f"should be a whole number, found {type_words(version)}")
         if version > SCHEMA_VERSION:
             raise self.fail(("schema",), f"written by a newer workbench (schema {version}); this "
                                          f"one reads schema {SCHEMA_VERSION}: please update it")

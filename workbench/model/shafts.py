@@ -65,7 +65,6 @@ monotonically from Fa = 0 because e grows with Fa.
 
 from __future__ import annotations
 
-import difflib
 import math
 from collections.abc import Iterator, Mapping, Sequence
 from contextlib import contextmanager
@@ -84,6 +83,7 @@ from ..engine.shaft import PointLoad, ShaftLayout, ShaftReactions, derivation_st
 from .fields import BEARING_FIELDS, CASE_FIELDS, FieldError, inputs_from_values, parse_field
 from .quantities import QuantityError, parse
 from .session import LoadCase, Session
+from .toml_tables import checked_table, required_name, table_list, table_text, type_words
 
 ELEMENT_KINDS = ("spur", "helical", "bevel", "pulley")
 LOCATING = ("A", "B", "pair")
@@ -183,62 +183,6 @@ OPTIONAL_TEXTS: dict[str, tuple[str, ...]] = {
 }
 KIND_WORDS = {"spur": "spur gear", "helical": "helical gear", "bevel": "straight bevel gear",
               "pulley": "pulley"}
-
-
-# ---- reading and writing tables (shared with duty_cycles) ----------------------------------
-def type_words(value: object) -> str:
-    """A TOML value's type in words, for a wrong-type message."""
-    if isinstance(value, bool):
-        return "true/false"
-    if isinstance(value, (int, float)):
-        return "a number"
-    if isinstance(value, str):
-        return "text"
-    if isinstance(value, dict):
-        return "a table"
-    if isinstance(value, list):
-        return "a list"
-    return "a date or time"
-
-
-def checked_table(value: object, key: str, allowed: tuple[str, ...]) -> Mapping[str, Any]:
-    """``value`` as a table whose keys are all in ``allowed``, else a FieldError naming the key."""
-    if not isinstance(value, dict):
-        raise FieldError(key, f"should be a table, found {type_words(value)}")
-    for name in value:
-        if name not in allowed:
-            close = difflib.get_close_matches(str(name), allowed, n=1)
-            hint = f"did you mean {close[0]!r}?" if close else f"allowed: {', '.join(allowed)}"
-            raise FieldError(f"{key}.{name}", f"unknown key {name!r}; {hint}")
-    return value
-
-
-def table_text(table: Mapping[str, Any], key: str, name: str, default: str = "") -> str:
-    """The text value ``name`` of ``table`` (``default`` when absent)."""
-    value = table.get(name, default)
-    if not isinstance(value, str):
-        raise FieldError(f"{key}.{name}", f'should be text in quotes, e.g. {name} = "…", '
-                                           f"found {type_words(value)}")
-    return value
-
-
-def table_list(table: Mapping[str, Any], key: str, name: str) -> list[Any]:
-    """The array of tables ``name`` of ``table`` (empty when absent)."""
-    value = table.get(name, [])
-    if not isinstance(value, list):
-        raise FieldError(f"{key}.{name}", f"should be [[{name}]] tables, found {type_words(value)}")
-    return value
-
-
-def required_name(table: Mapping[str, Any], key: str, seen: set[str], what: str) -> str:
-    """The non-blank ``name`` of a table, different from every name in ``seen`` (then added)."""
-    name = table_text(table, key, "name")
-    if not name.strip():
-        raise FieldError(f"{key}.name", f"every {what} needs a name")
-    if name in seen:
-        raise FieldError(f"{key}.name", f"a second {what} called {name!r}; names must differ")
-    seen.add(name)
-    return name
 
 
 def _without_defaults(item: object) -> dict[str, str]:
