@@ -33,16 +33,30 @@ def derivation_text(derivation: Derivation) -> str:
     return "\n".join(lines)
 
 
-def sensitivity_text(items: Sequence[SensitivityItem]) -> str:
-    """The elasticity of life to each input as an aligned table, notes listed under it."""
-    if not items:
-        return "Sensitivity: no numeric input to vary."
-    headers = ("input", "value", "ε life", "ε s0", "−10 %", "+10 %", "method")
-    rows = [
+SENSITIVITY_HEADERS = ("input", "value", "ε life", "ε s0", "−10 %", "+10 %", "method")
+
+
+def sensitivity_rows(items: Sequence[SensitivityItem]) -> list[tuple[str, ...]]:
+    """One row of display text per item, in the order of :data:`SENSITIVITY_HEADERS`."""
+    return [
         (item.label, _with_unit(item.value, item.unit), _signed(item.elasticity),
          _signed(item.elasticity_s0), _percent(item.minus10), _percent(item.plus10), item.method)
         for item in items
     ]
+
+
+def sensitivity_heading(items: Sequence[SensitivityItem]) -> str:
+    """What the elasticities are of, in one line."""
+    lives = ", ".join(sorted({item.life for item in items}))
+    return f"Sensitivity of {lives}: ε = d ln L / d ln x; ±10 % = life change for x·0.9 and x·1.1"
+
+
+def sensitivity_text(items: Sequence[SensitivityItem]) -> str:
+    """The elasticity of life to each input as an aligned table, notes listed under it."""
+    if not items:
+        return "Sensitivity: no numeric input to vary."
+    headers = SENSITIVITY_HEADERS
+    rows = sensitivity_rows(items)
     widths = [max(len(h), *(len(r[i]) for r in rows)) for i, h in enumerate(headers)]
     right = (False, True, True, True, True, True, False)
 
@@ -50,9 +64,7 @@ def sensitivity_text(items: Sequence[SensitivityItem]) -> str:
         return "  ".join(c.rjust(w) if r else c.ljust(w)
                          for c, w, r in zip(cells, widths, right)).rstrip()
 
-    lives = ", ".join(sorted({item.life for item in items}))
-    lines = [f"Sensitivity of {lives}: ε = d ln L / d ln x; ±10 % = life change for x·0.9 and x·1.1",
-             line(headers), line(["-" * w for w in widths])]
+    lines = [sensitivity_heading(items), line(headers), line(["-" * w for w in widths])]
     lines.extend(line(r) for r in rows)
     notes = [(item.label, item.note) for item in items if item.note]
     if notes:

@@ -20,6 +20,7 @@ from typing import Any, Callable
 
 from .engine.record import Derivation, InputError
 from .engine.record import fmt as number_text
+from .engine.sensitivity import SensitivityItem, sensitivity_of
 from .engine.solve import TARGETS, UNKNOWNS, Solution, solve
 from .model.analysis import DutyOutcome, SessionAnalysis, ShaftOutcome, analyse, time_shares
 from .model.caution import SAFETY_CAUTION
@@ -28,7 +29,9 @@ from .model.session import CaseResult, Session, case_texts
 from .model.sessionfile import SessionFileError, load_session
 from .model.shafts import SIDES, is_generated
 from .model.targets import parse_target_text
-from .render import step_lines
+from .render import (
+    SENSITIVITY_HEADERS, sensitivity_heading, sensitivity_rows, sensitivity_text, step_lines,
+)
 
 FORMATS = ("text", "markdown", "json")
 UNITS_NOTE = "Values are in the engine's units: N, mm, r/min, h, 10⁶ rev, mm²/s, °C."
@@ -70,6 +73,16 @@ def _result_rows(derivation: Derivation) -> list[ResultRow]:
             continue
         rows.append(ResultRow(key, step.symbol, step.label, value, step.unit))
     return rows
+
+
+def _sensitivity(result: CaseResult) -> list[SensitivityItem]:
+    """The elasticity of the case's life to each input (empty when the case cannot be derived)."""
+    if result.inputs is None or result.derivation is None:
+        return []
+    try:
+        return sensitivity_of(result.inputs)
+    except InputError:
+        return []
 
 
 def _error_text(result: CaseResult) -> str | None:
@@ -299,6 +312,9 @@ def _text_case(session: Session, number: int, result: CaseResult) -> list[str]:
     lines.append("Warnings:" if d.warnings else "Warnings: none")
     lines += [f"  - {w}" for w in d.warnings]
     lines += ["Targets:", f"  {_life_line(result)}", f"  {_static_line(result)}", ""]
+    items = _sensitivity(result)
+    if items:
+        lines += [*(f"  {line}" for line in sensitivity_text(items).splitlines()), ""]
     return lines
 
 
@@ -421,6 +437,12 @@ def _md_case(session: Session, number: int, result: CaseResult) -> list[str]:
     lines += ["### Warnings", ""]
     lines += [f"- {w}" for w in d.warnings] if d.warnings else ["None."]
     lines += ["", "### Targets", "", f"- {_life_line(result)}", f"- {_static_line(result)}", ""]
+    items = _sensitivity(result)
+    if items:
+        lines += ["### Sensitivity", "", sensitivity_heading(items), ""]
+        lines += _md_table(list(SENSITIVITY_HEADERS), [list(r) for r in sensitivity_rows(items)])
+        lines += [f"- {item.label}: {item.note}" for item in items if item.note]
+        lines.append("")
     return lines
 
 
@@ -519,6 +541,7 @@ def _json_case(session: Session, result: CaseResult) -> dict[str, Any]:
         "error": _error_text(result),
         "field_errors": dict(result.field_errors),
         "generated": is_generated(result.case),
+        "sensitivity": [item.as_dict() for item in _sensitivity(result)],
     }
 
 
