@@ -472,3 +472,12 @@ def test_recovery_paths_differ_per_file_and_for_untitled(tmp_path: Path, data_ho
     assert one != two and one.parent == two.parent == data_home / "bearing-workbench" / "recovery"
     untitled = write_recovery(small_session("new"), None)
     assert find_recovery(None) == untitled
+
+
+def test_next_line_character_in_notes_is_not_a_line_break() -> None:
+    """U+0085 inside a string is text, not a line end (TOML lines end in LF): a '#' after it is no
+    comment, and the file reads back equal (found by the round-trip property test)."""
+    session = Session(title="t", notes="\x85# not a comment")
+    text = dumps_session(session)
+    assert not has_comments(text)
+    assert loads_session(text) == session

@@ -165,7 +165,7 @@ class _Reader:
     """One pass over a parsed file, raising SessionFileError at the first problem."""
 
     def __init__(self, text: str, source: str, check_values: bool) -> None:
-        self.lines = text.splitlines()
+        self.lines = text.split("\n")  # not splitlines(): U+0085 inside a string is no line end
         self.source = source
         self.check_values = check_values
         self.headers = self._headers()
@@ -511,7 +511,7 @@ def has_comments(text: str) -> bool:
     (and backslash escapes in basic ones) so a ``#`` inside a value is not taken for a comment.
     """
     closing: str | None = None  # the delimiter of the multi-line string we are inside
-    for line in text.splitlines():
+    for line in text.split("\n"):  # TOML lines end in \n; splitlines() would also break at U+0085
         i, n = 0, len(line)
         while i < n:
             if closing is not None:
