@@ -15,6 +15,8 @@ from workbench.tui.app import WorkbenchApp
 from workbench.tui.commands import WorkbenchCommands
 from workbench.tui.dialogs import ChoiceDialog, TextPrompt
 from workbench.tui.help_screen import HelpScreen
+from workbench.tui.selection_screen import SelectionScreen
+from workbench.tui.shafts_screen import ShaftsScreen
 
 Check = Callable[..., Awaitable[None]]
 
@@ -150,6 +152,16 @@ def _pane_check(action_id: str, pane: str) -> Check:
     return check
 
 
+async def check_catalog(pilot, app: WorkbenchApp) -> None:
+    await press(pilot, "bearing.catalog")
+    assert isinstance(app.screen, SelectionScreen) and app.screen.bearing == "Drive"
+
+
+async def check_shafts(pilot, app: WorkbenchApp) -> None:
+    await press(pilot, "view.shafts")
+    assert isinstance(app.screen, ShaftsScreen)
+
+
 async def check_focus_cases(pilot, app: WorkbenchApp) -> None:
     await press(pilot, "focus.editor")
     await press(pilot, "focus.cases")
@@ -203,6 +215,9 @@ CHECKS: dict[str, Check] = {
     "view.units": check_units,
     "view.derivation": _pane_check("view.derivation", "derivation"),
     "view.solver": _pane_check("view.solver", "solver"),
+    "view.whatif": _pane_check("view.whatif", "whatif"),
+    "bearing.catalog": check_catalog,
+    "view.shafts": check_shafts,
     "focus.cases": check_focus_cases,
     "focus.editor": check_focus_editor,
     "app.theme": check_theme,

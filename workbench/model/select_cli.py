@@ -15,12 +15,13 @@ import math
 import sys
 from typing import Any, Sequence
 
+from ..engine.derive import CaseInputs
 from ..engine.kinds import Kind
 from ..engine.record import InputError, fmt
 from ..engine.select import Filters, Selection, select
 from .catalog import Catalog, CatalogError, demo_catalog_path, load_catalog
 from .quantities import QuantityError, parse
-from .session import Session, evaluate_case
+from .session import CaseResult, Session, evaluate_case
 from .sessionfile import SessionFileError, load_session
 
 EXIT_BAD_INPUT = 2
@@ -72,8 +73,26 @@ def _number(value: float) -> float | None:
     return float(value) if math.isfinite(value) else None
 
 
-def _candidate_rows(catalog: Catalog, selection: Selection, case_names: list[str],
-                    top: int) -> list[dict[str, Any]]:
+def selection_inputs(results: Sequence[CaseResult]) -> tuple[list[CaseInputs], float]:
+    """The engine inputs of the evaluated cases to select for, and the session's life target.
+
+    InputError names the first case that cannot be read (field ``case``) or the missing life
+    target (field ``targets.life``); the message says which.
+    """
+    for result in results:
+        if result.inputs is None:
+            raise InputError("case", f"case {result.case.name!r}, {result.error_field}: "
+                                     f"{result.error}")
+    life_target = results[0].life_target_h if results else None
+    if life_target is None:
+        raise InputError("targets.life", "the session has no life target ([targets] life)")
+    return [result.inputs for result in results if result.inputs is not None], life_target
+
+
+def candidate_rows(catalog: Catalog, selection: Selection, case_names: list[str],
+                   top: int) -> list[dict[str, Any]]:
+    """The best ``top`` candidates (0: all) as plain rows: designation, kind, d, D, B, mass,
+    life margin, governing case name and smallest s0 (NaN as None)."""
     chosen = selection.candidates if top <= 0 else selection.candidates[:top]
     return [{
         "designation": catalog.designations[c.index],
@@ -134,20 +153,16 @@ def run_select(argv: Sequence[str]) -> int:
         where = f" on bearing {args.bearing!r}" if args.bearing else ""
         return _fail(f"{args.session}: no load cases{where} to select for")
     results = [evaluate_case(session, case) for case in cases]
-    for result in results:
-        if result.inputs is None:
-            return _fail(f"{args.session}: case {result.case.name!r}, {result.error_field}: "
-                         f"{result.error}")
-    life_target = results[0].life_target_h
-    if life_target is None:
-        return _fail(f"{args.session}: the session has no life target ([targets] life)")
-    inputs = [result.inputs for result in results if result.inputs is not None]
+    try:
+        inputs, life_target = selection_inputs(results)
+    except InputError as exc:
+        return _fail(f"{args.session}: {exc.message}")
     try:
         selection = select(catalog, inputs, life_target, None, filters)
     except InputError as exc:
         return _fail(f"{args.session}: {exc.field}: {exc.message}")
     case_names = [case.name for case in cases]
-    rows = _candidate_rows(catalog, selection, case_names, args.top)
+    rows = candidate_rows(catalog, selection, case_names, args.top)
     if args.json:
         print(json.dumps(_report(args, session, catalog, selection, rows, case_names, life_target,
                                  results[0].s0_target), ensure_ascii=False, indent=2))

@@ -17,7 +17,7 @@ Scope = Literal["app", "screen"]
 
 NUDGE_GROUP = Binding.Group("What-if ±5 % / ±1 %", compact=True)
 MOVE_GROUP = Binding.Group("Move case", compact=True)
-PANE_GROUP = Binding.Group("Derivation / Solver", compact=True)
+PANE_GROUP = Binding.Group("Derivation / Solver / What-if", compact=True)
 
 
 @dataclass(frozen=True, slots=True)
@@ -77,6 +77,14 @@ ACTIONS: tuple[Action, ...] = (
            "Show the derivation of the selected case", group=PANE_GROUP),
     Action("view.solver", "f6", "show_pane('solver')", "Solver",
            "Show the back-solver", group=PANE_GROUP),
+    Action("view.whatif", "f11,ctrl+r", "show_pane('whatif')", "What-if",
+           "Show how strongly the life answers to each input, the life and aISO plots and the "
+           "duty cycles' damage shares", group=PANE_GROUP),
+    Action("bearing.catalog", "ctrl+l", "select_from_catalog", "Select bearing from catalog",
+           "List the catalog bearings that meet every case on the selected case's bearing; "
+           "adopt one (undoable)"),
+    Action("view.shafts", "ctrl+f", "show_shafts", "Shafts and duty cycles",
+           "Show each shaft's bearing loads and free body, system lives and duty cycles"),
     Action("focus.cases", "f3", "focus_cases", "Cases", "Go to the load-case list"),
     Action("focus.editor", "f4", "focus_editor", "Editor", "Go to the case editor"),
     Action("file.open", "ctrl+o", "open", "Open", "Open another session file"),

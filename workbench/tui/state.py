@@ -6,6 +6,10 @@ through its typed texts and re-derives what the change touches (through
 is written only when it is valid: :meth:`Workbench.set_text` returns the message otherwise, and
 the last valid text stays in force.  Undo keeps whole-session snapshots; consecutive keystrokes
 in one field of one case merge into one undo step.
+
+The cases a session's ``[[shafts]]`` generate follow its own cases in :attr:`Workbench.results`
+(and in the case list); they are read-only here: an edit of one is refused with
+:meth:`Workbench.generated_problem`'s message, since the file's shaft table is their editor.
 """
 
 from __future__ import annotations
@@ -18,11 +22,13 @@ from pathlib import Path
 
 from ..engine.record import InputError
 from ..engine.solve import UNKNOWNS, Solution, solve
+from ..model.analysis import SessionAnalysis, analyse
 from ..model.fields import FIELD_BY_NAME, FieldError, parse_field
 from ..model.quantities import format_quantity
 from ..model.session import (
     Bearing, CaseResult, LoadCase, Session, UNIT_SYSTEMS, case_texts, evaluate_case,
 )
+from ..model.shafts import is_generated
 from .whatif import leading_number, number_text, scale_text
 
 MAX_NAME = 60
@@ -76,23 +82,41 @@ class Workbench:
     def __init__(self, session: Session, path: Path | None = None) -> None:
         self.session = session
         self.path = path
-        self.selected = 0 if session.cases else -1
         self.dirty = False
         self.revision = 0
         self.solved: SolvedFor | None = None
         self._undo: list[_Snapshot] = []
         self._redo: list[_Snapshot] = []
         self._run: _EditRun | None = None
+        self._analysis: tuple[int, SessionAnalysis] | None = None
         self.results: list[CaseResult] = []
         self.reevaluate()
+        self.selected = 0 if self.results else -1
 
     # ---- reading ------------------------------------------------------------------------
     @property
     def case(self) -> LoadCase | None:
-        """The selected load case, or None in an empty session."""
+        """The selected load case (one of the session's, or one its shafts generate), or None."""
         if 0 <= self.selected < len(self.session.cases):
             return self.session.cases[self.selected]
+        if 0 <= self.selected < len(self.results):
+            return self.results[self.selected].case
         return None
+
+    def generated_problem(self) -> str | None:
+        """Why the selected case cannot be edited here (it is generated from a shaft), or None."""
+        case = self.case
+        if case is None or not is_generated(case):
+            return None
+        return (f"{case.notes}: edit the shaft ([[shafts]] in the session file); "
+                "duplicate the case for an editable copy")
+
+    @property
+    def analysis(self) -> SessionAnalysis:
+        """The whole session worked out (shafts, duty cycles), redone once per change."""
+        if self._analysis is None or self._analysis[0] != self.revision:
+            self._analysis = (self.revision, analyse(self.session))
+        return self._analysis[1]
 
     @property
     def result(self) -> CaseResult | None:
@@ -121,13 +145,17 @@ class Workbench:
         return bool(self._undo)
 
     def reevaluate(self) -> None:
-        """Derive every case again (after a structural change, an undo or a load)."""
-        self.results = [evaluate_case(self.session, case) for case in self.session.cases]
+        """Derive every case again, the session's own then those its shafts generate (after a
+        structural change, an undo or a load)."""
+        self.results = list(analyse(self.session).cases)
 
     def _reevaluate_bearing(self, bearing_name: str) -> None:
         for index, case in enumerate(self.session.cases):
             if case.bearing == bearing_name:
                 self.results[index] = evaluate_case(self.session, case)
+        if self.session.reserved.get("shafts"):  # a shaft's loads can hang on its bearings' data
+            own = len(self.session.cases)
+            self.results[own:] = analyse(self.session).cases[own:]
 
     # ---- undo ---------------------------------------------------------------------------
     def _remember(self, label: str, merge_key: tuple[str, int, str] | None = None,
@@ -157,9 +185,9 @@ class Workbench:
         snapshot = source.pop()
         target.append(_Snapshot(snapshot.label, self.session, self.selected, None))
         self.session = snapshot.session
-        self.selected = min(snapshot.selected, len(self.session.cases) - 1)
         self.solved = None
         self.reevaluate()
+        self.selected = min(snapshot.selected, len(self.results) - 1)
         self._changed()
         self.end_run()
         return snapshot.label
@@ -180,8 +208,8 @@ class Workbench:
     # ---- editing ------------------------------------------------------------------------
     def select(self, index: int) -> None:
         """Select the case at ``index`` (clamped to the list)."""
-        if self.session.cases:
-            self.selected = max(0, min(index, len(self.session.cases) - 1))
+        if self.results:
+            self.selected = max(0, min(index, len(self.results) - 1))
             self.end_run()
 
     def _owner_texts(self, field_name: str) -> dict[str, str] | None:
@@ -205,6 +233,8 @@ class Workbench:
         """
         if field_name not in FIELD_BY_NAME:
             return "unknown input"
+        if (generated := self.generated_problem()) is not None:
+            return generated
         owner = self._owner_texts(field_name)
         case = self.case
         if owner is None or case is None:
@@ -272,6 +302,8 @@ class Workbench:
         case = self.case
         if case is None:
             return "no load case is selected"
+        if (generated := self.generated_problem()) is not None:
+            return generated
         if self.session.bearing(bearing_name) is None:
             return f"no bearing called {bearing_name!r}"
         if case.bearing == bearing_name:
@@ -280,6 +312,23 @@ class Workbench:
         case.bearing = bearing_name
         self.results[self.selected] = evaluate_case(self.session, case)
         self._changed()
+        return None
+
+    def adopt_bearing(self, texts: dict[str, str], designation: str) -> str | None:
+        """Give the selected case's bearing the field texts of a catalog bearing (one undo step;
+        a blank text clears the field); None when done, else why not."""
+        case = self.case
+        if case is None:
+            return "no load case is selected"
+        bearing = self.session.bearing(case.bearing)
+        if bearing is None:
+            return f"no bearing called {case.bearing!r} in this session"
+        self._remember(f"adopt {designation} as bearing {bearing.name}")
+        for name, text in texts.items():
+            _put(bearing.texts, name, text.strip() or None)
+        self._reevaluate_bearing(bearing.name)
+        self._changed()
+        self.end_run()
         return None
 
     def _unique_name(self, stem: str) -> str:
@@ -302,7 +351,8 @@ class Workbench:
         return bearing.name
 
     def _insert(self, case: LoadCase) -> None:
-        index = self.selected + 1 if self.case is not None else len(self.session.cases)
+        own = len(self.session.cases)
+        index = min(self.selected + 1, own) if self.case is not None else own
         self.session.cases.insert(index, case)
         self.selected = index
         self.reevaluate()
@@ -321,14 +371,17 @@ class Workbench:
         if case is None:
             return None
         self._remember("duplicate case")
+        notes = "" if is_generated(case) else case.notes  # the copy is the person's to edit
         copied = LoadCase(self._unique_name(f"{case.name} copy"), case.bearing,
-                          dict(case.texts), case.notes)
+                          dict(case.texts), notes)
         self._insert(copied)
         return copied.name
 
     def name_problem(self, name: str) -> str | None:
         """Why ``name`` cannot name the selected case, or None when it can."""
         stripped = name.strip()
+        if (generated := self.generated_problem()) is not None:
+            return generated
         if not stripped:
             return "a name is needed"
         if len(stripped) > MAX_NAME:
@@ -336,7 +389,7 @@ class Workbench:
         if any(unicodedata.category(ch).startswith("C") for ch in stripped):
             return "contains a control character"
         current = self.case.name if self.case is not None else None
-        if stripped != current and self.session.case(stripped) is not None:
+        if stripped != current and any(result.case.name == stripped for result in self.results):
             return f"a case called {stripped!r} exists already"
         return None
 
@@ -359,9 +412,10 @@ class Workbench:
         return None
 
     def delete_case(self) -> str | None:
-        """Delete the selected case (undoable); its name, or None in an empty list."""
+        """Delete the selected case (undoable); its name, or None in an empty list or for a
+        generated case."""
         case = self.case
-        if case is None:
+        if case is None or is_generated(case):
             return None
         self._remember("delete case")
         del self.session.cases[self.selected]
@@ -373,7 +427,8 @@ class Workbench:
     def move_case(self, delta: int) -> bool:
         """Move the selected case up (−1) or down (+1); False when it is already at the end."""
         index, target = self.selected, self.selected + delta
-        if self.case is None or not 0 <= target < len(self.session.cases):
+        own = len(self.session.cases)
+        if self.case is None or not (0 <= index < own and 0 <= target < own):
             return False
         self._remember("move case")
         cases = self.session.cases
@@ -447,6 +502,8 @@ class Workbench:
                                       "select it or solve again")
         if result.inputs is None:
             raise InputError("solve", "the case has changed and has errors: solve again")
+        if (generated := self.generated_problem()) is not None:
+            raise InputError("solve", generated)
         solution = solved.solution
         current = 1.0 if solution.unknown == "load_scale" else float(
             getattr(result.inputs, solution.unknown))
@@ -476,7 +533,6 @@ class Workbench:
         """Put another session under edit (an opened or recovered file); undo starts afresh."""
         self.session = session
         self.path = path
-        self.selected = 0 if session.cases else -1
         self.solved = None
         self._run = None
         self._undo.clear()
@@ -484,3 +540,4 @@ class Workbench:
         self.dirty = dirty
         self.revision += 1
         self.reevaluate()
+        self.selected = 0 if self.results else -1

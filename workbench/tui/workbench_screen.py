@@ -2,8 +2,8 @@
 
 State lives in :class:`~workbench.tui.state.Workbench`; the panes announce what a person does
 with messages, this screen asks the state to do it and tells each pane what to draw.  At 80×24
-the list and the editor share the left column and the derivation and the solver share the right
-one as tabs (f5 / f6).
+the list and the editor share the left column and the derivation, the solver and the what-if
+share the right one as tabs (f5 / f6 / f11).
 """
 
 from __future__ import annotations
@@ -30,8 +30,11 @@ from .case_list import CaseList
 from .derivation_pane import DerivationPane
 from .dialogs import ChoiceDialog, TextPrompt
 from .key_footer import KeyFooter
+from .selection_screen import Adoption, SelectionScreen
+from .shafts_screen import ShaftsScreen
 from .solver_pane import SolverPane
 from .state import Workbench, input_field
+from .whatif_pane import WhatIfPane
 
 AUTOSAVE_DELAY_S = 2.0
 DEFAULT_SAVE_NAME = "session.toml"
@@ -62,6 +65,8 @@ class WorkbenchScreen(Screen[None]):
                     yield DerivationPane(id="derivation")
                 with TabPane("Solver", id="tab-solver"):
                     yield Lazy(SolverPane(self.workbench.session.solver, id="solver"))
+                with TabPane("What-if", id="tab-whatif"):
+                    yield Lazy(WhatIfPane(id="whatif"))
         yield KeyFooter()
 
     def on_mount(self) -> None:
@@ -92,6 +97,21 @@ class WorkbenchScreen(Screen[None]):
             editor.show_case_error(None, None)
         else:
             editor.show_case_error(input_field(result.error_field), result.error)
+        self._show_whatif()
+
+    def _show_whatif(self) -> None:
+        """The what-if of the selected case, worked out only while its tab is on show."""
+        panes = self.query(WhatIfPane)
+        if not panes or self.query_one(TabbedContent).active != "tab-whatif":
+            return
+        state = self.workbench
+        panes.first().show(state.result, state.units, state.analysis.duties)
+
+    @on(TabbedContent.TabActivated, "#panes")
+    def _tab_shown(self, event: TabbedContent.TabActivated) -> None:
+        """Bring the what-if up to date when its tab comes on show."""
+        if event.pane.id == "tab-whatif":
+            self._show_whatif()
 
     def redraw_all(self) -> None:
         """Redraw every pane (after a structural change, an undo or an open)."""
@@ -167,6 +187,7 @@ class WorkbenchScreen(Screen[None]):
         problem = self.workbench.choose_bearing(event.name)
         if problem is not None:
             self.notify(problem, severity="warning")
+            self._load_editor()  # show the bearing still in force
             return
         self.redraw_all()
         self._after_change()
@@ -204,6 +225,8 @@ class WorkbenchScreen(Screen[None]):
         if case is None:
             self.notify("No case to rename", severity="warning")
             return
+        if self._refuse_generated():
+            return
 
         def renamed(name: str | None) -> None:
             if name is None:
@@ -218,8 +241,17 @@ class WorkbenchScreen(Screen[None]):
         self.app.push_screen(TextPrompt("Rename load case", case.name,
                                         self.workbench.name_problem), renamed)
 
+    def _refuse_generated(self) -> bool:
+        """Say so and refuse when the selected case is generated from a shaft (read-only)."""
+        problem = self.workbench.generated_problem()
+        if problem is not None:
+            self.notify(problem, severity="warning")
+        return problem is not None
+
     def action_delete_case(self) -> None:
         """Delete the selected case (ctrl+z brings it back)."""
+        if self._refuse_generated():
+            return
         name = self.workbench.delete_case()
         if name is None:
             self.notify("No case to delete", severity="warning")
@@ -230,6 +262,8 @@ class WorkbenchScreen(Screen[None]):
 
     def action_move_case(self, delta: int) -> None:
         """Move the selected case up or down the list."""
+        if self._refuse_generated():
+            return
         if self.workbench.move_case(delta):
             self.redraw_all()
             self._after_change()
@@ -306,6 +340,34 @@ class WorkbenchScreen(Screen[None]):
     def action_show_pane(self, name: str) -> None:
         """Show the derivation or the solver in the right column."""
         self.query_one(TabbedContent).active = f"tab-{name}"
+
+    def action_select_from_catalog(self) -> None:
+        """List the catalog bearings for every case on the selected case's bearing; adopt one."""
+        state = self.workbench
+        case = state.case
+        if case is None:
+            self.notify("No load case selected", severity="warning")
+            return
+        bearing = case.bearing
+
+        def adopted(choice: Adoption | None) -> None:
+            if choice is None:
+                return
+            problem = state.adopt_bearing(choice.texts, choice.designation)
+            if problem is not None:
+                self.notify(problem, severity="warning")
+                return
+            self.redraw_all()
+            self._after_change()
+            self.notify(f"Bearing {bearing} now has the data of {choice.designation} "
+                        "(ctrl+z undoes it)")
+
+        users = [result for result in state.results if result.case.bearing == bearing]
+        self.app.push_screen(SelectionScreen(bearing, users), adopted)
+
+    def action_show_shafts(self) -> None:
+        """Show the shafts, their bearing loads and free bodies, and the duty cycles."""
+        self.app.push_screen(ShaftsScreen(self.workbench.analysis, self.workbench.units))
 
     def action_focus_cases(self) -> None:
         """Go to the load-case list."""

@@ -1,0 +1,90 @@
+"""The shafts view and the generated cases: the loads analyse() gives, read-only on screen."""
+
+from __future__ import annotations
+
+import math
+
+import pytest
+
+from tui_helpers import retype
+
+from workbench.model.analysis import analyse
+from workbench.model.quantities import format_quantity
+from workbench.model.session import Session
+from workbench.model.shafts import is_generated
+from workbench.tui import files
+from workbench.tui.app import WorkbenchApp
+from workbench.tui.case_list import CaseList
+from workbench.tui.shafts_screen import ShaftsScreen
+
+
+def demo_session() -> Session:
+    session = files.open_session(files.demo_path()).session
+    assert session is not None
+    return session
+
+
+def demo_app() -> WorkbenchApp:
+    return WorkbenchApp(demo_session(), None, offer_recovery=False, autosave_delay=None)
+
+
+async def test_shafts_view_shows_the_bearing_loads_of_analyse() -> None:
+    app = demo_app()
+    analysis = analyse(demo_session())
+    async with app.run_test(size=(80, 24)) as pilot:
+        await pilot.pause()
+        await pilot.press("ctrl+f")
+        await pilot.pause()
+        screen = app.screen
+        assert isinstance(screen, ShaftsScreen)
+        text = screen.text
+        assert "edit [[shafts]]" in text
+        shaft = analysis.shafts[0]
+        for state in shaft.states:
+            assert state.solution is not None
+            for side in ("A", "B"):
+                fr, fa = state.solution.bearing_loads[side]
+                assert (f"Fr = {format_quantity(fr, 'force', 'SI')}  "
+                        f"Fa = {format_quantity(fa, 'force', 'SI')}") in text
+        for duty in analysis.duties:
+            assert duty.name in text
+        await pilot.press("escape")
+        await pilot.pause()
+        assert not isinstance(app.screen, ShaftsScreen)
+
+
+def test_locating_bearing_takes_the_helix_thrust() -> None:
+    # Helical gear force relations: T = P/ω, Wt = 2T/d, Wa = Wt·tan ψ; the locating bearing B
+    # carries all the thrust (shaft axial equilibrium). Demo: 30 kW at 1480 rpm, d = 56 mm, ψ = 18°.
+    torque = 30_000 / (2 * math.pi * 1480 / 60)
+    thrust = 2 * torque / 0.056 * math.tan(math.radians(18))
+    full_load = analyse(demo_session()).shafts[0].states[0].solution
+    assert full_load is not None
+    assert full_load.bearing_loads["B"][1] == pytest.approx(thrust, rel=1e-9)
+    assert full_load.bearing_loads["A"][1] == 0.0
+
+
+async def test_generated_cases_are_listed_and_read_only() -> None:
+    app = demo_app()
+    own = len(demo_session().cases)
+    async with app.run_test(size=(80, 24)) as pilot:
+        await pilot.pause()
+        state = app.workbench
+        assert app.workbench_screen.query_one(CaseList).row_count == len(analyse(state.session).cases)
+        app.workbench_screen.query_one(CaseList).move_cursor(row=own)
+        await pilot.pause()
+        case = state.case
+        assert case is not None and is_generated(case) and state.selected == own
+        typed_before = dict(case.texts)
+        await retype(pilot, app, "fr", "1 kN")
+        assert case.texts == typed_before and not state.dirty
+        assert "generated from shaft RM-2 input shaft" in (
+            app.workbench_screen.query_one("#editor").message_for("fr") or "")
+        await pilot.press("f8")  # delete: refused
+        await pilot.pause()
+        assert len(state.results) == len(analyse(state.session).cases) and not state.dirty
+        await pilot.press("ctrl+b")  # duplicate: an ordinary, editable copy
+        await pilot.pause()
+        assert len(state.session.cases) == own + 1
+        copy = state.session.cases[own]
+        assert not is_generated(copy) and copy.texts["fr"] == typed_before["fr"]

@@ -1,0 +1,108 @@
+"""The What-if tab: sensitivity, life and aISO plots and damage shares of the selected case."""
+
+from __future__ import annotations
+
+import pytest
+
+from tui_helpers import retype
+
+from workbench.engine.sensitivity import sensitivity_of
+from workbench.model.analysis import analyse
+from workbench.tui import files
+from workbench.tui.app import WorkbenchApp
+from workbench.tui.whatif_pane import WhatIfPane, share_bar
+
+
+def pane(app: WorkbenchApp) -> WhatIfPane:
+    return app.workbench_screen.query_one(WhatIfPane)
+
+
+def elasticities(items) -> dict[str, float | None]:
+    return {item.input: item.elasticity for item in items}
+
+
+async def test_elasticities_are_the_engines_and_follow_typed_fr(make_app) -> None:
+    app = make_app()
+    async with app.run_test(size=(80, 24)) as pilot:
+        await pilot.pause()
+        await pilot.press("f11")
+        await pilot.pause()
+        shown = pane(app).items
+        result = app.workbench.result
+        assert result is not None and result.inputs is not None
+        assert elasticities(shown) == elasticities(sensitivity_of(result.inputs))
+        # ISO 281:2007 §7.1: L10 = (C/P)^p with p = 3 for ball bearings, so ε(C) = 3 exactly.
+        assert elasticities(shown)["c"] == pytest.approx(3.0)
+        assert "radial load Fr" in pane(app).text and "aISO" in pane(app).text
+        before = elasticities(shown)
+
+        await retype(pilot, app, "fr", "4.5 kN")
+        after = pane(app).items
+        assert app.workbench.session.cases[0].texts["fr"] == "4.5 kN"
+        assert elasticities(after) != before
+        fresh = app.workbench.result
+        assert fresh is not None and fresh.inputs is not None and fresh.inputs.fr == 4500.0
+        assert elasticities(after) == elasticities(sensitivity_of(fresh.inputs))
+
+
+async def test_a_case_that_cannot_be_derived_says_so(make_app) -> None:
+    app = make_app()
+    async with app.run_test(size=(80, 24)) as pilot:
+        await pilot.pause()
+        await pilot.press("f11")
+        await pilot.pause()
+        await pilot.press("down", "down")  # Idler end
+        await pilot.pause()
+        app.workbench.session.cases[2].texts["fr"] = "-5 kN"  # refused by the engine
+        app.workbench.reevaluate()
+        app.workbench_screen.redraw_all()
+        await pilot.pause()
+        assert pane(app).items == [] and "cannot be derived" in pane(app).text
+
+
+async def test_duty_block_shows_the_damage_shares_of_the_bearings_cycles() -> None:
+    session = files.open_session(files.demo_path()).session
+    assert session is not None
+    app = WorkbenchApp(session, None, offer_recovery=False, autosave_delay=None)
+    async with app.run_test(size=(80, 24)) as pilot:
+        await pilot.pause()
+        await pilot.press("f11")
+        await pilot.pause()
+        text = pane(app).text
+        bearing = app.workbench.case.bearing
+        duties = [d for d in analyse(session).duties if d.result and d.result.bearing == bearing]
+        assert duties
+        for duty in duties:
+            assert duty.name in text
+            for share in duty.result.damage_shares:
+                assert f"{100 * share:5.1f} %" in text
+        # Palmgren–Miner: the damage shares of a cycle add up to the whole damage.
+        assert sum(duties[0].result.damage_shares) == pytest.approx(1.0)
+
+
+def test_share_bar() -> None:
+    # closed form: round(share × width) full cells, the rest light
+    assert share_bar(0.25, 8) == "██░░░░░░"
+    assert share_bar(1.5, 4) == "████" and share_bar(float("nan"), 3) == "░░░"
+
+
+def _theme(name: str, scroll_to: str | None = None):
+    async def run_before(pilot) -> None:
+        await pilot.pause()
+        pilot.app.theme = name
+        await pilot.press("f11")
+        await pilot.pause()
+        if scroll_to is not None:
+            what_if = pilot.app.workbench_screen.query_one(WhatIfPane)
+            what_if.scroll_to_widget(what_if.query_one(scroll_to), animate=False, top=True)
+        await pilot.pause()
+    return run_before
+
+
+def test_whatif_tab_snapshot_night(snap_compare, make_app) -> None:
+    assert snap_compare(make_app(), terminal_size=(80, 24), run_before=_theme("bench-night"))
+
+
+def test_whatif_tab_snapshot_monochrome_plot(snap_compare, make_app) -> None:
+    assert snap_compare(make_app(), terminal_size=(80, 24),
+                        run_before=_theme("bench-mono", "#whatif-life-plot"))
