@@ -39,8 +39,8 @@ SENSITIVITY_HEADERS = ("input", "value", "ε life", "ε s0", "−10 %", "+10 %",
 def sensitivity_rows(items: Sequence[SensitivityItem]) -> list[tuple[str, ...]]:
     """One row of display text per item, in the order of :data:`SENSITIVITY_HEADERS`."""
     return [
-        (item.label, _with_unit(item.value, item.unit), _signed(item.elasticity),
-         _signed(item.elasticity_s0), _percent(item.minus10), _percent(item.plus10), item.method)
+        (item.label, _with_unit(item.value, item.unit), signed(item.elasticity),
+         signed(item.elasticity_s0), percent(item.minus10), percent(item.plus10), item.method)
         for item in items
     ]
 
@@ -76,9 +76,11 @@ def _with_unit(value: float, unit: str) -> str:
     return f"{fmt(value)} {unit}" if unit else fmt(value)
 
 
-def _signed(value: float | None) -> str:
+def signed(value: float | None) -> str:
+    """An elasticity with its sign, three decimals ("n/a" when there is none)."""
     return "n/a" if value is None else f"{value + 0.0:+.3f}"
 
 
-def _percent(value: float | None) -> str:
+def percent(value: float | None) -> str:
+    """A relative change as a signed percentage ("n/a" when there is none)."""
     return "n/a" if value is None else f"{100.0 * value + 0.0:+.1f} %"

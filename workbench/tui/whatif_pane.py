@@ -28,6 +28,7 @@ from ..model.analysis import DutyOutcome
 from ..model.quantities import format_quantity
 from ..model.session import CaseResult
 from ..plot_text import plot_lines
+from ..render import percent, signed
 
 PLOT_HEIGHT = 8
 PLOT_GUTTER = 10  # plot_lines puts the y labels and the axis in the first ten columns
@@ -38,14 +39,6 @@ BAR_FULL, BAR_EMPTY = "█", "░"
 NUMBER_STYLE = "bold"
 NOTE_STYLE = "italic $foreground 70%"
 ERROR_STYLE = "bold $text-error on $error-muted"
-
-
-def _signed(value: float | None) -> str:
-    return "n/a" if value is None else f"{value + 0.0:+.3f}"
-
-
-def _percent(value: float | None) -> str:
-    return "n/a" if value is None else f"{100.0 * value + 0.0:+.1f} %"
 
 
 def _value_text(item: SensitivityItem) -> str:
@@ -63,10 +56,10 @@ def sensitivity_lines(items: Sequence[SensitivityItem]) -> list[Content]:
         lines.append(Content(""))
         lines.append(Content.assemble((f"{rank}. {item.label}", "bold"),
                                       f" = {_value_text(item)}"))
-        lines.append(Content.assemble("   ε life ", (_signed(item.elasticity), NUMBER_STYLE),
-                                      " · ε s0 ", (_signed(item.elasticity_s0), NUMBER_STYLE)))
-        lines.append(Content.assemble("   x·0.9 ", (_percent(item.minus10), NUMBER_STYLE),
-                                      " · x·1.1 ", (_percent(item.plus10), NUMBER_STYLE)))
+        lines.append(Content.assemble("   ε life ", (signed(item.elasticity), NUMBER_STYLE),
+                                      " · ε s0 ", (signed(item.elasticity_s0), NUMBER_STYLE)))
+        lines.append(Content.assemble("   x·0.9 ", (percent(item.minus10), NUMBER_STYLE),
+                                      " · x·1.1 ", (percent(item.plus10), NUMBER_STYLE)))
         if item.method != "central":
             lines.append(Content.styled(f"   method: {item.method}", NOTE_STYLE))
         if item.note:
