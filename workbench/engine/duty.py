@@ -11,12 +11,13 @@ Shares are weights: they are normalised to sum 1, so percentages work as well as
 from __future__ import annotations
 
 from dataclasses import dataclass
-from typing import Literal, Sequence
-
-import numpy as np
+from typing import TYPE_CHECKING, Literal, Sequence
 
 from .gears import checked
 from .record import InputError
+
+if TYPE_CHECKING:  # numpy is imported by the functions that build arrays
+    import numpy as np
 
 ShareBasis = Literal["time", "revolutions"]
 
@@ -35,6 +36,8 @@ class MinerLife:
 
 def _as_array(field_name: str, values: Sequence[float] | np.ndarray) -> np.ndarray:
     """``values`` as a float array whose axis 0 (one entry per state or bearing) is not empty."""
+    import numpy as np
+
     try:
         array = np.asarray(values, dtype=float)
     except (TypeError, ValueError):
@@ -47,6 +50,8 @@ def _as_array(field_name: str, values: Sequence[float] | np.ndarray) -> np.ndarr
 def _vector(field_name: str, values: Sequence[float] | np.ndarray, *, low_open: bool = False,
             allow_infinite: bool = False) -> np.ndarray:
     """A non-empty 1-D float array with every element ≥ 0 (> 0 if ``low_open``); +∞ if allowed."""
+    import numpy as np
+
     array = _as_array(field_name, values)
     if array.ndim != 1:
         raise InputError(field_name, "needs a flat list of numbers")
@@ -87,6 +92,8 @@ def revolution_shares(shares: Sequence[float] | np.ndarray,
 
 def mean_speed(speeds: Sequence[float] | np.ndarray, time_shares: Sequence[float] | np.ndarray) -> float:
     """Time-weighted mean speed nm = Σ ti·ni (r/min), for converting a duty-cycle life to hours."""
+    import numpy as np
+
     speed = _vector("speeds", speeds)
     return float(np.dot(_weights("shares", time_shares, speed.size), speed))
 
@@ -99,6 +106,8 @@ def mean_equivalent_load(loads: Sequence[float] | np.ndarray, shares: Sequence[f
     ``p`` is the life exponent (3 ball, 10/3 roller); ``shares`` are time shares (with ``speeds``)
     or revolution shares, as ``share_basis`` says.
     """
+    import numpy as np
+
     load = _vector("loads", loads)
     checked("life_exponent", p, low=0.0, low_open=True)
     weights = revolution_shares(shares, speeds, share_basis)
@@ -113,6 +122,8 @@ def miner_life(lives: Sequence[float] | np.ndarray, shares: Sequence[float] | np
     ``shares`` must be in the measure of ``lives``: revolution shares with lives in revolutions,
     time shares with lives in hours.  A state of infinite life does no damage.
     """
+    import numpy as np
+
     life = _vector("lives", lives, low_open=True, allow_infinite=True)
     weights = _weights("shares", shares, life.size)
     damage = weights / life
@@ -127,6 +138,8 @@ def system_life(lives: Sequence[float] | np.ndarray, weibull_slope: float) -> fl
 
     Axis 0 of ``lives`` runs over the bearings; further axes (cases) are kept.
     """
+    import numpy as np
+
     checked("weibull_slope", weibull_slope, low=0.0, low_open=True)
     life = _as_array("lives", lives)
     checked("lives", life[~np.isposinf(life)], low=0.0, low_open=True)
@@ -137,6 +150,8 @@ def system_life(lives: Sequence[float] | np.ndarray, weibull_slope: float) -> fl
 
 def system_reliability(reliabilities: Sequence[float] | np.ndarray) -> float | np.ndarray:
     """R_sys = ΠRi for bearings in series (independent failures); axis 0 runs over the bearings."""
+    import numpy as np
+
     reliability = _as_array("reliabilities", reliabilities)
     checked("reliabilities", reliability, low=0.0, high=1.0)
     result = np.prod(reliability, axis=0)

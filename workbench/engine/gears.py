@@ -31,8 +31,6 @@ import numbers
 from dataclasses import dataclass
 from typing import Literal
 
-import numpy as np
-
 from .num import Num, is_array
 from .record import InputError
 
@@ -73,6 +71,8 @@ def checked(field_name: str, value: Num, *, low: float | None = None, high: floa
     Works on a float or on every element of a numpy array.
     """
     if is_array(value):
+        import numpy as np
+
         values = np.asarray(value, dtype=float)
         if values.size == 0:
             return value
@@ -93,15 +93,27 @@ def checked(field_name: str, value: Num, *, low: float | None = None, high: floa
 
 
 def _tan_deg(angle_deg: Num) -> Num:
-    return np.tan(np.radians(angle_deg)) if is_array(angle_deg) else math.tan(math.radians(angle_deg))
+    if is_array(angle_deg):
+        import numpy as np
+
+        return np.tan(np.radians(angle_deg))
+    return math.tan(math.radians(angle_deg))
 
 
 def _cos_deg(angle_deg: Num) -> Num:
-    return np.cos(np.radians(angle_deg)) if is_array(angle_deg) else math.cos(math.radians(angle_deg))
+    if is_array(angle_deg):
+        import numpy as np
+
+        return np.cos(np.radians(angle_deg))
+    return math.cos(math.radians(angle_deg))
 
 
 def _sin_deg(angle_deg: Num) -> Num:
-    return np.sin(np.radians(angle_deg)) if is_array(angle_deg) else math.sin(math.radians(angle_deg))
+    if is_array(angle_deg):
+        import numpy as np
+
+        return np.sin(np.radians(angle_deg))
+    return math.sin(math.radians(angle_deg))
 
 
 def tangential_load(torque_Nm: Num, diameter_mm: Num) -> Num:

@@ -11,8 +11,6 @@ import math
 from dataclasses import dataclass
 from enum import StrEnum
 
-import numpy as np
-
 from . import tables as T
 from .num import Num, interp, is_array, safe_ratio, where
 from .record import InputError
@@ -168,6 +166,8 @@ class DynamicFactors:
 def _clamp_flag(index: Num, lo: float, hi: float) -> Num:
     """-1 below the table, +1 above it, 0 inside."""
     if is_array(index):
+        import numpy as np
+
         return np.where(index < lo, -1, np.where(index > hi, 1, 0))
     return -1 if index < lo else (1 if index > hi else 0)
 

@@ -8,8 +8,6 @@ from __future__ import annotations
 
 import math
 
-import numpy as np
-
 from . import tables as T
 from .num import Num, is_array, maximum, minimum, where
 
@@ -33,6 +31,8 @@ def a1_iso281(reliability: Num) -> Num:
     a1 = 0.95·(ln(100/R)/ln(100/90))^(2/3) + 0.05 for 90 % ≤ R ≤ 99.95 % (R as a fraction here).
     """
     if is_array(reliability):
+        import numpy as np
+
         ratio = np.log(1.0 / reliability) / math.log(1.0 / 0.9)
     else:
         ratio = math.log(1.0 / reliability) / math.log(1.0 / 0.9)
@@ -46,6 +46,8 @@ def weibull_life_factor(reliability: Num, x0: float, theta: float, b: float) -> 
     ``scipy.stats.weibull_min(c=b, loc=x0, scale=θ − x0).ppf(1 − R)``.
     """
     if is_array(reliability):
+        import numpy as np
+
         return x0 + (theta - x0) * np.log(1.0 / reliability) ** (1.0 / b)
     return x0 + (theta - x0) * math.log(1.0 / reliability) ** (1.0 / b)
 
@@ -114,6 +116,8 @@ def _kappa_piece(kappa: Num) -> Num:
 def _pick(values: tuple[float, float, float], piece: Num) -> Num:
     """The coefficient of each κ piece (elementwise on arrays)."""
     if is_array(piece):
+        import numpy as np
+
         return np.take(values, piece)
     return values[piece]
 
@@ -121,6 +125,8 @@ def _pick(values: tuple[float, float, float], piece: Num) -> Num:
 def _capped(inner: Num, final: float) -> Num:
     """0.1·inner^final, capped at 50; 50 where inner ≤ 0 (the relation's pole and beyond)."""
     if is_array(inner):
+        import numpy as np
+
         with np.errstate(divide="ignore", invalid="ignore"):
             return np.fmin(0.1 * np.maximum(inner, 0.0) ** final, AISO_CAP)
     if inner <= 0.0:

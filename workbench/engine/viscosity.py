@@ -19,8 +19,6 @@ from functools import lru_cache
 
 import math
 
-import numpy as np
-
 from workbench.engine.num import Num, interp, is_array
 from workbench.engine.record import InputError
 
@@ -189,6 +187,8 @@ def viscosity_at_temperature(nu40: float, nu100: float, temp_c: Num) -> Num:
     by the ASTM D341 Walther line through the two points: ν = 10^(10^(A − B·log10 T)) − 0.7."""
     a, b = walther_constants(nu40, nu100)
     if is_array(temp_c):
+        import numpy as np
+
         temps = np.asarray(temp_c, dtype=float)
         if not np.all(np.isfinite(temps)) or np.any(temps <= ABSOLUTE_ZERO_C):
             raise InputError("temp", "temperatures must be finite and above −273.15 °C")

@@ -37,9 +37,7 @@ from __future__ import annotations
 import math
 from collections.abc import Mapping, Sequence
 from dataclasses import dataclass, field
-from typing import Any
-
-import numpy as np
+from typing import TYPE_CHECKING, Any
 
 from ..engine import duty
 from ..engine.kinds import ROLLER_KINDS, parse_kind
@@ -52,6 +50,9 @@ from .toml_tables import checked_table, required_name, table_list, table_text, t
 from .shafts import (
     SIDES, Shaft, case_name, shaft_cases,
 )
+
+if TYPE_CHECKING:  # numpy is imported by the functions that build arrays
+    import numpy as np
 
 BASES = ("time", "revolutions")
 CYCLE_KEYS = ("name", "basis", "states")
@@ -181,6 +182,8 @@ def duty_life(session: Session, cycle: DutyCycle, cases: Sequence[LoadCase] = ()
     shafts).  Raises FieldError naming ``<key>.states[n]…`` when a state cannot be evaluated, when
     the states load different bearings or are derived at different reliabilities.
     """
+    import numpy as np
+
     if cycle.basis not in BASES:
         raise FieldError(f"{key}.basis", f"use 'time' or 'revolutions', not {cycle.basis!r}")
     if not cycle.states:
@@ -245,6 +248,8 @@ def _miner_steps(d: Derivation, cycle: DutyCycle, results: Sequence[CaseResult],
                  weights: np.ndarray, speeds: np.ndarray, lives: np.ndarray, u: np.ndarray,
                  miner: duty.MinerLife, n_mean: float) -> None:
     """Steps of the Palmgren–Miner summation: Li, ui, L, damage shares, mean speed."""
+    import numpy as np
+
     for i, result in enumerate(results, start=1):
         name = result.case.name
         d.add(f"L[{i}]", f"L{i}", f"Life of state {i} ({name})", "Lnm of the case",

@@ -11,6 +11,9 @@ conversion of a unit text to a quantity's internal unit is affine (``internal = 
 non-zero only for offset temperature units), so (a, b) is cached per (unit text, quantity) after
 the first pint lookup and repeated parses never touch pint.  pint itself, and its
 ``UnitRegistry``, are loaded only on the first cache miss, so importing this module stays cheap.
+A unit written exactly as the quantity's internal unit (x1), or as that unit with the SI prefix
+k or M (ISO 80000-1: x10³, x10⁶) where the internal unit is one SI symbol, is converted without
+pint, so a session in the internal units ("2 kN", "1200 rpm", "70 °C") opens without loading pint.
 
 Dimension checks compare pint's root units *including the radian*, which pint treats as a
 dimensionless base unit: that keeps angles and revolutions apart from plain numbers, and a
@@ -90,6 +93,9 @@ _NOT_FINITE = re.compile(r"\s*[+-]?(?:nan|inf|infinity)\b.*", re.IGNORECASE)
 _LOOKALIKES = str.maketrans({"−": "-", "\u00a0": " ", "\u202f": " ", "\u2009": " ", "⋅": "·"})
 
 _CACHE_LIMIT = 1024
+# ISO 80000-1 decimal prefixes read without pint, on internal units that are one SI symbol
+_SI_PREFIXES = {"k": 1e3, "M": 1e6}
+_PREFIXABLE_INTERNAL = ("N", "W")
 _SPAN = 1e6
 _conversions: dict[tuple[str, str], tuple[float, float]] = {}
 _registry: pint.UnitRegistry | None = None
@@ -139,6 +145,16 @@ def _noun_for(units: pint.Unit) -> str | None:
     return None
 
 
+def _exact_conversion(unit_text: str, spec: QuantitySpec) -> tuple[float, float] | None:
+    """(a, 0) for the internal unit itself or its k/M-prefixed form (ISO 80000-1); else None."""
+    if unit_text == spec.internal:
+        return 1.0, 0.0
+    prefix, rest = unit_text[:1], unit_text[1:]
+    if prefix in _SI_PREFIXES and rest == spec.internal and rest in _PREFIXABLE_INTERNAL:
+        return _SI_PREFIXES[prefix], 0.0
+    return None
+
+
 def _conversion(unit_text: str, quantity: str, shown: str) -> tuple[float, float]:
     """(a, b) with internal = a·x + b for a value x in ``unit_text``; cached after first use."""
     key = (unit_text, quantity)
@@ -146,6 +162,9 @@ def _conversion(unit_text: str, quantity: str, shown: str) -> tuple[float, float
     if cached is not None:
         return cached
     spec = _spec(quantity)
+    exact = _exact_conversion(unit_text, spec)
+    if exact is not None:
+        return exact
     import pint
 
     ureg = unit_registry()

@@ -128,7 +128,8 @@ class DerivationPane(ScrollView, can_focus=True):
 
     Each line is wrapped to the pane's width once and kept (most lines stay the same from one
     keystroke to the next), and the pane paints line by line, so a redraw never asks the
-    screen for a new layout.
+    screen for a new layout.  Before the pane's first layout its width is unknown: the lines
+    are then wrapped when the first frame paints them, at the width laid out.
     """
 
     DEFAULT_CSS = """
@@ -151,7 +152,11 @@ class DerivationPane(ScrollView, can_focus=True):
         """Redraw for ``result`` in the display ``system``."""
         self._lines = derivation_lines(result, system)
         self.text = Content("\n").join(self._lines)
-        self._wrap()
+        if self.size.width:
+            self._wrap()
+        else:  # not laid out yet: at least this many lines (the scrollbar is laid out for them)
+            self._wrapped_width = 0
+            self.virtual_size = Size(MIN_WRAP, len(self._lines))
 
     def _wrap(self) -> None:
         width = self._text_width
@@ -192,6 +197,8 @@ class DerivationPane(ScrollView, can_focus=True):
 
     def render_line(self, y: int) -> Strip:
         """One screen line: the wrapped line at the scroll position, indented by one cell."""
+        if self._text_width != self._wrapped_width:
+            self._wrap()
         scroll_x, scroll_y = self.scroll_offset
         width = self.scrollable_content_region.width
         style = self.rich_style
