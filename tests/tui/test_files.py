@@ -52,12 +52,12 @@ async def test_quit_guard_can_save_then_quit(make_app, no_disk, tmp_path: Path) 
 
 
 async def test_autosave_writes_recovery_after_a_quiet_spell(make_app, no_disk) -> None:
-    app = make_app(autosave_delay=0.6)  # longer than the test's gaps between keys
+    app = make_app(autosave_delay=2.0)  # well beyond the gaps between keys, even on a busy machine
     async with app.run_test(size=(80, 24)) as pilot:
         await retype(pilot, app, "fr", "4 kN")
         await retype(pilot, app, "fa", "2 kN")
         assert not [c for c in no_disk if c[0] == "recovery"]
-        await pilot.pause(1.0)
+        await pilot.pause(2.5)
         # Debounced: one recovery write for the burst of keystrokes.
         assert [c for c in no_disk if c[0] == "recovery"] == [("recovery", None)]
 
