@@ -1,4 +1,5 @@
-"""Command line: the screen by default, and headless ``calc``, ``report``, ``select``, ``bench``.
+"""Command line: the screen by default, and headless ``calc``, ``report``, ``select``, ``rate``,
+``bench``.
 
 Exit codes: 0 success, 2 a bad input or file (one line on standard error naming it), 3 a question
 the solver cannot answer (no root, or more than one).
@@ -14,7 +15,7 @@ from typing import Any, Sequence
 
 from .model.fields import FIELDS, FieldError, inputs_from_texts
 
-SUBCOMMANDS = ("calc", "report", "select", "bench")
+SUBCOMMANDS = ("calc", "report", "select", "rate", "bench")
 EXIT_BAD_INPUT = 2
 EXIT_NO_SOLUTION = 3
 
@@ -163,6 +164,48 @@ def run_select_command(argv: Sequence[str]) -> int:
     return run_select(argv)
 
 
+def run_rate_command(argv: Sequence[str]) -> int:
+    """``workbench rate``: basic load ratings C and C0 of a special bearing from its geometry."""
+    from .engine.ratings import KINDS, BearingGeometry, rate_bearing
+    from .engine.record import InputError
+    from .model.quantities import QuantityError, parse
+    from .render import derivation_text
+
+    parser = argparse.ArgumentParser(
+        prog="workbench rate",
+        description="Basic dynamic and static load ratings from internal geometry "
+                    "(ISO 281:2007, ISO 76:2006).")
+    parser.add_argument("--kind", required=True, choices=KINDS)
+    parser.add_argument("--rows", type=int, default=1, help="number of rows i")
+    parser.add_argument("--elements", type=int, required=True, help="rolling elements per row Z")
+    parser.add_argument("--dw", required=True, help="ball diameter Dw or roller diameter Dwe, e.g. \"12.7 mm\"")
+    parser.add_argument("--lwe", help="effective roller length Lwe (rollers)")
+    parser.add_argument("--contact-angle", default="0 deg", help="nominal contact angle α")
+    parser.add_argument("--dpw", required=True, help="pitch diameter Dpw")
+    parser.add_argument("--bm", type=float, help="rating factor bm (default from ISO 281)")
+    parser.add_argument("--f0", type=float, help="ISO 76 factor f0 (default from its table)")
+    parser.add_argument("--json", action="store_true", help="print one JSON object")
+    args = parser.parse_args(argv)
+    try:
+        lengths = {name: parse(getattr(args, name), "length", default_unit="mm")
+                   for name in ("dw", "dpw") if getattr(args, name) is not None}
+        lwe = parse(args.lwe, "length", default_unit="mm") if args.lwe else None
+        alpha = parse(args.contact_angle, "angle", default_unit="deg")
+    except QuantityError as exc:
+        return _fail(exc.message)
+    geometry = BearingGeometry(args.kind, args.rows, args.elements, lengths["dw"], alpha,
+                               lengths["dpw"], lwe, args.bm, args.f0)
+    try:
+        derivation = rate_bearing(geometry)
+    except InputError as exc:
+        return _fail(f"{_flag(exc.field)}: {exc.message}")
+    if args.json:
+        print(json.dumps(_clean(derivation.as_dict()), ensure_ascii=False, indent=2))
+    else:
+        print(derivation_text(derivation))
+    return 0
+
+
 def run_bench_command(argv: Sequence[str]) -> int:
     """``workbench bench [--json]``: the speed figures, measured here and now."""
     parser = argparse.ArgumentParser(prog="workbench bench", description="Measure speed figures.")
@@ -185,7 +228,7 @@ def run_screen(argv: Sequence[str]) -> int:
     parser = argparse.ArgumentParser(
         prog="workbench",
         description="Rolling-bearing workbench for combined radial and axial load. "
-                    "Sub-commands: calc, report, select, bench (see 'workbench calc --help').",
+                    "Sub-commands: calc, report, select, rate, bench (see 'workbench calc --help').",
     )
     parser.add_argument("file", nargs="?", help="session file to open (default: the demo session)")
     args = parser.parse_args(argv)
@@ -198,7 +241,7 @@ def main(argv: Sequence[str] | None = None) -> int:
     """Entry point of the ``workbench`` console script and ``python -m workbench``."""
     argv = list(sys.argv[1:] if argv is None else argv)
     commands = {"calc": run_calc, "report": run_report_command, "select": run_select_command,
-                "bench": run_bench_command}
+                "rate": run_rate_command, "bench": run_bench_command}
     if argv and argv[0] in commands:
         return commands[argv[0]](argv[1:])
     return run_screen(argv)
