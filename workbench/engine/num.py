@@ -3,57 +3,42 @@
 The physics is written once on top of these, so the scalar derivation and the vectorised
 catalog sweep share one copy of every formula.  On floats they use plain Python (a numpy call
 on a scalar costs about a microsecond, which the per-case budget cannot afford); on arrays they
-use numpy.  numpy itself is never imported here: if it was never imported, no array can exist,
-so the array test only looks for ``numpy.ndarray`` among the modules already loaded, and the
-array branches import numpy where they run (a scalar-only run, like the screen, never loads it).
+use numpy.  numpy is imported here, eagerly: testing against a lazily looked-up array type made
+every scalar derivation half as slow again, and the screen loads numpy at start anyway (duty
+cycles and system life use arrays).
 """
 
 from __future__ import annotations
 
-import sys
 from bisect import bisect_right
-from typing import TYPE_CHECKING, Sequence, TypeAlias, Union
+from typing import Sequence, TypeAlias, Union
 
-if TYPE_CHECKING:
-    import numpy as np
+import numpy as np
 
-Num: TypeAlias = Union[float, "np.ndarray"]
-
-
-class _NoArray:
-    """Stands in for ``numpy.ndarray`` while numpy is not loaded: nothing is an instance of it."""
+Num: TypeAlias = Union[float, np.ndarray]
 
 
-def _array_type() -> type:
-    """``numpy.ndarray`` once numpy has been imported (by anyone), else :class:`_NoArray`."""
-    numpy = sys.modules.get("numpy")
-    return _NoArray if numpy is None else numpy.ndarray
+_ARRAY = np.ndarray
 
 
 def is_array(*values: object) -> bool:
     """True when any value is a numpy array (then the array path is taken)."""
-    array = _array_type()
     for v in values:
-        if isinstance(v, array):
+        if isinstance(v, _ARRAY):
             return True
     return False
 
 
 def where(condition: object, if_true: Num, if_false: Num) -> Num:
     """``if_true`` where ``condition`` holds, else ``if_false`` (elementwise on arrays)."""
-    array = _array_type()
-    if isinstance(condition, array) or isinstance(if_true, array) or isinstance(if_false, array):
-        import numpy as np
-
+    if isinstance(condition, _ARRAY) or isinstance(if_true, _ARRAY) or isinstance(if_false, _ARRAY):
         return np.where(condition, if_true, if_false)
     return if_true if condition else if_false
 
 
 def interp(x: Num, xp: Sequence[float], fp: Sequence[float]) -> Num:
     """Linear interpolation in a table, clamped at its ends (callers warn about clamping)."""
-    if isinstance(x, _array_type()):
-        import numpy as np
-
+    if isinstance(x, np.ndarray):
         return np.interp(x, xp, fp)
     if x <= xp[0]:
         return float(fp[0])
@@ -67,30 +52,21 @@ def interp(x: Num, xp: Sequence[float], fp: Sequence[float]) -> Num:
 
 def minimum(a: Num, b: Num) -> Num:
     """Elementwise minimum."""
-    array = _array_type()
-    if isinstance(a, array) or isinstance(b, array):
-        import numpy as np
-
+    if isinstance(a, _ARRAY) or isinstance(b, _ARRAY):
         return np.minimum(a, b)
     return a if a < b else b
 
 
 def maximum(a: Num, b: Num) -> Num:
     """Elementwise maximum."""
-    array = _array_type()
-    if isinstance(a, array) or isinstance(b, array):
-        import numpy as np
-
+    if isinstance(a, _ARRAY) or isinstance(b, _ARRAY):
         return np.maximum(a, b)
     return a if a > b else b
 
 
 def safe_ratio(numerator: Num, denominator: Num) -> Num:
     """numerator/denominator, +inf where the denominator is zero and the numerator positive, 0 for 0/0."""
-    array = _array_type()
-    if isinstance(numerator, array) or isinstance(denominator, array):
-        import numpy as np
-
+    if isinstance(numerator, _ARRAY) or isinstance(denominator, _ARRAY):
         num = np.asarray(numerator, dtype=float)
         den = np.asarray(denominator, dtype=float)
         with np.errstate(divide="ignore", invalid="ignore"):
