@@ -46,7 +46,7 @@ from ..engine.record import Derivation, InputError
 from .fields import FieldError
 from .quantities import QuantityError, parse
 from .session import CaseResult, LoadCase, Session, evaluate_case
-from .toml_tables import checked_table, required_name, table_list, table_text, type_words
+from .toml_tables import checked_table, named_tables, required_name, table_list, table_text
 from .shafts import (
     SIDES, Shaft, case_name, shaft_cases,
 )
@@ -134,13 +134,7 @@ def duty_cycle_to_table(cycle: DutyCycle) -> dict[str, Any]:
 
 def duty_cycles_from_tables(value: object, key: str = "duty_cycles") -> list[DutyCycle]:
     """Every cycle of a ``[[duty_cycles]]`` array of tables; names must differ."""
-    if not isinstance(value, list):
-        raise FieldError(key, f"should be [[{key}]] tables, found {type_words(value)}")
-    cycles = [duty_cycle_from_table(item, f"{key}[{n}]") for n, item in enumerate(value, 1)]
-    seen: set[str] = set()
-    for number, cycle in enumerate(cycles, start=1):
-        required_name({"name": cycle.name}, f"{key}[{number}]", seen, "duty cycle")
-    return cycles
+    return named_tables(value, key, duty_cycle_from_table, "duty cycle")
 
 
 def duty_cycles_to_tables(cycles: Sequence[DutyCycle]) -> list[dict[str, Any]]:

@@ -83,7 +83,7 @@ from ..engine.shaft import PointLoad, ShaftLayout, ShaftReactions, derivation_st
 from .fields import BEARING_FIELDS, CASE_FIELDS, FieldError, inputs_from_values, parse_field
 from .quantities import QuantityError, parse
 from .session import LoadCase, Session
-from .toml_tables import checked_table, required_name, table_list, table_text, type_words
+from .toml_tables import checked_table, named_tables, required_name, table_list, table_text
 
 ELEMENT_KINDS = ("spur", "helical", "bevel", "pulley")
 LOCATING = ("A", "B", "pair")
@@ -232,13 +232,7 @@ def shaft_to_table(shaft: Shaft) -> dict[str, Any]:
 
 def shafts_from_tables(value: object, key: str = "shafts") -> list[Shaft]:
     """Every shaft of a ``[[shafts]]`` array of tables; names must differ."""
-    if not isinstance(value, list):
-        raise FieldError(key, f"should be [[{key}]] tables, found {type_words(value)}")
-    shafts = [shaft_from_table(item, f"{key}[{number}]") for number, item in enumerate(value, 1)]
-    seen: set[str] = set()
-    for number, shaft in enumerate(shafts, start=1):
-        required_name({"name": shaft.name}, f"{key}[{number}]", seen, "shaft")
-    return shafts
+    return named_tables(value, key, shaft_from_table, "shaft")
 
 
 def shafts_to_tables(shafts: Sequence[Shaft]) -> list[dict[str, Any]]:

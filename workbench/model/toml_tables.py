@@ -8,7 +8,7 @@ the same key the same way; the session-file reader adds the line.
 from __future__ import annotations
 
 import difflib
-from typing import Any, Mapping
+from typing import Any, Callable, Mapping, Protocol, TypeVar
 
 from .fields import FieldError
 
@@ -75,3 +75,21 @@ def required_name(table: Mapping[str, Any], key: str, seen: set[str], what: str)
                          f"a second {what} called {name!r}; names must differ")
     seen.add(name)
     return name
+
+
+class _Named(Protocol):
+    name: str
+
+
+N = TypeVar("N", bound=_Named)
+
+
+def named_tables(value: object, key: str, read_one: Callable[[Any, str], N], what: str) -> list[N]:
+    """Every item of a ``[[key]]`` array of tables, each read by ``read_one``; names must differ."""
+    if not isinstance(value, list):
+        raise FieldError(key, f"should be [[{key}]] tables, found {type_words(value)}")
+    items = [read_one(item, f"{key}[{number}]") for number, item in enumerate(value, 1)]
+    seen: set[str] = set()
+    for number, item in enumerate(items, start=1):
+        required_name({"name": item.name}, f"{key}[{number}]", seen, what)
+    return items
