@@ -166,10 +166,13 @@ def validate(case: CaseInputs) -> tuple[Kind, Arrangement, float]:
     return kind, arrangement, alpha
 
 
-def derive(case: CaseInputs) -> Derivation:
-    """The full derivation of one load case (ISO 281:2007, ISO 76:2006); InputError on bad input."""
+def derive(case: CaseInputs, keep_steps: bool = True) -> Derivation:
+    """The full derivation of one load case (ISO 281:2007, ISO 76:2006); InputError on bad input.
+
+    ``keep_steps=False`` records results and warnings only, for callers that read nothing else.
+    """
     kind, arrangement, alpha = validate(case)
-    d = Derivation()
+    d = Derivation(keep_steps)
     roller = kind in ROLLER_KINDS
     _dynamic_load(d, case, kind, arrangement, alpha)
     p = d.results["P"]

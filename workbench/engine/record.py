@@ -92,9 +92,10 @@ class Derivation:
     ``results``, so they never pay for building steps.
     """
 
-    __slots__ = ("_raw", "_steps", "results", "warnings", "notes")
+    __slots__ = ("_raw", "_steps", "_keep_steps", "results", "warnings", "notes")
 
-    def __init__(self) -> None:
+    def __init__(self, keep_steps: bool = True) -> None:
+        self._keep_steps = keep_steps  # False: results and warnings only (solver, sensitivity)
         self._raw: list[tuple[Any, ...]] = []
         self._steps: list[Step] | None = None
         self.results: dict[str, float] = {}
@@ -117,9 +118,10 @@ class Derivation:
         result: bool = True,
     ) -> float:
         """Append a step (and, unless ``result`` is false, record it under ``key``); return value."""
-        self._raw.append((key, symbol, label, formula, template, args, value, unit, source,
-                          warning, note))
-        self._steps = None
+        if self._keep_steps:
+            self._raw.append((key, symbol, label, formula, template, args, value, unit, source,
+                              warning, note))
+            self._steps = None
         if result:
             self.results[key] = value
         if warning is not None:

@@ -169,7 +169,7 @@ class _Runner:
     def _run(self, values: tuple[Any, ...]) -> _Point | None:
         case = CaseInputs(*values)
         try:
-            return _point(derive(case), case, self.life_key)
+            return _point(derive(case, keep_steps=False), case, self.life_key)
         except InputError:
             return None
 
@@ -195,23 +195,22 @@ def _reliability_factor(case: CaseInputs) -> float:
 def _point(derivation: Derivation, case: CaseInputs, life_key: str) -> _Point:
     """Life, s0 and the flags that say which piece of the calculation the case sits on."""
     results = derivation.results
-    peek = derivation.peek
     life: list[tuple[str, object]] = []
-    ratio = peek("ratio")
-    if ratio is not None:
-        life.append(("e switch", ratio.note))
+    if "ratio" in results:  # the branch of ISO 281 §5.2: Fa/Fr > e or ≤ e
+        life.append(("e switch", results["ratio"] > results["e"]))
     if "index" in results:
         rows = T.DEEP_GROOVE_INDEX_F0 if case.kind == "deep-groove" else T.ANGULAR_15_INDEX
         segment = bisect_right(rows, results["index"])
         life.append(("table breakpoint", segment if results["Y"] != 0.0 else None))  # acts via Y
     if "nu1" in results:
         raw_kappa = results["nu"] / results["nu1"]
-        life.append(("ν1 speed switch", peek("nu1").formula))
+        life.append(("ν1 speed switch", case.speed < 1000.0))
         life.append(("κ clamp", raw_kappa < KAPPA_MIN or raw_kappa > KAPPA_MAX))
         life.append(("κ 0.4/1 piece boundary", bisect_right((0.4, 1.0), results["kappa"])))
         life.append(("aISO cap", results["aISO"] >= AISO_CAP))
-        life.append(("dm 100 mm column", (peek("eC").note, peek("Cu").formula)))
-    static = (("P0 = Fr floor", peek("P0").note),)
+        life.append(("dm 100 mm column", (case.dm or 0.0) >= 100.0))
+    floored = "X0" in results and results["X0"] * case.fr + results["Y0"] * case.fa < case.fr
+    static = (("P0 = Fr floor", floored),)
     return _Point(results[life_key], results["s0"], tuple(life), static)
 
 

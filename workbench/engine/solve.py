@@ -139,7 +139,7 @@ def solve(case: CaseInputs, unknown: str, target: str, target_value: float) -> S
         if counter[0] > MAX_EVALUATIONS:
             raise NoSolution(unknown, "the solver ran out of evaluations")
         try:
-            value = derive(apply_unknown(case, unknown, x)).results[target]
+            value = derive(apply_unknown(case, unknown, x), keep_steps=False).results[target]
         except NoSolution:
             raise
         except InputError:
