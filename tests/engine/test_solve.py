@@ -126,3 +126,15 @@ def test_round_trip_every_unknown(unknown: str, target: str, factor: float, base
         return
     achieved = derive(apply_unknown(base, unknown, sol.value)).results[target]
     assert achieved == pytest.approx(wanted, rel=1e-9)
+
+
+def test_life_peak_just_past_the_e_switch_is_found() -> None:
+    """Just past Fa/Fr = e the rounded Table 3 gives 0.56·Fr + Y·Fa slightly below Fr, so the
+    life there exceeds the Fa = 0 life (found by the round-trip property test). The solver must
+    still reach such a target: it locates the switch between its grid points."""
+    fa = 1100.0 * 1.296875
+    wanted = derive(apply_unknown(BASE, "fa", fa)).results["L10h"]
+    assert wanted > derive(apply_unknown(BASE, "fa", 1.0)).results["L10h"]
+    sol = solve(BASE, "fa", "L10h", wanted)
+    achieved = derive(apply_unknown(BASE, "fa", sol.value)).results["L10h"]
+    assert achieved == pytest.approx(wanted, rel=1e-9)

@@ -18,6 +18,7 @@ from .record import Derivation, InputError, fmt
 REL_TOL = 1e-9
 MAX_EVALUATIONS = 400
 GRID_POINTS = 25  # scan for sign changes before brentq: catches a second root or a jump
+SWITCH_BISECTIONS = 24  # locate an e switch between grid points to about 1e-6 of the span
 
 
 @dataclass(frozen=True, slots=True)
@@ -134,24 +135,49 @@ def solve(case: CaseInputs, unknown: str, target: str, target_value: float) -> S
         raise NoSolution("speed", "speed is 0, so a life in hours is undefined: give a speed")
     counter = [0]
 
-    def result_at(x: float) -> float:
+    branches: dict[float, bool | None] = {}  # u → on the Fa/Fr > e branch (None: no switch)
+    switches: list[tuple[float, float]] = []  # (u, u) bracketing each e switch, ~1e-6 apart
+
+    def result_at(u: float) -> float:
         counter[0] += 1
         if counter[0] > MAX_EVALUATIONS:
             raise NoSolution(unknown, "the solver ran out of evaluations")
+        x = math.exp(u) if spec.log else u
         try:
-            value = derive(apply_unknown(case, unknown, x), keep_steps=False).results[target]
-        except NoSolution:
-            raise
+            results = derive(apply_unknown(case, unknown, x), keep_steps=False).results
         except InputError:
+            branches[u] = None
             return math.nan
-        return value
+        branches[u] = results["ratio"] > results["e"] if "ratio" in results else None
+        return results[target]
 
     def residual(u: float) -> float:
-        x = math.exp(u) if spec.log else u
-        value = result_at(x)
+        value = result_at(u)
         if math.isnan(value) or value <= 0 or math.isinf(value):
             return math.nan if math.isnan(value) else (math.inf if value > 0 else -math.inf)
         return math.log(value / target_value)
+
+    def with_switches(grid: list[float], values: list[float]) -> tuple[list[float], list[float]]:
+        """Add the points either side of each e switch between grid points: P is piecewise and
+        the life can peak just past the switch, where a coarse grid would miss it."""
+        points, results = [grid[0]], [values[0]]
+        for a, b, vb in zip(grid, grid[1:], values[1:]):
+            if None not in (branches[a], branches[b]) and branches[a] != branches[b]:
+                lo, hi = a, b
+                for _ in range(SWITCH_BISECTIONS):
+                    mid = 0.5 * (lo + hi)
+                    residual(mid)
+                    if branches[mid] is None:
+                        break
+                    lo, hi = (mid, hi) if branches[mid] == branches[a] else (lo, mid)
+                switches.append((lo, hi))
+                for u in (lo, hi):
+                    if u not in (a, b):
+                        points.append(u)
+                        results.append(residual(u))
+            points.append(b)
+            results.append(vb)
+        return points, results
 
     low, high = _bounds(case, spec)
     if spec.log:
@@ -159,8 +185,14 @@ def solve(case: CaseInputs, unknown: str, target: str, target_value: float) -> S
     else:
         u_low, u_high = low, high
     grid = _grid(u_low, u_high, GRID_POINTS)
-    values = [residual(u) for u in grid]
+    grid, values = with_switches(grid, [residual(u) for u in grid])
     brackets, lo_val, hi_val = _sign_changes(grid, values)
+    jumps = [b for b in brackets if b in switches]  # the target falls in the step at e: no root
+    brackets = [b for b in brackets if b not in switches]
+    if not brackets and jumps:
+        at = math.exp(jumps[0][0]) if spec.log else jumps[0][0]
+        raise NoSolution(unknown, f"the result jumps across the target at the e switch near "
+                                  f"{spec.label} = {fmt(at)}: no exact root")
     if not brackets:
         raise _no_root(spec, target, target_value, lo_val, hi_val)
     if len(brackets) > 1:
