@@ -82,7 +82,8 @@ def _summary(result: CaseResult, system: str) -> list[Content]:
     return lines
 
 
-def _step_lines(step: Step, system: str) -> list[Content]:
+def step_content(step: Step, system: str) -> list[Content]:
+    """The display lines of one derivation step; the shafts view shows its steps with it too."""
     lines = [Content.assemble((step.symbol, SYMBOL_STYLE), "  ", (step.label, "bold"))]
     substituted = step.substituted
     if step.formula and step.formula not in (substituted, "given"):
@@ -117,7 +118,7 @@ def derivation_lines(result: CaseResult | None, system: str) -> list[Content]:
         return lines
     for step in result.derivation.steps:
         lines.append(Content(""))
-        lines.extend(_step_lines(step, system))
+        lines.extend(step_content(step, system))
     for note in result.derivation.notes:
         lines.append(Content.styled("· " + note, "italic"))
     return lines

@@ -22,7 +22,7 @@ from ..engine.record import fmt
 from ..model.analysis import SessionAnalysis, ShaftOutcome, StateOutcome
 from ..model.quantities import format_quantity
 from ..model.shafts import KIND_WORDS, SIDES, Element
-from .derivation_pane import _step_lines
+from .derivation_pane import step_content
 from .dialogs import OnceModal
 from .whatif_pane import duty_lines
 
@@ -69,7 +69,7 @@ def _state_lines(outcome: ShaftOutcome, state: StateOutcome, system: str) -> lis
                                       "  Fa = ", (_force(fa, system), "bold")))
     lines.append(Content.styled("  Free body:", "italic"))
     for step in solution.derivation.steps:
-        lines.extend(Content("    ") + line for line in _step_lines(step, system))
+        lines.extend(Content("    ") + line for line in step_content(step, system))
     return lines
 
 
