@@ -5,6 +5,7 @@ from __future__ import annotations
 from collections.abc import Awaitable, Callable
 
 import pytest
+from textual import events
 from textual.widgets import Input, TabbedContent
 
 from tui_helpers import editor, retype
@@ -15,6 +16,7 @@ from workbench.tui.app import WorkbenchApp
 from workbench.tui.commands import WorkbenchCommands
 from workbench.tui.dialogs import ChoiceDialog, TextPrompt
 from workbench.tui.help_screen import HelpScreen
+from workbench.tui.key_footer import KeyFooter
 from workbench.tui.selection_screen import SelectionScreen
 from workbench.tui.shafts_screen import ShaftsScreen
 
@@ -267,3 +269,26 @@ async def test_palette_offers_every_action(make_app) -> None:
         await pilot.pause()
         await pilot.pause()
         assert len(app.workbench.session.cases) == 4
+
+
+async def test_footer_click_presses_the_key_under_it(make_app) -> None:
+    app = make_app()
+    async with app.run_test(size=(120, 24)) as pilot:
+        await pilot.pause()
+        footer = app.screen.query_one(KeyFooter)
+        column = footer.text.index("Add case")
+        await pilot.click(KeyFooter, offset=(column, 0))
+        await pilot.pause()
+        assert len(app.workbench.session.cases) == 4
+
+
+async def test_footer_wheel_brings_the_cut_off_keys_into_view(make_app) -> None:
+    app = make_app()
+    async with app.run_test(size=(80, 24)) as pilot:
+        await pilot.pause()
+        footer = app.screen.query_one(KeyFooter)
+        assert "Quit" not in str(footer.render())
+        for _ in range(40):
+            footer.post_message(events.MouseScrollDown(footer, 1, 0, 0, 1, 0, False, False, False))
+            await pilot.pause()
+        assert "Quit" in str(footer.render())

@@ -2,8 +2,6 @@
 
 from __future__ import annotations
 
-from importlib.metadata import PackageNotFoundError, version
-
 from textual.app import ComposeResult
 from textual.binding import Binding
 from textual.containers import VerticalScroll
@@ -25,6 +23,9 @@ STANDARDS = (
 
 
 def _version() -> str:
+    # importlib.metadata (and the email package under it) loads only when the screen is shown
+    from importlib.metadata import PackageNotFoundError, version
+
     try:
         return version("bearing-workbench")
     except PackageNotFoundError:

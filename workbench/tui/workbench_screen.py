@@ -10,6 +10,7 @@ from __future__ import annotations
 
 from collections.abc import Callable
 from pathlib import Path
+from typing import TYPE_CHECKING
 
 from textual import on
 from textual.app import ComposeResult
@@ -30,11 +31,12 @@ from .case_list import CaseList
 from .derivation_pane import DerivationPane
 from .dialogs import ChoiceDialog, TextPrompt
 from .key_footer import KeyFooter
-from .selection_screen import Adoption, SelectionScreen
-from .shafts_screen import ShaftsScreen
 from .solver_pane import SolverPane
 from .state import Workbench, input_field
 from .whatif_pane import WhatIfPane
+
+if TYPE_CHECKING:
+    from .selection_screen import Adoption
 
 AUTOSAVE_DELAY_S = 2.0
 DEFAULT_SAVE_NAME = "session.toml"
@@ -343,6 +345,8 @@ class WorkbenchScreen(Screen[None]):
 
     def action_select_from_catalog(self) -> None:
         """List the catalog bearings for every case on the selected case's bearing; adopt one."""
+        from .selection_screen import SelectionScreen  # the catalog and its sweep load on first use
+
         state = self.workbench
         case = state.case
         if case is None:
@@ -367,6 +371,8 @@ class WorkbenchScreen(Screen[None]):
 
     def action_show_shafts(self) -> None:
         """Show the shafts, their bearing loads and free bodies, and the duty cycles."""
+        from .shafts_screen import ShaftsScreen  # loaded on first use, not at start
+
         self.app.push_screen(ShaftsScreen(self.workbench.analysis, self.workbench.units))
 
     def action_focus_cases(self) -> None:
