@@ -3,11 +3,14 @@
 from __future__ import annotations
 
 import pytest
+from textual.widgets import OptionList
 
 from tui_helpers import derivation_text, editor, paste_into, reference_derivation, retype
 
 from workbench.engine.record import fmt
+from workbench.model.fields import FIELD_BY_NAME
 from workbench.model.quantities import format_quantity
+from workbench.tui.choice_field import ChoiceField, ChoiceList
 
 
 async def test_typed_radial_load_changes_the_derivation(make_app) -> None:
@@ -160,6 +163,55 @@ async def test_choice_and_switch_fields_write_texts(make_app) -> None:
         select.value = "shock"
         await pilot.pause()
         assert app.workbench.session.cases[0].texts["static_duty"] == "shock"
+
+
+async def test_choice_field_steps_with_arrows_and_chooses_from_its_list(make_app) -> None:
+    app = make_app()
+    async with app.run_test(size=(80, 24)) as pilot:
+        field = app.workbench_screen.query_one("#field-static_duty", ChoiceField)
+        field.focus()
+        await pilot.pause()
+        await pilot.press("right")  # from blank (the default) to the first choice
+        await pilot.pause()
+        first = FIELD_BY_NAME["static_duty"].choices[0]
+        assert app.workbench.session.cases[0].texts["static_duty"] == first
+        await pilot.press("left")  # back to blank: the default again
+        await pilot.pause()
+        assert app.workbench.session.cases[0].texts.get("static_duty", "") == ""
+        await pilot.press("enter")
+        await pilot.pause()
+        assert isinstance(app.screen, ChoiceList)
+        await pilot.press("down", "down", "enter")  # blank, first, second
+        await pilot.pause()
+        assert not isinstance(app.screen, ChoiceList)
+        second = FIELD_BY_NAME["static_duty"].choices[1]
+        assert app.workbench.session.cases[0].texts["static_duty"] == second
+        await pilot.press("enter")
+        await pilot.pause()
+        await pilot.press("up", "escape")  # escape keeps the value in force
+        await pilot.pause()
+        assert app.workbench.session.cases[0].texts["static_duty"] == second
+        assert field.value == second
+
+
+async def test_kind_chosen_with_the_mouse_changes_the_derivation(make_app) -> None:
+    app = make_app()
+    async with app.run_test(size=(80, 24)) as pilot:
+        await pilot.click("#field-kind")
+        await pilot.pause()
+        assert isinstance(app.screen, ChoiceList)
+        options = app.screen.query_one(OptionList)
+        options.highlighted = options.get_option_index("cylindrical")
+        await pilot.press("enter")
+        await pilot.pause()
+        assert app.workbench.session.bearing("Drive").texts["kind"] == "cylindrical"
+        await retype(pilot, app, "fa", "0")  # a cylindrical roller bearing here takes no Fa
+        result = app.workbench.result
+        assert result is not None and result.derivation is not None
+        # ISO 281:2007 §7.1: L10 = (C/P)^p with p = 10/3 for a roller bearing; C = 30 kN and,
+        # with Fa = 0, P = Fr
+        fr = result.derivation.results["P"]
+        assert result.derivation.results["L10"] == pytest.approx((30000.0 / fr) ** (10 / 3))
 
 
 async def test_bearing_field_edit_updates_every_case_on_that_bearing(make_app) -> None:

@@ -7,7 +7,7 @@ import random
 from textual import events
 from textual.keys import _character_to_key
 from textual.screen import ModalScreen
-from textual.widgets import Checkbox, Input, Select
+from textual.widgets import Checkbox, Input
 
 from tui_helpers import editor
 
@@ -16,6 +16,7 @@ from workbench.model.session import evaluate_case
 from workbench.tui.actions import ACTIONS
 from workbench.tui.case_editor import field_id
 from workbench.tui.case_list import CaseList
+from workbench.tui.choice_field import ChoiceField
 from workbench.tui.derivation_pane import DerivationPane, derivation_lines
 
 SEED = 20_240_611
@@ -95,5 +96,5 @@ async def test_random_keys_leave_the_app_alive_and_consistent(make_app, no_disk)
             shown = editor(app).field_text(name)
             if isinstance(widget, (Input, Checkbox)):
                 assert _value(name, shown) == _value(name, texts[name]), name
-            elif isinstance(widget, Select) and texts[name].strip() in FIELD_BY_NAME[name].choices:
+            elif isinstance(widget, ChoiceField) and texts[name].strip() in FIELD_BY_NAME[name].choices:
                 assert shown == texts[name].strip(), name

@@ -3,21 +3,22 @@
 from __future__ import annotations
 
 import pytest
-from textual.widgets import Input, Select
+from textual.widgets import Input
 
 from tui_helpers import reference_derivation
 
 from workbench.engine.solve import solve
 from workbench.model.fields import inputs_from_texts
 from workbench.model.session import case_texts
+from workbench.tui.choice_field import ChoiceField
 
 
 async def _ask(pilot, app, unknown: str, target: str, value: str) -> None:
     screen = app.workbench_screen
     await pilot.press("f6")
     await pilot.pause()
-    screen.query_one("#solver-unknown", Select).value = unknown
-    screen.query_one("#solver-target", Select).value = target
+    screen.query_one("#solver-unknown", ChoiceField).value = unknown
+    screen.query_one("#solver-target", ChoiceField).value = target
     box = screen.query_one("#solver-value", Input)
     box.value = value
     await pilot.pause()

@@ -11,17 +11,17 @@ from __future__ import annotations
 from collections.abc import Mapping, Sequence
 
 from textual import on
-from rich.text import Text
 from textual.app import ComposeResult
 from textual.containers import Horizontal, VerticalScroll
 from textual.content import Content
 from textual.message import Message
 from textual.suggester import SuggestFromList
 from textual.widget import Widget
-from textual.widgets import Checkbox, Input, Label, Select, Static
+from textual.widgets import Checkbox, Input, Label, Static
 
 from ..model.fields import FIELD_BY_NAME, FieldError, FieldSpec, parse_field
 from ..model.quantities import QUANTITIES
+from .choice_field import ChoiceField
 from .whatif import scale_text
 
 EDITOR_GROUPS: tuple[tuple[str, tuple[str, ...]], ...] = (
@@ -52,14 +52,14 @@ def _placeholder(spec: FieldSpec) -> str:
 
 
 def _field_widget(spec: FieldSpec) -> Widget:
-    """The widget that edits one field: a Select for a fixed choice, a Checkbox for a switch,
+    """The widget that edits one field: a ChoiceField for a fixed choice, a Checkbox for a switch,
     an Input for numbers, quantities and the cleanliness level (which also takes an eC number)."""
     if spec.kind == "switch":
         return Checkbox("V = 1.2" if spec.name == "outer_ring_rotates" else "", compact=True,
                         id=field_id(spec.name))
     if spec.kind == "choice" and spec.name != "cleanliness":
-        return Select([(choice, choice) for choice in spec.choices], prompt="(default)",
-                      allow_blank=not spec.required, compact=True, id=field_id(spec.name))
+        return ChoiceField(spec.choices, title=spec.label, allow_blank=not spec.required,
+                           id=field_id(spec.name))
     suggester = SuggestFromList(spec.choices) if spec.choices else None
     return Input(placeholder=_placeholder(spec), compact=True, suggester=suggester,
                  id=field_id(spec.name), select_on_focus=False)
@@ -105,8 +105,8 @@ class CaseEditor(VerticalScroll):
             if title == "Bearing":
                 with Horizontal(classes="field-row"):
                     yield Label("Bearing used", classes="field-label")
-                    yield Select([], prompt="(none)", allow_blank=True, compact=True,
-                                 id="bearing-choice")
+                    yield ChoiceField([], title="Bearing used", prompt="(none)",
+                                      id="bearing-choice")
             for name in names:
                 spec = FIELD_BY_NAME[name]
                 with Horizontal(classes="field-row"):
@@ -114,7 +114,6 @@ class CaseEditor(VerticalScroll):
                     widget = _field_widget(spec)
                     widget.tooltip = spec.hint or None
                     yield widget
-                yield Static("", classes="field-message", id=f"message-{name}")
 
     # ---- what the screen tells the editor ---------------------------------------------------
     def load(self, texts: Mapping[str, str], bearings: Sequence[str], bearing: str | None,
@@ -132,10 +131,10 @@ class CaseEditor(VerticalScroll):
         if bearing_users > 1:
             title += f" (shared by {bearing_users} cases)"
         self.query_one("#group-bearing", Label).update(Content(title))
-        chooser = self.query_one("#bearing-choice", Select)
-        with chooser.prevent(Select.Changed):
-            chooser.set_options([(Text(name), name) for name in bearings])
-            chooser.value = bearing if bearing in bearings else Select.NULL
+        chooser = self.query_one("#bearing-choice", ChoiceField)
+        with chooser.prevent(ChoiceField.Changed):
+            chooser.set_choices(bearings)
+            chooser.value = bearing if bearing in bearings else None
         for name, text in texts.items():
             if name in FIELD_BY_NAME:
                 self._set_widget(name, text)
@@ -147,10 +146,9 @@ class CaseEditor(VerticalScroll):
             with widget.prevent(Input.Changed):
                 widget.value = text
                 widget.cursor_position = len(text)
-        elif isinstance(widget, Select):
-            with widget.prevent(Select.Changed):
-                choices = FIELD_BY_NAME[name].choices
-                widget.value = text.strip() if text.strip() in choices else Select.NULL
+        elif isinstance(widget, ChoiceField):
+            with widget.prevent(ChoiceField.Changed):
+                widget.value = text.strip() if text.strip() in widget.choices else None
         elif isinstance(widget, Checkbox):
             try:
                 checked = bool(parse_field(name, text))
@@ -176,17 +174,35 @@ class CaseEditor(VerticalScroll):
             self._case_error = error
             self._show_messages()
 
+    def _message_line(self, name: str) -> Static:
+        """The message line under ``name``'s row, mounted the first time it is needed (thirty
+        hidden lines made up a fifth of the editor's start-up)."""
+        found = self.query(f"#message-{name}")
+        if found:
+            line = found.first()
+            assert isinstance(line, Static)
+            return line
+        line = Static("", classes="field-message", id=f"message-{name}")
+        row = self.query_one(f"#{field_id(name)}").parent
+        assert isinstance(row, Widget)
+        self.mount(line, after=row)
+        return line
+
     def _show_messages(self) -> None:
+        shown = {name: (text, "-rejected") for name, text in self._rejected.items()}
+        if self._case_error and self._case_error[0] not in shown:
+            shown[self._case_error[0]] = (self._case_error[1], "-case-error")
         for line in self.query(".field-message"):
-            name = (line.id or "").removeprefix("message-")
-            text, kind = self._rejected.get(name), "-rejected"
-            if text is None and self._case_error and self._case_error[0] == name:
-                text, kind = self._case_error[1], "-case-error"
-            line.set_class(text is not None and kind == "-rejected", "-rejected")
-            line.set_class(text is not None and kind == "-case-error", "-case-error")
-            line.display = text is not None
-            if text is not None and isinstance(line, Static):
-                line.update(Content(("✘ " if kind == "-rejected" else "⚠ ") + text))
+            if (line.id or "").removeprefix("message-") not in shown:
+                line.display = False
+        for name, (text, kind) in shown.items():
+            if not self.query(f"#{field_id(name)}"):
+                continue  # a case error about an input the editor has no field for
+            line = self._message_line(name)
+            line.set_class(kind == "-rejected", "-rejected")
+            line.set_class(kind == "-case-error", "-case-error")
+            line.display = True
+            line.update(Content(("✘ " if kind == "-rejected" else "⚠ ") + text))
 
     def message_for(self, field: str) -> str | None:
         """The message shown beside ``field`` (a rejected text's, else the case's), or None."""
@@ -201,8 +217,8 @@ class CaseEditor(VerticalScroll):
         widget = self.query_one(f"#{field_id(field)}")
         if isinstance(widget, Input):
             return widget.value
-        if isinstance(widget, Select):
-            return "" if widget.value is Select.NULL else str(widget.value)
+        if isinstance(widget, ChoiceField):
+            return widget.value or ""
         if isinstance(widget, Checkbox):
             return SWITCH_TEXT[widget.value]
         return ""
@@ -262,14 +278,14 @@ class CaseEditor(VerticalScroll):
         event.stop()
         self.post_message(self.Done())
 
-    @on(Select.Changed)
-    def _select_changed(self, event: Select.Changed) -> None:
+    @on(ChoiceField.Changed)
+    def _choice_changed(self, event: ChoiceField.Changed) -> None:
         event.stop()
-        if event.select.id == "bearing-choice":
-            if event.value is not Select.NULL:
-                self.post_message(self.BearingChosen(str(event.value)))
+        if event.field.id == "bearing-choice":
+            if event.value is not None:
+                self.post_message(self.BearingChosen(event.value))
             return
-        self._announce(event.select, "" if event.value is Select.NULL else str(event.value), True)
+        self._announce(event.field, event.value or "", True)
 
     @on(Checkbox.Changed)
     def _checkbox_changed(self, event: Checkbox.Changed) -> None:

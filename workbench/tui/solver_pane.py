@@ -13,12 +13,13 @@ from textual.app import ComposeResult
 from textual.containers import Horizontal, VerticalScroll
 from textual.content import Content
 from textual.message import Message
-from textual.widgets import Button, Input, Label, Select, Static
+from textual.widgets import Button, Input, Label, Static
 
 from ..engine.record import fmt
 from ..engine.solve import TARGETS, UNKNOWNS, Solution
 from ..model.quantities import format_quantity
 from ..model.session import SolverSetup
+from .choice_field import ChoiceField
 
 UNKNOWN_QUANTITY = {"N": "force", "rpm": "speed"}
 TARGET_EXAMPLE = {"h": "20000 h", "10⁶ rev": "900 Mrev", "": "2"}
@@ -92,12 +93,15 @@ class SolverPane(VerticalScroll):
         """Unknown, target, value, the two buttons and the result area."""
         with Horizontal(classes="field-row"):
             yield Label("Solve for", classes="field-label")
-            yield Select([(u.label, name) for name, u in UNKNOWNS.items()], allow_blank=False,
-                         compact=True, id="solver-unknown")
+            yield ChoiceField(list(UNKNOWNS), title="Solve for", allow_blank=False,
+                              labels={name: u.label for name, u in UNKNOWNS.items()},
+                              value=next(iter(UNKNOWNS)), id="solver-unknown")
         with Horizontal(classes="field-row"):
             yield Label("so that", classes="field-label")
-            yield Select([(f"{name}: {label}", name) for name, (label, _) in TARGETS.items()],
-                         allow_blank=False, compact=True, value="Lnm", id="solver-target")
+            yield ChoiceField(list(TARGETS), title="so that", allow_blank=False,
+                              labels={name: f"{name}: {label}"
+                                      for name, (label, _) in TARGETS.items()},
+                              value="Lnm", id="solver-target")
         with Horizontal(classes="field-row"):
             yield Label("reaches", classes="field-label")
             yield Input(placeholder="e.g. 20000 h", compact=True, id="solver-value")
@@ -108,18 +112,18 @@ class SolverPane(VerticalScroll):
 
     def load(self, setup: SolverSetup) -> None:
         """Show the session's solver question (unknown, and "target=value" split for editing)."""
-        unknown = self.query_one("#solver-unknown", Select)
+        unknown = self.query_one("#solver-unknown", ChoiceField)
         if setup.unknown in UNKNOWNS:
             unknown.value = setup.unknown
         name, _, value_text = setup.target.partition("=")
         if name.strip() in TARGETS:
-            self.query_one("#solver-target", Select).value = name.strip()
+            self.query_one("#solver-target", ChoiceField).value = name.strip()
         self.query_one("#solver-value", Input).value = value_text.strip()
 
     def request(self) -> tuple[str, str]:
         """The question as asked now: (unknown, "target=value text")."""
-        unknown = self.query_one("#solver-unknown", Select).value
-        target = self.query_one("#solver-target", Select).value
+        unknown = self.query_one("#solver-unknown", ChoiceField).value
+        target = self.query_one("#solver-target", ChoiceField).value
         value_text = self.query_one("#solver-value", Input).value
         return str(unknown), f"{target}={value_text}"
 
@@ -134,15 +138,15 @@ class SolverPane(VerticalScroll):
 
     def show_failure(self, message: str, reachable: tuple[float, float] | None = None) -> None:
         """Show why nothing was solved."""
-        target = str(self.query_one("#solver-target", Select).value)
+        target = str(self.query_one("#solver-target", ChoiceField).value)
         self._show(failure_content(message, reachable, target), False)
 
     def show_note(self, message: str) -> None:
         """A plain line in the result area (e.g. after applying)."""
         self._show(Content(message), False)
 
-    @on(Select.Changed, "#solver-target")
-    def _target_changed(self, event: Select.Changed) -> None:
+    @on(ChoiceField.Changed, "#solver-target")
+    def _target_changed(self, event: ChoiceField.Changed) -> None:
         event.stop()
         unit = TARGETS.get(str(event.value), ("", ""))[1]
         self.query_one("#solver-value", Input).placeholder = "e.g. " + TARGET_EXAMPLE.get(unit, "")
