@@ -11,7 +11,7 @@ from textual.widgets import Input, TabbedContent
 from tui_helpers import editor, retype
 
 from workbench.tui.about_screen import AboutScreen
-from workbench.tui.actions import ACTIONS
+from workbench.tui.actions import ACTIONS, check_keymap
 from workbench.tui.app import WorkbenchApp
 from workbench.tui.commands import WorkbenchCommands
 from workbench.tui.dialogs import ChoiceDialog, TextPrompt
@@ -292,3 +292,48 @@ async def test_footer_wheel_brings_the_cut_off_keys_into_view(make_app) -> None:
             footer.post_message(events.MouseScrollDown(footer, 1, 0, 0, 1, 0, False, False, False))
             await pilot.pause()
         assert "Quit" in str(footer.render())
+
+
+def test_key_table_keeps_known_actions_and_names_what_it_refuses() -> None:
+    keymap, problems = check_keymap({"case.add": "ctrl+a", "case.nothing": "f3",
+                                     "file.save": 5, "view.units": "f3"})
+    assert keymap == {"case.add": "ctrl+a", "view.units": "f3"}
+    assert any("'case.nothing' is not an action" in line for line in problems)
+    assert any(line.startswith("file.save: keys must be a text") for line in problems)
+    # f3 already goes to the case list (focus.cases): the clash is named
+    assert any(line.startswith("f3 is claimed by") and "focus.cases" in line
+               for line in problems)
+
+
+async def test_key_table_moves_an_action_to_the_persons_key(make_app, private_config) -> None:
+    private_config.mkdir(parents=True, exist_ok=True)
+    (private_config / "keys.toml").write_text('"case.add" = "ctrl+k"\n"no.such" = "f3"\n',
+                                              encoding="utf-8")
+    app = make_app()
+    async with app.run_test(size=(120, 30)) as pilot:
+        await pilot.pause()
+        await pilot.press("ctrl+k")
+        await pilot.pause()
+        assert len(app.workbench.session.cases) == 4
+        await pilot.press("ctrl+n")  # the old key no longer adds a case
+        await pilot.pause()
+        assert len(app.workbench.session.cases) == 4
+        assert "^k Add case" in app.screen.query_one(KeyFooter).text
+        assert any("'no.such' is not an action" in note.message
+                   for note in app._notifications)
+        await pilot.press("f1")
+        await pilot.pause()
+        assert isinstance(app.screen, HelpScreen)
+        assert "ctrl+k" in str(app.screen.query_one("#help-keys").render())
+
+
+async def test_unreadable_key_table_is_reported_and_the_keys_stay(make_app, private_config) -> None:
+    private_config.mkdir(parents=True, exist_ok=True)
+    (private_config / "keys.toml").write_text('"case.add" = \n', encoding="utf-8")
+    app = make_app()
+    async with app.run_test(size=(120, 30)) as pilot:
+        await pilot.pause()
+        assert any("keys.toml not used" in note.message for note in app._notifications)
+        await pilot.press("ctrl+n")
+        await pilot.pause()
+        assert len(app.workbench.session.cases) == 4

@@ -2,12 +2,14 @@
 
 The app's and the workbench screen's ``BINDINGS``, the command palette
 (:mod:`workbench.tui.commands`) and the help screen are all built from :data:`ACTIONS`, so a key
-and its command can never drift apart.  Each binding carries an ``id`` so a keymap
-(``App.set_keymap``) can move it to another key.
+and its command can never drift apart.  Each binding carries an ``id`` (the action's) so the
+person's own key table (``[keys]`` in the settings file, applied with ``App.set_keymap``) can
+move it to other keys; :func:`check_keymap` reads that table.
 """
 
 from __future__ import annotations
 
+from collections.abc import Mapping
 from dataclasses import dataclass
 from typing import Literal
 
@@ -37,10 +39,10 @@ class Action:
         return Binding(self.keys, self.action, self.title, id=self.id, group=self.group,
                        tooltip=self.help)
 
-    @property
-    def key_text(self) -> str:
-        """The keys as a person reads them ("ctrl+s, f12")."""
-        return ", ".join(key.strip() for key in self.keys.split(","))
+    def key_text(self, keymap: Mapping[str, str] | None = None) -> str:
+        """The keys as a person reads them ("ctrl+s, f12"), after the person's ``keymap``."""
+        keys = (keymap or {}).get(self.id, self.keys)
+        return ", ".join(key.strip() for key in keys.split(","))
 
 
 ACTIONS: tuple[Action, ...] = (
@@ -101,3 +103,27 @@ ACTIONS: tuple[Action, ...] = (
 def bindings(scope: Scope) -> list[Binding]:
     """The bindings of every action in ``scope``, in table order."""
     return [action.binding() for action in ACTIONS if action.scope == scope]
+
+
+ACTION_BY_ID: dict[str, Action] = {action.id: action for action in ACTIONS}
+
+
+def check_keymap(table: Mapping[str, object]) -> tuple[dict[str, str], list[str]]:
+    """The usable entries of a person's key table (action id → keys such as "ctrl+k" or
+    "f4,ctrl+e"), and one line for each entry refused or key claimed by two actions."""
+    keymap: dict[str, str] = {}
+    problems: list[str] = []
+    for action_id, keys in table.items():
+        if action_id not in ACTION_BY_ID:
+            problems.append(f"{action_id!r} is not an action (see the help screen for the ids)")
+        elif not isinstance(keys, str) or not [k for k in keys.split(",") if k.strip()]:
+            problems.append(f"{action_id}: keys must be a text such as \"ctrl+k\" or \"f4,ctrl+e\"")
+        else:
+            keymap[action_id] = ",".join(key.strip() for key in keys.split(",") if key.strip())
+    claimed: dict[str, list[str]] = {}
+    for action in ACTIONS:
+        for key in action.key_text(keymap).split(", "):
+            claimed.setdefault(key, []).append(action.id)
+    problems += [f"{key} is claimed by {' and '.join(ids)}: only one of them acts"
+                 for key, ids in claimed.items() if len(ids) > 1]
+    return keymap, problems

@@ -16,7 +16,7 @@ from textual.notifications import SeverityLevel
 from ..model.session import Session
 from . import files, settings
 from .about_screen import AboutScreen
-from .actions import bindings
+from .actions import bindings, check_keymap
 from .commands import WorkbenchCommands
 from .dialogs import ChoiceDialog
 from .help_screen import HelpScreen
@@ -50,6 +50,9 @@ class WorkbenchApp(App[int]):
         self._our_themes: list[str] = []
         self._remember_theme = False
         self._theme_problem = self._install_themes()
+        self.keymap: dict[str, str] = {}
+        """The person's keys in force (action id → keys), from ``keys.toml``."""
+        self._keymap_problems = self._install_keymap()
 
     def notify(self, message: str, *, title: str = "", severity: SeverityLevel = "information",
                timeout: float | None = None, markup: bool = False) -> None:
@@ -72,6 +75,9 @@ class WorkbenchApp(App[int]):
         """Report theme files that failed, then offer a recovery copy if one was left behind."""
         if self._theme_problem is not None:
             self.notify(self._theme_problem, title="Themes", severity="warning", timeout=8)
+        if self._keymap_problems:
+            self.notify("\n".join(self._keymap_problems), title=settings.KEYS_FILE,
+                        severity="warning", timeout=12)
         if self._offer_recovery:
             self._ask_about_recovery()
 
@@ -91,6 +97,13 @@ class WorkbenchApp(App[int]):
         self._remember_theme = not no_color_requested()
         return load.failure_message()
 
+    def _install_keymap(self) -> list[str]:
+        """Move the actions named in the person's key table to their keys; what was refused."""
+        table, unreadable = settings.key_table()
+        self.keymap, problems = check_keymap(table)
+        self.set_keymap(self.keymap)
+        return [unreadable] if unreadable else problems
+
     def watch_theme(self, name: str) -> None:
         """Remember a theme the person chose (not the one set at start)."""
         if self._remember_theme:
@@ -109,7 +122,7 @@ class WorkbenchApp(App[int]):
     def action_help(self) -> None:
         """Show every key and what it does."""
         if not isinstance(self.screen, HelpScreen):
-            self.push_screen(HelpScreen())
+            self.push_screen(HelpScreen(self.keymap))
 
     def action_about(self) -> None:
         """Show the standards and the safety caution."""

@@ -26,16 +26,20 @@ class WorkbenchCommands(Provider):
             self.app.call_later(self.app.run_action, action.action, target)
         return run
 
+    def _title(self, action: Action) -> str:
+        keymap = getattr(self.app, "keymap", None)
+        return f"{action.title}  ({action.key_text(keymap)})"
+
     async def discover(self) -> Hits:
         """All commands, for the palette opened with nothing typed."""
         for action, run in self._available():
-            yield DiscoveryHit(f"{action.title}  ({action.key_text})", run, help=action.help)
+            yield DiscoveryHit(self._title(action), run, help=action.help)
 
     async def search(self, query: str) -> Hits:
         """Commands whose title or help matches what is typed."""
         matcher = self.matcher(query)
         for action, run in self._available():
-            title = f"{action.title}  ({action.key_text})"
+            title = self._title(action)
             score = max(matcher.match(title), 0.5 * matcher.match(action.help))
             if score > 0:
                 yield Hit(score, matcher.highlight(title), run, help=action.help)

@@ -2,6 +2,8 @@
 
 from __future__ import annotations
 
+from collections.abc import Mapping
+
 from textual.app import ComposeResult
 from textual.binding import Binding
 from textual.containers import VerticalScroll
@@ -14,15 +16,18 @@ from .dialogs import OnceModal
 HELP_FOOTNOTE = (
     "tab / shift+tab move between fields; ctrl+p opens the command palette with every command. "
     "A value that cannot be used is marked beside its field and the last valid value stays in "
-    "force. Typed values keep their units; results follow the SI/US display setting."
+    "force. Typed values keep their units; results follow the SI/US display setting. "
+    "To move an action to other keys, name its id (in brackets above) in keys.toml in the "
+    "workbench's config folder, e.g. \"case.add\" = \"ctrl+a\"."
 )
 
 
-def help_content() -> Content:
-    """One line per action: keys, title, and what it does."""
-    width = max(len(action.key_text) for action in ACTIONS)
-    lines = [Content.assemble((action.key_text.ljust(width), "bold $text-accent"), "  ",
-                              (action.title, "bold"), " — ", action.help)
+def help_content(keymap: Mapping[str, str] | None = None) -> Content:
+    """One line per action: keys in force, title, what it does, and its id for ``keys.toml``."""
+    width = max(len(action.key_text(keymap)) for action in ACTIONS)
+    lines = [Content.assemble((action.key_text(keymap).ljust(width), "bold $text-accent"), "  ",
+                              (action.title, "bold"), " — ", action.help,
+                              (f"  [{action.id}]", "$text-muted"))
              for action in ACTIONS]
     return Content("\n").join(lines)
 
@@ -32,10 +37,14 @@ class HelpScreen(OnceModal[None]):
 
     BINDINGS = [Binding("escape,f1,q", "dismiss_none", "Close", id="help.close")]
 
+    def __init__(self, keymap: Mapping[str, str] | None = None) -> None:
+        super().__init__()
+        self._keymap = keymap
+
     def compose(self) -> ComposeResult:
         """The key table and a footnote."""
         with VerticalScroll(classes="dialog-box info-box"):
             yield Label("Keys", classes="dialog-title")
-            yield Static(help_content(), id="help-keys")
+            yield Static(help_content(self._keymap), id="help-keys")
             yield Static(Content(HELP_FOOTNOTE), classes="dialog-hint")
             yield Static("escape: close", classes="dialog-hint")

@@ -1,4 +1,6 @@
-"""What the workbench remembers between runs (the chosen theme), in the user's config folder.
+"""What the workbench remembers between runs (the chosen theme), in the user's config folder,
+and the person's own key table, ``keys.toml`` beside it (written by hand, never by the workbench:
+action id = keys, e.g. ``"case.add" = "ctrl+a"``).
 
 The folder is ``platformdirs.user_config_dir("bearing-workbench")`` unless the environment
 variable ``BEARING_WORKBENCH_CONFIG_DIR`` names another one (tests point it at a temporary
@@ -16,6 +18,7 @@ import tomli_w
 
 CONFIG_DIR_VARIABLE = "BEARING_WORKBENCH_CONFIG_DIR"
 SETTINGS_FILE = "settings.toml"
+KEYS_FILE = "keys.toml"
 
 
 def config_dir() -> Path:
@@ -37,6 +40,18 @@ def load_settings() -> dict[str, object]:
     except (OSError, tomllib.TOMLDecodeError, UnicodeDecodeError):
         return {}
     return data if isinstance(data, dict) else {}
+
+
+def key_table() -> tuple[dict[str, object], str | None]:
+    """The person's key table (empty when there is no file) and why it could not be read."""
+    path = config_dir() / KEYS_FILE
+    try:
+        with path.open("rb") as handle:
+            return tomllib.load(handle), None
+    except FileNotFoundError:
+        return {}, None
+    except (OSError, tomllib.TOMLDecodeError, UnicodeDecodeError) as exc:
+        return {}, f"{path} not used: {exc}"
 
 
 def saved_theme() -> str | None:
