@@ -6,6 +6,7 @@ from collections.abc import Awaitable, Callable
 
 import pytest
 from textual import events
+from textual._xterm_parser import XTermParser
 from textual.widgets import Input, TabbedContent
 
 from tui_helpers import editor, retype
@@ -337,3 +338,19 @@ async def test_unreadable_key_table_is_reported_and_the_keys_stay(make_app, priv
         await pilot.press("ctrl+n")
         await pilot.pause()
         assert len(app.workbench.session.cases) == 4
+
+
+@pytest.mark.parametrize(("action_id", "sequence"), [
+    ("app.about", "\x1b[1;2P"),  # shift+f1 as xterm sends it (Textual reads it as f13)
+    ("case.move_down", "\x1b[1;3B"),  # alt+down, xterm's modifier-3 cursor key
+    ("case.delete", "\x1b[3;5~"),  # ctrl+delete
+    ("whatif.up1", "\x1b[1;6A"),  # ctrl+shift+up
+    ("view.whatif", "\x1b[23~"),  # f11
+])
+async def test_keys_arrive_as_a_terminal_sends_them(make_app, action_id: str,
+                                                    sequence: str) -> None:
+    """The keys of the table as Textual's own terminal parser turns the bytes into key names."""
+    keys = [event for event in XTermParser().feed(sequence) if isinstance(event, events.Key)]
+    assert len(keys) == 1
+    action = next(a for a in ACTIONS if a.id == action_id)
+    assert keys[0].key in [key.strip() for key in action.keys.split(",")]

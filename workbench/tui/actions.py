@@ -93,7 +93,8 @@ ACTIONS: tuple[Action, ...] = (
     Action("file.save_as", "f12", "save_as", "Save as", "Save the session under a new name"),
     Action("app.theme", "ctrl+t", "next_theme", "Theme", "Switch to the next colour theme",
            "app"),
-    Action("app.about", "shift+f1", "about", "About",
+    # xterm-like terminals send shift+f1 as the sequence Textual names f13: both are bound
+    Action("app.about", "shift+f1,f13", "about", "About",
            "The standards the numbers follow, and the safety caution", "app"),
     Action("app.quit", "ctrl+q", "quit", "Quit", "Leave the workbench (asks about unsaved work)",
            "app"),
