@@ -166,39 +166,26 @@ def run_select_command(argv: Sequence[str]) -> int:
 
 def run_rate_command(argv: Sequence[str]) -> int:
     """``workbench rate``: basic load ratings C and C0 of a special bearing from its geometry."""
-    from .engine.ratings import KINDS, BearingGeometry, rate_bearing
-    from .engine.record import InputError
-    from .model.quantities import QuantityError, parse
+    from .engine.ratings import KINDS
+    from .model.fields import FieldError
+    from .model.rating_form import RATING_INPUT_BY_NAME, RATING_INPUTS, rate_texts
     from .render import derivation_text
 
     parser = argparse.ArgumentParser(
         prog="workbench rate",
         description="Basic dynamic and static load ratings from internal geometry "
                     "(ISO 281:2007, ISO 76:2006).")
-    parser.add_argument("--kind", required=True, choices=KINDS)
-    parser.add_argument("--rows", type=int, default=1, help="number of rows i")
-    parser.add_argument("--elements", type=int, required=True, help="rolling elements per row Z")
-    parser.add_argument("--dw", required=True, help="ball diameter Dw or roller diameter Dwe, e.g. \"12.7 mm\"")
-    parser.add_argument("--lwe", help="effective roller length Lwe (rollers)")
-    parser.add_argument("--contact-angle", default="0 deg", help="nominal contact angle α")
-    parser.add_argument("--dpw", required=True, help="pitch diameter Dpw")
-    parser.add_argument("--bm", type=float, help="rating factor bm (default from ISO 281)")
-    parser.add_argument("--f0", type=float, help="ISO 76 factor f0 (default from its table)")
+    for spec in RATING_INPUTS:
+        parser.add_argument(spec.flag, dest=spec.name, required=spec.required,
+                            choices=KINDS if spec.kind == "choice" else None,
+                            help=f"{spec.label} ({spec.hint})")
     parser.add_argument("--json", action="store_true", help="print one JSON object")
     args = parser.parse_args(argv)
+    texts = {spec.name: getattr(args, spec.name) or "" for spec in RATING_INPUTS}
     try:
-        lengths = {name: parse(getattr(args, name), "length", default_unit="mm")
-                   for name in ("dw", "dpw") if getattr(args, name) is not None}
-        lwe = parse(args.lwe, "length", default_unit="mm") if args.lwe else None
-        alpha = parse(args.contact_angle, "angle", default_unit="deg")
-    except QuantityError as exc:
-        return _fail(exc.message)
-    geometry = BearingGeometry(args.kind, args.rows, args.elements, lengths["dw"], alpha,
-                               lengths["dpw"], lwe, args.bm, args.f0)
-    try:
-        derivation = rate_bearing(geometry)
-    except InputError as exc:
-        return _fail(f"{_flag(exc.field)}: {exc.message}")
+        _, derivation = rate_texts(texts)
+    except FieldError as exc:
+        return _fail(f"{RATING_INPUT_BY_NAME[exc.field].flag}: {exc.message}")
     if args.json:
         print(json.dumps(_clean(derivation.as_dict()), ensure_ascii=False, indent=2))
     else:

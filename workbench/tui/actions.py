@@ -84,7 +84,8 @@ ACTIONS: tuple[Action, ...] = (
            "duty cycles' damage shares", group=PANE_GROUP),
     Action("bearing.catalog", "ctrl+l", "select_from_catalog", "Select bearing from catalog",
            "List the catalog bearings that meet every case on the selected case's bearing; "
-           "adopt one (undoable)"),
+           "adopt one (undoable). There, ctrl+g rates a special bearing from its geometry "
+           "(ISO 281 C, ISO 76 C0) to adopt instead"),
     Action("view.shafts", "ctrl+f", "show_shafts", "Shafts and duty cycles",
            "Show each shaft's bearing loads and free body, system lives and duty cycles"),
     Action("focus.cases", "f3", "focus_cases", "Cases", "Go to the load-case list"),

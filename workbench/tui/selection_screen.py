@@ -6,12 +6,14 @@ path is typed, for all the cases (the session's and the generated ones) that use
 case's bearing, with the inputs built by :func:`workbench.model.select_cli.selection_inputs`.
 The qualifying bearings are listed smallest first.  Enter on a row closes the screen with that
 row's bearing texts (:func:`~workbench.model.catalog.catalog_bearing_texts`); the workbench
-screen writes them into the session bearing as one undo step.
+screen writes them into the session bearing as one undo step.  A bearing no catalog holds is
+rated from its geometry instead (ctrl+g, :mod:`workbench.tui.rating_screen`), and adopted the
+same way.
 """
 
 from __future__ import annotations
 
-from collections.abc import Sequence
+from collections.abc import Mapping, Sequence
 from dataclasses import dataclass
 from pathlib import Path
 
@@ -31,7 +33,8 @@ from .dialogs import OnceModal
 
 COLUMNS = ("Designation", "Kind", "d × D × B mm", "Life margin", "Governing case", "min s0")
 SELECTION_HINT = ("enter on a row: adopt that bearing's data into the session bearing "
-                  "(ctrl+z undoes it) · tab: catalog file · escape: close")
+                  "(ctrl+z undoes it) · tab: catalog file · ctrl+g: rate a special bearing "
+                  "from its geometry instead · escape: close")
 
 
 @dataclass(frozen=True, slots=True)
@@ -49,7 +52,10 @@ def _number_text(value: float | None) -> str:
 class SelectionScreen(OnceModal[Adoption | None]):
     """The catalog bearings that meet every case on one session bearing, smallest first."""
 
-    BINDINGS = [Binding("escape", "dismiss_none", "Close", id="selection.close")]
+    BINDINGS = [
+        Binding("escape", "dismiss_none", "Close", id="selection.close"),
+        Binding("ctrl+g", "rate_from_geometry", "Rate from geometry", id="selection.rate"),
+    ]
 
     catalog: Catalog | None = None
     """The catalog searched last (None before, or when it could not be read)."""
@@ -58,11 +64,14 @@ class SelectionScreen(OnceModal[Adoption | None]):
     """The outcome of the last search."""
 
     def __init__(self, bearing: str, results: Sequence[CaseResult],
-                 catalog_path: Path | None = None) -> None:
+                 catalog_path: Path | None = None, *,
+                 bearing_texts: Mapping[str, str] | None = None, system: str = "SI") -> None:
         super().__init__()
         self.bearing = bearing
         self.results = list(results)
         self._catalog_path = catalog_path or demo_catalog_path()
+        self._bearing_texts = dict(bearing_texts or {})
+        self._system = system
 
     def compose(self) -> ComposeResult:
         """Title, catalog file, what was asked, the candidates and the keys."""
@@ -144,3 +153,14 @@ class SelectionScreen(OnceModal[Adoption | None]):
         index = int(event.row_key.value)
         self.close(Adoption(self.catalog.designations[index],
                             catalog_bearing_texts(self.catalog, index)))
+
+    def action_rate_from_geometry(self) -> None:
+        """Rate a bearing no catalog holds from its internal geometry; adopting its ratings
+        closes this screen too."""
+        from .rating_screen import RatingScreen  # it imports Adoption from here
+
+        def rated(adoption: Adoption | None) -> None:
+            if adoption is not None:
+                self.close(adoption)
+
+        self.app.push_screen(RatingScreen(self.bearing, self._bearing_texts, self._system), rated)

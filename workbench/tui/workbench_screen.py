@@ -367,7 +367,10 @@ class WorkbenchScreen(Screen[None]):
                         "(ctrl+z undoes it)")
 
         users = [result for result in state.results if result.case.bearing == bearing]
-        self.app.push_screen(SelectionScreen(bearing, users), adopted)
+        held = state.session.bearing(bearing)
+        self.app.push_screen(SelectionScreen(bearing, users,
+                                             bearing_texts=held.texts if held else None,
+                                             system=state.units), adopted)
 
     def action_show_shafts(self) -> None:
         """Show the shafts, their bearing loads and free bodies, and the duty cycles."""

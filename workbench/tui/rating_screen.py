@@ -1,0 +1,129 @@
+"""Rate a special bearing from its internal geometry, and adopt its ratings.
+
+The form reads its inputs with :func:`workbench.model.rating_form.rate_texts` (ISO 281:2007
+basic dynamic rating C, ISO 76:2006 basic static rating C0: the same reader as ``workbench
+rate``) and shows every step of the rating live as the inputs change.  f10 or ctrl+g closes it
+with the session bearing texts the ratings give (kind, C, C0, dm = Dpw, α, and f0 for balls);
+the workbench screen writes them into the bearing as one undo step, as it does for a catalog
+bearing.
+"""
+
+from __future__ import annotations
+
+from collections.abc import Mapping
+
+from textual import on
+from textual.app import ComposeResult
+from textual.binding import Binding
+from textual.containers import Horizontal, Vertical, VerticalScroll
+from textual.content import Content
+from textual.widgets import Input, Label, Static
+
+from ..engine.ratings import KINDS
+from ..model.fields import FieldError
+from ..model.rating_form import RATING_INPUT_BY_NAME, RATING_INPUTS, bearing_texts, rate_texts
+from .choice_field import ChoiceField
+from .derivation_pane import ERROR_STYLE, step_content
+from .dialogs import OnceModal
+from .selection_screen import Adoption
+
+RATING_PREFIX = "rating-"
+RATING_DESIGNATION = "the geometry rating"
+PREFILLED_FROM_BEARING = {"kind": "kind", "dpw": "dm", "contact_angle": "contact_angle"}
+"""Form inputs started from the session bearing's texts (form input → bearing field)."""
+RATING_HINT = "f10 or ctrl+g: use these ratings for the bearing (ctrl+z undoes it) · escape: close"
+
+
+class RatingScreen(OnceModal[Adoption | None]):
+    """The geometry of one bearing, its rating worked out step by step, and adopting it."""
+
+    BINDINGS = [
+        Binding("escape", "dismiss_none", "Close", id="rating.close"),
+        Binding("f10,ctrl+g", "adopt", "Use ratings", id="rating.adopt"),
+    ]
+
+    def __init__(self, bearing: str, bearing_texts_now: Mapping[str, str], system: str) -> None:
+        super().__init__()
+        self.bearing = bearing
+        self._start = {name: bearing_texts_now.get(field, "")
+                       for name, field in PREFILLED_FROM_BEARING.items()}
+        self._system = system
+        self.adoption: Adoption | None = None
+        """The texts the inputs give now (None while they cannot be rated)."""
+
+    def compose(self) -> ComposeResult:
+        """Title, one row per input, the message line, the steps and the keys."""
+        with Vertical(classes="dialog-box selection-box"):
+            yield Label(f"Rate from geometry: bearing {self.bearing}", classes="dialog-title")
+            for spec in RATING_INPUTS:
+                with Horizontal(classes="field-row"):
+                    yield Label(spec.label, classes="field-label")
+                    start = self._start.get(spec.name, "")
+                    if spec.kind == "choice":
+                        yield ChoiceField(KINDS, title=spec.label, allow_blank=False,
+                                          value=start if start in KINDS else KINDS[0],
+                                          id=RATING_PREFIX + spec.name)
+                    else:
+                        yield Input(start, placeholder=spec.hint, compact=True,
+                                    id=RATING_PREFIX + spec.name, select_on_focus=False)
+            yield Static(id="rating-message")
+            with VerticalScroll(id="rating-steps-scroll"):
+                yield Static(id="rating-steps")
+            yield Static(Content(RATING_HINT), classes="dialog-hint")
+
+    def on_mount(self) -> None:
+        """Rate what the bearing's own texts give, and start at the first input still needed."""
+        self.rate()
+        needed = [box for box in self.query(Input) if not box.value
+                  and RATING_INPUT_BY_NAME[(box.id or "").removeprefix(RATING_PREFIX)].required]
+        (needed[0] if needed else self.query_one(ChoiceField)).focus()
+
+    def texts(self) -> dict[str, str]:
+        """The inputs as typed."""
+        texts: dict[str, str] = {}
+        for spec in RATING_INPUTS:
+            widget = self.query_one(f"#{RATING_PREFIX}{spec.name}")
+            if isinstance(widget, ChoiceField):
+                texts[spec.name] = widget.value or ""
+            elif isinstance(widget, Input):
+                texts[spec.name] = widget.value
+        return texts
+
+    def rate(self) -> None:
+        """Rate the bearing from the inputs as they stand and show the steps or what is wrong."""
+        message = self.query_one("#rating-message", Static)
+        steps = self.query_one("#rating-steps", Static)
+        try:
+            geometry, derivation = rate_texts(self.texts())
+        except FieldError as exc:
+            self.adoption = None
+            label = RATING_INPUT_BY_NAME[exc.field].label if exc.field in RATING_INPUT_BY_NAME \
+                else exc.field
+            message.update(Content.styled(f"✘ {label}: {exc.message}", ERROR_STYLE))
+            steps.update("")
+            return
+        texts = bearing_texts(geometry, derivation)
+        self.adoption = Adoption(RATING_DESIGNATION, texts)
+        message.update(Content.assemble(
+            ("C = ", "bold"), texts["c"], ("   C0 = ", "bold"), texts["c0"],
+            f"   (dm {texts['dm']}" + (f", f0 {texts['f0']})" if texts["f0"] else ")")))
+        lines: list[Content] = []
+        for step in derivation.steps:
+            lines.append(Content(""))
+            lines.extend(step_content(step, self._system))
+        steps.update(Content("\n").join(lines))
+
+    @on(Input.Changed)
+    @on(ChoiceField.Changed)
+    def _input_changed(self, event: Input.Changed | ChoiceField.Changed) -> None:
+        event.stop()
+        self.rate()
+
+    def action_adopt(self) -> None:
+        """Close with the ratings' texts, when the inputs can be rated."""
+        if self.adoption is None:
+            self.app.bell()
+            self.notify("The inputs cannot be rated yet: see the message above the steps",
+                        severity="warning")
+            return
+        self.close(self.adoption)
