@@ -124,10 +124,12 @@ def test_speed_zero_leaves_hours_undefined() -> None:
         ({"arrangement": "tandem"}, "arrangement"),
     ],
 )
-def test_bad_input_names_the_input(changes: dict, field: str) -> None:
-    """Every refusal is an InputError naming the input, never a bare Python exception."""
+@pytest.mark.parametrize("keep_steps", [True, False])
+def test_bad_input_names_the_input(changes: dict, field: str, keep_steps: bool) -> None:
+    """Every refusal is an InputError naming the input, never a bare Python exception, and the
+    results-only derivation refuses the same inputs for the same reason."""
     with pytest.raises(InputError) as info:
-        derive(replace(BASE, **changes))
+        derive(replace(BASE, **changes), keep_steps=keep_steps)
     assert info.value.field == field
     assert info.value.message
 
@@ -182,6 +184,76 @@ def test_life_falls_with_load_and_rises_with_rating(fr: float, fa: float, scale:
     base = derive(case).results["L10"]
     assert derive(replace(case, fr=fr * scale, fa=fa * scale)).results["L10"] <= base * (1 + 1e-12)
     assert derive(replace(case, c=case.c * scale)).results["L10"] > base
+
+
+def _exact(results: dict[str, float]) -> list[str]:
+    """Each result as key=repr(value): repr round-trips a float exactly, −0.0 and NaN included."""
+    return [f"{key}={value!r}" for key, value in results.items()]
+
+
+_KIND_SETUPS = [  # (kind, arrangement, contact angle, maker's e) that derive() accepts
+    ("deep-groove", "single", None, None), ("deep-groove", "double-row", None, None),
+    ("angular-contact", "single", 15.0, None), ("angular-contact", "back-to-back", 15.0, None),
+    ("angular-contact", "tandem", 40.0, None), ("self-aligning", "double-row", 12.0, None),
+    ("cylindrical", "single", None, None), ("tapered", "single", 14.0, None),
+    ("tapered", "face-to-face", None, 0.35), ("spherical", "double-row", None, 0.3),
+    ("thrust-ball", "single", None, None), ("thrust-ball", "single", 45.0, None),
+    ("thrust-roller", "single", 60.0, None),
+]
+
+
+TABLE_KINDS = ("deep-groove", "angular-contact")  # e and Y read by f0·Fa/C0 (Table 3)
+
+
+@st.composite
+def _cases(draw: st.DrawFn) -> CaseInputs:
+    kind, arrangement, alpha, e_given = draw(st.sampled_from(_KIND_SETUPS))
+    thrust = kind.startswith("thrust")
+    oil = draw(st.sampled_from(["none", "nu", "vg", "vg-nu100", "vg-vi"]))
+    weibull = draw(st.booleans())
+    return CaseInputs(
+        kind=kind, arrangement=arrangement, contact_angle=alpha, e_given=e_given,
+        fr=draw(st.sampled_from([0.0, 900.0, 5200.0])) if thrust else draw(loads),
+        fa=draw(st.floats(min_value=0.0, max_value=15000.0)),
+        c=draw(st.floats(min_value=5000.0, max_value=200000.0)),
+        c0=draw(st.floats(min_value=3000.0, max_value=150000.0)),
+        f0=draw(st.sampled_from([None, 12.3, 14.0])) if kind in TABLE_KINDS else None,
+        speed=draw(st.sampled_from([0.0, 300.0, 999.0, 1000.0, 1450.0, 8000.0])),
+        af=draw(st.sampled_from([1.0, 1.2, 1.5])),
+        outer_ring_rotates=draw(st.booleans()),
+        reliability_model="weibull" if weibull else "iso281",
+        reliability=draw(st.sampled_from([0.5, 0.9, 0.99] if weibull else [0.9, 0.95, 0.9995])),
+        rating_life_mrev=draw(st.sampled_from([1.0, 2.0])) if weibull else 1.0,
+        nu=draw(st.floats(min_value=1.0, max_value=500.0)) if oil == "nu" else None,
+        vg=draw(st.sampled_from([32.0, 68.0, 220.0])) if oil.startswith("vg") else None,
+        temp=draw(st.floats(min_value=-20.0, max_value=150.0)) if oil.startswith("vg") else None,
+        nu100=draw(st.floats(min_value=3.0, max_value=9.0)) if oil == "vg-nu100" else None,
+        vi=draw(st.sampled_from([80.0, 140.0])) if oil == "vg-vi" else None,
+        dm=draw(st.floats(min_value=10.0, max_value=300.0)) if oil != "none" else None,
+        cu=draw(st.sampled_from([None, 900.0])),
+        ec=draw(st.sampled_from([None, 0.05, 0.5, 1.0])),
+        cleanliness=draw(st.sampled_from(["normal", "severe"])),
+        s0_min=draw(st.sampled_from([None, 2.0])),
+    )
+
+
+@settings(max_examples=200, deadline=None)
+@given(case=_cases())
+def test_results_only_derivation_matches_the_full_one(case: CaseInputs) -> None:
+    """derive(keep_steps=False) must carry exactly the numbers of the full derivation (the reference
+    here, itself checked against ISO 281:2007 / ISO 76:2006 by the hand-worked cases above): same
+    results in the same order, bit for bit, same warnings, and the same refusals."""
+    try:
+        full = derive(case)
+    except InputError as refusal:
+        with pytest.raises(InputError) as info:
+            derive(case, keep_steps=False)
+        assert (info.value.field, info.value.message) == (refusal.field, refusal.message)
+        return
+    bare = derive(case, keep_steps=False)
+    assert _exact(bare.results) == _exact(full.results)
+    assert bare.warnings == full.warnings
+    assert bare.steps == [] and full.steps
 
 
 def test_engine_imports_neither_textual_nor_pint() -> None:

@@ -136,6 +136,23 @@ def test_lubricated_case_against_direct_derive(name: str) -> None:
     assert item.plus10 == pytest.approx(_swing(LUBRICATED, name, 1.1), rel=1e-9, abs=1e-12)
 
 
+# An ISO VG oil at temperature with a named cleanliness, Cu estimated from C0 and af ≠ 1: the
+# viscosity chain (ISO 3448, ASTM D341), eC from ISO 281:2007 Table 13 and Cu from Annex B.
+GRADED = replace(LUBRICATED, nu=None, vg=68.0, temp=70.0, ec=None, cleanliness="normal", cu=None,
+                 af=1.2)
+
+
+@pytest.mark.parametrize("name", ["fr", "fa", "load_scale", "c0", "f0", "speed", "af", "temp",
+                                  "dm"])
+def test_graded_oil_case_against_direct_derive(name: str) -> None:
+    """The same check by direct derive() calls on the ISO VG case with af ≠ 1."""
+    item = _items(GRADED)[name]
+    assert item.elasticity == pytest.approx(_central(GRADED, name), rel=1e-9, abs=1e-12)
+    assert item.elasticity_s0 == pytest.approx(_central(GRADED, name, "s0"), rel=1e-9, abs=1e-12)
+    assert item.minus10 == pytest.approx(_swing(GRADED, name, 0.9), rel=1e-9, abs=1e-12)
+    assert item.plus10 == pytest.approx(_swing(GRADED, name, 1.1), rel=1e-9, abs=1e-12)
+
+
 def test_ec_and_cu_act_through_their_product() -> None:
     """ISO 281:2007 §9.3.2: aISO holds eC and Cu only as eC·Cu/P, so both elasticities agree."""
     items = _items(LUBRICATED)

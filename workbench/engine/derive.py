@@ -10,23 +10,36 @@ from __future__ import annotations
 
 import math
 from dataclasses import dataclass, fields
+from functools import lru_cache
 
 from . import tables as T
 from . import viscosity
 from .kinds import (
     DEFAULT_CONTACT_ANGLE, KIND_WORDS, ROLLER_KINDS, THRUST_KINDS, Arrangement, Kind,
     aiso_load_divisor, contact_angle_from_e, dynamic_factors, dynamic_load, equivalent_static_load,
-    life_clause, life_exponent, load_clause, parse_arrangement, parse_kind, static_factors,
+    StaticFactors, life_clause, life_exponent, load_clause, parse_arrangement, parse_kind,
+    static_factors,
 )
 from .life import (
     AISO_CAP, KAPPA_MAX, KAPPA_MIN, a1_iso281, aiso, basic_rating_life, contamination_factor,
     fatigue_load_limit_estimate, kappa_in_range, life_hours, reference_viscosity,
     weibull_life_factor,
 )
-from .record import Derivation, InputError
+from .record import Derivation, InputError, StepWords
 
 NAN = math.nan
 RELIABILITY_MODELS = ("iso281", "weibull")
+
+# Read once here, not on every derive() (the solver and the sensitivity sweep run dozens a call):
+# an Enum member read off its class costs ~0.1 µs on Python 3.11, a clause f-string ~0.3 µs.
+_CYLINDRICAL = Kind.CYLINDRICAL
+_ANGLED_RADIAL_KINDS = frozenset({Kind.SELF_ALIGNING, Kind.TAPERED, Kind.SPHERICAL})
+_PAIRED_ARRANGEMENTS = frozenset({Arrangement.BACK_TO_BACK, Arrangement.FACE_TO_FACE})
+_LOAD_CLAUSE: dict[Kind, str] = {kind: load_clause(kind) for kind in Kind}
+_LIFE_CLAUSE: dict[Kind, str] = {kind: life_clause(kind) for kind in Kind}
+_AISO_LOAD_DIVISOR: dict[Kind, float] = {kind: aiso_load_divisor(kind) for kind in Kind}
+# X0, Y0 hang on the kind, the arrangement and α alone: the same few in every derive() of a session.
+_static_factors = lru_cache(maxsize=64)(static_factors)
 
 
 @dataclass(frozen=True, slots=True)
@@ -130,7 +143,8 @@ def validate(case: CaseInputs) -> tuple[Kind, Arrangement, float]:
         raise InputError("static_duty", f"unknown duty {case.static_duty!r}; use one of {names}")
     if case.reliability_model not in RELIABILITY_MODELS:
         raise InputError("reliability_model", "use iso281 or weibull")
-    _check("reliability", case.reliability, positive=True)
+    if not _plain(case.reliability, True):
+        _check("reliability", case.reliability, positive=True)
     if case.reliability_model == "iso281":
         if not T.RELIABILITY_MIN <= case.reliability <= T.RELIABILITY_MAX + 1e-12:
             raise InputError("reliability",
@@ -151,13 +165,13 @@ def validate(case: CaseInputs) -> tuple[Kind, Arrangement, float]:
             raise InputError("contact_angle",
                              f"a {KIND_WORDS[kind]} needs its contact angle or the maker's e")
         alpha = contact_angle_from_e(case.e_given)
-    if kind in (Kind.SELF_ALIGNING, Kind.TAPERED, Kind.SPHERICAL) and not 0.0 < alpha < 90.0:
+    if kind in _ANGLED_RADIAL_KINDS and not 0.0 < alpha < 90.0:
         raise InputError("contact_angle", "must lie between 0° and 90° for this kind")
     if kind in THRUST_KINDS and alpha > 90.0:
         raise InputError("contact_angle", "cannot exceed 90°")
     if case.fr == 0.0 and case.fa == 0.0:
         raise InputError("fr", "Fr and Fa are both zero: there is no load to rate")
-    if kind is Kind.CYLINDRICAL and case.fr == 0.0:
+    if kind is _CYLINDRICAL and case.fr == 0.0:
         raise InputError("fa", "a cylindrical roller bearing cannot carry a purely axial load")
     if kind in THRUST_KINDS and alpha >= 90.0 and case.fr > 0.0:
         raise InputError("fr", f"a {KIND_WORDS[kind]} with α = 90° takes no radial load")
@@ -169,37 +183,43 @@ def validate(case: CaseInputs) -> tuple[Kind, Arrangement, float]:
 def derive(case: CaseInputs, keep_steps: bool = True) -> Derivation:
     """The full derivation of one load case (ISO 281:2007, ISO 76:2006); InputError on bad input.
 
-    ``keep_steps=False`` records results and warnings only, for callers that read nothing else.
+    ``keep_steps=False`` records results and warnings only, for callers that read nothing else:
+    each step's words are then never composed (see :meth:`Derivation.derived`).
     """
     kind, arrangement, alpha = validate(case)
     d = Derivation(keep_steps)
-    roller = kind in ROLLER_KINDS
     _dynamic_load(d, case, kind, arrangement, alpha)
     p = d.results["P"]
     p_eff = p * case.af
     if case.af != 1.0:
-        d.add("P_eff", "af·P", "Load with the application factor", "af·P", "{0} × {1}",
-              (case.af, p), p_eff, "N", "common practice", note=T.APPLICATION_FACTOR_HINT)
+        d.derived("P_eff", p_eff, lambda: (
+            "af·P", "Load with the application factor", "af·P", "{0} × {1}", (case.af, p), "N",
+            "common practice", T.APPLICATION_FACTOR_HINT))
     exponent = life_exponent(kind)
     rating_mrev = rating_basis_mrev(case)
     l10 = rating_mrev * basic_rating_life(case.c, p_eff, exponent)
-    p_word = "10/3 (roller)" if roller else "3 (ball)"
-    if rating_mrev != 1.0:
-        d.add("L10", "L10", "Basic rating life", "LR·(C/P)^p", "{0} × ({1} / {2})^{3}",
-              (rating_mrev, case.c, p_eff, exponent), l10, "10⁶ rev", life_clause(kind),
-              note=f"p = {p_word}; C rated at LR = {rating_mrev:g}·10⁶ revolutions")
-    else:
-        d.add("L10", "L10", "Basic rating life", "(C/P)^p", "({0} / {1})^{2}",
-              (case.c, p_eff, exponent), l10, "10⁶ rev", life_clause(kind), note=f"p = {p_word}")
+    d.derived("L10", l10, lambda: _l10_words(case, kind, rating_mrev, p_eff, exponent))
     _hours(d, "L10h", "L10h", "Basic rating life in hours", l10, case.speed, kind)
     a_rel = _reliability(d, case)
     a_iso = _lubrication(d, case, kind, p_eff)
     lnm_mrev = a_rel * a_iso * l10
-    d.add("Lnm_mrev", "Lnm", "Modified rating life", "a1·aISO·L10", "{0} × {1} × {2}",
-          (a_rel, a_iso, l10), lnm_mrev, "10⁶ rev", "ISO 281:2007 §9.1")
+    d.derived("Lnm_mrev", lnm_mrev, lambda: (
+        "Lnm", "Modified rating life", "a1·aISO·L10", "{0} × {1} × {2}", (a_rel, a_iso, l10),
+        "10⁶ rev", "ISO 281:2007 §9.1", None))
     _hours(d, "Lnm", "Lnm", "Modified rating life in hours", lnm_mrev, case.speed, kind)
     _static(d, case, kind, arrangement, alpha)
     return d
+
+
+def _l10_words(case: CaseInputs, kind: Kind, rating_mrev: float, p_eff: float,
+               exponent: float) -> StepWords:
+    p_word = "10/3 (roller)" if kind in ROLLER_KINDS else "3 (ball)"
+    if rating_mrev != 1.0:
+        return ("L10", "Basic rating life", "LR·(C/P)^p", "{0} × ({1} / {2})^{3}",
+                         (rating_mrev, case.c, p_eff, exponent), "10⁶ rev", _LIFE_CLAUSE[kind],
+                         f"p = {p_word}; C rated at LR = {rating_mrev:g}·10⁶ revolutions")
+    return ("L10", "Basic rating life", "(C/P)^p", "({0} / {1})^{2}",
+                     (case.c, p_eff, exponent), "10⁶ rev", _LIFE_CLAUSE[kind], f"p = {p_word}")
 
 
 def _dynamic_load(d: Derivation, case: CaseInputs, kind: Kind, arrangement: Arrangement,
@@ -210,36 +230,23 @@ def _dynamic_load(d: Derivation, case: CaseInputs, kind: Kind, arrangement: Arra
     v = rotation_factor(case)
     p, ratio, high, possible = dynamic_load(kind, factors, case.fr, case.fa, v)
     if case.outer_ring_rotates:
-        d.add("V", "V", "Rotation factor", "outer ring rotates relative to the load", "1.2", (), v,
-              "", "common practice (older practice; ISO 281:2007 no longer carries V)",
-              note="V multiplies Fr in the branch test and in X·V·Fr")
-    if kind is Kind.CYLINDRICAL:
-        d.add("P", "P", "Equivalent dynamic load", "P = Fr (α = 0)", "{0}", (case.fr,), p,
-              "N", factors.source, warning=_cylindrical_axial_warning(case))
+        d.derived("V", v, lambda: (
+            "V", "Rotation factor", "outer ring rotates relative to the load", "1.2", (), "",
+            "common practice (older practice; ISO 281:2007 no longer carries V)",
+            "V multiplies Fr in the branch test and in X·V·Fr"))
+    if kind is _CYLINDRICAL:
+        d.derived("P", p, lambda: (
+            "P", "Equivalent dynamic load", "P = Fr (α = 0)", "{0}", (case.fr,), "N",
+            factors.source, None), _cylindrical_axial_warning(case))
         d.results.update(e=NAN, X=1.0, Y=0.0)
         return
     if kind in THRUST_KINDS and alpha >= 90.0:
-        d.add("P", "P", "Equivalent dynamic load", "P = Fa (α = 90°)", "{0}", (case.fa,), case.fa,
-              "N", factors.source)
+        d.derived("P", case.fa, lambda: (
+            "P", "Equivalent dynamic load", "P = Fa (α = 90°)", "{0}", (case.fa,), "N",
+            factors.source, None))
         d.results.update(e=NAN, X=0.0, Y=1.0)
         return
-    if factors.index_formula and case.fa > 0:  # with no axial load the table plays no part
-        clamp = factors.clamped
-        note = None
-        if clamp and case.fa > 0:
-            edge = "first" if clamp < 0 else "last"
-            note = f"index outside the table: e and Y taken at its {edge} row, not extrapolated"
-        d.add("index", factors.index_formula.split(" ")[0], "Table index for e and Y",
-              factors.index_formula, "{0} × {1} / {2}", _index_args(case, arrangement),
-              factors.index, "", factors.source, note=note)
-    d.add("e", "e", "Limit ratio e", factors.basis, "{0}", (factors.e,), factors.e, "",
-          factors.source)
-    vfr = "V·Fr" if case.outer_ring_rotates else "Fr"
-    side = f"Fa/{vfr} > e" if high else f"Fa/{vfr} ≤ e"
-    d.add("ratio", f"Fa/{vfr}", "Axial-to-radial load ratio",
-          f"Fa/{vfr}, compared with e", "{0} / {1}", (case.fa, v * case.fr), ratio, "",
-          load_clause(kind), note=f"branch: {side}")
-    if not possible:
+    if not possible:  # refused before any step is recorded: a refused case has no derivation
         raise InputError("fa", f"a single-direction {KIND_WORDS[kind]} needs Fa/Fr > e "
                                f"({ratio:.3g} ≤ {factors.e:.3g})")
     x = factors.x_high if high else factors.x_low
@@ -247,15 +254,39 @@ def _dynamic_load(d: Derivation, case: CaseInputs, kind: Kind, arrangement: Arra
     warning = None
     if factors.clamped and (high or factors.clamped > 0) and case.fa > 0:
         warning = f"{factors.index_formula} lies outside the table; e and Y clamped at its end"
-    d.add("X", "X", f"Radial factor ({side})", "Table 3", "{0}", (x,), x, "", factors.source)
-    d.add("Y", "Y", f"Axial factor ({side})", "Table 3" if factors.index_formula else factors.basis,
-          "{0}", (y,), y, "", factors.source, warning=warning)
+    if factors.index_formula and case.fa > 0:  # with no axial load the table plays no part
+        d.derived("index", factors.index, lambda: (
+            factors.index_formula.split(" ")[0], "Table index for e and Y",
+            factors.index_formula, "{0} × {1} / {2}", _index_args(case, arrangement), "",
+            factors.source, _clamp_note(factors.clamped)))
+    d.derived("e", factors.e, lambda: (
+        "e", "Limit ratio e", factors.basis, "{0}", (factors.e,), "", factors.source, None))
+    vfr = "V·Fr" if case.outer_ring_rotates else "Fr"
+    side = f"Fa/{vfr} > e" if high else f"Fa/{vfr} ≤ e"
+    d.derived("ratio", ratio, lambda: (
+        f"Fa/{vfr}", "Axial-to-radial load ratio", f"Fa/{vfr}, compared with e", "{0} / {1}",
+        (case.fa, v * case.fr), "", _LOAD_CLAUSE[kind], f"branch: {side}"))
+    d.derived("X", x, lambda: (
+        "X", f"Radial factor ({side})", "Table 3", "{0}", (x,), "", factors.source, None))
+    d.derived("Y", y, lambda: (
+        "Y", f"Axial factor ({side})", "Table 3" if factors.index_formula else factors.basis,
+        "{0}", (y,), "", factors.source, None), warning)
     if case.outer_ring_rotates:
-        d.add("P", "P", "Equivalent dynamic load", "X·V·Fr + Y·Fa", "{0} × {1} × {2} + {3} × {4}",
-              (x, v, case.fr, y, case.fa), p, "N", load_clause(kind))
+        d.derived("P", p, lambda: (
+            "P", "Equivalent dynamic load", "X·V·Fr + Y·Fa", "{0} × {1} × {2} + {3} × {4}",
+            (x, v, case.fr, y, case.fa), "N", _LOAD_CLAUSE[kind], None))
     else:
-        d.add("P", "P", "Equivalent dynamic load", "X·Fr + Y·Fa", "{0} × {1} + {2} × {3}",
-              (x, case.fr, y, case.fa), p, "N", load_clause(kind))
+        d.derived("P", p, lambda: (
+            "P", "Equivalent dynamic load", "X·Fr + Y·Fa", "{0} × {1} + {2} × {3}",
+            (x, case.fr, y, case.fa), "N", _LOAD_CLAUSE[kind], None))
+
+
+def _clamp_note(clamp: float) -> str | None:
+    """What a clamped table index means for e and Y (no note when it lies inside the table)."""
+    if not clamp:
+        return None
+    edge = "first" if clamp < 0 else "last"
+    return f"index outside the table: e and Y taken at its {edge} row, not extrapolated"
 
 
 def rotation_factor(case: CaseInputs) -> float:
@@ -264,7 +295,7 @@ def rotation_factor(case: CaseInputs) -> float:
 
 
 def _index_args(case: CaseInputs, arrangement: Arrangement) -> tuple[float, ...]:
-    rows = 2.0 if arrangement in (Arrangement.BACK_TO_BACK, Arrangement.FACE_TO_FACE) else 1.0
+    rows = 2.0 if arrangement in _PAIRED_ARRANGEMENTS else 1.0
     f0 = case.f0 if case.f0 is not None else T.DEEP_GROOVE_FOLDED_F0
     return (rows * f0, case.fa, case.c0)
 
@@ -284,11 +315,13 @@ def _hours(d: Derivation, key: str, symbol: str, label: str, life_mrev: float, s
            kind: Kind) -> None:
     """A life in hours at the case speed, or an undefined value with a warning at speed 0."""
     if speed > 0.0:
-        d.add(key, symbol, label, "L·10⁶/(60·n)", "{0} × 10⁶ / (60 × {1})", (life_mrev, speed),
-              life_hours(life_mrev, speed), "h", life_clause(kind))
-    else:
-        d.add(key, symbol, label, "L·10⁶/(60·n)", "speed is 0", (), NAN, "h", life_clause(kind),
-              warning=f"speed is 0: {symbol} in hours is undefined (life in revolutions stands)")
+        d.derived(key, life_hours(life_mrev, speed), lambda: (
+            symbol, label, "L·10⁶/(60·n)", "{0} × 10⁶ / (60 × {1})", (life_mrev, speed), "h",
+            _LIFE_CLAUSE[kind], None))
+        return
+    d.derived(key, NAN, lambda: (
+        symbol, label, "L·10⁶/(60·n)", "speed is 0", (), "h", _LIFE_CLAUSE[kind], None),
+        f"speed is 0: {symbol} in hours is undefined (life in revolutions stands)")
 
 
 def rating_basis_mrev(case: CaseInputs) -> float:
@@ -305,44 +338,48 @@ def reliability_life_factor(case: CaseInputs) -> float:
 
 def _reliability(d: Derivation, case: CaseInputs) -> float:
     """a1 by ISO 281:2007 Table 12, or the Weibull life factor, at the requested reliability."""
+    return d.derived("a1", reliability_life_factor(case), lambda: _reliability_words(case))
+
+
+def _reliability_words(case: CaseInputs) -> StepWords:
     r = case.reliability
-    a1 = reliability_life_factor(case)
     if case.reliability_model == "iso281":
-        return d.add("a1", "a1", "Life factor for reliability",
-                     "0.95·(ln(100/R)/ln(100/90))^(2/3) + 0.05",
-                     "0.95 × (ln(100/{0}) / ln(100/90))^(2/3) + 0.05", (100.0 * r,), a1, "",
-                     "ISO 281:2007 §9.2, Table 12")
-    return d.add("a1", "aR", "Life factor for reliability (Weibull)",
-                 "x0 + (θ − x0)·(ln 1/R)^(1/b)", "{0} + ({1} − {0}) × (ln 1/{2})^(1/{3})",
-                 (case.weibull_x0, case.weibull_theta, r, case.weibull_b), a1, "",
-                 "three-parameter Weibull, R = exp(−((x − x0)/(θ − x0))^b)",
-                 note="life at R as a multiple of the rating life")
+        return ("a1", "Life factor for reliability",
+                         "0.95·(ln(100/R)/ln(100/90))^(2/3) + 0.05",
+                         "0.95 × (ln(100/{0}) / ln(100/90))^(2/3) + 0.05", (100.0 * r,), "",
+                         "ISO 281:2007 §9.2, Table 12", None)
+    return ("aR", "Life factor for reliability (Weibull)",
+                     "x0 + (θ − x0)·(ln 1/R)^(1/b)", "{0} + ({1} − {0}) × (ln 1/{2})^(1/{3})",
+                     (case.weibull_x0, case.weibull_theta, r, case.weibull_b), "",
+                     "three-parameter Weibull, R = exp(−((x − x0)/(θ − x0))^b)",
+                     "life at R as a multiple of the rating life")
 
 
 def operating_viscosity(d: Derivation, case: CaseInputs) -> float | None:
     """ν at operating temperature: given directly, or from ISO VG and VI (ISO 3448, ASTM D341)."""
     if case.nu is not None:
-        return d.add("nu", "ν", "Operating viscosity", "given", "{0}", (case.nu,), case.nu,
-                     "mm²/s", "input")
+        return d.derived("nu", case.nu, lambda: (
+            "ν", "Operating viscosity", "given", "{0}", (case.nu,), "mm²/s", "input", None))
     if case.vg is None or case.temp is None:
         return None
     nu40 = viscosity.nu40_of_grade(case.vg)
-    d.add("nu40", "ν40", "Viscosity at 40 °C", f"ISO VG {case.vg:g} midpoint", "{0}", (nu40,),
-          nu40, "mm²/s", "ISO 3448")
-    if case.nu100 is not None:
-        nu100 = case.nu100
-        d.add("nu100", "ν100", "Viscosity at 100 °C", "given", "{0}", (nu100,), nu100, "mm²/s",
-              "input")
-    else:
-        vi = 100.0 if case.vi is None else case.vi
-        nu100 = viscosity.nu100_from_viscosity_index(nu40, vi)
-        d.add("nu100", "ν100", "Viscosity at 100 °C", "from ν40 and VI", "VI {0}", (vi,), nu100,
-              "mm²/s", "ASTM D2270",
-              note="VI 100 assumed (no VI given)" if case.vi is None else None)
+    vi = 100.0 if case.vi is None else case.vi
+    nu100 = case.nu100 if case.nu100 is not None else viscosity.nu100_from_viscosity_index(nu40, vi)
     nu = viscosity.viscosity_at_temperature(nu40, nu100, case.temp)
-    return d.add("nu", "ν", "Operating viscosity", "log log(ν + 0.7) = A − B·log T",
-                 "at {0} °C through ν40 = {1}, ν100 = {2}", (case.temp, nu40, nu100), nu, "mm²/s",
-                 "ASTM D341")
+    d.derived("nu40", nu40, lambda: (
+        "ν40", "Viscosity at 40 °C", f"ISO VG {case.vg:g} midpoint", "{0}", (nu40,), "mm²/s",
+        "ISO 3448", None))
+    if case.nu100 is not None:
+        d.derived("nu100", nu100, lambda: (
+            "ν100", "Viscosity at 100 °C", "given", "{0}", (nu100,), "mm²/s", "input", None))
+    else:
+        d.derived("nu100", nu100, lambda: (
+            "ν100", "Viscosity at 100 °C", "from ν40 and VI", "VI {0}", (vi,), "mm²/s",
+            "ASTM D2270", "VI 100 assumed (no VI given)" if case.vi is None else None))
+    return d.derived("nu", nu, lambda: (
+        "ν", "Operating viscosity", "log log(ν + 0.7) = A − B·log T",
+        "at {0} °C through ν40 = {1}, ν100 = {2}", (case.temp, nu40, nu100), "mm²/s",
+        "ASTM D341", None))
 
 
 def lubrication_gaps(case: CaseInputs) -> list[str]:
@@ -363,57 +400,72 @@ def _lubrication(d: Derivation, case: CaseInputs, kind: Kind, p_eff: float) -> f
     """aISO from κ, eC, Cu and P (ISO 281:2007 §9.3); 1 with a note when data is missing."""
     missing = lubrication_gaps(case)
     if missing:
-        return d.add("aISO", "aISO", "Systems-approach factor", "not evaluated", "1", (), 1.0, "",
-                     "ISO 281:2007 §9.3", note="aISO = 1: no " + ", no ".join(missing))
+        return d.derived("aISO", 1.0, lambda: (
+            "aISO", "Systems-approach factor", "not evaluated", "1", (), "", "ISO 281:2007 §9.3",
+            "aISO = 1: no " + ", no ".join(missing)))
     nu = operating_viscosity(d, case)
-    assert nu is not None and case.dm is not None
-    nu1 = d.add("nu1", "ν1", "Rated viscosity",
-                "45000·n^−0.83·dm^−0.5" if case.speed < 1000 else "4500·n^−0.5·dm^−0.5",
-                "45000 × {0}^−0.83 × {1}^−0.5" if case.speed < 1000 else "4500 × {0}^−0.5 × {1}^−0.5",
-                (case.speed, case.dm), reference_viscosity(case.speed, case.dm), "mm²/s",
-                "ISO 281:2007 §9.3.3")
+    dm = case.dm
+    assert nu is not None and dm is not None
+    nu1 = reference_viscosity(case.speed, dm)
     kappa = nu / nu1
     used, warning = kappa_in_range(kappa), None
     if kappa < KAPPA_MIN:
         warning = f"κ = {kappa:.3g} is below 0.1, outside the aISO method; κ = 0.1 used"
-    d.add("kappa", "κ", "Viscosity ratio", "ν/ν1", "{0} / {1}", (nu, nu1), used, "",
-          "ISO 281:2007 §9.3.3", warning=warning,
-          note=f"κ = {kappa:.3g} above 4: 4 used" if kappa > KAPPA_MAX else None)
+    low = high = NAN
     if case.ec is not None:
-        ec = d.add("eC", "eC", "Contamination factor", "given", "{0}", (case.ec,), case.ec, "",
-                   "input")
+        ec = case.ec
     else:
         assert case.cleanliness is not None
-        ec, (low, high) = contamination_factor(case.cleanliness, case.dm)
-        d.add("eC", "eC", "Contamination factor", T.CONTAMINATION_WORDS[case.cleanliness],
-              "midpoint of {0}–{1}", (low, high), ec, "", "ISO 281:2007 §9.3.4, Table 13",
-              note="dpw ≥ 100 mm column" if case.dm >= 100 else "dpw < 100 mm column")
+        ec, (low, high) = contamination_factor(case.cleanliness, dm)
     roller = kind in ROLLER_KINDS
-    if case.cu is not None:
-        cu = d.add("Cu", "Cu", "Fatigue load limit", "given", "{0}", (case.cu,), case.cu, "N",
-                   "input")
-    else:
-        cu = fatigue_load_limit_estimate(case.c0, case.dm, roller)
-        formula = "C0/8.2" if roller else "C0/22"
-        if case.dm > 100:
-            formula += "·(100/dpw)^0.3" if roller else "·(100/dpw)^0.5"
-        d.add("Cu", "Cu", "Fatigue load limit (estimated)", formula, "from C0 = {0}, dpw = {1}",
-              (case.c0, case.dm), cu, "N", "ISO 281:2007 Annex B (estimate)",
-              note="no Cu given: estimated from C0; the maker's value is better")
-    divisor = aiso_load_divisor(kind)
+    cu = case.cu if case.cu is not None else fatigue_load_limit_estimate(case.c0, dm, roller)
+    divisor = _AISO_LOAD_DIVISOR[kind]
     load_ratio = ec * cu / (divisor * p_eff)
-    if divisor != 1.0:
-        d.add("load_ratio", "eC·Cu/P", "Load ratio for aISO", f"eC·Cu/({divisor:g}·P)",
-              "{0} × {1} / ({2} × {3})", (ec, cu, divisor, p_eff), load_ratio, "",
-              "ISO 281:2007 §9.3.2")
-    else:
-        d.add("load_ratio", "eC·Cu/P", "Load ratio for aISO", "eC·Cu/P", "{0} × {1} / {2}",
-              (ec, cu, p_eff), load_ratio, "", "ISO 281:2007 §9.3.2")
     a = aiso(used, load_ratio, roller)
-    family = "roller" if roller else "ball"
-    return d.add("aISO", "aISO", "Systems-approach factor", f"ISO 281 {family} relation in κ, eC·Cu/P",
-                 "κ = {0}, eC·Cu/P = {1}", (used, load_ratio), a, "", "ISO 281:2007 §9.3.2",
-                 note="capped at 50" if a >= AISO_CAP else None)
+    slow = case.speed < 1000
+    d.derived("nu1", nu1, lambda: (
+        "ν1", "Rated viscosity", "45000·n^−0.83·dm^−0.5" if slow else "4500·n^−0.5·dm^−0.5",
+        "45000 × {0}^−0.83 × {1}^−0.5" if slow else "4500 × {0}^−0.5 × {1}^−0.5",
+        (case.speed, dm), "mm²/s", "ISO 281:2007 §9.3.3", None))
+    d.derived("kappa", used, lambda: (
+        "κ", "Viscosity ratio", "ν/ν1", "{0} / {1}", (nu, nu1), "", "ISO 281:2007 §9.3.3",
+        f"κ = {kappa:.3g} above 4: 4 used" if kappa > KAPPA_MAX else None), warning)
+    d.derived("eC", ec, lambda: _contamination_words(case, ec, low, high))
+    d.derived("Cu", cu, lambda: _fatigue_limit_words(case, cu, roller))
+    d.derived("load_ratio", load_ratio, lambda: _load_ratio_words(ec, cu, divisor, p_eff))
+    return d.derived("aISO", a, lambda: (
+        "aISO", "Systems-approach factor",
+        f"ISO 281 {'roller' if roller else 'ball'} relation in κ, eC·Cu/P",
+        "κ = {0}, eC·Cu/P = {1}", (used, load_ratio), "", "ISO 281:2007 §9.3.2",
+        "capped at 50" if a >= AISO_CAP else None))
+
+
+def _contamination_words(case: CaseInputs, ec: float, low: float, high: float) -> StepWords:
+    if case.ec is not None or case.cleanliness is None or case.dm is None:
+        return ("eC", "Contamination factor", "given", "{0}", (ec,), "", "input", None)
+    return ("eC", "Contamination factor", T.CONTAMINATION_WORDS[case.cleanliness],
+                     "midpoint of {0}–{1}", (low, high), "", "ISO 281:2007 §9.3.4, Table 13",
+                     "dpw ≥ 100 mm column" if case.dm >= 100 else "dpw < 100 mm column")
+
+
+def _fatigue_limit_words(case: CaseInputs, cu: float, roller: bool) -> StepWords:
+    if case.cu is not None or case.dm is None:
+        return ("Cu", "Fatigue load limit", "given", "{0}", (cu,), "N", "input", None)
+    formula = "C0/8.2" if roller else "C0/22"
+    if case.dm > 100:
+        formula += "·(100/dpw)^0.3" if roller else "·(100/dpw)^0.5"
+    return ("Cu", "Fatigue load limit (estimated)", formula, "from C0 = {0}, dpw = {1}",
+                     (case.c0, case.dm), "N", "ISO 281:2007 Annex B (estimate)",
+                     "no Cu given: estimated from C0; the maker's value is better")
+
+
+def _load_ratio_words(ec: float, cu: float, divisor: float, p_eff: float) -> StepWords:
+    if divisor != 1.0:
+        return ("eC·Cu/P", "Load ratio for aISO", f"eC·Cu/({divisor:g}·P)",
+                         "{0} × {1} / ({2} × {3})", (ec, cu, divisor, p_eff), "",
+                         "ISO 281:2007 §9.3.2", None)
+    return ("eC·Cu/P", "Load ratio for aISO", "eC·Cu/P", "{0} × {1} / {2}",
+                     (ec, cu, p_eff), "", "ISO 281:2007 §9.3.2", None)
 
 
 def static_safety_minimum(case: CaseInputs, kind: Kind) -> tuple[float, str]:
@@ -428,28 +480,33 @@ def static_safety_minimum(case: CaseInputs, kind: Kind) -> tuple[float, str]:
 def _static(d: Derivation, case: CaseInputs, kind: Kind, arrangement: Arrangement,
             alpha: float) -> None:
     """P0 and s0 = C0/P0 against the minimum for the duty (ISO 76:2006; minimums common practice)."""
-    sf = static_factors(kind, arrangement, alpha)
+    sf = _static_factors(kind, arrangement, alpha)
     p0, floored = equivalent_static_load(sf, case.fr, case.fa)
-    if not sf.radial:
-        if sf.x0 == 0.0:
-            d.add("P0", "P0", "Equivalent static load", "P0 = Fa (α = 90°)", "{0}", (case.fa,), p0,
-                  "N", sf.source)
-        else:
-            d.add("P0", "P0", "Equivalent static load", "2.3·Fr·tan α + Fa", "{0} × {1} + {2}",
-                  (sf.x0, case.fr, case.fa), p0, "N", sf.source)
-    elif kind is Kind.CYLINDRICAL:
-        d.add("P0", "P0", "Equivalent static load", "P0 = Fr", "{0}", (case.fr,), p0, "N",
-              sf.source)
-    else:
-        d.add("P0", "P0", "Equivalent static load", "max(X0·Fr + Y0·Fa, Fr)",
-              "max({0} × {1} + {2} × {3}, {1})", (sf.x0, case.fr, sf.y0, case.fa), p0, "N",
-              sf.source, note="P0 = Fr rule applied" if floored else None)
-        d.results.update(X0=sf.x0, Y0=sf.y0)
     s0 = case.c0 / p0
     minimum, why = static_safety_minimum(case, kind)
     warning = None
     if s0 < minimum:
         warning = f"s0 = {s0:.3g} is below {minimum:g}, {why}"
-    d.add("s0", "s0", "Static safety factor", "C0/P0", "{0} / {1}", (case.c0, p0), s0, "",
-          "ISO 76:2006 (s0 = C0/P0); minimum: common practice", warning=warning, note=f"minimum {minimum:g}: {why}")
+    d.derived("P0", p0, lambda: _static_load_words(case, kind, sf, floored))
+    if sf.radial and kind is not _CYLINDRICAL:
+        d.results.update(X0=sf.x0, Y0=sf.y0)
+    d.derived("s0", s0, lambda: (
+        "s0", "Static safety factor", "C0/P0", "{0} / {1}", (case.c0, p0), "",
+        "ISO 76:2006 (s0 = C0/P0); minimum: common practice", f"minimum {minimum:g}: {why}"),
+        warning)
     d.results["s0_min"] = minimum
+
+
+def _static_load_words(case: CaseInputs, kind: Kind, sf: StaticFactors, floored: bool) -> StepWords:
+    if not sf.radial:
+        if sf.x0 == 0.0:
+            return ("P0", "Equivalent static load", "P0 = Fa (α = 90°)", "{0}",
+                             (case.fa,), "N", sf.source, None)
+        return ("P0", "Equivalent static load", "2.3·Fr·tan α + Fa", "{0} × {1} + {2}",
+                         (sf.x0, case.fr, case.fa), "N", sf.source, None)
+    if kind is _CYLINDRICAL:
+        return ("P0", "Equivalent static load", "P0 = Fr", "{0}", (case.fr,), "N",
+                         sf.source, None)
+    return ("P0", "Equivalent static load", "max(X0·Fr + Y0·Fa, Fr)",
+                     "max({0} × {1} + {2} × {3}, {1})", (sf.x0, case.fr, sf.y0, case.fa), "N",
+                     sf.source, "P0 = Fr rule applied" if floored else None)

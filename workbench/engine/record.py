@@ -8,8 +8,9 @@ cheap in the hot path.
 
 from __future__ import annotations
 
+from collections.abc import Callable
 from dataclasses import dataclass
-from typing import Any
+from typing import Any, TypeAlias
 
 
 class InputError(ValueError):
@@ -84,18 +85,26 @@ class Step:
         }
 
 
+StepWords: TypeAlias = tuple[str, str, str, str, tuple[float, ...], str, str, str | None]
+"""The words and raw numbers of one step, as :meth:`Derivation.add` takes them besides the key,
+value and warning: (symbol, label, formula, template, args, unit, source, note).  A plain tuple:
+:meth:`Derivation.derived` has it composed only when the steps are kept."""
+
+
 class Derivation:
     """Steps in order, the named results, and every warning raised while deriving.
 
     ``add`` stores each step as a plain tuple; :attr:`steps` turns them into :class:`Step`
     objects the first time something reads them.  The solver and the sensitivity sweep read only
-    ``results``, so they never pay for building steps.
+    ``results`` (``keep_steps`` false): a producer that records with :meth:`derived` hands over
+    its step's words as a function, called only when the steps are kept, so those callers never
+    pay for composing them.
     """
 
-    __slots__ = ("_raw", "_steps", "_keep_steps", "results", "warnings", "notes")
+    __slots__ = ("_raw", "_steps", "keep_steps", "results", "warnings", "notes")
 
     def __init__(self, keep_steps: bool = True) -> None:
-        self._keep_steps = keep_steps  # False: results and warnings only (solver, sensitivity)
+        self.keep_steps = keep_steps  # False: results and warnings only (solver, sensitivity)
         self._raw: list[tuple[Any, ...]] = []
         self._steps: list[Step] | None = None
         self.results: dict[str, float] = {}
@@ -118,12 +127,26 @@ class Derivation:
         result: bool = True,
     ) -> float:
         """Append a step (and, unless ``result`` is false, record it under ``key``); return value."""
-        if self._keep_steps:
+        if self.keep_steps:
             self._raw.append((key, symbol, label, formula, template, args, value, unit, source,
                               warning, note))
             self._steps = None
         if result:
             self.results[key] = value
+        if warning is not None:
+            self.warnings.append(warning)
+        return value
+
+    def derived(self, key: str, value: float, explain: Callable[[], StepWords],
+                warning: str | None = None) -> float:
+        """Record ``value`` under ``key`` with its warning, and its step from ``explain()``, which
+        is called only when the steps are kept; return value."""
+        if self.keep_steps:
+            symbol, label, formula, template, args, unit, source, note = explain()
+            self._raw.append((key, symbol, label, formula, template, args, value, unit, source,
+                              warning, note))
+            self._steps = None
+        self.results[key] = value
         if warning is not None:
             self.warnings.append(warning)
         return value

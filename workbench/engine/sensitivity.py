@@ -20,7 +20,7 @@ import statistics
 import time
 from bisect import bisect_right
 from dataclasses import dataclass, fields
-from typing import Any
+from typing import Any, NamedTuple
 
 from . import tables as T
 from .derive import CaseInputs, derive, validate
@@ -88,16 +88,31 @@ _INPUTS: tuple[_Input, ...] = (
 
 _FIELD_NAMES: tuple[str, ...] = tuple(f.name for f in fields(CaseInputs))
 _SLOT: dict[str, int] = {name: i for i, name in enumerate(_FIELD_NAMES)}
+_UNSEEN = object()  # memo marker: None already means "outside the valid range"
 
 
-@dataclass(frozen=True, slots=True)
-class _Point:
-    """One derive() run, reduced to what the differences need."""
+class _Point(NamedTuple):
+    """One derive() run, reduced to what the differences need (a tuple: built ~40 times a call)."""
 
     life: float
     s0: float
     life_regime: tuple[tuple[str, object], ...]
     static_regime: tuple[tuple[str, object], ...]
+
+
+@dataclass(frozen=True, slots=True)
+class _Step:
+    """The relative step of the central differences, with its log widths and its words."""
+
+    up: float       # ln(1 + step)
+    down: float     # −ln(1 − step)
+    minus: str      # "−1 %"
+    plus: str       # "+1 %"
+
+    @classmethod
+    def of(cls, step: float) -> _Step:
+        """The widths and words of the relative step ``step``, worked out once per sweep."""
+        return cls(math.log1p(step), -math.log1p(-step), f"−{100 * step:g} %", f"+{100 * step:g} %")
 
 
 def sensitivity_of(case: CaseInputs, step: float = STEP) -> list[SensitivityItem]:
@@ -111,7 +126,7 @@ def sensitivity_of(case: CaseInputs, step: float = STEP) -> list[SensitivityItem
         raise InputError("step", f"the relative step must lie between 0 and {SWING:g}")
     life_key = "Lnm" if case.speed > 0.0 else "Lnm_mrev"
     life_word = "Lnm (h)" if life_key == "Lnm" else "Lnm (10⁶ rev)"
-    runner = _Runner(case, life_key)
+    runner = _Runner(case, life_key, step)
     items = []
     for spec in _INPUTS:
         value = _input_value(case, spec.name)
@@ -143,10 +158,11 @@ class _Runner:
     points scale the life by the ratio of the reliability factors after validate() accepts them.
     """
 
-    def __init__(self, case: CaseInputs, life_key: str) -> None:
+    def __init__(self, case: CaseInputs, life_key: str, step: float) -> None:
         self.values = [getattr(case, name) for name in _FIELD_NAMES]
         self.life_key = life_key
-        derivation = derive(case)
+        self.step = _Step.of(step)
+        derivation = derive(case, keep_steps=False)
         self.base = _point(derivation, case, life_key)
         self.base_a1 = derivation.results["a1"]
         self.memo: dict[tuple[Any, ...], _Point | None] = {}
@@ -162,9 +178,11 @@ class _Runner:
         else:
             values[_SLOT[name]] *= factor
         key = tuple(values)
-        if key not in self.memo:
-            self.memo[key] = self._reliability(key) if name == "reliability" else self._run(key)
-        return self.memo[key]
+        point = self.memo.get(key, _UNSEEN)
+        if point is _UNSEEN:
+            point = self._reliability(key) if name == "reliability" else self._run(key)
+            self.memo[key] = point
+        return point
 
     def _run(self, values: tuple[Any, ...]) -> _Point | None:
         case = CaseInputs(*values)
@@ -204,22 +222,23 @@ def _point(derivation: Derivation, case: CaseInputs, life_key: str) -> _Point:
         life.append(("table breakpoint", segment if results["Y"] != 0.0 else None))  # acts via Y
     if "nu1" in results:
         raw_kappa = results["nu"] / results["nu1"]
-        life.append(("ν1 speed switch", case.speed < 1000.0))
-        life.append(("κ clamp", raw_kappa < KAPPA_MIN or raw_kappa > KAPPA_MAX))
-        life.append(("κ 0.4/1 piece boundary", bisect_right((0.4, 1.0), results["kappa"])))
-        life.append(("aISO cap", results["aISO"] >= AISO_CAP))
-        life.append(("dm 100 mm column", (case.dm or 0.0) >= 100.0))
+        life += (
+            ("ν1 speed switch", case.speed < 1000.0),
+            ("κ clamp", raw_kappa < KAPPA_MIN or raw_kappa > KAPPA_MAX),
+            ("κ 0.4/1 piece boundary", bisect_right((0.4, 1.0), results["kappa"])),
+            ("aISO cap", results["aISO"] >= AISO_CAP),
+            ("dm 100 mm column", (case.dm or 0.0) >= 100.0),
+        )
     floored = "X0" in results and results["X0"] * case.fr + results["Y0"] * case.fa < case.fr
     static = (("P0 = Fr floor", floored),)
     return _Point(results[life_key], results["s0"], tuple(life), static)
 
 
-def _differentiate(low: _Point | None, mid: _Point, high: _Point | None, step: float,
+def _differentiate(low: _Point | None, mid: _Point, high: _Point | None, step: _Step,
                    attribute: str, regime: str) -> tuple[float | None, str, str]:
     """(elasticity, method, note) of ``attribute`` from the three points, one-sided at kinks."""
-    up, down = math.log1p(step), -math.log1p(-step)
+    up, down, minus, plus = step.up, step.down, step.minus, step.plus
     value = getattr(mid, attribute)
-    minus, plus = f"−{100 * step:g} %", f"+{100 * step:g} %"
     if low is None and high is None:
         return None, "not available", f"{minus} and {plus} both leave the valid range"
     if low is None:
@@ -245,6 +264,8 @@ def _differentiate(low: _Point | None, mid: _Point, high: _Point | None, step: f
 
 def _changed(before: tuple[tuple[str, object], ...], after: tuple[tuple[str, object], ...]) -> str:
     """The name of the first flag that differs between two regimes, or ''."""
+    if before == after:  # the common case, settled in one comparison
+        return ""
     for (name, a), (_, b) in zip(before, after):
         if a != b:
             return name
@@ -260,8 +281,8 @@ def _item(spec: _Input, value: float, runner: _Runner, step: float, life_word: s
     """One input's item from derive() runs at x·(1 ± step) and x·(1 ± 10 %)."""
     base = runner.base
     low, high = runner.at(spec.name, 1.0 - step), runner.at(spec.name, 1.0 + step)
-    elasticity, method, note = _differentiate(low, base, high, step, "life", "life_regime")
-    elasticity_s0, _, note_s0 = _differentiate(low, base, high, step, "s0", "static_regime")
+    elasticity, method, note = _differentiate(low, base, high, runner.step, "life", "life_regime")
+    elasticity_s0, _, note_s0 = _differentiate(low, base, high, runner.step, "s0", "static_regime")
     notes = [note] if note else []
     if note_s0 and note_s0 != note:
         notes.append("s0: " + note_s0)
