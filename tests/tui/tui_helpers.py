@@ -25,9 +25,21 @@ def derivation_text(app: WorkbenchApp) -> str:
     return app.workbench_screen.query_one(DerivationPane).text.plain
 
 
+async def text_box(pilot: Pilot[int], app: WorkbenchApp, field: str) -> Input:
+    """The text box of ``field``, once the editor has mounted it (just after the first frame)."""
+    for _ in range(100):
+        found = app.workbench_screen.query(f"#{field_id(field)}")
+        if found:
+            box = found.first()
+            assert isinstance(box, Input)
+            return box
+        await pilot.pause()
+    raise AssertionError(f"no text box for {field}")
+
+
 async def retype(pilot: Pilot[int], app: WorkbenchApp, field: str, text: str) -> None:
     """Focus ``field``, clear it and type ``text`` key by key."""
-    box = app.workbench_screen.query_one(f"#{field_id(field)}", Input)
+    box = await text_box(pilot, app, field)
     box.focus()
     await pilot.pause()
     await pilot.press("end", "ctrl+u", *text)
@@ -36,7 +48,7 @@ async def retype(pilot: Pilot[int], app: WorkbenchApp, field: str, text: str) ->
 
 async def paste_into(pilot: Pilot[int], app: WorkbenchApp, field: str, text: str) -> None:
     """Clear ``field`` and paste ``text`` into it as a terminal paste arrives (any characters)."""
-    box = app.workbench_screen.query_one(f"#{field_id(field)}", Input)
+    box = await text_box(pilot, app, field)
     box.focus()
     await pilot.pause()
     await pilot.press("end", "ctrl+u")

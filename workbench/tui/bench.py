@@ -76,6 +76,7 @@ async def _keystrokes(cases: int) -> list[float]:
     samples: list[float] = []
     async with app.run_test(size=TERMINAL) as pilot:
         screen = app.workbench_screen
+        await _until(lambda: bool(screen.query(f"#{field_id('fr')}")))  # mounted after frame 1
         box = screen.query_one(f"#{field_id('fr')}", Input)
         pane = screen.query_one(DerivationPane)
         box.focus()

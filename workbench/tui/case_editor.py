@@ -4,6 +4,11 @@ The editor never writes to the session itself: each edit is announced with
 :class:`CaseEditor.Changed` (field name and text) and the screen answers with
 :meth:`CaseEditor.reject` or :meth:`CaseEditor.accept`.  A rejected text stays in its box with
 the message beside it while the last valid value stays in force.
+
+Each field is a :class:`FieldRow` that draws its label, and its text until the text box is
+mounted over it.  The text boxes (an ``Input`` styles as about six plain widgets) are mounted
+just after the first frame, showing the same text, so the screen appears at once and the rows
+become editable a moment later.
 """
 
 from __future__ import annotations
@@ -12,9 +17,10 @@ from collections.abc import Mapping, Sequence
 
 from textual import on
 from textual.app import ComposeResult
-from textual.containers import Horizontal, VerticalScroll
+from textual.containers import VerticalScroll
 from textual.content import Content
 from textual.message import Message
+from textual.reactive import reactive
 from textual.suggester import SuggestFromList
 from textual.widget import Widget
 from textual.widgets import Checkbox, Input, Label, Static
@@ -36,6 +42,7 @@ EDITOR_GROUPS: tuple[tuple[str, tuple[str, ...]], ...] = (
 NUDGEABLE_KINDS = ("quantity", "number", "fraction")
 SWITCH_TEXT = {True: "yes", False: "no"}
 FIELD_PREFIX = "field-"
+ROW_PREFIX = "row-"
 
 
 def field_id(name: str) -> str:
@@ -51,18 +58,84 @@ def _placeholder(spec: FieldSpec) -> str:
     return ""
 
 
-def _field_widget(spec: FieldSpec) -> Widget:
-    """The widget that edits one field: a ChoiceField for a fixed choice, a Checkbox for a switch,
-    an Input for numbers, quantities and the cleanliness level (which also takes an eC number)."""
+def _takes_text(spec: FieldSpec) -> bool:
+    """Numbers, quantities and the cleanliness level (which also takes an eC number) are typed."""
+    return spec.kind not in ("switch", "choice") or spec.name == "cleanliness"
+
+
+def _choice_widget(spec: FieldSpec) -> Widget:
+    """The widget that edits a fixed choice (a ChoiceField) or a switch (a Checkbox)."""
     if spec.kind == "switch":
-        return Checkbox("V = 1.2" if spec.name == "outer_ring_rotates" else "", compact=True,
-                        id=field_id(spec.name))
-    if spec.kind == "choice" and spec.name != "cleanliness":
-        return ChoiceField(spec.choices, title=spec.label, allow_blank=not spec.required,
-                           id=field_id(spec.name))
+        widget: Widget = Checkbox("V = 1.2" if spec.name == "outer_ring_rotates" else "",
+                                  compact=True, id=field_id(spec.name))
+    else:
+        widget = ChoiceField(spec.choices, title=spec.label, allow_blank=not spec.required,
+                             id=field_id(spec.name))
+    widget.tooltip = spec.hint or None
+    return widget
+
+
+def _text_box(spec: FieldSpec) -> Input:
+    """The text box of a typed field."""
     suggester = SuggestFromList(spec.choices) if spec.choices else None
-    return Input(placeholder=_placeholder(spec), compact=True, suggester=suggester,
-                 id=field_id(spec.name), select_on_focus=False)
+    box = Input(placeholder=_placeholder(spec), compact=True, suggester=suggester,
+                id=field_id(spec.name), select_on_focus=False)
+    box.tooltip = spec.hint or None
+    return box
+
+
+LABEL_WIDTH = 20
+
+
+def _words_that_fit(text: str, width: int) -> str:
+    """The leading words of ``text`` that fit in ``width`` cells (as a text box wraps its hint)."""
+    if len(text) <= width:
+        return text
+    cut = text.rfind(" ", 0, width + 1)
+    return text[:cut] if cut > 0 else text[:width]
+
+
+class FieldRow(Widget):
+    """One field: its label, then its editing widget (or, until that is mounted, its text)."""
+
+    COMPONENT_CLASSES = {"field-row--hint"}
+    DEFAULT_CSS = f"""
+    FieldRow {{
+        height: 1;
+        layout: horizontal;
+        color: $text-muted;
+        & > * {{
+            margin-left: {LABEL_WIDTH};
+            width: 1fr;
+        }}
+        & > .field-row--hint {{
+            color: $text-disabled;
+            background: $surface;
+        }}
+    }}
+    """
+
+    text: reactive[str] = reactive("")
+    """The field's text as typed (what its text box shows)."""
+
+    def __init__(self, label: str, placeholder: str = "", *, id: str | None = None) -> None:
+        super().__init__(id=id)
+        self._label = label
+        self._placeholder = placeholder
+
+    def render(self) -> Content:
+        """The label in the label column; the text (or the hint, dim) where the box will sit,
+        drawn as the text box draws them."""
+        label = Content(f" {self._label[:LABEL_WIDTH - 2]:<{LABEL_WIDTH - 2}} ")
+        if self.children:
+            return label
+        width = max(0, self.size.width - LABEL_WIDTH)
+        if self.text:
+            shown = Content.styled(self.text, "$foreground on $surface")
+        else:
+            shown = Content.styled(_words_that_fit(self._placeholder, width),
+                                   self.get_visual_style("field-row--hint"))
+        return Content.assemble(label, shown.truncate(width, pad=True).stylize("on $surface"))
 
 
 class CaseEditor(VerticalScroll):
@@ -103,17 +176,30 @@ class CaseEditor(VerticalScroll):
         for title, names in EDITOR_GROUPS:
             yield Label(title, classes="group-title", id=f"group-{title.split()[0].lower()}")
             if title == "Bearing":
-                with Horizontal(classes="field-row"):
-                    yield Label("Bearing used", classes="field-label")
+                with FieldRow("Bearing used", id="row-bearing"):
                     yield ChoiceField([], title="Bearing used", prompt="(none)",
                                       id="bearing-choice")
             for name in names:
                 spec = FIELD_BY_NAME[name]
-                with Horizontal(classes="field-row"):
-                    yield Label(spec.label, classes="field-label")
-                    widget = _field_widget(spec)
-                    widget.tooltip = spec.hint or None
-                    yield widget
+                if _takes_text(spec):
+                    yield FieldRow(spec.label, _placeholder(spec), id=ROW_PREFIX + name)
+                else:
+                    with FieldRow(spec.label, id=ROW_PREFIX + name):
+                        yield _choice_widget(spec)
+
+    def on_mount(self) -> None:
+        """Mount the text boxes once the first frame is painted."""
+        self.call_after_refresh(self._mount_text_boxes)
+
+    async def _mount_text_boxes(self) -> None:
+        """A text box over each typed field's row, showing the row's text."""
+        rows = [(row, FIELD_BY_NAME[(row.id or "").removeprefix(ROW_PREFIX)])
+                for row in self.query(FieldRow) if not row.children]
+        mounting = [row.mount(_text_box(spec)) for row, spec in rows]
+        for waiting in mounting:
+            await waiting
+        for row, spec in rows:
+            self._set_widget(spec.name, row.text)
 
     # ---- what the screen tells the editor ---------------------------------------------------
     def load(self, texts: Mapping[str, str], bearings: Sequence[str], bearing: str | None,
@@ -122,7 +208,7 @@ class CaseEditor(VerticalScroll):
         self._rejected.clear()
         empty = not texts
         self.query_one("#editor-empty").display = empty
-        for row in self.query(".field-row, .group-title"):
+        for row in self.query("FieldRow, .group-title"):
             row.display = not empty
         if empty:
             self._show_messages()
@@ -141,7 +227,11 @@ class CaseEditor(VerticalScroll):
         self._show_messages()
 
     def _set_widget(self, name: str, text: str) -> None:
-        widget = self.query_one(f"#{field_id(name)}")
+        self.query_one(f"#{ROW_PREFIX}{name}", FieldRow).text = text
+        found = self.query(f"#{field_id(name)}")
+        if not found:
+            return  # a text box not mounted yet: it starts from the row's text
+        widget = found.first()
         if isinstance(widget, Input):
             with widget.prevent(Input.Changed):
                 widget.value = text
@@ -183,9 +273,7 @@ class CaseEditor(VerticalScroll):
             assert isinstance(line, Static)
             return line
         line = Static("", classes="field-message", id=f"message-{name}")
-        row = self.query_one(f"#{field_id(name)}").parent
-        assert isinstance(row, Widget)
-        self.mount(line, after=row)
+        self.mount(line, after=self.query_one(f"#{ROW_PREFIX}{name}", FieldRow))
         return line
 
     def _show_messages(self) -> None:
@@ -196,7 +284,7 @@ class CaseEditor(VerticalScroll):
             if (line.id or "").removeprefix("message-") not in shown:
                 line.display = False
         for name, (text, kind) in shown.items():
-            if not self.query(f"#{field_id(name)}"):
+            if not self.query(f"#{ROW_PREFIX}{name}"):
                 continue  # a case error about an input the editor has no field for
             line = self._message_line(name)
             line.set_class(kind == "-rejected", "-rejected")
@@ -214,7 +302,10 @@ class CaseEditor(VerticalScroll):
 
     def field_text(self, field: str) -> str:
         """What the field's widget shows now, as text."""
-        widget = self.query_one(f"#{field_id(field)}")
+        found = self.query(f"#{field_id(field)}")
+        if not found:
+            return self.query_one(f"#{ROW_PREFIX}{field}", FieldRow).text
+        widget = found.first()
         if isinstance(widget, Input):
             return widget.value
         if isinstance(widget, ChoiceField):
@@ -233,8 +324,9 @@ class CaseEditor(VerticalScroll):
         return focused.id.removeprefix(FIELD_PREFIX)
 
     def focus_field(self, field: str) -> None:
-        """Move the focus to ``field``'s widget."""
-        self.query_one(f"#{field_id(field)}").focus()
+        """Move the focus to ``field``'s widget (nothing while its text box is still to come)."""
+        for widget in self.query(f"#{field_id(field)}"):
+            widget.focus()
 
     def focus_first(self) -> None:
         """Focus the first field (or the editor itself when there is no case)."""

@@ -82,6 +82,7 @@ class ChoiceField(Widget, can_focus=True):
     ChoiceField {
         height: 1;
         width: 1fr;
+        color: $foreground;
         background: $surface;
         &:focus {
             background: $block-cursor-background;
