@@ -105,7 +105,8 @@ class Derivation:
 
     def __init__(self, keep_steps: bool = True) -> None:
         self.keep_steps = keep_steps  # False: results and warnings only (solver, sensitivity)
-        self._raw: list[tuple[Any, ...]] = []
+        self._raw: list[tuple[str, float, str | None, StepWords]] = []
+        """(key, value, warning, words) of each step, made into :class:`Step` when read."""
         self._steps: list[Step] | None = None
         self.results: dict[str, float] = {}
         self.warnings: list[str] = []
@@ -128,8 +129,8 @@ class Derivation:
     ) -> float:
         """Append a step (and, unless ``result`` is false, record it under ``key``); return value."""
         if self.keep_steps:
-            self._raw.append((key, symbol, label, formula, template, args, value, unit, source,
-                              warning, note))
+            self._raw.append((key, value, warning,
+                              (symbol, label, formula, template, args, unit, source, note)))
             self._steps = None
         if result:
             self.results[key] = value
@@ -142,9 +143,7 @@ class Derivation:
         """Record ``value`` under ``key`` with its warning, and its step from ``explain()``, which
         is called only when the steps are kept; return value."""
         if self.keep_steps:
-            symbol, label, formula, template, args, unit, source, note = explain()
-            self._raw.append((key, symbol, label, formula, template, args, value, unit, source,
-                              warning, note))
+            self._raw.append((key, value, warning, explain()))
             self._steps = None
         self.results[key] = value
         if warning is not None:
@@ -155,14 +154,14 @@ class Derivation:
     def steps(self) -> list[Step]:
         """The steps in order (built on first read)."""
         if self._steps is None:
-            self._steps = [Step(*raw) for raw in self._raw]
+            self._steps = [_step_of(raw) for raw in self._raw]
         return self._steps
 
     def peek(self, key: str) -> Step | None:
         """The last step recorded under ``key``, built alone (cheap), or None if there is none."""
         for raw in reversed(self._raw):
             if raw[0] == key:
-                return Step(*raw)
+                return _step_of(raw)
         return None
 
     def step(self, key: str) -> Step:
@@ -175,7 +174,7 @@ class Derivation:
     @property
     def sources(self) -> list[str]:
         """Every distinct source cited, in order of first use."""
-        return list(dict.fromkeys(raw[8] for raw in self._raw))
+        return list(dict.fromkeys(raw[3][6] for raw in self._raw))
 
     def as_dict(self) -> dict[str, Any]:
         """Plain data: ``results``, ``steps``, ``warnings``, ``notes``, ``sources``."""
@@ -186,3 +185,9 @@ class Derivation:
             "notes": list(self.notes),
             "sources": self.sources,
         }
+
+
+def _step_of(raw: tuple[str, float, str | None, StepWords]) -> Step:
+    """The :class:`Step` of one stored (key, value, warning, words)."""
+    key, value, warning, (symbol, label, formula, template, args, unit, source, note) = raw
+    return Step(key, symbol, label, formula, template, args, value, unit, source, warning, note)
