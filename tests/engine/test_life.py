@@ -111,3 +111,11 @@ def test_fatigue_load_limit_estimate() -> None:
     """Cu ≈ C0/22 (ball) or C0/8.2 (roller), reduced above dpw = 100 mm (ISO 281 Annex B, from memory)."""
     assert fatigue_load_limit_estimate(22000.0, 80.0, False) == pytest.approx(1000.0)
     assert fatigue_load_limit_estimate(8200.0, 400.0, True) == pytest.approx(1000.0 * 0.25 ** 0.3)
+
+
+def test_a_vanishing_load_gives_an_infinite_life_not_an_overflow() -> None:
+    """(C/P)^3 with C/P ≈ 1e225 exceeds the largest float (about 1.8e308, IEEE 754 double):
+    the relation of ISO 281:2007 §7 sets no limit, so the life is infinite; arrays agree."""
+    assert basic_rating_life(5000.0, 4.6e-222, 3.0) == math.inf
+    lives = basic_rating_life(np.array([5000.0, 5000.0]), np.array([4.6e-222, 5000.0]), 3.0)
+    assert lives[0] == math.inf and lives[1] == 1.0

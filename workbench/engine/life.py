@@ -16,8 +16,21 @@ KAPPA_MIN, KAPPA_MAX = 0.1, 4.0
 
 
 def basic_rating_life(c: Num, p_eff: Num, exponent: float) -> Num:
-    """L10 = (C/P)^p in million revolutions (ISO 281:2007 §5.3–§8.3); P here already includes af."""
-    return (c / p_eff) ** exponent
+    """L10 = (C/P)^p in million revolutions (ISO 281:2007 §5.3–§8.3); P here already includes af.
+
+    A load so small that (C/P)^p exceeds the largest float gives an infinite life (the relation
+    sets no limit), not an overflow: numpy arrays give inf there too.
+    """
+    ratio = c / p_eff
+    if is_array(ratio):
+        import numpy as np
+
+        with np.errstate(over="ignore"):
+            return ratio ** exponent
+    try:
+        return ratio ** exponent
+    except OverflowError:
+        return math.inf
 
 
 def life_hours(life_mrev: Num, speed_rpm: Num) -> Num:
