@@ -226,3 +226,14 @@ def test_as_dict_keys_and_text() -> None:
 def test_benchmark_reports_milliseconds() -> None:
     figures = benchmark_sensitivity(repeats=3)
     assert figures["sensitivity_ms"] > 0
+
+
+def test_a_life_that_underflows_to_zero_has_no_elasticity_and_no_crash() -> None:
+    """C = 1e-200 N against P = 1e12 N: (C/P)^3 underflows to 0 (IEEE 754 double), so
+    ln L is undefined on both sides; the items say so instead of dividing by zero."""
+    case = CaseInputs(kind="deep-groove", fr=1e12, fa=0.0, c=1e-200, c0=1e6, speed=1500.0)
+    items = {item.input: item for item in sensitivity_of(case)}
+    assert items["fr"].elasticity is None and items["fr"].minus10 is None
+    assert "no elasticity" in items["fr"].note
+    # s0 = C0/P0 = C0/Fr stays finite: its elasticity to Fr is −1 exactly (ISO 76 s0 = C0/P0)
+    assert items["fr"].elasticity_s0 == pytest.approx(-1.0, rel=1e-6)

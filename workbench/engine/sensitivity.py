@@ -273,7 +273,16 @@ def _changed(before: tuple[tuple[str, object], ...], after: tuple[tuple[str, obj
 
 
 def _log(numerator: float, denominator: float) -> float:
-    return math.log(numerator / denominator)
+    """ln(numerator/denominator); NaN where a value is zero or unbounded (no elasticity there)."""
+    if not denominator > 0.0:
+        return math.nan
+    ratio = numerator / denominator
+    return math.log(ratio) if 0.0 < ratio < math.inf else math.nan
+
+
+def _finite(value: float | None) -> float | None:
+    """None for a difference that came out undefined (a life of 0 or ∞ on one side)."""
+    return value if value is not None and math.isfinite(value) else None
 
 
 def _item(spec: _Input, value: float, runner: _Runner, step: float, life_word: str,
@@ -286,6 +295,9 @@ def _item(spec: _Input, value: float, runner: _Runner, step: float, life_word: s
     notes = [note] if note else []
     if note_s0 and note_s0 != note:
         notes.append("s0: " + note_s0)
+    if elasticity is not None and _finite(elasticity) is None:
+        notes.append("the life is 0 or unbounded here: no elasticity")
+    elasticity, elasticity_s0 = _finite(elasticity), _finite(elasticity_s0)
     minus, plus = runner.at(spec.name, 1.0 - SWING), runner.at(spec.name, 1.0 + SWING)
     for point, word in ((minus, "−10 %"), (plus, "+10 %")):
         if point is None:
@@ -304,7 +316,9 @@ def _item(spec: _Input, value: float, runner: _Runner, step: float, life_word: s
 
 
 def _relative(point: _Point | None, base: _Point) -> float | None:
-    return None if point is None else point.life / base.life - 1.0
+    if point is None or not 0.0 < base.life < math.inf:
+        return None
+    return _finite(point.life / base.life - 1.0)
 
 
 def _rating_item(case: CaseInputs, spec: _Input, value: float, life_word: str) -> SensitivityItem:
