@@ -138,3 +138,19 @@ def test_life_peak_just_past_the_e_switch_is_found() -> None:
     sol = solve(BASE, "fa", "L10h", wanted)
     achieved = derive(apply_unknown(BASE, "fa", sol.value)).results["L10h"]
     assert achieved == pytest.approx(wanted, rel=1e-9)
+
+
+@pytest.mark.parametrize(("case", "unknown", "target", "value"), [
+    # L10 ≈ 1e-45 against a target of 1e300: L/target underflows a double (IEEE 754)
+    (CaseInputs(kind="angular-contact", fr=0.001, fa=1e-300, c=1e-12, c0=0.001, speed=0.0),
+     "fa", "L10", 1e300),
+    # a reachable range wider than the largest double: its top end is ∞, not an overflow
+    (CaseInputs(kind="angular-contact", fr=0.0, fa=0.001, c=1.0, c0=1e6, speed=10.0, nu=1e200,
+                dm=1e-300, ec=1.0), "af", "Lnm_mrev", 1e-300),
+])
+def test_extreme_questions_get_a_plain_answer(case: CaseInputs, unknown: str, target: str,
+                                              value: float) -> None:
+    """Found by a random sweep over extreme inputs: these used to end in a bare math error."""
+    with pytest.raises(NoSolution) as caught:
+        solve(case, unknown, target, value)
+    assert caught.value.message

@@ -134,6 +134,7 @@ def solve(case: CaseInputs, unknown: str, target: str, target_value: float) -> S
     if target in ("L10h", "Lnm") and unknown != "speed" and case.speed <= 0:
         raise NoSolution("speed", "speed is 0, so a life in hours is undefined: give a speed")
     counter = [0]
+    log_target = math.log(target_value)
 
     branches: dict[float, bool | None] = {}  # u → on the Fa/Fr > e branch (None: no switch)
     switches: list[tuple[float, float]] = []  # (u, u) bracketing each e switch, ~1e-6 apart
@@ -155,7 +156,7 @@ def solve(case: CaseInputs, unknown: str, target: str, target_value: float) -> S
         value = result_at(u)
         if math.isnan(value) or value <= 0 or math.isinf(value):
             return math.nan if math.isnan(value) else (math.inf if value > 0 else -math.inf)
-        return math.log(value / target_value)
+        return math.log(value) - log_target  # not log(value/target): the ratio can underflow
 
     def with_switches(grid: list[float], values: list[float]) -> tuple[list[float], list[float]]:
         """Add the points either side of each e switch between grid points: P is piecewise and
@@ -255,12 +256,20 @@ def _brent(residual: Callable[[float], float], a: float, b: float, log: bool) ->
     return float(brentq(residual, a, b, xtol=xtol, maxiter=200))
 
 
+def _exp(log_value: float) -> float:
+    """e^x, infinite where it exceeds the largest float (a reachable range can be that wide)."""
+    try:
+        return math.exp(log_value)
+    except OverflowError:
+        return math.inf
+
+
 def _no_root(spec: Unknown, target: str, target_value: float, lo: float, hi: float) -> NoSolution:
     """A plain message naming the range the target can take over the unknown's whole span."""
     label, unit = TARGETS[target]
     if math.isnan(lo):
         return NoSolution(spec.name, f"no {spec.label} gives a valid case; check the other inputs")
-    low_v, high_v = target_value * math.exp(lo), target_value * math.exp(hi)
+    low_v, high_v = (_exp(math.log(target_value) + residual) for residual in (lo, hi))
     return NoSolution(
         spec.name,
         f"no {spec.label} reaches {target} = {fmt(target_value)} {unit}: over its range the "
