@@ -50,7 +50,7 @@ class WorkbenchApp(App[int]):
         self._our_themes: list[str] = []
         self._remember_theme = False
         self._theme_problem = self._install_themes()
-        self.keymap: dict[str, str] = {}
+        self.personal_keymap: dict[str, str] = {}
         """The person's keys in force (action id → keys), from ``keys.toml``."""
         self._keymap_problems = self._install_keymap()
 
@@ -100,8 +100,8 @@ class WorkbenchApp(App[int]):
     def _install_keymap(self) -> list[str]:
         """Move the actions named in the person's key table to their keys; what was refused."""
         table, unreadable = settings.key_table()
-        self.keymap, problems = check_keymap(table)
-        self.set_keymap(self.keymap)
+        self.personal_keymap, problems = check_keymap(table)
+        self.set_keymap(self.personal_keymap)
         return [unreadable] if unreadable else problems
 
     def watch_theme(self, name: str) -> None:
@@ -122,7 +122,7 @@ class WorkbenchApp(App[int]):
     def action_help(self) -> None:
         """Show every key and what it does."""
         if not isinstance(self.screen, HelpScreen):
-            self.push_screen(HelpScreen(self.keymap))
+            self.push_screen(HelpScreen(self.personal_keymap))
 
     def action_about(self) -> None:
         """Show the standards and the safety caution."""

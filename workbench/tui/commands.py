@@ -27,7 +27,7 @@ class WorkbenchCommands(Provider):
         return run
 
     def _title(self, action: Action) -> str:
-        keymap = getattr(self.app, "keymap", None)
+        keymap = getattr(self.app, "personal_keymap", None)
         return f"{action.title}  ({action.key_text(keymap)})"
 
     async def discover(self) -> Hits:
