@@ -99,15 +99,6 @@ def test_system_life_against_scipy_weibull() -> None:
         assert product == pytest.approx(weibull_min.sf(life, e, scale=system_scale), rel=1e-12)
 
 
-def test_system_functions_vectorise_over_cases() -> None:
-    lives = np.array([[1000.0, 2000.0], [3000.0, 500.0]])  # axis 0: bearings, axis 1: cases
-    got = system_life(lives, 1.1)
-    for case in range(2):
-        assert got[case] == pytest.approx(system_life(lives[:, case], 1.1), rel=1e-12)
-    np.testing.assert_allclose(system_reliability(np.array([[0.9, 0.99], [0.95, 0.5]])),
-                               [0.9 * 0.95, 0.99 * 0.5], rtol=1e-12)
-
-
 @pytest.mark.parametrize("call, field", [
     (lambda: mean_equivalent_load(LOADS, TIME_SHARES, 3.0), "speeds"),
     (lambda: mean_equivalent_load(LOADS, [0.5, 0.5], 3.0, [1.0, 2.0]), "shares"),

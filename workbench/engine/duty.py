@@ -6,18 +6,18 @@
   lives of common slope e: R_sys = ΠRi and L10,sys = (Σ L10,i^(−e))^(−1/e).
 
 Shares are weights: they are normalised to sum 1, so percentages work as well as fractions.
+A cycle has a handful of states and a system a handful of bearings, so these work on plain
+floats (math.fsum), not arrays.
 """
 
 from __future__ import annotations
 
+import math
 from dataclasses import dataclass
-from typing import TYPE_CHECKING, Literal, Sequence
+from typing import Literal, Sequence
 
 from .gears import checked
 from .record import InputError
-
-if TYPE_CHECKING:  # numpy is imported by the functions that build arrays
-    import numpy as np
 
 ShareBasis = Literal["time", "revolutions"]
 
@@ -31,128 +31,108 @@ class MinerLife:
     """Life under the duty cycle and each state's share of the damage (shares sum to 1)."""
 
     life: float
-    damage_shares: np.ndarray
+    damage_shares: tuple[float, ...]
 
 
-def _as_array(field_name: str, values: Sequence[float] | np.ndarray) -> np.ndarray:
-    """``values`` as a float array whose axis 0 (one entry per state or bearing) is not empty."""
-    import numpy as np
-
+def _numbers(field_name: str, values: Sequence[float]) -> tuple[float, ...]:
+    """``values`` (one per state or bearing: a handful, so plain floats) as a non-empty tuple."""
     try:
-        array = np.asarray(values, dtype=float)
-    except (TypeError, ValueError):
+        numbers = tuple(float(value) for value in values)
+    except TypeError:
+        raise InputError(field_name, "needs a flat list of numbers") from None
+    except ValueError:
         raise InputError(field_name, "needs a list of numbers") from None
-    if array.ndim == 0 or array.shape[0] == 0:
+    if not numbers:
         raise InputError(field_name, "needs a non-empty list of numbers")
-    return array
+    return numbers
 
 
-def _vector(field_name: str, values: Sequence[float] | np.ndarray, *, low_open: bool = False,
-            allow_infinite: bool = False) -> np.ndarray:
-    """A non-empty 1-D float array with every element ≥ 0 (> 0 if ``low_open``); +∞ if allowed."""
-    import numpy as np
-
-    array = _as_array(field_name, values)
-    if array.ndim != 1:
-        raise InputError(field_name, "needs a flat list of numbers")
-    checked(field_name, array[~np.isposinf(array)] if allow_infinite else array, low=0.0,
-            low_open=low_open)
-    return array
+def _vector(field_name: str, values: Sequence[float], *, low_open: bool = False,
+            allow_infinite: bool = False) -> tuple[float, ...]:
+    """A non-empty list of floats, each ≥ 0 (> 0 if ``low_open``), +∞ too if allowed."""
+    numbers = _numbers(field_name, values)
+    for number in numbers:
+        if not (allow_infinite and number == math.inf):
+            checked(field_name, number, low=0.0, low_open=low_open)
+    return numbers
 
 
-def _weights(field_name: str, shares: Sequence[float] | np.ndarray, size: int) -> np.ndarray:
+def _weights(field_name: str, shares: Sequence[float], size: int) -> tuple[float, ...]:
     """Shares as fractions summing to 1, after checking there is one per state."""
-    array = _vector(field_name, shares)
-    if array.size != size:
-        raise InputError(field_name, f"needs one share per state ({size}), got {array.size}")
-    total = float(array.sum())
+    weights = _vector(field_name, shares)
+    if len(weights) != size:
+        raise InputError(field_name, f"needs one share per state ({size}), got {len(weights)}")
+    total = math.fsum(weights)
     if total <= 0.0:
         raise InputError(field_name, "the weights add up to zero")
-    return array / total
+    return tuple(weight / total for weight in weights)
 
 
-def revolution_shares(shares: Sequence[float] | np.ndarray,
-                      speeds: Sequence[float] | np.ndarray | None = None,
-                      share_basis: ShareBasis = "time") -> np.ndarray:
+def revolution_shares(shares: Sequence[float], speeds: Sequence[float] | None = None,
+                      share_basis: ShareBasis = "time") -> tuple[float, ...]:
     """Revolution shares ui of the states: ui = ti·ni/Σ tj·nj from time shares, else normalised.
 
     Palmgren–Miner summation runs over revolutions; a state's revolutions are its time share
     times its speed.
     """
     if share_basis == "revolutions":
-        return _weights("shares", shares, _as_array("shares", shares).shape[0])
+        return _weights("shares", shares, len(_numbers("shares", shares)))
     if share_basis != "time":
         raise InputError("share_basis", f"use 'time' or 'revolutions', not {share_basis!r}")
     if speeds is None:
         raise InputError("speeds", "time shares need the speed of each state")
     speed = _vector("speeds", speeds)
-    time = _weights("shares", shares, speed.size)
-    return _weights("speeds", time * speed, speed.size)
+    time = _weights("shares", shares, len(speed))
+    return _weights("speeds", [t * n for t, n in zip(time, speed)], len(speed))
 
 
-def mean_speed(speeds: Sequence[float] | np.ndarray, time_shares: Sequence[float] | np.ndarray) -> float:
+def mean_speed(speeds: Sequence[float], time_shares: Sequence[float]) -> float:
     """Time-weighted mean speed nm = Σ ti·ni (r/min), for converting a duty-cycle life to hours."""
-    import numpy as np
-
     speed = _vector("speeds", speeds)
-    return float(np.dot(_weights("shares", time_shares, speed.size), speed))
+    return math.fsum(t * n for t, n in zip(_weights("shares", time_shares, len(speed)), speed))
 
 
-def mean_equivalent_load(loads: Sequence[float] | np.ndarray, shares: Sequence[float] | np.ndarray,
-                         p: float, speeds: Sequence[float] | np.ndarray | None = None,
+def mean_equivalent_load(loads: Sequence[float], shares: Sequence[float], p: float,
+                         speeds: Sequence[float] | None = None,
                          share_basis: ShareBasis = "time") -> float:
     """Pm = (Σ ui·Pi^p)^(1/p), the Palmgren–Miner mean equivalent load of a duty cycle.
 
     ``p`` is the life exponent (3 ball, 10/3 roller); ``shares`` are time shares (with ``speeds``)
     or revolution shares, as ``share_basis`` says.
     """
-    import numpy as np
-
     load = _vector("loads", loads)
     checked("life_exponent", p, low=0.0, low_open=True)
     weights = revolution_shares(shares, speeds, share_basis)
-    if weights.size != load.size:
-        raise InputError("shares", f"needs one share per state ({load.size}), got {weights.size}")
-    return float(np.dot(weights, load ** p) ** (1.0 / p))
+    if len(weights) != len(load):
+        raise InputError("shares", f"needs one share per state ({len(load)}), got {len(weights)}")
+    return math.fsum(u * f ** p for u, f in zip(weights, load)) ** (1.0 / p)
 
 
-def miner_life(lives: Sequence[float] | np.ndarray, shares: Sequence[float] | np.ndarray) -> MinerLife:
+def miner_life(lives: Sequence[float], shares: Sequence[float]) -> MinerLife:
     """Palmgren–Miner life 1/L = Σ ui/Li and the damage share (ui/Li)/Σ(uj/Lj) of each state.
 
     ``shares`` must be in the measure of ``lives``: revolution shares with lives in revolutions,
     time shares with lives in hours.  A state of infinite life does no damage.
     """
-    import numpy as np
-
     life = _vector("lives", lives, low_open=True, allow_infinite=True)
-    weights = _weights("shares", shares, life.size)
-    damage = weights / life
-    total = float(damage.sum())
+    damage = [u / l for u, l in zip(_weights("shares", shares, len(life)), life)]
+    total = math.fsum(damage)
     if total == 0.0:
-        return MinerLife(float("inf"), np.zeros_like(damage))
-    return MinerLife(1.0 / total, damage / total)
+        return MinerLife(math.inf, (0.0,) * len(damage))
+    return MinerLife(1.0 / total, tuple(share / total for share in damage))
 
 
-def system_life(lives: Sequence[float] | np.ndarray, weibull_slope: float) -> float | np.ndarray:
-    """L10,sys = (Σ L10,i^(−e))^(−1/e): series system of two-parameter Weibull lives of slope e.
-
-    Axis 0 of ``lives`` runs over the bearings; further axes (cases) are kept.
-    """
-    import numpy as np
-
+def system_life(lives: Sequence[float], weibull_slope: float) -> float:
+    """L10,sys = (Σ L10,i^(−e))^(−1/e): series system of two-parameter Weibull lives of slope e."""
     checked("weibull_slope", weibull_slope, low=0.0, low_open=True)
-    life = _as_array("lives", lives)
-    checked("lives", life[~np.isposinf(life)], low=0.0, low_open=True)
-    with np.errstate(divide="ignore"):
-        result = np.sum(life ** -weibull_slope, axis=0) ** (-1.0 / weibull_slope)
-    return float(result) if result.ndim == 0 else result
+    life = _vector("lives", lives, low_open=True, allow_infinite=True)
+    total = math.fsum(l ** -weibull_slope for l in life)
+    return total ** (-1.0 / weibull_slope) if total > 0.0 else math.inf
 
 
-def system_reliability(reliabilities: Sequence[float] | np.ndarray) -> float | np.ndarray:
-    """R_sys = ΠRi for bearings in series (independent failures); axis 0 runs over the bearings."""
-    import numpy as np
-
-    reliability = _as_array("reliabilities", reliabilities)
-    checked("reliabilities", reliability, low=0.0, high=1.0)
-    result = np.prod(reliability, axis=0)
-    return float(result) if result.ndim == 0 else result
+def system_reliability(reliabilities: Sequence[float]) -> float:
+    """R_sys = ΠRi for bearings in series (independent failures)."""
+    reliability = _numbers("reliabilities", reliabilities)
+    for value in reliability:
+        checked("reliabilities", value, low=0.0, high=1.0)
+    return math.prod(reliability)

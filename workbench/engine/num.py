@@ -3,42 +3,55 @@
 The physics is written once on top of these, so the scalar derivation and the vectorised
 catalog sweep share one copy of every formula.  On floats they use plain Python (a numpy call
 on a scalar costs about a microsecond, which the per-case budget cannot afford); on arrays they
-use numpy.  numpy is imported here, eagerly: testing against a lazily looked-up array type made
-every scalar derivation half as slow again, and the screen loads numpy at start anyway (duty
-cycles and system life use arrays).
+use numpy.  numpy is not imported here: a value is an array only if numpy is already loaded (no
+array can exist before), so the screen starts without numpy's import, and a Python number is
+recognised first, at the cost of one ``isinstance``.
 """
 
 from __future__ import annotations
 
+import sys
 from bisect import bisect_right
-from typing import Sequence, TypeAlias, Union
+from typing import TYPE_CHECKING, Sequence, TypeAlias, Union
 
-import numpy as np
+if TYPE_CHECKING:
+    import numpy as np
 
-Num: TypeAlias = Union[float, np.ndarray]
+Num: TypeAlias = Union[float, "np.ndarray"]
+
+_PYTHON_NUMBER = (float, int)  # bool is an int; numpy's float64 is a float
 
 
-_ARRAY = np.ndarray
+def _is_ndarray(value: object) -> bool:
+    """True when ``value`` is a numpy array (numpy need not be loaded)."""
+    if isinstance(value, _PYTHON_NUMBER):
+        return False
+    numpy = sys.modules.get("numpy")
+    return numpy is not None and isinstance(value, numpy.ndarray)
 
 
 def is_array(*values: object) -> bool:
     """True when any value is a numpy array (then the array path is taken)."""
     for v in values:
-        if isinstance(v, _ARRAY):
+        if _is_ndarray(v):
             return True
     return False
 
 
 def where(condition: object, if_true: Num, if_false: Num) -> Num:
     """``if_true`` where ``condition`` holds, else ``if_false`` (elementwise on arrays)."""
-    if isinstance(condition, _ARRAY) or isinstance(if_true, _ARRAY) or isinstance(if_false, _ARRAY):
+    if _is_ndarray(condition) or _is_ndarray(if_true) or _is_ndarray(if_false):
+        import numpy as np
+
         return np.where(condition, if_true, if_false)
     return if_true if condition else if_false
 
 
 def interp(x: Num, xp: Sequence[float], fp: Sequence[float]) -> Num:
     """Linear interpolation in a table, clamped at its ends (callers warn about clamping)."""
-    if isinstance(x, np.ndarray):
+    if _is_ndarray(x):
+        import numpy as np
+
         return np.interp(x, xp, fp)
     if x <= xp[0]:
         return float(fp[0])
@@ -52,21 +65,27 @@ def interp(x: Num, xp: Sequence[float], fp: Sequence[float]) -> Num:
 
 def minimum(a: Num, b: Num) -> Num:
     """Elementwise minimum."""
-    if isinstance(a, _ARRAY) or isinstance(b, _ARRAY):
+    if _is_ndarray(a) or _is_ndarray(b):
+        import numpy as np
+
         return np.minimum(a, b)
     return a if a < b else b
 
 
 def maximum(a: Num, b: Num) -> Num:
     """Elementwise maximum."""
-    if isinstance(a, _ARRAY) or isinstance(b, _ARRAY):
+    if _is_ndarray(a) or _is_ndarray(b):
+        import numpy as np
+
         return np.maximum(a, b)
     return a if a > b else b
 
 
 def safe_ratio(numerator: Num, denominator: Num) -> Num:
     """numerator/denominator, +inf where the denominator is zero and the numerator positive, 0 for 0/0."""
-    if isinstance(numerator, _ARRAY) or isinstance(denominator, _ARRAY):
+    if _is_ndarray(numerator) or _is_ndarray(denominator):
+        import numpy as np
+
         num = np.asarray(numerator, dtype=float)
         den = np.asarray(denominator, dtype=float)
         with np.errstate(divide="ignore", invalid="ignore"):

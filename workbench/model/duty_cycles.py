@@ -37,7 +37,7 @@ from __future__ import annotations
 import math
 from collections.abc import Mapping, Sequence
 from dataclasses import dataclass, field
-from typing import TYPE_CHECKING, Any
+from typing import Any
 
 from ..engine import duty
 from ..engine.kinds import ROLLER_KINDS, parse_kind
@@ -50,9 +50,6 @@ from .toml_tables import checked_table, named_tables, required_name, table_list,
 from .shafts import (
     SIDES, Shaft, case_name, shaft_cases,
 )
-
-if TYPE_CHECKING:  # numpy is imported by the functions that build arrays
-    import numpy as np
 
 BASES = ("time", "revolutions")
 CYCLE_KEYS = ("name", "basis", "states")
@@ -176,8 +173,6 @@ def duty_life(session: Session, cycle: DutyCycle, cases: Sequence[LoadCase] = ()
     shafts).  Raises FieldError naming ``<key>.states[n]…`` when a state cannot be evaluated, when
     the states load different bearings or are derived at different reliabilities.
     """
-    import numpy as np
-
     if cycle.basis not in BASES:
         raise FieldError(f"{key}.basis", f"use 'time' or 'revolutions', not {cycle.basis!r}")
     if not cycle.states:
@@ -206,30 +201,28 @@ def duty_life(session: Session, cycle: DutyCycle, cases: Sequence[LoadCase] = ()
         results.append(result)
         speeds_list.append(result.inputs.speed)
         lives_list.append(result.derivation.results["Lnm_mrev"])
-    speeds, lives = np.array(speeds_list), np.array(lives_list)
-    weights = np.asarray(shares)
+    speeds, lives = tuple(speeds_list), tuple(lives_list)
     try:
-        u = duty.revolution_shares(weights, speeds, cycle.basis)  # type: ignore[arg-type]
+        u = duty.revolution_shares(shares, speeds, cycle.basis)  # type: ignore[arg-type]
         if cycle.basis == "revolutions":
-            if np.any((speeds <= 0.0) & (u > 0.0)):
+            if any(n <= 0.0 and share > 0.0 for n, share in zip(speeds, u)):
                 raise InputError("speeds", "a state at standstill makes no revolutions: "
                                            "give this cycle's shares on a time basis")
-            time_shares = np.where(u > 0.0, u / np.where(speeds > 0.0, speeds, 1.0), 0.0)
+            time_shares = [share / n if share > 0.0 else 0.0 for n, share in zip(speeds, u)]
         else:
-            time_shares = weights / weights.sum()
+            time_shares = shares
         miner = duty.miner_life(lives, u)
         n_mean = duty.mean_speed(speeds, time_shares)
     except InputError as exc:
         raise FieldError(f"{key}.states", f"{exc.field}: {exc.message}") from None
     d = Derivation()
-    _miner_steps(d, cycle, results, weights, speeds, lives, u, miner, n_mean)
+    _miner_steps(d, cycle, results, shares, speeds, lives, u, miner, n_mean)
     life_h = life_hours(miner.life, n_mean) if n_mean > 0.0 else math.nan
     d.add("L_h", "Lh", "Duty-cycle life in hours at the mean speed", "L·10⁶/(60·nm)",
           "{0} × 10⁶ / (60 × {1})", (miner.life, n_mean), life_h, "h",
           _step_source(results[0], "Lnm"))
-    return DutyResult(cycle, results[0].case.bearing, kind, tuple(results), tuple(lives_list),
-                      tuple(u.tolist()), tuple(miner.damage_shares.tolist()), miner.life, n_mean,
-                      life_h, reliability, d)
+    return DutyResult(cycle, results[0].case.bearing, kind, tuple(results), lives, u,
+                      miner.damage_shares, miner.life, n_mean, life_h, reliability, d)
 
 
 def _step_source(result: CaseResult, key: str) -> str:
@@ -239,34 +232,32 @@ def _step_source(result: CaseResult, key: str) -> str:
 
 
 def _miner_steps(d: Derivation, cycle: DutyCycle, results: Sequence[CaseResult],
-                 weights: np.ndarray, speeds: np.ndarray, lives: np.ndarray, u: np.ndarray,
-                 miner: duty.MinerLife, n_mean: float) -> None:
+                 weights: Sequence[float], speeds: Sequence[float], lives: Sequence[float],
+                 u: Sequence[float], miner: duty.MinerLife, n_mean: float) -> None:
     """Steps of the Palmgren–Miner summation: Li, ui, L, damage shares, mean speed."""
-    import numpy as np
-
     for i, result in enumerate(results, start=1):
         name = result.case.name
         d.add(f"L[{i}]", f"L{i}", f"Life of state {i} ({name})", "Lnm of the case",
-              "{0}", (float(lives[i - 1]),), float(lives[i - 1]), "10⁶ rev",
+              "{0}", (lives[i - 1],), lives[i - 1], "10⁶ rev",
               _step_source(result, "Lnm_mrev"))
-    total = float(weights.sum())
-    revolutions = float(np.dot(weights, speeds))
+    total = math.fsum(weights)
+    revolutions = math.fsum(w * n for w, n in zip(weights, speeds))
     for i in range(1, len(results) + 1):
         if cycle.basis == "time":
             d.add(f"u[{i}]", f"u{i}", f"Revolution share of state {i}", "ui = ti·ni/Σ tj·nj",
-                  "{0} × {1} / {2}", (weights[i - 1] / total, float(speeds[i - 1]),
+                  "{0} × {1} / {2}", (weights[i - 1] / total, speeds[i - 1],
                                       revolutions / total),
-                  float(u[i - 1]), "", MINER_SOURCE, note="time share × speed")
+                  u[i - 1], "", MINER_SOURCE, note="time share × speed")
         else:
             d.add(f"u[{i}]", f"u{i}", f"Revolution share of state {i}", "ui = si/Σ sj",
-                  "{0} / {1}", (float(weights[i - 1]), total), float(u[i - 1]), "", MINER_SOURCE)
-    damage = float(np.sum(u / lives))
+                  "{0} / {1}", (weights[i - 1], total), u[i - 1], "", MINER_SOURCE)
+    damage = math.fsum(share / life for share, life in zip(u, lives))
     d.add("L", "L", "Duty-cycle life", "1/L = Σ ui/Li", "1 / {0}", (damage,), miner.life,
           "10⁶ rev", MINER_SOURCE)
     for i in range(1, len(results) + 1):
-        share = float(miner.damage_shares[i - 1])
+        share = miner.damage_shares[i - 1]
         d.add(f"D[{i}]", f"D{i}", f"Share of the damage done in state {i}", "(ui/Li)/Σ(uj/Lj)",
-              "({0} / {1}) / {2}", (float(u[i - 1]), float(lives[i - 1]), damage), share, "",
+              "({0} / {1}) / {2}", (u[i - 1], lives[i - 1], damage), share, "",
               MINER_SOURCE)
     if cycle.basis == "time":
         d.add("n_m", "nm", "Mean speed", "nm = Σ ti·ni", "{0} / {1}", (revolutions, total),
