@@ -7,7 +7,7 @@ from collections.abc import Awaitable, Callable
 import pytest
 from textual import events
 from textual._xterm_parser import XTermParser
-from textual.widgets import Input, TabbedContent
+from textual.widgets import ContentSwitcher, Input
 
 from tui_helpers import editor, retype
 
@@ -18,6 +18,7 @@ from workbench.tui.commands import WorkbenchCommands
 from workbench.tui.dialogs import ChoiceDialog, TextPrompt
 from workbench.tui.help_screen import HelpScreen
 from workbench.tui.key_footer import KeyFooter
+from workbench.tui.pane_tabs import PaneTabs
 from workbench.tui.selection_screen import SelectionScreen
 from workbench.tui.shafts_screen import ShaftsScreen
 
@@ -133,7 +134,8 @@ def _nudge_check(action_id: str, expected: str) -> Check:
 async def check_solve(pilot, app: WorkbenchApp) -> None:
     await press(pilot, "solver.solve")
     assert app.workbench.solved is not None
-    assert app.workbench_screen.query_one(TabbedContent).active == "tab-solver"
+    assert app.workbench_screen.query_one(PaneTabs).active == "solver"
+    assert app.workbench_screen.query_one(ContentSwitcher).current == "pane-solver"
 
 
 async def check_apply(pilot, app: WorkbenchApp) -> None:
@@ -151,7 +153,8 @@ def _pane_check(action_id: str, pane: str) -> Check:
     async def check(pilot, app: WorkbenchApp) -> None:
         await press(pilot, "view.solver" if pane == "derivation" else "view.derivation")
         await press(pilot, action_id)
-        assert app.workbench_screen.query_one(TabbedContent).active == f"tab-{pane}"
+        assert app.workbench_screen.query_one(PaneTabs).active == pane
+        assert app.workbench_screen.query_one(ContentSwitcher).current == f"pane-{pane}"
     return check
 
 

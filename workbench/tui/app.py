@@ -5,9 +5,11 @@
 
 from __future__ import annotations
 
+import gc
 import os
 import sys
 from pathlib import Path
+from typing import Any
 
 from textual.app import App
 from textual.binding import Binding
@@ -33,7 +35,7 @@ def no_color_requested() -> bool:
 class WorkbenchApp(App[int]):
     """A keyboard-first workbench for one session of load cases."""
 
-    CSS_PATH = "app.tcss"
+    CSS_PATH = Path(__file__).with_name("app.tcss")  # found from subclasses anywhere too
     TITLE = "Bearing workbench"
     COMMANDS = App.COMMANDS | {WorkbenchCommands}
     BINDINGS = [Binding("ctrl+c", "help_quit", show=False, system=True), *bindings("app")]
@@ -53,6 +55,14 @@ class WorkbenchApp(App[int]):
         self.personal_keymap: dict[str, str] = {}
         """The person's keys in force (action id → keys), from ``keys.toml``."""
         self._keymap_problems = self._install_keymap()
+
+    def run(self, **options: Any) -> int | None:
+        """Run the app (``App.run``'s options).  The modules, the session and its analysis made
+        so far live as long as the app, so they are frozen out of the garbage collector's full
+        passes first (``gc.freeze``): those passes would otherwise walk them again and again
+        while the screen is built, a sixth of the start-up."""
+        gc.freeze()
+        return super().run(**options)
 
     def notify(self, message: str, *, title: str = "", severity: SeverityLevel = "information",
                timeout: float | None = None, markup: bool = False) -> None:

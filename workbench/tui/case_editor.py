@@ -169,23 +169,36 @@ class CaseEditor(VerticalScroll):
         self._nudging = False
         self._rejected: dict[str, str] = {}
         self._case_error: tuple[str, str] | None = None
+        self._rows: dict[str, FieldRow] = {}
+        self._message_lines: dict[str, Static] = {}
+        self._bearing_title = Label("Bearing", classes="group-title", id="group-bearing")
+        self._bearing_choice = ChoiceField([], title="Bearing used", prompt="(none)",
+                                           id="bearing-choice")
 
     def compose(self) -> ComposeResult:
         """Group headings, a bearing chooser, and one row per field with its message line."""
         yield Static("No load case selected: add one with ctrl+n.", id="editor-empty")
         for title, names in EDITOR_GROUPS:
-            yield Label(title, classes="group-title", id=f"group-{title.split()[0].lower()}")
             if title == "Bearing":
+                yield self._bearing_title
                 with FieldRow("Bearing used", id="row-bearing"):
-                    yield ChoiceField([], title="Bearing used", prompt="(none)",
-                                      id="bearing-choice")
+                    yield self._bearing_choice
+            else:
+                yield Label(title, classes="group-title", id=f"group-{title.split()[0].lower()}")
             for name in names:
                 spec = FIELD_BY_NAME[name]
+                row = self._rows[name] = FieldRow(spec.label, _placeholder(spec),
+                                                  id=ROW_PREFIX + name)
                 if _takes_text(spec):
-                    yield FieldRow(spec.label, _placeholder(spec), id=ROW_PREFIX + name)
+                    yield row
                 else:
-                    with FieldRow(spec.label, id=ROW_PREFIX + name):
+                    with row:
                         yield _choice_widget(spec)
+
+    def _field_widget(self, name: str) -> Widget | None:
+        """The widget editing field ``name`` (None while its text box is still to come)."""
+        row = self._rows.get(name)
+        return row.children[0] if row is not None and row.children else None
 
     def on_mount(self) -> None:
         """Mount the text boxes once the first frame is painted."""
@@ -193,8 +206,7 @@ class CaseEditor(VerticalScroll):
 
     async def _mount_text_boxes(self) -> None:
         """A text box over each typed field's row, showing the row's text."""
-        rows = [(row, FIELD_BY_NAME[(row.id or "").removeprefix(ROW_PREFIX)])
-                for row in self.query(FieldRow) if not row.children]
+        rows = [(row, FIELD_BY_NAME[name]) for name, row in self._rows.items() if not row.children]
         mounting = [row.mount(_text_box(spec)) for row, spec in rows]
         for waiting in mounting:
             await waiting
@@ -207,17 +219,15 @@ class CaseEditor(VerticalScroll):
         """Show a case's texts (empty ``texts``: no case) without announcing them as edits."""
         self._rejected.clear()
         empty = not texts
-        self.query_one("#editor-empty").display = empty
-        for row in self.query("FieldRow, .group-title"):
-            row.display = not empty
+        self.set_class(empty, "-empty")
         if empty:
             self._show_messages()
             return
         title = f"Bearing {bearing}" if bearing else "Bearing"
         if bearing_users > 1:
             title += f" (shared by {bearing_users} cases)"
-        self.query_one("#group-bearing", Label).update(Content(title))
-        chooser = self.query_one("#bearing-choice", ChoiceField)
+        self._bearing_title.update(Content(title))
+        chooser = self._bearing_choice
         with chooser.prevent(ChoiceField.Changed):
             chooser.set_choices(bearings)
             chooser.value = bearing if bearing in bearings else None
@@ -227,11 +237,10 @@ class CaseEditor(VerticalScroll):
         self._show_messages()
 
     def _set_widget(self, name: str, text: str) -> None:
-        self.query_one(f"#{ROW_PREFIX}{name}", FieldRow).text = text
-        found = self.query(f"#{field_id(name)}")
-        if not found:
+        self._rows[name].text = text
+        widget = self._field_widget(name)
+        if widget is None:
             return  # a text box not mounted yet: it starts from the row's text
-        widget = found.first()
         if isinstance(widget, Input):
             with widget.prevent(Input.Changed):
                 widget.value = text
@@ -267,24 +276,22 @@ class CaseEditor(VerticalScroll):
     def _message_line(self, name: str) -> Static:
         """The message line under ``name``'s row, mounted the first time it is needed (thirty
         hidden lines made up a fifth of the editor's start-up)."""
-        found = self.query(f"#message-{name}")
-        if found:
-            line = found.first()
-            assert isinstance(line, Static)
-            return line
-        line = Static("", classes="field-message", id=f"message-{name}")
-        self.mount(line, after=self.query_one(f"#{ROW_PREFIX}{name}", FieldRow))
+        line = self._message_lines.get(name)
+        if line is None:
+            line = self._message_lines[name] = Static("", classes="field-message",
+                                                      id=f"message-{name}")
+            self.mount(line, after=self._rows[name])
         return line
 
     def _show_messages(self) -> None:
         shown = {name: (text, "-rejected") for name, text in self._rejected.items()}
         if self._case_error and self._case_error[0] not in shown:
             shown[self._case_error[0]] = (self._case_error[1], "-case-error")
-        for line in self.query(".field-message"):
-            if (line.id or "").removeprefix("message-") not in shown:
+        for name, line in self._message_lines.items():
+            if name not in shown:
                 line.display = False
         for name, (text, kind) in shown.items():
-            if not self.query(f"#{ROW_PREFIX}{name}"):
+            if name not in self._rows:
                 continue  # a case error about an input the editor has no field for
             line = self._message_line(name)
             line.set_class(kind == "-rejected", "-rejected")
@@ -302,10 +309,9 @@ class CaseEditor(VerticalScroll):
 
     def field_text(self, field: str) -> str:
         """What the field's widget shows now, as text."""
-        found = self.query(f"#{field_id(field)}")
-        if not found:
-            return self.query_one(f"#{ROW_PREFIX}{field}", FieldRow).text
-        widget = found.first()
+        widget = self._field_widget(field)
+        if widget is None:
+            return self._rows[field].text
         if isinstance(widget, Input):
             return widget.value
         if isinstance(widget, ChoiceField):
@@ -319,18 +325,18 @@ class CaseEditor(VerticalScroll):
         focused = self.screen.focused
         if focused is None or focused.id is None or not focused.id.startswith(FIELD_PREFIX):
             return None
-        if focused not in self.query(f"#{focused.id}"):
-            return None
-        return focused.id.removeprefix(FIELD_PREFIX)
+        name = focused.id.removeprefix(FIELD_PREFIX)
+        return name if self._field_widget(name) is focused else None
 
     def focus_field(self, field: str) -> None:
         """Move the focus to ``field``'s widget (nothing while its text box is still to come)."""
-        for widget in self.query(f"#{field_id(field)}"):
+        widget = self._field_widget(field)
+        if widget is not None:
             widget.focus()
 
     def focus_first(self) -> None:
         """Focus the first field (or the editor itself when there is no case)."""
-        if self.query_one("#editor-empty").display:
+        if self.has_class("-empty"):
             self.focus()
         else:
             self.focus_field(EDITOR_GROUPS[0][1][0])
@@ -341,7 +347,8 @@ class CaseEditor(VerticalScroll):
         name = self.focused_field()
         if name is None or FIELD_BY_NAME[name].kind not in NUDGEABLE_KINDS:
             return "put the cursor in a numeric field to nudge it"
-        widget = self.query_one(f"#{field_id(name)}", Input)
+        widget = self._field_widget(name)
+        assert isinstance(widget, Input)  # a focused numeric field has its text box
         scaled = scale_text(widget.value, factor)
         if scaled is None:
             return f"{FIELD_BY_NAME[name].label}: no number to nudge"

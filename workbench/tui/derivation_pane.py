@@ -136,6 +136,7 @@ class DerivationPane(ScrollView, can_focus=True):
     DEFAULT_CSS = """
     DerivationPane {
         scrollbar-size-vertical: 1;
+        scrollbar-gutter: stable;  /* the text keeps its width when the scrollbar comes */
     }
     """
 

@@ -18,7 +18,7 @@ from textual.containers import Horizontal, Vertical
 from textual.lazy import Lazy
 from textual.screen import Screen
 from textual.timer import Timer
-from textual.widgets import Header, TabbedContent, TabPane
+from textual.widgets import ContentSwitcher, Header
 
 from ..engine.record import InputError
 from ..engine.solve import NoSolution
@@ -31,6 +31,7 @@ from .case_list import CaseList
 from .derivation_pane import DerivationPane
 from .dialogs import ChoiceDialog, TextPrompt
 from .key_footer import KeyFooter
+from .pane_tabs import PaneTabs
 from .solver_pane import SolverPane
 from .state import Workbench, input_field
 from .whatif_pane import WhatIfPane
@@ -40,6 +41,9 @@ if TYPE_CHECKING:
 
 AUTOSAVE_DELAY_S = 2.0
 DEFAULT_SAVE_NAME = "session.toml"
+PANES = (("derivation", "Derivation"), ("solver", "Solver"), ("whatif", "What-if"))
+"""The right column's panes: (name, title); the first is on show at start."""
+PANE_PREFIX = "pane-"
 
 
 class WorkbenchScreen(Screen[None]):
@@ -62,13 +66,15 @@ class WorkbenchScreen(Screen[None]):
             with Vertical(id="left"):
                 yield CaseList(id="cases")
                 yield CaseEditor(id="editor")
-            with TabbedContent(id="panes", initial="tab-derivation"):
-                with TabPane("Derivation", id="tab-derivation"):
-                    yield DerivationPane(id="derivation")
-                with TabPane("Solver", id="tab-solver"):
-                    yield Lazy(SolverPane(self.workbench.session.solver, id="solver"))
-                with TabPane("What-if", id="tab-whatif"):
-                    yield Lazy(WhatIfPane(id="whatif"))
+            with Vertical(id="panes"):
+                yield PaneTabs(PANES, active=PANES[0][0], id="pane-tabs")
+                with ContentSwitcher(initial=PANE_PREFIX + PANES[0][0], id="pane-switcher"):
+                    with Vertical(id=PANE_PREFIX + "derivation"):
+                        yield DerivationPane(id="derivation")
+                    with Vertical(id=PANE_PREFIX + "solver"):
+                        yield Lazy(SolverPane(self.workbench.session.solver, id="solver"))
+                    with Vertical(id=PANE_PREFIX + "whatif"):
+                        yield Lazy(WhatIfPane(id="whatif"))
         yield KeyFooter()
 
     def on_mount(self) -> None:
@@ -104,16 +110,20 @@ class WorkbenchScreen(Screen[None]):
     def _show_whatif(self) -> None:
         """The what-if of the selected case, worked out only while its tab is on show."""
         panes = self.query(WhatIfPane)
-        if not panes or self.query_one(TabbedContent).active != "tab-whatif":
+        if not panes or self.query_one(PaneTabs).active != "whatif":
             return
         state = self.workbench
         panes.first().show(state.result, state.units, state.analysis.duties)
 
-    @on(TabbedContent.TabActivated, "#panes")
-    def _tab_shown(self, event: TabbedContent.TabActivated) -> None:
-        """Bring the what-if up to date when its tab comes on show."""
-        if event.pane.id == "tab-whatif":
-            self._show_whatif()
+    def _show_pane(self, name: str) -> None:
+        """Put the pane ``name`` on show in the right column (the what-if brought up to date)."""
+        self.query_one(PaneTabs).active = name
+        self.query_one(ContentSwitcher).current = PANE_PREFIX + name
+        self._show_whatif()
+
+    @on(PaneTabs.Chosen)
+    def _pane_chosen(self, event: PaneTabs.Chosen) -> None:
+        self._show_pane(event.name)
 
     def redraw_all(self) -> None:
         """Redraw every pane (after a structural change, an undo or an open)."""
@@ -300,7 +310,7 @@ class WorkbenchScreen(Screen[None]):
         pane = self._solver()
         if pane is None:
             return
-        self.query_one(TabbedContent).active = "tab-solver"
+        self._show_pane("solver")
         state = self.workbench
         try:
             solution = state.solve(unknown, target_text)
@@ -341,7 +351,7 @@ class WorkbenchScreen(Screen[None]):
 
     def action_show_pane(self, name: str) -> None:
         """Show the derivation or the solver in the right column."""
-        self.query_one(TabbedContent).active = f"tab-{name}"
+        self._show_pane(name)
 
     def action_select_from_catalog(self) -> None:
         """List the catalog bearings for every case on the selected case's bearing; adopt one."""

@@ -1,0 +1,54 @@
+"""The first frame painted already shows the workbench as it settles.
+
+``workbench bench`` times start-up to the first frame Textual hands to its driver; the text
+boxes and the hidden panes are mounted after it.  That is only fair if the first frame is the
+real screen: these tests compare its text with the screen's once everything is mounted, at the
+two sizes the snapshots use.  Scrollbar thumbs are left out of the comparison: Textual sizes a
+scroll view's bar only after its first layout (the gutters are reserved, so nothing moves).
+"""
+
+from __future__ import annotations
+
+import pytest
+from rich.console import RenderableType
+from textual.screen import Screen
+
+from tui_helpers import text_box
+
+from workbench.tui import files
+from workbench.tui.app import WorkbenchApp
+
+SCROLLBAR_GLYPHS = str.maketrans({glyph: " " for glyph in "▁▂▃▄▅▆▇█▔"})
+
+
+def screen_text(screen: Screen[object]) -> list[str]:
+    """Each line of ``screen`` as shown, scrollbar and border glyphs blanked alike."""
+    return [strip.text.translate(SCROLLBAR_GLYPHS)
+            for strip in screen._compositor.render_strips()]
+
+
+class FirstFrameKept(WorkbenchApp):
+    """The workbench, keeping the text of the first frame of its main screen."""
+
+    first_frame: list[str] | None = None
+
+    def _display(self, screen: Screen[object], renderable: RenderableType | None) -> None:
+        if renderable is not None and self.first_frame is None and screen is self.screen_stack[0]:
+            self.first_frame = screen_text(screen)
+        super()._display(screen, renderable)
+
+
+@pytest.mark.parametrize("size", [(80, 24), (120, 40)])
+async def test_first_frame_is_the_settled_screen(size: tuple[int, int]) -> None:
+    path = files.demo_path()
+    assert path is not None
+    session = files.open_session(path).session
+    app = FirstFrameKept(session, offer_recovery=False, autosave_delay=None)
+    async with app.run_test(size=size) as pilot:
+        await text_box(pilot, app, "fr")  # the text boxes are in
+        await pilot.pause()
+        settled = screen_text(app.workbench_screen)
+        assert app.first_frame is not None
+        differing = [(number, first, later) for number, (first, later)
+                     in enumerate(zip(app.first_frame, settled)) if first != later]
+        assert not differing, differing
