@@ -98,7 +98,6 @@ def _words_that_fit(text: str, width: int) -> str:
 class FieldRow(Widget):
     """One field: its label, then its editing widget (or, until that is mounted, its text)."""
 
-    COMPONENT_CLASSES = {"field-row--hint"}
     DEFAULT_CSS = f"""
     FieldRow {{
         height: 1;
@@ -108,12 +107,12 @@ class FieldRow(Widget):
             margin-left: {LABEL_WIDTH};
             width: 1fr;
         }}
-        & > .field-row--hint {{
-            color: $text-disabled;
-            background: $surface;
-        }}
     }}
     """
+    TEXT_STYLE = "$foreground on $surface"
+    HINT_STYLE = "$text-disabled on $surface"
+    """The text and the hint as a compact ``Input`` colours them (a component class for the
+    hint was styled anew for each of the thirty rows at start)."""
 
     text: reactive[str] = reactive("")
     """The field's text as typed (what its text box shows)."""
@@ -131,10 +130,9 @@ class FieldRow(Widget):
             return label
         width = max(0, self.size.width - LABEL_WIDTH)
         if self.text:
-            shown = Content.styled(self.text, "$foreground on $surface")
+            shown = Content.styled(self.text, self.TEXT_STYLE)
         else:
-            shown = Content.styled(_words_that_fit(self._placeholder, width),
-                                   self.get_visual_style("field-row--hint"))
+            shown = Content.styled(_words_that_fit(self._placeholder, width), self.HINT_STYLE)
         return Content.assemble(label, shown.truncate(width, pad=True).stylize("on $surface"))
 
 
