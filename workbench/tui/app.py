@@ -17,11 +17,9 @@ from textual.notifications import SeverityLevel
 
 from ..model.session import Session
 from . import files, settings
-from .about_screen import AboutScreen
 from .actions import bindings, check_keymap
 from .commands import WorkbenchCommands
 from .dialogs import ChoiceDialog
-from .help_screen import HelpScreen
 from .state import Workbench
 from .theme_files import DEFAULT_THEME, MONOCHROME_THEME, load_theme_files
 from .workbench_screen import AUTOSAVE_DELAY_S, WorkbenchScreen
@@ -131,11 +129,15 @@ class WorkbenchApp(App[int]):
     # ---- screens ----------------------------------------------------------------------------
     def action_help(self) -> None:
         """Show every key and what it does."""
+        from .help_screen import HelpScreen  # loaded when first opened, like the about screen
+
         if not isinstance(self.screen, HelpScreen):
             self.push_screen(HelpScreen(self.personal_keymap))
 
     def action_about(self) -> None:
         """Show the standards and the safety caution."""
+        from .about_screen import AboutScreen  # loaded when first opened
+
         if not isinstance(self.screen, AboutScreen):
             self.push_screen(AboutScreen())
 

@@ -10,10 +10,12 @@ from __future__ import annotations
 
 import math
 
+from rich.style import Style as RichStyle
 from textual.content import Content
 from textual.geometry import Size
 from textual.scroll_view import ScrollView
 from textual.strip import Strip
+from textual.style import Style
 
 from ..engine.record import Step, fmt
 from ..model.fields import FIELD_BY_NAME
@@ -124,13 +126,32 @@ def derivation_lines(result: CaseResult | None, system: str) -> list[Content]:
     return lines
 
 
+class _WrappedLine:
+    """One line of the derivation wrapped to the pane's width; each part is painted (turned
+    into a strip) the first time it comes on show."""
+
+    __slots__ = ("parts", "strips")
+
+    def __init__(self, parts: list[Content]) -> None:
+        self.parts = parts
+        self.strips: list[Strip | None] = [None] * len(parts)
+
+    def strip(self, part: int, style: Style) -> Strip:
+        """The painted ``part``."""
+        painted = self.strips[part]
+        if painted is None:
+            painted = self.strips[part] = Strip(self.parts[part].render_segments(style))
+        return painted
+
+
 class DerivationPane(ScrollView, can_focus=True):
     """A scrolling view of one case's derivation; keeps its scroll place when redrawn.
 
     Each line is wrapped to the pane's width once and kept (most lines stay the same from one
-    keystroke to the next), and the pane paints line by line, so a redraw never asks the
-    screen for a new layout.  Before the pane's first layout its width is unknown: the lines
-    are then wrapped when the first frame paints them, at the width laid out.
+    keystroke to the next), a wrapped line is painted only when it comes on show, and the pane
+    paints line by line, so a redraw never asks the screen for a new layout.  Before the pane's
+    first layout its width is unknown: the lines are then wrapped when the first frame paints
+    them, at the width laid out.
     """
 
     DEFAULT_CSS = """
@@ -146,9 +167,10 @@ class DerivationPane(ScrollView, can_focus=True):
     def __init__(self, *, id: str | None = None) -> None:
         super().__init__(id=id)
         self._lines: list[Content] = []
-        self._strips: list[Strip] = []
-        self._wrapped: dict[tuple[str, tuple[object, ...]], list[Strip]] = {}
+        self._rows: list[tuple[_WrappedLine, int]] = []
+        self._wrapped: dict[tuple[str, tuple[object, ...]], _WrappedLine] = {}
         self._wrapped_width = 0
+        self._blank_style: RichStyle | None = None
 
     def show(self, result: CaseResult | None, system: str) -> None:
         """Redraw for ``result`` in the display ``system``."""
@@ -165,19 +187,17 @@ class DerivationPane(ScrollView, can_focus=True):
         if width != self._wrapped_width:
             self._wrapped.clear()
             self._wrapped_width = width
-        style = self.visual_style
-        strips: list[Strip] = []
-        kept: dict[tuple[str, tuple[object, ...]], list[Strip]] = {}
+        rows: list[tuple[_WrappedLine, int]] = []
+        kept: dict[tuple[str, tuple[object, ...]], _WrappedLine] = {}
         for line in self._lines:
             key = (line.plain, tuple(line.spans))
-            wrapped = self._wrapped.get(key)
-            if wrapped is None:
-                wrapped = [Strip(part.render_segments(style)) for part in line.wrap(width)]
+            wrapped = self._wrapped.get(key) or kept.get(key) or _WrappedLine(
+                [line] if line.cell_length <= width else line.wrap(width))  # most lines fit
             kept[key] = wrapped
-            strips.extend(wrapped)
+            rows.extend((wrapped, part) for part in range(len(wrapped.parts)))
         self._wrapped = kept
-        self._strips = strips
-        self.virtual_size = Size(width, len(strips))
+        self._rows = rows
+        self.virtual_size = Size(width, len(rows))
         self.refresh()
 
     @property
@@ -192,6 +212,7 @@ class DerivationPane(ScrollView, can_focus=True):
     def notify_style_update(self) -> None:
         """Re-render the styled lines when the theme changes."""
         super().notify_style_update()
+        self._blank_style = None
         self._wrapped.clear()
         self._wrapped_width = 0
         if self._lines:
@@ -203,9 +224,12 @@ class DerivationPane(ScrollView, can_focus=True):
             self._wrap()
         scroll_x, scroll_y = self.scroll_offset
         width = self.scrollable_content_region.width
-        style = self.rich_style
+        if self._blank_style is None:  # kept until the styles change
+            self._blank_style = self.rich_style
+        style = self._blank_style
         index = scroll_y + y
-        if index >= len(self._strips):
+        if index >= len(self._rows):
             return Strip.blank(width, style)
-        line = Strip.join([Strip.blank(INDENT, style), self._strips[index]])
+        wrapped, part = self._rows[index]
+        line = Strip.join([Strip.blank(INDENT, style), wrapped.strip(part, self.visual_style)])
         return line.crop_extend(scroll_x, scroll_x + width, style).apply_offsets(scroll_x, index)

@@ -10,12 +10,11 @@ from __future__ import annotations
 
 from collections.abc import Callable
 from pathlib import Path
-from typing import TYPE_CHECKING
+from typing import TYPE_CHECKING, cast
 
 from textual import on
 from textual.app import ComposeResult
 from textual.containers import Horizontal, Vertical
-from textual.lazy import Lazy
 from textual.screen import Screen
 from textual.timer import Timer
 from textual.widgets import ContentSwitcher, Header
@@ -34,10 +33,10 @@ from .key_footer import KeyFooter
 from .pane_tabs import PaneTabs
 from .solver_pane import SolverPane
 from .state import Workbench, input_field
-from .whatif_pane import WhatIfPane
 
 if TYPE_CHECKING:
     from .selection_screen import Adoption
+    from .whatif_pane import WhatIfPane
 
 AUTOSAVE_DELAY_S = 2.0
 DEFAULT_SAVE_NAME = "session.toml"
@@ -71,22 +70,37 @@ class WorkbenchScreen(Screen[None]):
                 with ContentSwitcher(initial=PANE_PREFIX + PANES[0][0], id="pane-switcher"):
                     with Vertical(id=PANE_PREFIX + "derivation"):
                         yield DerivationPane(id="derivation")
-                    with Vertical(id=PANE_PREFIX + "solver"):
-                        yield Lazy(SolverPane(self.workbench.session.solver, id="solver"))
-                    with Vertical(id=PANE_PREFIX + "whatif"):
-                        yield Lazy(WhatIfPane(id="whatif"))
+                    yield Vertical(id=PANE_PREFIX + "solver")
+                    yield Vertical(id=PANE_PREFIX + "whatif")
         yield KeyFooter()
 
     def on_mount(self) -> None:
-        """Draw the session."""
+        """Draw the session; the hidden panes come after the first frame."""
         self.redraw_all()
         self.query_one(CaseList).focus()
+        self.call_after_refresh(self._mount_hidden_panes)
+
+    async def _mount_hidden_panes(self) -> None:
+        """The Solver and What-if panes, off show at start, mounted once the first frame is
+        painted; the What-if's module (the sensitivity sweep, the curves, the plots) is
+        imported then."""
+        from .whatif_pane import WhatIfPane
+
+        await self.query_one(f"#{PANE_PREFIX}solver").mount(
+            SolverPane(self.workbench.session.solver, id="solver"))
+        await self.query_one(f"#{PANE_PREFIX}whatif").mount(WhatIfPane(id="whatif"))
+        self._show_whatif()
 
     # ---- drawing ----------------------------------------------------------------------------
     def _solver(self) -> SolverPane | None:
         """The solver pane, once mounted (it is mounted just after the first frame)."""
         panes = self.query(SolverPane)
         return panes.first() if panes else None
+
+    def _whatif(self) -> WhatIfPane | None:
+        """The what-if pane, once mounted (it is mounted just after the first frame)."""
+        panes = self.query("#whatif")  # by id: its class is imported with the pane
+        return cast("WhatIfPane", panes.first()) if panes else None
 
     def _title(self) -> None:
         state = self.workbench
@@ -109,11 +123,11 @@ class WorkbenchScreen(Screen[None]):
 
     def _show_whatif(self) -> None:
         """The what-if of the selected case, worked out only while its tab is on show."""
-        panes = self.query(WhatIfPane)
-        if not panes or self.query_one(PaneTabs).active != "whatif":
+        pane = self._whatif()
+        if pane is None or self.query_one(PaneTabs).active != "whatif":
             return
         state = self.workbench
-        panes.first().show(state.result, state.units, state.analysis.duties)
+        pane.show(state.result, state.units, state.analysis.duties)
 
     def _show_pane(self, name: str) -> None:
         """Put the pane ``name`` on show in the right column (the what-if brought up to date)."""
