@@ -59,7 +59,8 @@ class WorkbenchScreen(Screen[None]):
         self._saved_revision = workbench.revision
 
     def compose(self) -> ComposeResult:
-        """Left: the list over the editor; right: derivation and solver as tabs."""
+        """Left: the list over the editor; right: the pane strip over the Derivation, Solver
+        and What-if panes (the last two mounted after the first frame)."""
         yield Header()
         with Horizontal(id="body"):
             with Vertical(id="left"):
