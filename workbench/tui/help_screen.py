@@ -15,6 +15,8 @@ from .dialogs import OnceModal
 
 HELP_FOOTNOTE = (
     "tab / shift+tab move between fields; ctrl+p opens the command palette with every command. "
+    "In a choice field ← and → step through the choices and enter lists them; on the strip of "
+    "pane titles ← and → step through the panes. "
     "A value that cannot be used is marked beside its field and the last valid value stays in "
     "force. Typed values keep their units; results follow the SI/US display setting. "
     "To move an action to other keys, name its id (in brackets above) in keys.toml in the "
