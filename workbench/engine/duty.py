@@ -57,10 +57,11 @@ def _vector(field_name: str, values: Sequence[float], *, low_open: bool = False,
     return numbers
 
 
-def _weights(field_name: str, shares: Sequence[float], size: int) -> tuple[float, ...]:
-    """Shares as fractions summing to 1, after checking there is one per state."""
+def _weights(field_name: str, shares: Sequence[float], size: int | None) -> tuple[float, ...]:
+    """Shares as fractions summing to 1, after checking there is one per state (of ``size``
+    states, when given)."""
     weights = _vector(field_name, shares)
-    if len(weights) != size:
+    if size is not None and len(weights) != size:
         raise InputError(field_name, f"needs one share per state ({size}), got {len(weights)}")
     total = math.fsum(weights)
     if total <= 0.0:
@@ -76,7 +77,7 @@ def revolution_shares(shares: Sequence[float], speeds: Sequence[float] | None = 
     times its speed.
     """
     if share_basis == "revolutions":
-        return _weights("shares", shares, len(_numbers("shares", shares)))
+        return _weights("shares", shares, None)
     if share_basis != "time":
         raise InputError("share_basis", f"use 'time' or 'revolutions', not {share_basis!r}")
     if speeds is None:

@@ -10,7 +10,7 @@ from __future__ import annotations
 
 from collections.abc import Callable
 from pathlib import Path
-from typing import TYPE_CHECKING, cast
+from typing import TYPE_CHECKING
 
 from textual import on
 from textual.app import ComposeResult
@@ -57,6 +57,9 @@ class WorkbenchScreen(Screen[None]):
         self._autosave_timer: Timer | None = None
         self._autosave_failed = False
         self._saved_revision = workbench.revision
+        self._solver_pane: SolverPane | None = None
+        self._whatif_pane: WhatIfPane | None = None
+        """The panes mounted just after the first frame (None until then)."""
 
     def compose(self) -> ComposeResult:
         """Left: the list over the editor; right: the pane strip over the Derivation, Solver
@@ -87,22 +90,14 @@ class WorkbenchScreen(Screen[None]):
         imported then."""
         from .whatif_pane import WhatIfPane
 
-        await self.query_one(f"#{PANE_PREFIX}solver").mount(
-            SolverPane(self.workbench.session.solver, id="solver"))
-        await self.query_one(f"#{PANE_PREFIX}whatif").mount(WhatIfPane(id="whatif"))
+        solver = SolverPane(self.workbench.session.solver, id="solver")
+        whatif = WhatIfPane(id="whatif")
+        await self.query_one(f"#{PANE_PREFIX}solver").mount(solver)
+        await self.query_one(f"#{PANE_PREFIX}whatif").mount(whatif)
+        self._solver_pane, self._whatif_pane = solver, whatif  # in use once mounted
         self._show_whatif()
 
     # ---- drawing ----------------------------------------------------------------------------
-    def _solver(self) -> SolverPane | None:
-        """The solver pane, once mounted (it is mounted just after the first frame)."""
-        panes = self.query(SolverPane)
-        return panes.first() if panes else None
-
-    def _whatif(self) -> WhatIfPane | None:
-        """The what-if pane, once mounted (it is mounted just after the first frame)."""
-        panes = self.query("#whatif")  # by id: its class is imported with the pane
-        return cast("WhatIfPane", panes.first()) if panes else None
-
     def _title(self) -> None:
         state = self.workbench
         self.app.title = state.session.title or "Bearing workbench"
@@ -124,7 +119,7 @@ class WorkbenchScreen(Screen[None]):
 
     def _show_whatif(self) -> None:
         """The what-if of the selected case, worked out only while its tab is on show."""
-        pane = self._whatif()
+        pane = self._whatif_pane
         if pane is None or self.query_one(PaneTabs).active != "whatif":
             return
         state = self.workbench
@@ -301,7 +296,7 @@ class WorkbenchScreen(Screen[None]):
             self.notify(f"Nothing to {verb.lower()}", severity="warning")
             return
         self.redraw_all()
-        if (pane := self._solver()) is not None:
+        if (pane := self._solver_pane) is not None:
             pane.show_note("")
         self._after_change()
         self.notify(f"{verb}: {label}")
@@ -322,7 +317,7 @@ class WorkbenchScreen(Screen[None]):
             self.notify(problem, severity="warning")
 
     def _solve(self, unknown: str, target_text: str) -> None:
-        pane = self._solver()
+        pane = self._solver_pane
         if pane is None:
             return
         self._show_pane("solver")
@@ -340,7 +335,7 @@ class WorkbenchScreen(Screen[None]):
 
     def action_solve(self) -> None:
         """Back-solve the chosen input for the chosen target."""
-        pane = self._solver()
+        pane = self._solver_pane
         if pane is not None:
             self._solve(*pane.request())
 
@@ -352,7 +347,7 @@ class WorkbenchScreen(Screen[None]):
             self.notify(exc.message, severity="warning")
             return
         self.redraw_all()
-        if (pane := self._solver()) is not None:
+        if (pane := self._solver_pane) is not None:
             pane.show_note(f"Applied: {done} (ctrl+z undoes it)")
         self._after_change()
         self.notify(f"Applied {done}")
@@ -489,7 +484,7 @@ class WorkbenchScreen(Screen[None]):
         """Put ``session`` under edit and redraw."""
         self.workbench.replace_session(session, path, dirty)
         self._saved_revision = -1 if dirty else self.workbench.revision
-        if (pane := self._solver()) is not None:
+        if (pane := self._solver_pane) is not None:
             pane.load(session.solver)
             pane.show_note("")
         self.redraw_all()
