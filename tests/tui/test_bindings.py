@@ -9,7 +9,7 @@ from textual import events
 from textual._xterm_parser import XTermParser
 from textual.widgets import ContentSwitcher, Input
 
-from tui_helpers import editor, retype
+from tui_helpers import editor, retype, text_box
 
 from workbench.tui.about_screen import AboutScreen
 from workbench.tui.actions import ACTIONS, check_keymap
@@ -124,8 +124,7 @@ async def check_move(pilot, app: WorkbenchApp) -> None:
 
 def _nudge_check(action_id: str, expected: str) -> Check:
     async def check(pilot, app: WorkbenchApp) -> None:
-        app.workbench_screen.query_one("#field-fa", Input).focus()
-        await pilot.pause()
+        await text_box(pilot, app, "fa")
         await press(pilot, action_id)
         assert app.workbench.session.cases[0].texts["fa"] == expected
     return check

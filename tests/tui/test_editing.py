@@ -5,12 +5,14 @@ from __future__ import annotations
 import pytest
 from textual.widgets import OptionList
 
-from tui_helpers import derivation_text, editor, paste_into, reference_derivation, retype
+from tui_helpers import (choose, derivation_text, editor, mounted_text_box, paste_into,
+                         reference_derivation, retype)
 
 from workbench.engine.record import fmt
 from workbench.model.fields import FIELD_BY_NAME
 from workbench.model.quantities import format_quantity
-from workbench.tui.choice_field import ChoiceField, ChoiceList
+from workbench.tui.case_editor import LABEL_WIDTH
+from workbench.tui.choice_field import ChoiceList
 
 
 async def test_typed_radial_load_changes_the_derivation(make_app) -> None:
@@ -63,6 +65,12 @@ async def test_case_list_row_follows_typing(make_app) -> None:
         assert row[4] == "✘ L"
 
 
+def line_under(app, label: str) -> str:
+    """The sheet's line under the field labelled ``label``."""
+    lines = editor(app).sheet_text.split("\n")
+    return lines[next(i for i, line in enumerate(lines) if line[1:].startswith(label)) + 1]
+
+
 BAD_TEXTS = [
     ("nan", "not a finite number"),
     ("-3 kN", "must not be negative"),
@@ -80,11 +88,11 @@ async def test_bad_typed_value_keeps_the_last_valid_one(make_app, text: str, wor
         assert app.workbench.session.cases[0].texts["fr"] == "3 kN"
         message = editor(app).message_for("fr")
         assert message is not None and words in message
-        line = app.workbench_screen.query_one("#message-fr")
-        assert line.display and "-rejected" in line.classes
+        assert line_under(app, "Radial load Fr").startswith("   ✘ ")  # drawn under the field
         assert derivation_text(app) == before
         await retype(pilot, app, "fr", "3.5 kN")
         assert editor(app).message_for("fr") is None
+        assert not line_under(app, "Radial load Fr").startswith("   ✘ ")
         assert app.workbench.session.cases[0].texts["fr"] == "3.5 kN"
 
 
@@ -153,14 +161,21 @@ async def test_units_switch_formats_results_and_keeps_typed_text(make_app) -> No
 async def test_choice_and_switch_fields_write_texts(make_app) -> None:
     app = make_app()
     async with app.run_test(size=(80, 24)) as pilot:
-        box = app.workbench_screen.query_one("#field-outer_ring_rotates")
-        box.focus()
+        await choose(pilot, app, "outer_ring_rotates")
         await pilot.press("space")
         await pilot.pause()
         assert app.workbench.session.cases[0].texts["outer_ring_rotates"] == "yes"
+        assert editor(app).field_text("outer_ring_rotates") == "yes"
         assert "Rotation factor" in derivation_text(app)
-        select = app.workbench_screen.query_one("#field-static_duty")
-        select.value = "shock"
+        await pilot.press("left")  # a switch flips with left and right too
+        await pilot.pause()
+        assert app.workbench.session.cases[0].texts["outer_ring_rotates"] == "no"
+        await choose(pilot, app, "static_duty")
+        await pilot.press("enter")
+        await pilot.pause()
+        options = app.screen.query_one(OptionList)
+        options.highlighted = options.get_option_index("shock")
+        await pilot.press("enter")
         await pilot.pause()
         assert app.workbench.session.cases[0].texts["static_duty"] == "shock"
 
@@ -168,9 +183,7 @@ async def test_choice_and_switch_fields_write_texts(make_app) -> None:
 async def test_choice_field_steps_with_arrows_and_chooses_from_its_list(make_app) -> None:
     app = make_app()
     async with app.run_test(size=(80, 24)) as pilot:
-        field = app.workbench_screen.query_one("#field-static_duty", ChoiceField)
-        field.focus()
-        await pilot.pause()
+        await choose(pilot, app, "static_duty")
         await pilot.press("right")  # from blank (the default) to the first choice
         await pilot.pause()
         first = FIELD_BY_NAME["static_duty"].choices[0]
@@ -191,13 +204,17 @@ async def test_choice_field_steps_with_arrows_and_chooses_from_its_list(make_app
         await pilot.press("up", "escape")  # escape keeps the value in force
         await pilot.pause()
         assert app.workbench.session.cases[0].texts["static_duty"] == second
-        assert field.value == second
+        assert editor(app).field_text("static_duty") == second
+        assert f"Static duty        {second} ▾" in editor(app).sheet_text
 
 
 async def test_kind_chosen_with_the_mouse_changes_the_derivation(make_app) -> None:
     app = make_app()
     async with app.run_test(size=(80, 24)) as pilot:
-        await pilot.click("#field-kind")
+        await mounted_text_box(pilot, app)
+        row = editor(app).sheet_text.split("\n").index(
+            next(line for line in editor(app).sheet_text.split("\n") if "Bearing kind" in line))
+        await pilot.click("#field-sheet", offset=(LABEL_WIDTH + 2, row))
         await pilot.pause()
         assert isinstance(app.screen, ChoiceList)
         options = app.screen.query_one(OptionList)
@@ -246,7 +263,8 @@ async def test_names_that_look_like_markup_are_shown_as_written(make_app) -> Non
         table = app.workbench_screen.query_one("#cases")
         assert str(table.get_row_at(0)[0]).strip() == "[b]x[/b"
         await retype(pilot, app, "fr", "3 [unit]")
-        assert "[unit]" in str(app.workbench_screen.query_one("#message-fr").render())
+        assert "[unit]" in (editor(app).message_for("fr") or "")
+        assert "[unit]" in editor(app).sheet_text
         assert app.is_running
 
 

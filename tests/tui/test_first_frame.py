@@ -1,7 +1,7 @@
 """The first frame painted already shows the workbench as it settles.
 
-``workbench bench`` times start-up to the first frame Textual hands to its driver; the text
-boxes and the hidden panes are mounted after it.  That is only fair if the first frame is the
+``workbench bench`` times start-up to the first frame Textual hands to its driver; the
+editor's text box and the hidden panes are mounted after it.  That is only fair if the first frame is the
 real screen: these tests compare its text with the screen's once everything is mounted, at the
 two sizes the snapshots use.  Scrollbar thumbs are left out of the comparison: Textual sizes a
 scroll view's bar only after its first layout (the gutters are reserved, so nothing moves).
@@ -13,7 +13,7 @@ import pytest
 from rich.console import RenderableType
 from textual.screen import Screen
 
-from tui_helpers import text_box
+from tui_helpers import mounted_text_box
 
 from workbench.tui import files
 from workbench.tui.app import WorkbenchApp
@@ -45,7 +45,7 @@ async def test_first_frame_is_the_settled_screen(size: tuple[int, int]) -> None:
     session = files.open_session(path).session
     app = FirstFrameKept(session, offer_recovery=False, autosave_delay=None)
     async with app.run_test(size=size) as pilot:
-        await text_box(pilot, app, "fr")  # the text boxes are in
+        await mounted_text_box(pilot, app)  # the text box is in
         await pilot.pause()
         settled = screen_text(app.workbench_screen)
         assert app.first_frame is not None

@@ -7,6 +7,8 @@ from __future__ import annotations
 
 import pytest
 
+from tui_helpers import retype
+
 THEMES = ("bench-night", "bench-paper")
 SIZES = ((80, 24), (120, 40))
 
@@ -24,8 +26,8 @@ def test_main_screen(snap_compare, make_app, theme: str, size: tuple[int, int]) 
 
 def test_derivation_with_a_warning(snap_compare, make_app) -> None:
     async def slow_the_shaft(pilot) -> None:
-        await pilot.pause()
-        pilot.app.workbench_screen.query_one("#field-speed").value = "0"
+        await retype(pilot, pilot.app, "speed", "0")
+        await pilot.press("f3")  # the cursor leaves the editor
         await pilot.pause()
 
     assert snap_compare(make_app(), terminal_size=(80, 24), run_before=slow_the_shaft)

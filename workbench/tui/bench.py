@@ -71,17 +71,17 @@ async def _keystrokes(cases: int) -> list[float]:
     from textual.widgets import Input
 
     from .app import WorkbenchApp
-    from .case_editor import field_id
+    from .case_editor import TEXT_BOX_ID, CaseEditor
     from .derivation_pane import DerivationPane
 
     app = WorkbenchApp(bench_session(cases), offer_recovery=False, autosave_delay=None)
     samples: list[float] = []
     async with app.run_test(size=TERMINAL) as pilot:
         screen = app.workbench_screen
-        await _until(lambda: bool(screen.query(f"#{field_id('fr')}")))  # mounted after frame 1
-        box = screen.query_one(f"#{field_id('fr')}", Input)
+        await _until(lambda: bool(screen.query(f"#{TEXT_BOX_ID}")))  # mounted after frame 1
+        box = screen.query_one(f"#{TEXT_BOX_ID}", Input)
         pane = screen.query_one(DerivationPane)
-        box.focus()
+        screen.query_one(CaseEditor).focus_field("fr")
         box.value = "2"
         box.cursor_position = 1
         await pilot.pause()
@@ -132,7 +132,7 @@ def _until_first_frame(base: type[App[object]]) -> type[App[object]]:
     full layout of it, every visible line rendered).  Headless, the driver writes nothing, so
     the update is turned into terminal output here as a terminal run would; the process then
     ends, without the shutdown (nothing is left to flush in a headless run), so work scheduled
-    after the first frame (text boxes mounted under their rows, the hidden panes) is neither
+    after the first frame (the editor's text box, the hidden panes) is neither
     timed nor interrupted half-way.  ``tests/tui/test_first_frame.py`` checks that this frame
     already shows what the settled screen shows.
     """

@@ -1,17 +1,18 @@
 """A fixed choice on one line: the value in force and a mark; the list opens in a dialog.
 
-Textual's ``Select`` carries its drop-down list with it (five widgets, the list built up front);
-the case editor has six choices and each cost as much to start as a dozen plain lines.  This
-field is one widget: left and right step through the choices in place, enter (or a click)
-opens them as a list in a small dialog.
+Textual's ``Select`` carries its drop-down list with it (five widgets, the list built up front).
+This field is one widget: left and right step through the choices in place, enter (or a click)
+opens them as a list in a small dialog.  The solver pane and the rating form use it; the case
+editor paints its choices itself and shares the stepping (:func:`step_choice`) and the list
+(:func:`open_choice_list`).
 """
 
 from __future__ import annotations
 
-from collections.abc import Mapping, Sequence
+from collections.abc import Callable, Mapping, Sequence
 
 from textual import on
-from textual.app import ComposeResult
+from textual.app import App, ComposeResult
 from textual.binding import Binding
 from textual.containers import Vertical
 from textual.content import Content
@@ -67,6 +68,25 @@ class ChoiceList(OnceModal[str | None]):
     def _chosen(self, event: OptionList.OptionSelected) -> None:
         event.stop()
         self.close(event.option.id)
+
+
+def step_choice(offered: Sequence[str | None], value: str | None, delta: int) -> str | None:
+    """The choice ``delta`` places from ``value`` in ``offered`` (not empty), wrapping round;
+    a value not on offer steps from before the first."""
+    index = offered.index(value) if value in offered else -1
+    return offered[(index + delta) % len(offered)]
+
+
+def open_choice_list(app: App[object], title: str, choices: Sequence[str], current: str | None,
+                     blank_prompt: str | None, take: Callable[[str | None], None],
+                     labels: Mapping[str, str] | None = None) -> None:
+    """Open ``choices`` as a :class:`ChoiceList`; ``take`` gets the value chosen (None for the
+    blank line) and is not called when the list is cancelled."""
+    def answered(answer: str | None) -> None:
+        if answer is not None:
+            take(None if answer == BLANK_KEY else answer)
+
+    app.push_screen(ChoiceList(title, choices, current, blank_prompt, labels), answered)
 
 
 class ChoiceField(Widget, can_focus=True):
@@ -143,28 +163,20 @@ class ChoiceField(Widget, can_focus=True):
         """Announce the new choice (suppressed with ``prevent(ChoiceField.Changed)``)."""
         self.post_message(self.Changed(self, value))
 
-    def _offered(self) -> list[str | None]:
-        offered: list[str | None] = [None] if self._allow_blank else []
-        return offered + list(self._choices)
-
     def action_step(self, delta: int) -> None:
         """Take the next (or previous) choice in place, wrapping round."""
-        offered = self._offered()
-        if not offered:
-            return
-        index = offered.index(self.value) if self.value in offered else -1
-        self.value = offered[(index + delta) % len(offered)]
+        offered: list[str | None] = [None] if self._allow_blank else []
+        offered += self._choices
+        if offered:
+            self.value = step_choice(offered, self.value, delta)
 
     def action_open(self) -> None:
         """Open the choices as a list."""
-        def chosen(answer: str | None) -> None:
-            if answer is None:
-                return
-            self.value = None if answer == BLANK_KEY else answer
+        def take(value: str | None) -> None:
+            self.value = value
 
-        self.app.push_screen(ChoiceList(self._title, self._choices, self.value,
-                                        self._prompt if self._allow_blank else None,
-                                        self._labels), chosen)
+        open_choice_list(self.app, self._title, self._choices, self.value,
+                         self._prompt if self._allow_blank else None, take, self._labels)
 
     def on_click(self) -> None:
         """A click opens the list, as enter does."""

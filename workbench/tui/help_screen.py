@@ -14,8 +14,10 @@ from .actions import ACTIONS
 from .dialogs import OnceModal
 
 HELP_FOOTNOTE = (
-    "tab / shift+tab move between fields; ctrl+p opens the command palette with every command. "
-    "In a choice field ← and → step through the choices and enter lists them; on the strip of "
+    "tab / shift+tab move between fields and panes (in the case editor ↑ / ↓ too, page up / "
+    "down by a screenful, home / end on a choice to the first and last field); ctrl+p opens "
+    "the command palette with every command. In a choice field ← and → step through the "
+    "choices and enter or space lists them; space, ← or → flips a switch; on the strip of "
     "pane titles ← and → step through the panes. "
     "A value that cannot be used is marked beside its field and the last valid value stays in "
     "force. Typed values keep their units; results follow the SI/US display setting. "
