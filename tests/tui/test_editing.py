@@ -12,6 +12,7 @@ from workbench.engine.record import fmt
 from workbench.model.fields import FIELD_BY_NAME
 from workbench.model.quantities import format_quantity
 from workbench.tui.case_editor import LABEL_WIDTH
+from workbench.tui.case_list import CaseList
 from workbench.tui.choice_field import ChoiceList
 
 
@@ -54,8 +55,7 @@ async def test_case_list_row_follows_typing(make_app) -> None:
     app = make_app()
     async with app.run_test(size=(80, 24)) as pilot:
         await retype(pilot, app, "fr", "7 kN")
-        table = app.workbench_screen.query_one("#cases")
-        row = [str(cell).strip() for cell in table.get_row_at(0)]
+        row = app.workbench_screen.query_one(CaseList).row_texts(0)
         reference = reference_derivation(app)
         assert row[0] == "Steady run"
         assert row[1] == format_quantity(reference.results["P"], "force", "SI")
@@ -238,8 +238,8 @@ async def test_bearing_field_edit_updates_every_case_on_that_bearing(make_app) -
         assert app.workbench.session.bearing("Drive").texts["c"] == "40 kN"
         peak = app.workbench.results[1]
         assert peak.inputs is not None and peak.inputs.c == pytest.approx(40_000.0)
-        table = app.workbench_screen.query_one("#cases")
-        assert str(table.get_row_at(1)[2]).strip() == fmt(peak.derivation.results["Lnm"])
+        row = app.workbench_screen.query_one(CaseList).row_texts(1)
+        assert row[2] == fmt(peak.derivation.results["Lnm"])
 
 
 async def test_names_that_look_like_markup_are_shown_as_written(make_app) -> None:
@@ -260,8 +260,7 @@ async def test_names_that_look_like_markup_are_shown_as_written(make_app) -> Non
         await pilot.press("ctrl+b", "f8")
         await pilot.pause()
         assert app.workbench.session.cases[0].name == "[b]x[/b"
-        table = app.workbench_screen.query_one("#cases")
-        assert str(table.get_row_at(0)[0]).strip() == "[b]x[/b"
+        assert app.workbench_screen.query_one(CaseList).row_texts(0)[0] == "[b]x[/b"
         await retype(pilot, app, "fr", "3 [unit]")
         assert "[unit]" in (editor(app).message_for("fr") or "")
         assert "[unit]" in editor(app).sheet_text

@@ -10,6 +10,7 @@ from tui_helpers import retype
 
 from workbench.model.analysis import analyse
 from workbench.tui import files
+from workbench.tui.case_list import CaseList
 from workbench.tui.app import WorkbenchApp
 from workbench.tui.dialogs import ChoiceDialog
 
@@ -155,7 +156,7 @@ async def test_demo_session_shows_on_the_screen() -> None:
     app = WorkbenchApp(outcome.session, None, offer_recovery=False, autosave_delay=None)
     async with app.run_test(size=(80, 24)) as pilot:
         await pilot.pause()
-        table = app.workbench_screen.query_one("#cases")
+        table = app.workbench_screen.query_one(CaseList)
         # the session's own cases, then those its shaft generates
         assert table.row_count == len(analyse(outcome.session).cases) > len(outcome.session.cases)
         assert app.workbench_screen.query_one("#derivation").text.plain.startswith("Load case")
