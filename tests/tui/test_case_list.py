@@ -1,11 +1,14 @@
-"""The load-case list: its cursor follows keys and clicks, stays in view, and rows show the
-engine's figures."""
+"""The load-case list (its cursor follows keys and clicks and stays in view, its rows show the
+engine's figures) and the title line above it."""
 
 from __future__ import annotations
+
+from tui_helpers import retype
 
 from workbench.engine.record import fmt
 from workbench.model.quantities import format_quantity
 from workbench.tui.case_list import CaseList, case_row
+from workbench.tui.title_bar import TitleBar
 
 
 def _list(app) -> CaseList:
@@ -79,3 +82,16 @@ async def test_rows_show_the_derived_figures(make_app) -> None:
         painted = [cases_line.text for cases_line in (_list(app).render_line(y) for y in (0, 1))]
         assert painted[0].split() == ["Case", "P", "Lnm", "h", "s0", "Meets"]
         assert painted[1].startswith(" Steady run")
+
+
+async def test_title_line_keeps_the_save_state_in_view_when_the_title_is_long(make_app) -> None:
+    app = make_app()
+    app.workbench.session.title = "A very long session title " * 4
+    async with app.run_test(size=(80, 24)) as pilot:
+        await pilot.pause()
+        line = app.workbench_screen.query_one(TitleBar).render().plain
+        assert line.startswith("A very long session title")
+        assert "…" in line and line.endswith("not saved yet · SI")
+        await retype(pilot, app, "fr", "4 kN")
+        assert app.workbench_screen.query_one(TitleBar).render().plain.endswith(
+            "not saved yet ● · SI")

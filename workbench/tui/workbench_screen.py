@@ -17,7 +17,7 @@ from textual.app import ComposeResult
 from textual.containers import Horizontal, Vertical
 from textual.screen import Screen
 from textual.timer import Timer
-from textual.widgets import ContentSwitcher, Header
+from textual.widgets import ContentSwitcher
 
 from ..engine.record import InputError
 from ..engine.solve import NoSolution
@@ -33,6 +33,7 @@ from .key_footer import KeyFooter
 from .pane_tabs import PaneTabs
 from .solver_pane import SolverPane
 from .state import Workbench, input_field
+from .title_bar import TitleBar
 
 if TYPE_CHECKING:
     from .selection_screen import Adoption
@@ -64,7 +65,7 @@ class WorkbenchScreen(Screen[None]):
     def compose(self) -> ComposeResult:
         """Left: the list over the editor; right: the pane strip over the Derivation, Solver
         and What-if panes (the last two mounted after the first frame)."""
-        yield Header()
+        yield TitleBar()
         with Horizontal(id="body"):
             with Vertical(id="left"):
                 yield CaseList(id="cases")
