@@ -126,3 +126,20 @@ async def test_no_color_selects_monochrome_and_keeps_the_saved_choice(
 
 def test_config_dir_follows_the_environment(private_config: Path) -> None:
     assert settings.config_dir() == private_config
+
+
+async def test_starting_theme_styles_the_screen_and_a_switch_restyles_it(make_app) -> None:
+    # The starting theme's restyle is skipped (its colours are set before the first styling):
+    # the screen must still wear it, and the next switch must restyle.
+    settings.save_theme("bench-paper")
+    app = make_app()
+    async with app.run_test(size=(80, 24)) as pilot:
+        await pilot.pause()
+        screen = app.workbench_screen
+        paper = Color.parse(app.get_css_variables()["background"])
+        assert screen.styles.background == paper
+        await pilot.press("ctrl+t")
+        await pilot.pause()
+        assert app.theme != "bench-paper"
+        switched = Color.parse(app.get_css_variables()["background"])
+        assert switched != paper and screen.styles.background == switched

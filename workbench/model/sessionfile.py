@@ -83,7 +83,6 @@ from pathlib import Path
 from typing import Any, Callable, Mapping, TypeVar
 
 import platformdirs
-import tomli_w
 
 from ..engine.solve import UNKNOWNS
 from .duty_cycles import duty_cycles_from_tables
@@ -489,6 +488,8 @@ def dumps_session(session: Session) -> str:
         ]
     doc["solver"] = {key: getattr(session.solver, key) for key in SOLVER_KEYS}
     doc.update(session.reserved)
+    import tomli_w  # imported on the first save, not when the workbench starts
+
     # tomli_w writes "\r\n" raw inside a multi-line string, where TOML reads it back as "\n"
     return tomli_w.dumps(doc, multiline_strings=not _holds_carriage_return(doc))
 

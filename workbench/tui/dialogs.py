@@ -21,6 +21,69 @@ class OnceModal(ModalScreen[ResultType], Generic[ResultType]):
     """A modal screen that closes once: a second enter or escape already queued is ignored
     (dismissing twice would pop the screen underneath)."""
 
+    DEFAULT_CSS = """
+    OnceModal {
+        &.dialog {
+            align: center middle;
+            background: $background 60%;
+        }
+        .dialog-box {
+            width: 64;
+            max-width: 95%;
+            height: auto;
+            max-height: 90%;
+            padding: 1 2;
+            border: round $primary;
+            background: $surface;
+        }
+        .info-box {
+            width: 100;
+        }
+        .choice-box {
+            width: 44;
+        }
+        .choice-box OptionList {
+            height: auto;
+            max-height: 14;
+        }
+        .selection-box {
+            width: 100%;
+            height: 100%;
+            max-width: 120;
+            max-height: 100%;
+        }
+        .dialog-title {
+            color: $text-primary;
+            text-style: bold;
+            margin-bottom: 1;
+        }
+        .dialog-message {
+            margin-bottom: 1;
+        }
+        .dialog-hint {
+            color: $text-muted;
+            margin-top: 1;
+        }
+        .dialog-buttons {
+            height: auto;
+        }
+        .dialog-buttons Button {
+            margin-right: 2;
+        }
+        #prompt-message {
+            color: $text-error;
+        }
+        #candidates {
+            height: 1fr;
+            margin-top: 1;
+        }
+        #selection-summary {
+            margin-top: 1;
+        }
+    }
+    """
+    """The dialogs' styles, read when the first dialog opens rather than at start."""
+
     _answered = False
 
     def close(self, result: ResultType) -> None:

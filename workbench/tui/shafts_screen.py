@@ -132,7 +132,7 @@ class ShaftsScreen(OnceModal[None]):
 
     def compose(self) -> ComposeResult:
         """Title, the read-only note, and the worked-out shafts and duty cycles (scrolling)."""
-        with VerticalScroll(classes="dialog-box shafts-box", id="shafts-view"):
+        with VerticalScroll(classes="dialog-box selection-box", id="shafts-view"):
             yield Label("Shafts and duty cycles", classes="dialog-title")
             yield Static(Content(READ_ONLY_NOTE), classes="dialog-hint")
             yield Static(analysis_content(self.analysis, self.system), id="shafts-text")

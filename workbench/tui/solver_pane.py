@@ -67,6 +67,23 @@ def failure_content(message: str, reachable: tuple[float, float] | None, target:
 class SolverPane(VerticalScroll):
     """Choose the unknown and the target; see the solution or the reason there is none."""
 
+    DEFAULT_CSS = """
+    SolverPane {
+        height: 1fr;
+        padding: 0 1;
+    }
+    #solver-buttons {
+        height: 1;
+        margin: 1 0;
+    }
+    #solver-buttons Button {
+        margin-right: 2;
+    }
+    #solver-result {
+        width: 1fr;
+    }
+    """
+
     class SolveRequested(Message):
         """Solve ``unknown`` so that the target text ("Lnm=20000 h") is met."""
 

@@ -112,6 +112,14 @@ class WhatIfPane(VerticalScroll):
         text-wrap: nowrap;
         text-overflow: clip;
     }
+    WhatIfPane .group-title {
+        width: 1fr;
+        margin-top: 1;
+        padding: 0 1;
+        background: $boost;
+        color: $text-primary;
+        text-style: bold;
+    }
     """
 
     items: list[SensitivityItem]
