@@ -13,8 +13,7 @@ floats (math.fsum), not arrays.
 from __future__ import annotations
 
 import math
-from dataclasses import dataclass
-from typing import Literal, Sequence
+from typing import Literal, NamedTuple, Sequence
 
 from .gears import checked
 from .record import InputError
@@ -26,8 +25,7 @@ WEIBULL_SLOPE_BALL = 10.0 / 9.0
 WEIBULL_SLOPE_ROLLER = 9.0 / 8.0
 
 
-@dataclass(frozen=True, slots=True)
-class MinerLife:
+class MinerLife(NamedTuple):
     """Life under the duty cycle and each state's share of the damage (shares sum to 1)."""
 
     life: float

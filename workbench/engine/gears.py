@@ -28,8 +28,7 @@ from __future__ import annotations
 
 import math
 import numbers
-from dataclasses import dataclass
-from typing import Literal
+from typing import Literal, NamedTuple
 
 from .num import Num, is_array
 from .record import InputError
@@ -46,8 +45,7 @@ BELT_PULL_FACTORS: dict[str, tuple[float, tuple[float, float]]] = {
 V_BELT_PULL_FACTOR = BELT_PULL_FACTORS["v_belt"][0]
 
 
-@dataclass(frozen=True, slots=True)
-class MeshForces:
+class MeshForces(NamedTuple):
     """Tangential Wt, radial Wr (magnitudes) and axial Wa (signed, see module notes), in N."""
 
     tangential: Num
@@ -55,8 +53,7 @@ class MeshForces:
     axial: Num
 
 
-@dataclass(frozen=True, slots=True)
-class BeltPull:
+class BeltPull(NamedTuple):
     """Resultant pull of a belt or chain on its shaft, in N, and its y and z components."""
 
     force: Num

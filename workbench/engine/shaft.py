@@ -15,8 +15,7 @@ My = z₀·Fx and Mz = −y₀·Fx; the transverse components at radius r add on
 from __future__ import annotations
 
 import math
-from dataclasses import dataclass, field
-from typing import Literal, Sequence
+from typing import Literal, NamedTuple, Sequence
 
 from .gears import checked
 from .record import Derivation, InputError
@@ -25,8 +24,7 @@ Locating = Literal["A", "B", "both"]
 SOURCE = "shaft statics, ΣF = 0, ΣM = 0"
 
 
-@dataclass(frozen=True, slots=True)
-class PointLoad:
+class PointLoad(NamedTuple):
     """A force on the shaft in N at axial position ``x_mm``; axial ``fx`` acts at (radius, angle)."""
 
     x_mm: float
@@ -48,8 +46,7 @@ class PointLoad:
         return self.radius_mm * math.sin(math.radians(self.angle_deg))
 
 
-@dataclass(frozen=True, slots=True)
-class ShaftLayout:
+class ShaftLayout(NamedTuple):
     """Bearing positions (mm), which bearing locates axially, and the loads on the shaft.
 
     ``locating`` is "A" or "B" when one bearing takes all the thrust (the other floats), or "both"
@@ -60,11 +57,10 @@ class ShaftLayout:
     bearing_a_mm: float
     bearing_b_mm: float
     locating: Locating
-    loads: Sequence[PointLoad] = field(default_factory=tuple)
+    loads: Sequence[PointLoad] = ()
 
 
-@dataclass(frozen=True, slots=True)
-class ShaftReactions:
+class ShaftReactions(NamedTuple):
     """Forces the bearings exert on the shaft (N), their radial loads, and the axial loads.
 
     ``thrust`` is the net external axial force on the shaft, positive toward +x; the locating
@@ -83,8 +79,7 @@ class ShaftReactions:
     axial_b: float
 
 
-@dataclass(frozen=True, slots=True)
-class _LoadSums:
+class _LoadSums(NamedTuple):
     span: float
     force_y: float
     force_z: float

@@ -18,8 +18,7 @@ file has had its tables checked already; one built in memory may not have.
 from __future__ import annotations
 
 from collections.abc import Callable, Mapping
-from dataclasses import dataclass
-from typing import Any, TypeVar
+from typing import Any, NamedTuple, TypeVar
 
 from ..engine.record import InputError
 from .duty_cycles import (
@@ -37,8 +36,7 @@ from .shafts import (
 T = TypeVar("T")
 
 
-@dataclass(frozen=True, slots=True)
-class StateOutcome:
+class StateOutcome(NamedTuple):
     """One operating state of a shaft: its free body solved, or why not (``key: message``)."""
 
     state: OperatingState
@@ -47,8 +45,7 @@ class StateOutcome:
     error: str | None
 
 
-@dataclass(frozen=True, slots=True)
-class ShaftOutcome:
+class ShaftOutcome(NamedTuple):
     """A ``[[shafts]]`` table worked out.
 
     ``shaft`` is None when the table cannot be read; ``error`` says why, or why its cases could
@@ -64,8 +61,7 @@ class ShaftOutcome:
     system_error: str | None
 
 
-@dataclass(frozen=True, slots=True)
-class DutyOutcome:
+class DutyOutcome(NamedTuple):
     """A duty cycle worked out, or why not.
 
     ``shaft`` names the shaft whose states make the cycle (one per bearing position), and is None
@@ -80,8 +76,7 @@ class DutyOutcome:
     error: str | None
 
 
-@dataclass(frozen=True, slots=True)
-class SessionAnalysis:
+class SessionAnalysis(NamedTuple):
     """Every case (the session's, then the generated ones), every shaft, every duty cycle."""
 
     cases: list[CaseResult]

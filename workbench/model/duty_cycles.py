@@ -37,7 +37,7 @@ from __future__ import annotations
 import math
 from collections.abc import Mapping, Sequence
 from dataclasses import dataclass, field
-from typing import Any
+from typing import Any, NamedTuple
 
 from ..engine import duty
 from ..engine.kinds import ROLLER_KINDS, parse_kind
@@ -68,8 +68,7 @@ class DutyCycle:
     basis: str = "time"
 
 
-@dataclass(frozen=True, slots=True)
-class DutyResult:
+class DutyResult(NamedTuple):
     """A duty cycle worked out: Miner life, hours at the mean speed, each state's damage share.
 
     ``bearing`` and ``kind`` are the session bearing the states load and its kind.
@@ -89,8 +88,7 @@ class DutyResult:
     derivation: Derivation
 
 
-@dataclass(frozen=True, slots=True)
-class SystemResult:
+class SystemResult(NamedTuple):
     """A shaft's bearings as a series system: each duty life and the combined life."""
 
     shaft: Shaft

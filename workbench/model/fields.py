@@ -8,8 +8,7 @@ files and the case editor all go through :func:`parse_field`, so "2 kN" means on
 from __future__ import annotations
 
 import math
-from dataclasses import dataclass
-from typing import Mapping
+from typing import Mapping, NamedTuple
 
 from ..engine import tables as T
 from ..engine.derive import RELIABILITY_MODELS, CaseInputs
@@ -19,8 +18,7 @@ from .quantities import QuantityError, parse
 MAX_TEXT = 200
 
 
-@dataclass(frozen=True, slots=True)
-class FieldSpec:
+class FieldSpec(NamedTuple):
     """One input: ``kind`` is quantity, number, fraction, choice or switch."""
 
     name: str

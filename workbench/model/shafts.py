@@ -69,7 +69,7 @@ import math
 from collections.abc import Iterator, Mapping, Sequence
 from contextlib import contextmanager
 from dataclasses import dataclass, field, fields
-from typing import Any
+from typing import Any, NamedTuple
 
 from ..engine.derive import CaseInputs, validate
 from ..engine.gears import (
@@ -285,8 +285,7 @@ _ELEMENT_PARSERS = {
 }
 
 
-@dataclass(frozen=True, slots=True)
-class _ParsedShaft:
+class _ParsedShaft(NamedTuple):
     position_a: float
     position_b: float
     locating: str
@@ -384,8 +383,7 @@ _LAYOUT_ENGINE_KEYS = {"bearing_a_position": "position_a", "bearing_b_position":
 
 
 # ---- the free body -------------------------------------------------------------------------
-@dataclass(frozen=True, slots=True)
-class ShaftSolution:
+class ShaftSolution(NamedTuple):
     """One state of a shaft solved: the loads on it, the reactions and per bearing (Fr, Fa) in N."""
 
     shaft: Shaft
@@ -492,8 +490,7 @@ def _element_load(d: Derivation, values: Mapping[str, Any], torque: float, rotat
     return PointLoad(values["position"], fy, fz, fx, values["diameter"] / 2.0, theta, name)
 
 
-@dataclass(frozen=True, slots=True)
-class _PairBearing:
+class _PairBearing(NamedTuple):
     inputs: CaseInputs
     kind: Kind
     arrangement: Arrangement

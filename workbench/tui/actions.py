@@ -10,8 +10,7 @@ move it to other keys; :func:`check_keymap` reads that table.
 from __future__ import annotations
 
 from collections.abc import Mapping
-from dataclasses import dataclass
-from typing import Literal
+from typing import Literal, NamedTuple
 
 from textual.binding import Binding
 
@@ -22,8 +21,7 @@ MOVE_GROUP = Binding.Group("Move case", compact=True)
 PANE_GROUP = Binding.Group("Derivation / Solver / What-if", compact=True)
 
 
-@dataclass(frozen=True, slots=True)
-class Action:
+class Action(NamedTuple):
     """One thing to do: ``action`` names an ``action_*`` method in ``scope``."""
 
     id: str

@@ -11,8 +11,8 @@ sits at the right end, a click on a key presses it and the mouse wheel scrolls t
 from __future__ import annotations
 
 from collections.abc import Iterator
-from dataclasses import dataclass
 from itertools import groupby
+from typing import NamedTuple
 
 from textual import events
 from textual.binding import Binding
@@ -25,8 +25,7 @@ from textual.widget import Widget
 SCROLL_STEP = 8
 
 
-@dataclass(frozen=True, slots=True)
-class KeyShown:
+class KeyShown(NamedTuple):
     """One key on the line: what it presses and how it reads."""
 
     key: str
@@ -35,8 +34,7 @@ class KeyShown:
     enabled: bool
 
 
-@dataclass(frozen=True, slots=True)
-class KeyGroupShown:
+class KeyGroupShown(NamedTuple):
     """Keys of one binding group, read together (``alt+↑ alt+↓ Move case``), or one key."""
 
     keys: tuple[KeyShown, ...]

@@ -19,6 +19,7 @@ import math
 import unicodedata
 from dataclasses import dataclass
 from pathlib import Path
+from typing import NamedTuple
 
 from ..engine.record import InputError
 from ..engine.solve import UNKNOWNS, Solution, solve
@@ -68,8 +69,7 @@ def _put(texts: dict[str, str], name: str, text: str | None) -> None:
         texts[name] = text
 
 
-@dataclass(frozen=True)
-class SolvedFor:
+class SolvedFor(NamedTuple):
     """A solution and the case it was solved for (applying it elsewhere would be wrong)."""
 
     case_name: str
