@@ -44,6 +44,7 @@ EDITOR_GROUPS: tuple[tuple[str, tuple[str, ...]], ...] = (
     ("Static", ("static_duty", "s0_min")),
 )
 BEARING_FIELD = "bearing"
+BEARING_LABEL = "Bearing used"
 """The editor's own row choosing the case's bearing (not an input of the case)."""
 FIELD_ORDER: tuple[str, ...] = (BEARING_FIELD,
                                 *(name for _, names in EDITOR_GROUPS for name in names))
@@ -433,8 +434,7 @@ class CaseEditor(VerticalScroll, can_focus=False):
     def _paint_field(self, name: str, cursor: bool) -> SheetRow:
         """A field's row: its label, then its text (the hint, dim, when blank) on the field
         colour as the text box draws them; a choice with its mark, a switch with its box."""
-        label_text = "Bearing used" if name == BEARING_FIELD else FIELD_BY_NAME[name].label
-        label = Content(f"{'▸' if cursor else ' '}{label_text[:LABEL_WIDTH - 2]}")
+        label = Content(f"{'▸' if cursor else ' '}{self._label(name)[:LABEL_WIDTH - 2]}")
         if cursor:
             label = label.stylize(LABEL_CURSOR_STYLE)
         if takes_text(name):
@@ -564,32 +564,37 @@ class CaseEditor(VerticalScroll, can_focus=False):
     def _is_switch(self, name: str) -> bool:
         return name != BEARING_FIELD and FIELD_BY_NAME[name].kind == "switch"
 
-    def action_step(self, delta: int) -> None:
-        """Left/right on a choice: the previous or next choice in place; on a switch: flip."""
+    def _choice_under_cursor(self) -> str | None:
+        """The choice under the cursor; None when the cursor is on a typed field or a switch
+        (a switch is flipped here: every key that acts on a choice flips it)."""
         name = self._current
         if self._empty or takes_text(name):
-            return
+            return None
         if self._is_switch(name):
             self._flip(name)
-            return
-        offered = self._offered(name)
-        if offered:
+            return None
+        return name
+
+    def action_step(self, delta: int) -> None:
+        """Left/right on a choice: the previous or next choice in place; on a switch: flip."""
+        name = self._choice_under_cursor()
+        offered = self._offered(name) if name is not None else []
+        if name is not None and offered:
             self._choose(name, step_choice(offered, self._choice_value(name), delta))
 
     def action_open(self) -> None:
         """Enter or space on a choice: its list; on a switch: flip."""
-        name = self._current
-        if self._empty or takes_text(name):
-            return
-        if self._is_switch(name):
-            self._flip(name)
+        name = self._choice_under_cursor()
+        if name is None:
             return
         offered = self._offered(name)
         choices = [value for value in offered if value is not None]
-        title = "Bearing used" if name == BEARING_FIELD else FIELD_BY_NAME[name].label
         blank = self._choice_prompt(name) if None in offered else None
-        open_choice_list(self.app, title, choices, self._choice_value(name), blank,
+        open_choice_list(self.app, self._label(name), choices, self._choice_value(name), blank,
                          lambda value: self._choose(name, value))
+
+    def _label(self, name: str) -> str:
+        return BEARING_LABEL if name == BEARING_FIELD else FIELD_BY_NAME[name].label
 
     # ---- what the person does ---------------------------------------------------------------
     def on_descendant_focus(self, event: events.DescendantFocus) -> None:
