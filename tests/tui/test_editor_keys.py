@@ -16,10 +16,17 @@ async def test_arrows_move_the_cursor_through_every_field(make_app) -> None:
         await pilot.pause()
         assert editor(app).focused_field() == "kind"
         visited = ["kind"]
+        sheet = app.workbench_screen.query_one(FieldSheet)
         for _ in FIELD_ORDER:
             await pilot.press("down")
             await pilot.pause()
             visited.append(editor(app).focused_field())
+            # the cursor's line is in view (a focus change must not scroll the sheet's top back)
+            lines = editor(app).sheet_text.split("\n")
+            line = next(i for i, text in enumerate(lines) if text.startswith("▸"))
+            top = editor(app).scroll_offset.y
+            assert top <= line < top + editor(app).scrollable_content_region.height, line
+            assert sheet.region.y <= box.region.y or not box.display
             if editor(app).focused_field() in ("c", "fr"):  # typed: the box has the keys
                 assert box.has_focus and box.display
         assert visited[-1] == FIELD_ORDER[-1]  # the last field holds the cursor

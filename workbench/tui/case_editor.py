@@ -471,7 +471,7 @@ class CaseEditor(VerticalScroll, can_focus=False):
                     box.value = text
                     box.cursor_position = len(text)
         elif box.has_focus:
-            self._sheet.focus()
+            self._sheet.focus(scroll_visible=False)
         box.display = typed
 
     def _row_of(self, name: str) -> int:
@@ -490,16 +490,22 @@ class CaseEditor(VerticalScroll, can_focus=False):
             self.post_message(self.Done())
         self._current = name
         self._redraw()
-        line = self._sheet.line_of(self._row_of(name))
+        self._scroll_to_cursor()
+
+    def _scroll_to_cursor(self) -> None:
+        """Scroll so the cursor's field shows, with a line of context each side."""
+        line = self._sheet.line_of(self._row_of(self._current))
         self.scroll_to_region(Region(0, max(0, line - 1), 1, 3), animate=False)
 
     def _focus_current(self) -> None:
-        """Give the focus to the text box on a typed field, else to the sheet."""
+        """Give the focus to the text box on a typed field, else to the sheet (without Textual
+        scrolling the sheet's top into view, as it does for a widget given the focus)."""
         box = self._box
         if box is not None and box.display:
-            box.focus()
+            box.focus(scroll_visible=False)
         else:
-            self._sheet.focus()
+            self._sheet.focus(scroll_visible=False)
+        self._scroll_to_cursor()
 
     def action_move(self, delta: int) -> None:
         """Move the cursor to the next (or previous) field."""
@@ -601,8 +607,9 @@ class CaseEditor(VerticalScroll, can_focus=False):
         """Focus on the sheet goes on to the text box when the cursor is on a typed field;
         the cursor mark is drawn while the editor has the focus."""
         if event.widget is self._sheet and self._box is not None and self._box.display:
-            self._box.focus()
+            self._box.focus(scroll_visible=False)
         self._redraw()
+        self.call_after_refresh(self._scroll_to_cursor)  # after the scroll a focus change asks
 
     def on_descendant_blur(self) -> None:
         """Redraw without the cursor mark once the focus has left the editor."""
