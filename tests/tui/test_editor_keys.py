@@ -2,7 +2,9 @@
 
 from __future__ import annotations
 
-from tui_helpers import choose, editor, mounted_text_box, retype
+from textual import events
+
+from tui_helpers import choose, editor, mounted_text_box, retype, text_box
 
 from workbench.tui.case_editor import FIELD_ORDER, LABEL_WIDTH, FieldSheet
 from workbench.tui.case_list import CaseList
@@ -91,3 +93,26 @@ async def test_a_session_without_cases_shows_the_note_and_ignores_keys(make_app)
         assert "No load case selected" in editor(app).sheet_text
         assert editor(app).focused_field() is None
         assert app.is_running
+
+
+async def test_keys_typed_in_a_burst_are_all_kept(make_app) -> None:
+    # Keys can arrive in a burst (a slow SSH link delivers them so): the bound editing keys
+    # (end, ctrl+u, backspace) must act in order among the characters, and the screen's answer
+    # to "7 r" (refused: no such unit, a message line drawn) must not hand the box back a text
+    # it has moved on from.
+    app = make_app()
+    async with app.run_test(size=(80, 24)) as pilot:
+        box = await text_box(pilot, app, "speed")
+        burst = [("end", None), ("ctrl+u", None), ("8", "8"), ("backspace", None)]
+        burst += [(character if character != " " else "space", character)
+                  for character in "7 rpm"]
+        for key, character in burst:
+            app.post_message(events.Key(key, character))
+        for _ in range(3):
+            await pilot.pause()
+        assert box.value == "7 rpm"
+        assert app.workbench.session.cases[0].texts["speed"] == "7 rpm"
+        assert editor(app).message_for("speed") is None
+        await pilot.press("down")  # the sheet then shows what the box held
+        await pilot.pause()
+        assert "Speed n            7 rpm" in editor(app).sheet_text

@@ -216,6 +216,25 @@ class FieldSheet(Widget, can_focus=True):
             self.post_message(self.Hovered(row))
 
 
+class FieldBox(Input):
+    """The editor's text box, whose own editing keys (backspace, ctrl+u, the arrows …) act in
+    the order they arrive among the characters typed.
+
+    Textual inserts a typed character at once but sends a bound key up to the app first, so in a
+    burst of keys (a slow SSH link delivers them so) the characters behind a bound key went in
+    before it acted: ctrl+u then 7 left the field empty (Textualize/textual#6605, open).  Here
+    the box's own non-priority bindings run as the key arrives, as the fix proposed upstream
+    (#6631) does; drop this class when Textual does it itself."""
+
+    async def _on_key(self, event: events.Key) -> None:
+        for binding in self._bindings.key_to_bindings.get(event.key, ()):
+            if not binding.priority and await self.app.run_action(binding.action, self):
+                event.stop()
+                event.prevent_default()
+                return
+        await super()._on_key(event)
+
+
 class CaseEditor(VerticalScroll, can_focus=False):
     """The inputs of one load case, grouped as an engineer reads them."""
 
@@ -270,6 +289,10 @@ class CaseEditor(VerticalScroll, can_focus=False):
         self._sheet = FieldSheet(id="field-sheet")
         self._box: Input | None = None
         """The text box, mounted just after the first frame (None until then)."""
+        self._box_field: str | None = None
+        """The field whose text the box holds.  While it holds it, the box is that text's
+        keeper: keys may arrive faster than the screen answers each edit, and the box must
+        never be handed back a text it has moved on from."""
         self._nudging = False
 
     def compose(self) -> ComposeResult:
@@ -282,7 +305,7 @@ class CaseEditor(VerticalScroll, can_focus=False):
         self.call_after_refresh(self._mount_box)
 
     async def _mount_box(self) -> None:
-        box = Input(compact=True, id=TEXT_BOX_ID, select_on_focus=False)
+        box = FieldBox(compact=True, id=TEXT_BOX_ID, select_on_focus=False)
         box.display = False
         await self._sheet.mount(box)
         self._box = box
@@ -295,6 +318,7 @@ class CaseEditor(VerticalScroll, can_focus=False):
         self._rejected.clear()
         self._empty = not texts
         self._texts = {name: texts.get(name, "") for name in FIELD_BY_NAME}
+        self._box_field = None  # the box takes the loaded text
         self._bearings = tuple(bearings)
         self._bearing = bearing if bearing in self._bearings else None
         title = f"Bearing {bearing}" if bearing else "Bearing"
@@ -460,18 +484,18 @@ class CaseEditor(VerticalScroll, can_focus=False):
             return
         name = self._current
         typed = not self._empty and takes_text(name)
-        if typed:
+        if typed and self._box_field != name:
             spec = FIELD_BY_NAME[name]
             box.placeholder = _placeholder(spec)
             box.suggester = SuggestFromList(spec.choices) if spec.choices else None
             box.tooltip = spec.hint or None
             text = self._texts.get(name, "")
-            if box.value != text:
-                with box.prevent(Input.Changed):
-                    box.value = text
-                    box.cursor_position = len(text)
-        elif box.has_focus:
+            with box.prevent(Input.Changed):
+                box.value = text
+                box.cursor_position = len(text)
+        elif not typed and box.has_focus:
             self._sheet.focus(scroll_visible=False)
+        self._box_field = name if typed else None
         box.display = typed
 
     def _row_of(self, name: str) -> int:
@@ -486,7 +510,10 @@ class CaseEditor(VerticalScroll, can_focus=False):
         """Put the cursor on ``name``: the edit run in the field left ends there."""
         if name == self._current:
             return
-        if self._box is not None and self._box.has_focus:
+        box = self._box
+        if box is not None and self._box_field == self._current:
+            self._texts[self._current] = box.value  # the sheet shows what the box held
+        if box is not None and box.has_focus:
             self.post_message(self.Done())
         self._current = name
         self._redraw()
