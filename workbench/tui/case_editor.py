@@ -149,7 +149,7 @@ class FieldSheet(Widget, can_focus=True):
         if self._wrapped[0] == width:
             return self._wrapped[1]
         lines: list[tuple[int, Content]] = []
-        for index, (text, value, _, wraps) in enumerate(self._rows):
+        for index, (text, _, _, wraps) in enumerate(self._rows):
             if not wraps or text.cell_length <= width or width <= self.MESSAGE_INDENT:
                 lines.append((index, text))
                 continue
