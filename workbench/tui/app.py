@@ -19,7 +19,6 @@ from ..model.session import Session
 from . import files, settings
 from .actions import bindings, check_keymap
 from .commands import WorkbenchCommands
-from .dialogs import ChoiceDialog
 from .state import Workbench
 from .theme_files import DEFAULT_THEME, MONOCHROME_THEME, load_theme_files
 from .workbench_screen import AUTOSAVE_DELAY_S, WorkbenchScreen
@@ -161,6 +160,8 @@ class WorkbenchApp(App[int]):
         if not self.workbench.dirty:
             self.exit(0)
             return
+        from .dialogs import ChoiceDialog  # loaded when the first dialog opens
+
         if isinstance(self.screen, ChoiceDialog):
             return
 
@@ -181,6 +182,7 @@ class WorkbenchApp(App[int]):
         found = files.recovery_for(self.workbench.path)
         if found is None:
             return
+        from .dialogs import ChoiceDialog
 
         def answered(answer: str | None) -> None:
             if answer != "recover":

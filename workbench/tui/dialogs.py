@@ -1,8 +1,9 @@
-"""Small modal dialogs: ask for a line of text (names, file paths) or a choice among buttons."""
+"""Small modal dialogs: ask for a line of text (names, file paths), a choice among buttons, or
+one of a field's choices from a list.  Imported when the first dialog opens."""
 
 from __future__ import annotations
 
-from collections.abc import Callable, Sequence
+from collections.abc import Callable, Mapping, Sequence
 from typing import Generic, TypeVar
 
 from textual import on
@@ -11,8 +12,8 @@ from textual.binding import Binding
 from textual.containers import Horizontal, Vertical
 from textual.content import Content
 from textual.screen import ModalScreen
-from textual.widgets import Button, Input, Label, Static
-
+from textual.widgets import Button, Input, Label, OptionList, Static
+from textual.widgets.option_list import Option
 
 ResultType = TypeVar("ResultType")
 
@@ -152,3 +153,49 @@ class ChoiceDialog(OnceModal[str | None]):
     def _pressed(self, event: Button.Pressed) -> None:
         event.stop()
         self.close((event.button.id or "").removeprefix("answer-"))
+
+
+BLANK_KEY = ""
+"""The list's key for "no choice" (the prompt's line)."""
+
+
+class ChoiceList(OnceModal[str | None]):
+    """The choices of a field as a list; enter takes the highlighted one, escape keeps the value.
+
+    Answers the chosen value, ``BLANK_KEY`` for the blank line, or None when cancelled."""
+
+    BINDINGS = [Binding("escape", "dismiss_none", "Cancel", id="dialog.cancel")]
+
+    def __init__(self, title: str, choices: Sequence[str], current: str | None,
+                 blank_prompt: str | None, labels: Mapping[str, str] | None = None) -> None:
+        super().__init__(classes="dialog")
+        self._title = title
+        self._choices = tuple(choices)
+        self._labels = dict(labels or {})
+        self._current = current
+        self._blank_prompt = blank_prompt
+
+    def compose(self) -> ComposeResult:
+        """Title, the list, and the hint."""
+        options = [Option(Content(self._blank_prompt), id=BLANK_KEY)] if self._blank_prompt else []
+        options += [Option(Content(self._labels.get(choice, choice)), id=choice)
+                    for choice in self._choices]
+        with Vertical(classes="dialog-box choice-box"):
+            yield Label(Content(self._title), classes="dialog-title")
+            yield OptionList(*options, id="choice-options")
+            yield Static("enter: choose   escape: keep as is", classes="dialog-hint")
+
+    def on_mount(self) -> None:
+        """Highlight the value in force."""
+        options = self.query_one(OptionList)
+        wanted = self._current if self._current is not None else BLANK_KEY
+        try:
+            options.highlighted = options.get_option_index(wanted)
+        except LookupError:
+            options.highlighted = 0
+        options.focus()
+
+    @on(OptionList.OptionSelected)
+    def _chosen(self, event: OptionList.OptionSelected) -> None:
+        event.stop()
+        self.close(event.option.id)

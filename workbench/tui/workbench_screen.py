@@ -28,7 +28,6 @@ from .actions import bindings
 from .case_editor import CaseEditor
 from .case_list import CaseList
 from .derivation_pane import DerivationPane
-from .dialogs import ChoiceDialog, TextPrompt
 from .key_footer import KeyFooter
 from .pane_tabs import PaneTabs
 from .solver_pane import SolverPane
@@ -251,6 +250,8 @@ class WorkbenchScreen(Screen[None]):
         if self._refuse_generated():
             return
 
+        from .dialogs import TextPrompt  # the dialogs load when the first one opens
+
         def renamed(name: str | None) -> None:
             if name is None:
                 return
@@ -431,6 +432,8 @@ class WorkbenchScreen(Screen[None]):
 
     def save_as(self, then: Callable[[], object] | None = None) -> None:
         """Ask for a file name and save there."""
+        from .dialogs import TextPrompt
+
         current = self.workbench.path
 
         def chosen(text: str | None) -> None:
@@ -459,6 +462,8 @@ class WorkbenchScreen(Screen[None]):
 
     def action_open(self) -> None:
         """Open another session file (asking first when there is unsaved work)."""
+        from .dialogs import ChoiceDialog, TextPrompt
+
         def chosen(text: str | None) -> None:
             if not text:
                 return
