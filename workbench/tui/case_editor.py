@@ -326,7 +326,6 @@ class CaseEditor(VerticalScroll, can_focus=False):
             title += f" (shared by {bearing_users} cases)"
         self._bearing_title = title
         self._redraw()
-        self._place_box()
 
     def reject(self, field: str, message: str) -> None:
         """Show why the text typed in ``field`` was not taken."""
@@ -639,8 +638,13 @@ class CaseEditor(VerticalScroll, can_focus=False):
         self.call_after_refresh(self._scroll_to_cursor)  # after the scroll a focus change asks
 
     def on_descendant_blur(self) -> None:
-        """Redraw without the cursor mark once the focus has left the editor."""
-        self.call_after_refresh(self._redraw)
+        """Redraw without the cursor mark once the focus has left the editor (a move between
+        the sheet and the box is redrawn by the focus that follows)."""
+        self.call_after_refresh(self._redraw_if_left)
+
+    def _redraw_if_left(self) -> None:
+        if not self._has_focus():
+            self._redraw()
 
     @on(FieldSheet.Clicked)
     def _clicked(self, event: FieldSheet.Clicked) -> None:

@@ -78,6 +78,9 @@ def _line(cells: Sequence[str]) -> Content:
                               for cell, (_, _, width) in zip(cells, COLUMNS)))
 
 
+HEADING = _line([heading for _, heading, _ in COLUMNS])
+
+
 class CaseList(ScrollView, can_focus=True):
     """The session's load cases under a fixed heading; announces the case a person moves to
     with :class:`Chosen`."""
@@ -188,7 +191,7 @@ class CaseList(ScrollView, can_focus=True):
         base = self.visual_style
         index = self.scroll_offset.y + y - 1
         if y == 0:
-            line, style = _line([heading for _, heading, _ in COLUMNS]), HEADING_STYLE
+            line, style = HEADING, HEADING_STYLE
         elif index >= len(self._lines):
             return Strip.blank(width, self.rich_style)
         elif index == self.cursor:
