@@ -35,6 +35,8 @@ RELIABILITY_MODELS = ("iso281", "weibull")
 _CYLINDRICAL = Kind.CYLINDRICAL
 _ANGLED_RADIAL_KINDS = frozenset({Kind.SELF_ALIGNING, Kind.TAPERED, Kind.SPHERICAL})
 _PAIRED_ARRANGEMENTS = frozenset({Arrangement.BACK_TO_BACK, Arrangement.FACE_TO_FACE})
+MODIFIED_LIFE_SOURCE = "ISO 281:2007 §9.1"
+"""The clause of the modified rating life Lnm = a1·aISO·L10."""
 _LOAD_CLAUSE: dict[Kind, str] = {kind: load_clause(kind) for kind in Kind}
 _LIFE_CLAUSE: dict[Kind, str] = {kind: life_clause(kind) for kind in Kind}
 _AISO_LOAD_DIVISOR: dict[Kind, float] = {kind: aiso_load_divisor(kind) for kind in Kind}
@@ -205,7 +207,7 @@ def derive(case: CaseInputs, keep_steps: bool = True) -> Derivation:
     lnm_mrev = a_rel * a_iso * l10
     d.derived("Lnm_mrev", lnm_mrev, lambda: (
         "Lnm", "Modified rating life", "a1·aISO·L10", "{0} × {1} × {2}", (a_rel, a_iso, l10),
-        "10⁶ rev", "ISO 281:2007 §9.1", None))
+        "10⁶ rev", MODIFIED_LIFE_SOURCE, None))
     _hours(d, "Lnm", "Lnm", "Modified rating life in hours", lnm_mrev, case.speed, kind)
     _static(d, case, kind, arrangement, alpha)
     return d

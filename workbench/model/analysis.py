@@ -123,7 +123,8 @@ def _tables(session: Session, name: str,
 
 
 def _shaft_duties(session: Session, key: str, shaft: Shaft, cases: list[LoadCase],
-                  cases_error: str | None, system: SystemResult | None) -> list[DutyOutcome]:
+                  cases_error: str | None, system: SystemResult | None,
+                  evaluate: Callable[[LoadCase], CaseResult]) -> list[DutyOutcome]:
     """The two automatic duty cycles of a shaft (one per bearing), from its system life if any."""
     cycles = shaft_cycles(shaft)
     if system is not None:
@@ -134,12 +135,13 @@ def _shaft_duties(session: Session, key: str, shaft: Shaft, cases: list[LoadCase
         if cases_error is not None:
             result, error = None, cases_error
         else:
-            result, error = _attempt(lambda: duty_life(session, cycle, cases, key=key))
+            result, error = _attempt(lambda: duty_life(session, cycle, cases, key=key,
+                                                            evaluate=evaluate))
         outcomes.append(DutyOutcome(key, cycle.name, shaft.name, cycle, result, error))
     return outcomes
 
 
-def analyse(session: Session) -> SessionAnalysis:
+def analyse(session: Session, *, keep_steps: bool = True) -> SessionAnalysis:
     """Every case, shaft and duty cycle of ``session`` worked out; errors are values, not raised.
 
     Cases: the session's own, then each shaft's generated ones (shaft × state × bearing), all by
@@ -148,6 +150,23 @@ def analyse(session: Session) -> SessionAnalysis:
     Duties: each ``[[duty_cycles]]`` cycle (over the session's and the generated cases), then each
     shaft's two automatic cycles, by the Palmgren–Miner rule (:func:`duty_life`).
     """
+    own = [evaluate_case(session, case, keep_steps=keep_steps) for case in session.cases]
+    return analyse_extras(session, own, keep_steps=keep_steps)
+
+
+def analyse_extras(session: Session, own: list[CaseResult], *,
+                   keep_steps: bool = True) -> SessionAnalysis:
+    """The analysis of ``session`` given its own cases already evaluated (``own``, in order):
+    the shafts, the cases they generate and the duty cycles are worked out here, each case
+    derived once (a duty cycle reuses the result of the case it names)."""
+    known: dict[str, CaseResult] = {result.case.name: result for result in own}
+
+    def evaluate(case: LoadCase) -> CaseResult:
+        found = known.get(case.name)
+        if found is None or found.case != case:
+            found = known[case.name] = evaluate_case(session, case, keep_steps=keep_steps)
+        return found
+
     taken = {case.name for case in session.cases}
     generated: list[LoadCase] = []
     shafts: list[ShaftOutcome] = []
@@ -160,26 +179,30 @@ def analyse(session: Session) -> SessionAnalysis:
             shafts.append(ShaftOutcome(key, name, None, error, (), None, None))
             continue
         names = set(taken)
-        own, cases_error = _attempt(lambda: shaft_cases(session, shaft, key=key, taken=names))
-        if own is not None:
-            taken, generated = names, generated + own
+        own_cases, cases_error = _attempt(lambda: shaft_cases(session, shaft, key=key,
+                                                              taken=names))
+        if own_cases is not None:
+            taken, generated = names, generated + own_cases
         states = []
         for number, state in enumerate(shaft.states, start=1):
             solution, state_error = _attempt(lambda: solve_shaft(shaft, state, session, key=key))
             states.append(StateOutcome(state, f"{key}.states[{number}]", solution, state_error))
-        system, system_error = _attempt(lambda: system_life(session, shaft, key=key))
+        system, system_error = _attempt(
+            lambda: system_life(session, shaft, key=key, cases=own_cases, evaluate=evaluate))
         shafts.append(ShaftOutcome(key, shaft.name, shaft, cases_error, tuple(states), system,
                                    system_error))
-        shaft_duties += _shaft_duties(session, key, shaft, own or [], cases_error, system)
+        shaft_duties += _shaft_duties(session, key, shaft, own_cases or [], cases_error, system,
+                                      evaluate)
     duties: list[DutyOutcome] = []
     for key, name, table, error in _tables(session, "duty_cycles", duty_cycles_from_tables):
         cycle = result = None
         if error is None:
             cycle, error = _attempt(lambda: duty_cycle_from_table(table, key))
         if cycle is not None:
-            result, error = _attempt(lambda: duty_life(session, cycle, generated, key=key))
+            result, error = _attempt(
+                lambda: duty_life(session, cycle, generated, key=key, evaluate=evaluate))
         duties.append(DutyOutcome(key, name, None, cycle, result, error))
-    cases = [evaluate_case(session, case) for case in session.cases + generated]
+    cases = own + [evaluate(case) for case in generated]
     return SessionAnalysis(cases, shafts, duties + shaft_duties)
 
 

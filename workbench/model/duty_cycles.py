@@ -35,12 +35,13 @@ Table layout (TOML, every value text)::
 from __future__ import annotations
 
 import math
-from collections.abc import Mapping, Sequence
+from collections.abc import Callable, Mapping, Sequence
 from dataclasses import dataclass, field
 from typing import Any, NamedTuple
 
 from ..engine import duty
-from ..engine.kinds import ROLLER_KINDS, parse_kind
+from ..engine.derive import MODIFIED_LIFE_SOURCE
+from ..engine.kinds import ROLLER_KINDS, life_clause, parse_kind
 from ..engine.life import life_hours
 from ..engine.record import Derivation, InputError
 from .fields import FieldError
@@ -164,7 +165,8 @@ def _find_case(session: Session, name: str, cases: Sequence[LoadCase]) -> LoadCa
 
 
 def duty_life(session: Session, cycle: DutyCycle, cases: Sequence[LoadCase] = (), *,
-              key: str = "duty_cycle") -> DutyResult:
+              key: str = "duty_cycle",
+              evaluate: Callable[[LoadCase], CaseResult] | None = None) -> DutyResult:
     """Palmgren–Miner life of one bearing over ``cycle`` (1/L = Σ ui/Li, Li = Lnm of each state).
 
     The cycle's cases are looked up in the session, then in ``cases`` (e.g. those generated from
@@ -186,7 +188,7 @@ def duty_life(session: Session, cycle: DutyCycle, cases: Sequence[LoadCase] = ()
         case = _find_case(session, name, cases)
         if case is None:
             raise FieldError(f"{where}.case", f"no load case called {name!r}")
-        result = evaluate_case(session, case)
+        result = evaluate(case) if evaluate is not None else evaluate_case(session, case)
         if result.derivation is None or result.inputs is None:
             raise FieldError(f"{where}.case", f"case {name!r}: {result.error_field}: {result.error}")
         if results and case.bearing != results[0].case.bearing:
@@ -218,15 +220,16 @@ def duty_life(session: Session, cycle: DutyCycle, cases: Sequence[LoadCase] = ()
     life_h = life_hours(miner.life, n_mean) if n_mean > 0.0 else math.nan
     d.add("L_h", "Lh", "Duty-cycle life in hours at the mean speed", "L·10⁶/(60·nm)",
           "{0} × 10⁶ / (60 × {1})", (miner.life, n_mean), life_h, "h",
-          _step_source(results[0], "Lnm"))
+          _life_source(results[0]))
     return DutyResult(cycle, results[0].case.bearing, kind, tuple(results), lives, u,
                       miner.damage_shares, miner.life, n_mean, life_h, reliability, d)
 
 
-def _step_source(result: CaseResult, key: str) -> str:
-    """The source of step ``key`` in a case's derivation."""
-    assert result.derivation is not None
-    return result.derivation.step(key).source
+def _life_source(result: CaseResult) -> str:
+    """The ISO 281 clause of a case's life in hours (read from its kind, so a case derived
+    without its steps serves as well)."""
+    assert result.inputs is not None
+    return life_clause(parse_kind(result.inputs.kind))
 
 
 def _miner_steps(d: Derivation, cycle: DutyCycle, results: Sequence[CaseResult],
@@ -237,7 +240,7 @@ def _miner_steps(d: Derivation, cycle: DutyCycle, results: Sequence[CaseResult],
         name = result.case.name
         d.add(f"L[{i}]", f"L{i}", f"Life of state {i} ({name})", "Lnm of the case",
               "{0}", (lives[i - 1],), lives[i - 1], "10⁶ rev",
-              _step_source(result, "Lnm_mrev"))
+              MODIFIED_LIFE_SOURCE)
     total = math.fsum(weights)
     revolutions = math.fsum(w * n for w, n in zip(weights, speeds))
     for i in range(1, len(results) + 1):
@@ -273,14 +276,18 @@ def weibull_slope(kinds: Sequence[str]) -> float:
     return duty.WEIBULL_SLOPE_ROLLER if roller else duty.WEIBULL_SLOPE_BALL
 
 
-def system_life(session: Session, shaft: Shaft, *, key: str = "shaft") -> SystemResult:
+def system_life(session: Session, shaft: Shaft, *, key: str = "shaft",
+                cases: Sequence[LoadCase] | None = None,
+                evaluate: Callable[[LoadCase], CaseResult] | None = None) -> SystemResult:
     """Life of ``shaft``'s two bearings in series: L_sys = (Σ L_i^−e)^(−1/e) over their duty lives.
 
     Series system of two-parameter Weibull lives of common slope e (see the module notes for the
     slope of a mixed set), at the one reliability every generated case is derived at.
     """
-    cases = shaft_cases(session, shaft, key=key)
-    duties = tuple(duty_life(session, cycle, cases, key=key) for cycle in shaft_cycles(shaft))
+    if cases is None:
+        cases = shaft_cases(session, shaft, key=key)
+    duties = tuple(duty_life(session, cycle, cases, key=key, evaluate=evaluate)
+                   for cycle in shaft_cycles(shaft))
     reliability = duties[0].reliability
     kinds = [result.kind for result in duties]
     slope = weibull_slope(kinds)

@@ -26,6 +26,8 @@ class Bearing:
     name: str
     texts: dict[str, str] = field(default_factory=dict)
     notes: str = ""
+    designation: str = ""  # the maker's or catalog's name for it, once one is adopted
+    source: str = ""  # where its data came from: "catalog FILE, row N" or "rated from geometry"
 
 
 @dataclass
@@ -61,7 +63,9 @@ class Session:
     """Everything a colleague needs to reopen the work."""
 
     title: str = "Untitled session"
+    project: str = ""
     engineer: str = ""
+    revision: str = ""  # the document's own revision mark, as the engineer writes it
     notes: str = ""
     units: str = "SI"
     targets: Targets = field(default_factory=Targets)
@@ -140,8 +144,11 @@ def parse_target(name: str, text: str) -> float | None:
         raise FieldError(name, exc.message) from None
 
 
-def evaluate_case(session: Session, case: LoadCase) -> CaseResult:
-    """Parse the case's texts and derive it; every problem is returned, none is raised."""
+def evaluate_case(session: Session, case: LoadCase, *, keep_steps: bool = True) -> CaseResult:
+    """Parse the case's texts and derive it; every problem is returned, none is raised.
+
+    ``keep_steps=False`` records results and warnings only (the list, the summaries); a
+    person reading the derivation gets the case derived with its steps."""
     texts = case_texts(session, case)
     values: dict[str, object] = {}
     errors: dict[str, str] = {}
@@ -165,7 +172,7 @@ def evaluate_case(session: Session, case: LoadCase) -> CaseResult:
         return CaseResult(case, None, None, errors, errors[first], first, life_target, s0_target)
     inputs = inputs_from_values(values)
     try:
-        derivation = derive(inputs)
+        derivation = derive(inputs, keep_steps=keep_steps)
     except InputError as exc:
         return CaseResult(case, None, inputs, {}, exc.message, exc.field, life_target, s0_target)
     return CaseResult(case, derivation, inputs, {}, None, None, life_target, s0_target)

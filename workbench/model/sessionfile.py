@@ -98,10 +98,10 @@ APP_NAME = "bearing-workbench"
 DEMO_SESSION = "demo.toml"
 RESERVED_TABLES = ("duty_cycles", "shafts")
 TOP_LEVEL_KEYS = ("schema", "session", "targets", "bearings", "cases", "solver") + RESERVED_TABLES
-SESSION_KEYS = ("title", "engineer", "notes", "units")
+SESSION_KEYS = ("title", "project", "engineer", "revision", "notes", "units")
 TARGET_KEYS = ("life", "reliability", "s0")
 SOLVER_KEYS = ("unknown", "target", "case")
-BEARING_KEYS = ("name", "notes") + BEARING_FIELDS
+BEARING_KEYS = ("name", "notes", "designation", "source") + BEARING_FIELDS
 CASE_KEYS = ("name", "bearing", "notes") + CASE_FIELDS
 SESSION_FILE_MODE = 0o644
 RECOVERY_FILE_MODE = 0o600
@@ -292,7 +292,9 @@ class _Reader:
                 for shaft in shafts for state in shaft.states for side in SIDES})
         return Session(
             title=self.text(head, ("session",), "title", Session.title),
+            project=self.text(head, ("session",), "project"),
             engineer=self.text(head, ("session",), "engineer"),
+            revision=self.text(head, ("session",), "revision"),
             notes=self.text(head, ("session",), "notes"),
             units=units,
             targets=self.targets(doc),
@@ -341,7 +343,9 @@ class _Reader:
             table = self.table(value, path, BEARING_KEYS)
             name = self.unique_name(table, path, seen, "bearing")
             result.append(Bearing(name, self.texts(table, path, BEARING_FIELDS),
-                                  self.text(table, path, "notes")))
+                                  self.text(table, path, "notes"),
+                                  self.text(table, path, "designation"),
+                                  self.text(table, path, "source")))
         return result
 
     def cases(self, doc: Mapping[str, Any], bearing_names: set[str]) -> list[LoadCase]:
@@ -470,13 +474,15 @@ def dumps_session(session: Session) -> str:
         raise ValueError(f"reserved tables are {', '.join(RESERVED_TABLES)}, not {', '.join(stray)}")
     doc: dict[str, Any] = {
         "schema": SCHEMA_VERSION,
-        "session": {"title": session.title, "engineer": session.engineer,
-                    "notes": session.notes, "units": session.units},
+        "session": {key: getattr(session, key) for key in SESSION_KEYS
+                    if getattr(session, key) or key in ("title", "engineer", "notes", "units")},
         "targets": {key: getattr(session.targets, key) for key in TARGET_KEYS},
     }
     if session.bearings:
         doc["bearings"] = [
-            _field_table({"name": b.name, "notes": b.notes}, b.texts, BEARING_FIELDS,
+            _field_table({"name": b.name, "notes": b.notes}
+                         | {key: getattr(b, key) for key in ("designation", "source")
+                            if getattr(b, key)}, b.texts, BEARING_FIELDS,
                          f"bearing {b.name!r}")
             for b in session.bearings
         ]

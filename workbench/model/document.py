@@ -1,0 +1,625 @@
+"""The open session as a document: its file, a revision number, one undo stack, one analysis.
+
+Every change goes through :meth:`Document.apply` as an edit command (:mod:`.edits`): the
+revision goes up by one, the inverse edit goes on the undo stack, and the analysis is brought up
+to date for what the edit touches, and no more:
+
+- a load-case field derives that case again;
+- a bearing field derives the cases on that bearing;
+- shafts, the cases they generate and the duty cycles are worked out again only when an edit
+  can reach them (a bearing a shaft carries, a case a duty cycle names, a table, a target);
+- the display system changes nothing but the revision.
+
+The cases are derived without their steps (results and warnings only: ISO 281:2007 life,
+ISO 76:2006 static safety); :meth:`Document.with_steps` derives the one case a person reads
+with every step, once per revision of that case.  Nothing here knows about the screen: the
+screen watches :attr:`Document.revision`.
+
+Typing is an *edit run*: keystrokes in one field of one case merge into one undo step; a text
+that cannot be read (or that the engine refuses because of that field) puts back the value in
+force when the run began, so a half-typed "5" of "5 kN" never stays in force.
+"""
+
+from __future__ import annotations
+
+import math
+import unicodedata
+from dataclasses import dataclass, field
+from pathlib import Path
+from typing import NamedTuple
+
+from ..engine.record import InputError
+from ..engine.solve import UNKNOWNS, Solution, solve
+from .analysis import SessionAnalysis, analyse_extras
+from .edits import (
+    EVERYTHING, DeleteBearing, DeleteCase, Edit, InsertBearing, InsertCase, MoveCase,
+    RenameBearing, RenameCase, SetBearingOrigin, SetCaseBearing, SetSessionText, SetTarget, SetText, SetUnits,
+    Together, Touch,
+)
+from .fields import BEARING_FIELDS, FIELD_BY_NAME, FieldError, parse_field
+from .nudge import leading_number, number_text, scale_text
+from .quantities import format_quantity
+from .session import (
+    Bearing, CaseResult, LoadCase, Session, UNIT_SYSTEMS, case_texts, evaluate_case,
+)
+from .shafts import is_generated
+
+MAX_NAME = 60
+UNDO_DEPTH = 500
+ENGINE_FIELD_TO_INPUT = {"ec": "cleanliness"}
+"""The engine names one input differently from the field a person types it in."""
+DEFAULT_BEARING_TEXTS = {"kind": "deep-groove"}
+
+
+def input_field(engine_field: str | None) -> str | None:
+    """The editor field an engine error names ("ec" is typed in the cleanliness field)."""
+    if engine_field is None:
+        return None
+    return ENGINE_FIELD_TO_INPUT.get(engine_field, engine_field)
+
+
+def name_problem(name: str, taken: set[str], current: str | None = None) -> str | None:
+    """Why ``name`` cannot name a case or bearing (``taken``: names in use), or None."""
+    stripped = name.strip()
+    if not stripped:
+        return "a name is needed"
+    if len(stripped) > MAX_NAME:
+        return f"at most {MAX_NAME} characters"
+    if any(unicodedata.category(ch).startswith("C") for ch in stripped):
+        return "contains a control character"
+    if stripped != current and stripped in taken:
+        return f"{stripped!r} is taken already"
+    return None
+
+
+class Step(NamedTuple):
+    """One undo step: what it was, the edit that undoes it, the case it concerned."""
+
+    label: str
+    inverse: Edit
+    case_index: int | None
+    merge_key: tuple[str, int, str] | None
+
+
+class Undone(NamedTuple):
+    """What undo or redo did: the step's label and the case to show (None: keep the selection)."""
+
+    label: str
+    case_index: int | None
+
+
+@dataclass
+class _EditRun:
+    case_index: int
+    field: str
+    start: str | None  # the field's own text when the run began; None: not set
+
+
+@dataclass(frozen=True)
+class Solved:
+    """A solution, the case it was solved for, and the revision it belongs to."""
+
+    case_name: str
+    revision: int
+    solution: Solution
+
+
+@dataclass
+class Document:
+    """A session under edit: its file, revision, undo and redo, and its analysis."""
+
+    session: Session
+    path: Path | None = None
+    revision: int = 0
+    saved_revision: int = 0
+    solved: Solved | None = None
+    _undo: list[Step] = field(default_factory=list, repr=False)
+    _redo: list[Step] = field(default_factory=list, repr=False)
+    _run: _EditRun | None = field(default=None, repr=False)
+    _own: list[CaseResult] = field(default_factory=list, repr=False)
+    _extras: SessionAnalysis | None = field(default=None, repr=False)
+    _with_steps: dict[int, tuple[int, CaseResult]] = field(default_factory=dict, repr=False)
+    _case_revision: list[int] = field(default_factory=list, repr=False)
+
+    def __post_init__(self) -> None:
+        self._derive_all()
+
+    # ---- reading ------------------------------------------------------------------------
+    @property
+    def dirty(self) -> bool:
+        """Whether there are changes not saved to :attr:`path`."""
+        return self.revision != self.saved_revision
+
+    @property
+    def units(self) -> str:
+        """The session's display system, SI or US."""
+        return self.session.units if self.session.units in UNIT_SYSTEMS else "SI"
+
+    @property
+    def analysis(self) -> SessionAnalysis:
+        """Every case (own, then generated), every shaft and duty cycle, for this revision."""
+        if self._extras is None:
+            self._extras = analyse_extras(self.session, self._own, keep_steps=False)
+        return self._extras
+
+    @property
+    def results(self) -> list[CaseResult]:
+        """Every case evaluated (without steps): the session's own, then the generated ones."""
+        return self.analysis.cases
+
+    def result(self, index: int) -> CaseResult | None:
+        """Case ``index`` of :attr:`results`, or None outside the list."""
+        results = self.results
+        return results[index] if 0 <= index < len(results) else None
+
+    def case(self, index: int) -> LoadCase | None:
+        """The load case at ``index`` (own or generated), or None."""
+        result = self.result(index)
+        return None if result is None else result.case
+
+    def with_steps(self, index: int) -> CaseResult | None:
+        """Case ``index`` derived with every step, for a person to read; derived once per
+        revision of that case."""
+        result = self.result(index)
+        if result is None:
+            return None
+        own = index < len(self._own)
+        stamp = self._case_revision[index] if own else self.revision
+        cached = self._with_steps.get(index)
+        if cached is not None and cached[0] == stamp and cached[1].case is result.case:
+            return cached[1]
+        full = evaluate_case(self.session, result.case)
+        self._with_steps[index] = (stamp, full)
+        return full
+
+    def texts(self, index: int) -> dict[str, str]:
+        """Every input of case ``index`` as typed (bearing fields from its bearing)."""
+        case = self.case(index)
+        return case_texts(self.session, case) if case is not None else {}
+
+    def bearing_users(self, bearing_name: str) -> list[str]:
+        """The names of the own cases that use the bearing called ``bearing_name``."""
+        return [case.name for case in self.session.cases if case.bearing == bearing_name]
+
+    def generated_problem(self, index: int) -> str | None:
+        """Why case ``index`` cannot be edited (it is generated from a shaft), or None."""
+        case = self.case(index)
+        if case is None or not is_generated(case):
+            return None
+        return (f"{case.notes}: edit the shaft, not the case; "
+                "duplicate the case for an editable copy")
+
+    @property
+    def can_undo(self) -> bool:
+        """Whether there is a step to undo."""
+        return bool(self._undo)
+
+    @property
+    def can_redo(self) -> bool:
+        """Whether there is a step to redo."""
+        return bool(self._redo)
+
+    # ---- the one way in -----------------------------------------------------------------
+    def apply(self, edit: Edit, label: str, *, case_index: int | None = None,
+              merge_key: tuple[str, int, str] | None = None) -> None:
+        """Make ``edit`` (one undo step, or merged into the last one when ``merge_key``
+        matches it) and bring the analysis up to date for what it touches."""
+        inverse = edit.apply(self.session)
+        self._redo.clear()
+        if merge_key is None:
+            self._run = None
+        top = self._undo[-1] if self._undo else None
+        if merge_key is None or top is None or top.merge_key != merge_key:
+            self._undo.append(Step(label, inverse, case_index, merge_key))
+            del self._undo[:-UNDO_DEPTH]
+        self._changed(edit.touch)
+
+    def _changed(self, touch: Touch) -> None:
+        self.revision += 1
+        self._refresh(touch)
+
+    def _derive_all(self) -> None:
+        self._own = [evaluate_case(self.session, case, keep_steps=False)
+                     for case in self.session.cases]
+        self._case_revision = [self.revision] * len(self._own)
+        self._extras = None
+        self._with_steps.clear()
+
+    def _refresh(self, touch: Touch) -> None:
+        """Derive again what ``touch`` reaches (see the module notes)."""
+        cases = self.session.cases
+        if touch.everything or len(cases) != len(self._own):
+            self._derive_all()
+            return
+        again = set(touch.cases) | {index for index, case in enumerate(cases)
+                                    if case.bearing in touch.bearings}
+        for index in again:
+            self._own[index] = evaluate_case(self.session, cases[index], keep_steps=False)
+            self._case_revision[index] = self.revision
+        if again and self._extras_reach(touch):
+            self._extras = None
+        elif self._extras is not None:
+            own = len(self._own)
+            self._extras = self._extras._replace(cases=self._own + self._extras.cases[own:])
+
+    def _extras_reach(self, touch: Touch) -> bool:
+        """Whether shafts, generated cases or duty cycles can depend on what ``touch`` names."""
+        reserved = self.session.reserved
+        if reserved.get("duty_cycles"):
+            return True  # a cycle names cases: few cycles, so any change works them out again
+        shafts = reserved.get("shafts")
+        if not shafts:
+            return False
+        if not isinstance(shafts, list):
+            return True
+        carried = {table.get(side) for table in shafts if isinstance(table, dict)
+                   for side in ("bearing_a", "bearing_b")}
+        return bool(carried & set(touch.bearings))
+
+    # ---- undo ---------------------------------------------------------------------------
+    def _swap(self, source: list[Step], target: list[Step]) -> Undone | None:
+        if not source:
+            return None
+        step = source.pop()
+        inverse = step.inverse.apply(self.session)
+        target.append(Step(step.label, inverse, step.case_index, None))
+        self.solved = None
+        self._run = None
+        self._changed(step.inverse.touch)
+        return Undone(step.label, step.case_index)
+
+    def undo(self) -> Undone | None:
+        """Undo the last step; what it was, or None when there is nothing to undo."""
+        return self._swap(self._undo, self._redo)
+
+    def redo(self) -> Undone | None:
+        """Redo the last undone step; what it was, or None."""
+        return self._swap(self._redo, self._undo)
+
+    def end_run(self) -> None:
+        """End the current run of keystrokes (enter, leaving the field, a nudge): the next
+        edit starts a new undo step, and what is in force now is what a bad text falls back to."""
+        self._run = None
+        if self._undo and self._undo[-1].merge_key is not None:
+            self._undo[-1] = self._undo[-1]._replace(merge_key=None)
+
+    # ---- fields -------------------------------------------------------------------------
+    def _owner(self, index: int, name: str) -> tuple[str, int | str, dict[str, str]] | None:
+        """Where field ``name`` of case ``index`` is written: ("case", index, texts) or
+        ("bearing", name, texts); None when the case or its bearing is missing."""
+        case = self.case(index)
+        if case is None:
+            return None
+        if name in BEARING_FIELDS:
+            bearing = self.session.bearing(case.bearing)
+            return None if bearing is None else ("bearing", bearing.name, bearing.texts)
+        return ("case", index, case.texts)
+
+    def set_field(self, index: int, name: str, text: str) -> str | None:
+        """Write ``text`` into field ``name`` of case ``index`` if it is valid.
+
+        None when written (or unchanged), else the message to show beside the field.  Valid
+        means the unit edge reads it and the engine does not refuse the case because of this
+        field; otherwise the value in force when the edit run began is put back.
+        """
+        if name not in FIELD_BY_NAME:
+            return "unknown input"
+        if (generated := self.generated_problem(index)) is not None:
+            return generated
+        owner = self._owner(index, name)
+        if owner is None:
+            return "no load case with a bearing is selected"
+        kind, key, texts = owner
+        run = self._run
+        if run is None or run.case_index != index or run.field != name:
+            self.end_run()
+            run = self._run = _EditRun(index, name, texts.get(name))
+        try:
+            parse_field(name, text)
+        except FieldError as exc:
+            self._back_to_run_start(run)
+            return exc.message
+        if texts.get(name, "") == text:
+            return None
+        merge_key = ("edit", index, name)
+        self.apply(SetText(kind, key, name, text),  # type: ignore[arg-type]
+                   f"edit {FIELD_BY_NAME[name].label}", case_index=index, merge_key=merge_key)
+        self._run = run
+        result = self.result(index)
+        if result is not None and result.derivation is None and \
+                input_field(result.error_field) == name:
+            message = result.error
+            self._back_to_run_start(run)
+            return message
+        return None
+
+    def _back_to_run_start(self, run: _EditRun) -> None:
+        """Put back the text in force when the edit run began (dropping its undo step)."""
+        top = self._undo[-1] if self._undo else None
+        if top is not None and top.merge_key == ("edit", run.case_index, run.field):
+            self._undo.pop()
+            top.inverse.apply(self.session)
+            self._changed(top.inverse.touch)
+        self._run = run
+
+    def nudge(self, index: int, name: str, factor: float) -> str | None:
+        """Scale the number typed in field ``name`` of case ``index`` by ``factor``, its unit
+        kept (one undo step); None when done, else why not."""
+        text = self.texts(index).get(name, "")
+        scaled = scale_text(text, factor)
+        if scaled is None:
+            return "no number to change in this field"
+        self.end_run()
+        problem = self.set_field(index, name, scaled)
+        self.end_run()
+        return problem
+
+    # ---- cases --------------------------------------------------------------------------
+    def _unique(self, stem: str, taken: set[str]) -> str:
+        if stem not in taken:
+            return stem
+        number = 2
+        while f"{stem} {number}" in taken:
+            number += 1
+        return f"{stem} {number}"
+
+    def case_names(self) -> set[str]:
+        """Every case name in use (own and generated)."""
+        return {result.case.name for result in self.results}
+
+    def add_case(self, after: int) -> int:
+        """Add an empty case after case ``after`` (on its bearing); the new case's index."""
+        own = len(self.session.cases)
+        index = min(after + 1, own) if 0 <= after else own
+        edits: list[Edit] = []
+        case = self.case(after)
+        bearing = case.bearing if case is not None and self.session.bearing(case.bearing) \
+            else (self.session.bearings[0].name if self.session.bearings else None)
+        if bearing is None:
+            bearing = "Bearing 1"
+            edits.append(InsertBearing(0, Bearing(bearing, dict(DEFAULT_BEARING_TEXTS))))
+        name = self._unique(f"Case {own + 1}", self.case_names())
+        edits.append(InsertCase(index, LoadCase(name, bearing)))
+        self.apply(Together(tuple(edits)), "add case", case_index=index)
+        return index
+
+    def duplicate_case(self, index: int) -> int | None:
+        """Copy case ``index`` (a generated one gives an editable copy) after the session's
+        own cases it follows; the copy's index, or None."""
+        case = self.case(index)
+        if case is None:
+            return None
+        notes = "" if is_generated(case) else case.notes
+        copy = LoadCase(self._unique(f"{case.name} copy", self.case_names()), case.bearing,
+                        dict(case.texts), notes)
+        at = min(index + 1, len(self.session.cases))
+        self.apply(InsertCase(at, copy), "duplicate case", case_index=at)
+        return at
+
+    def case_name_problem(self, index: int, name: str) -> str | None:
+        """Why ``name`` cannot name case ``index``, or None."""
+        if (generated := self.generated_problem(index)) is not None:
+            return generated
+        case = self.case(index)
+        return name_problem(name, self.case_names(), case.name if case else None)
+
+    def rename_case(self, index: int, name: str) -> str | None:
+        """Rename case ``index``; None when done, else why not."""
+        case = self.case(index)
+        if case is None:
+            return "no load case is selected"
+        problem = self.case_name_problem(index, name)
+        if problem is not None:
+            return problem
+        if name.strip() != case.name:
+            self.apply(RenameCase(index, name.strip()), "rename case", case_index=index)
+        return None
+
+    def delete_case(self, index: int) -> str | None:
+        """Delete own case ``index`` (undoable); its name, or None for none or a generated one."""
+        case = self.case(index)
+        if case is None or index >= len(self.session.cases):
+            return None
+        self.apply(DeleteCase(index), f"delete case {case.name}",
+                   case_index=min(index, len(self.session.cases) - 2))
+        return case.name
+
+    def move_case(self, index: int, delta: int) -> int | None:
+        """Move own case ``index`` up (−1) or down (+1); its new index, or None at the end."""
+        target = index + delta
+        own = len(self.session.cases)
+        if not (0 <= index < own and 0 <= target < own):
+            return None
+        self.apply(MoveCase(index, target), "move case", case_index=target)
+        return target
+
+    def choose_bearing(self, index: int, bearing_name: str) -> str | None:
+        """Let case ``index`` use another bearing of the session; a message if it can't."""
+        case = self.case(index)
+        if case is None:
+            return "no load case is selected"
+        if (generated := self.generated_problem(index)) is not None:
+            return generated
+        if self.session.bearing(bearing_name) is None:
+            return f"no bearing called {bearing_name!r}"
+        if case.bearing != bearing_name:
+            self.apply(SetCaseBearing(index, bearing_name), f"use bearing {bearing_name}",
+                       case_index=index)
+        return None
+
+    # ---- bearings -----------------------------------------------------------------------
+    def bearing_names(self) -> set[str]:
+        """Every bearing name in use."""
+        return {bearing.name for bearing in self.session.bearings}
+
+    def add_bearing(self, like: str | None = None) -> str:
+        """Add a bearing (a copy of the one called ``like``, else a deep-groove one with no
+        ratings yet); its name."""
+        source = self.session.bearing(like) if like else None
+        stem = f"{source.name} copy" if source else f"Bearing {len(self.session.bearings) + 1}"
+        name = self._unique(stem, self.bearing_names())
+        texts = dict(source.texts) if source else dict(DEFAULT_BEARING_TEXTS)
+        bearing = Bearing(name, texts, source.notes if source else "",
+                          source.designation if source else "", source.source if source else "")
+        self.apply(InsertBearing(len(self.session.bearings), bearing), f"add bearing {name}")
+        return name
+
+    def rename_bearing(self, old: str, new: str) -> str | None:
+        """Rename a bearing, and every case and shaft naming it; None when done, else why not."""
+        if self.session.bearing(old) is None:
+            return f"no bearing called {old!r}"
+        problem = name_problem(new, self.bearing_names(), old)
+        if problem is None and new.strip() != old:
+            self.apply(RenameBearing(old, new.strip()), f"rename bearing {old}")
+        return problem
+
+    def delete_bearing(self, name: str) -> str | None:
+        """Delete a bearing no case uses; None when done, else why not (naming the cases)."""
+        index = next((i for i, b in enumerate(self.session.bearings) if b.name == name), None)
+        if index is None:
+            return f"no bearing called {name!r}"
+        users = [result.case.name for result in self.results if result.case.bearing == name]
+        if users:
+            shown = ", ".join(users[:4]) + (f" and {len(users) - 4} more" if len(users) > 4 else "")
+            return f"bearing {name} is used by {shown}"
+        self.apply(DeleteBearing(index), f"delete bearing {name}")
+        return None
+
+    def adopt_bearing(self, bearing_name: str, texts: dict[str, str], *, designation: str,
+                      source: str) -> str | None:
+        """Give a bearing the field texts of a catalog or rated bearing, with its designation
+        and source kept (one undo step; a blank text clears the field); None, or why not."""
+        if self.session.bearing(bearing_name) is None:
+            return f"no bearing called {bearing_name!r} in this session"
+        edits: list[Edit] = [SetText("bearing", bearing_name, name, text.strip() or None)
+                             for name, text in texts.items()]
+        edits.append(SetBearingOrigin(bearing_name, designation, source))
+        self.apply(Together(tuple(edits)), f"adopt {designation} as bearing {bearing_name}")
+        self.end_run()
+        return None
+
+    # ---- session details and targets ------------------------------------------------------
+    def set_detail(self, name: str, text: str) -> None:
+        """Set one of the session's details (title, project, engineer, revision, notes)."""
+        if getattr(self.session, name) != text:
+            self.apply(SetSessionText(name, text), f"edit the session's {name}")
+
+    def set_target(self, name: str, text: str) -> str | None:
+        """Set a target (life, reliability, s0) if it can be read; None, or the message."""
+        from .session import parse_target
+
+        try:
+            if name == "reliability":
+                parse_field("reliability", text)
+            else:
+                parse_target(name, text)
+        except FieldError as exc:
+            return exc.message
+        if getattr(self.session.targets, name) != text.strip():
+            self.apply(SetTarget(name, text.strip()), f"edit the {name} target")
+        return None
+
+    def toggle_units(self) -> str:
+        """Switch the display system between SI and US customary; the new one."""
+        self.apply(SetUnits("US" if self.units == "SI" else "SI"), "switch units")
+        return self.units
+
+    # ---- solver -------------------------------------------------------------------------
+    def solve(self, index: int, unknown: str, target_text: str) -> Solution:
+        """Back-solve ``unknown`` of case ``index`` for a target like "Lnm=20000 h".
+
+        Raises FieldError for a target that cannot be read and InputError (NoSolution among
+        them) when the case cannot be derived or no value meets the target.  The answer
+        belongs to this revision: any later change makes it out of date.
+        """
+        from .targets import parse_target_text
+
+        result = self.result(index)
+        if result is None:
+            raise InputError("case", "no load case is selected")
+        if result.inputs is None:
+            raise InputError(result.error_field or "case", result.error or "the case has errors")
+        target, value = parse_target_text(target_text)
+        solver = self.session.solver
+        solver.unknown, solver.target, solver.case = unknown, target_text.strip(), result.case.name
+        solution = solve(result.inputs, unknown, target, value)
+        self.solved = Solved(result.case.name, self.revision, solution)
+        return solution
+
+    @property
+    def solved_is_current(self) -> bool:
+        """Whether the last solution was found on the session as it is now."""
+        return self.solved is not None and self.solved.revision == self.revision
+
+    def _solved_texts(self, index: int, solution: Solution, current: float) -> dict[str, str]:
+        """The typed texts that put the solved value into the case, units kept as typed."""
+        texts = self.texts(index)
+        if solution.unknown == "load_scale":
+            scaled = {name: scale_text(texts.get(name, ""), solution.value) for name in ("fr", "fa")}
+            return {name: text for name, text in scaled.items() if text is not None}
+        name = solution.unknown
+        typed = leading_number(texts.get(name, ""))
+        if typed and current > 0 and math.isfinite(current):
+            scaled_text = scale_text(texts[name], solution.value / current)
+            if scaled_text is not None:
+                return {name: scaled_text}
+        spec = FIELD_BY_NAME[name]
+        if spec.kind == "quantity" and spec.quantity is not None:
+            return {name: format_quantity(solution.value, spec.quantity, self.units,  # type: ignore[arg-type]
+                                          digits=7)}
+        return {name: number_text(solution.value)}
+
+    def apply_solution(self, index: int) -> str:
+        """Write the last solved value into case ``index`` (one undo step); a line saying
+        what changed.  Raises InputError when there is no current solution for that case."""
+        solved, case, result = self.solved, self.case(index), self.result(index)
+        if solved is None:
+            raise InputError("solve", "nothing solved yet: solve first")
+        if case is None or result is None or case.name != solved.case_name:
+            raise InputError("solve", f"the solution is for case {solved.case_name!r}: "
+                                      "select it or solve again")
+        if solved.revision != self.revision:
+            raise InputError("solve", "the session has changed since this was solved: "
+                                      "solve again")
+        if result.inputs is None:
+            raise InputError("solve", "the case has errors: solve again")
+        if (generated := self.generated_problem(index)) is not None:
+            raise InputError("solve", generated)
+        solution = solved.solution
+        current = 1.0 if solution.unknown == "load_scale" else float(
+            getattr(result.inputs, solution.unknown))
+        changed = self._solved_texts(index, solution, current)
+        if not changed:
+            raise InputError("solve", "no typed value to change")
+        edits = []
+        for name, text in changed.items():
+            owner = self._owner(index, name)
+            if owner is not None:
+                edits.append(SetText(owner[0], owner[1], name, text))  # type: ignore[arg-type]
+        self.end_run()
+        self.apply(Together(tuple(edits)), f"apply solved {UNKNOWNS[solution.unknown].label}",
+                   case_index=index)
+        self.solved = None  # applied once: solve again to apply again
+        words = ", ".join(f"{FIELD_BY_NAME[n].label} = {t}" for n, t in changed.items())
+        users = self.bearing_users(case.bearing)
+        shared = any(n in BEARING_FIELDS for n in changed) and len(users) > 1
+        return words + (f" (bearing {case.bearing}, used by {len(users)} cases)" if shared else "")
+
+    # ---- files --------------------------------------------------------------------------
+    def mark_saved(self, path: Path) -> None:
+        """Record that the session as it is now was written to ``path``."""
+        self.path = path
+        self.saved_revision = self.revision
+
+    def replace(self, session: Session, path: Path | None, *, dirty: bool = False) -> None:
+        """Put another session under edit (an opened or recovered file); undo starts afresh."""
+        self.session, self.path = session, path
+        self.solved, self._run = None, None
+        self._undo.clear()
+        self._redo.clear()
+        self.revision += 1
+        self.saved_revision = -1 if dirty else self.revision
+        self._derive_all()
+
+
+__all__ = ["Document", "EVERYTHING", "Solved", "Undone", "input_field", "name_problem"]
