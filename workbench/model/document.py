@@ -28,6 +28,7 @@ from dataclasses import dataclass, field
 from pathlib import Path
 from typing import NamedTuple
 
+from ..engine.derive import CaseInputs
 from ..engine.record import InputError
 from ..engine.solve import UNKNOWNS, Solution, solve
 from .analysis import SessionAnalysis, analyse_extras
@@ -93,6 +94,23 @@ class _EditRun:
     case_index: int
     field: str
     start: str | None  # the field's own text when the run began; None: not set
+
+
+@dataclass(frozen=True)
+class Question:
+    """A reverse question on one case as it stood at ``revision``: everything the solver needs,
+    so it can be answered away from the screen's thread."""
+
+    case_name: str
+    revision: int
+    inputs: CaseInputs
+    unknown: str
+    target: str
+    value: float
+
+    def solve(self) -> Solution:
+        """The engine's answer (:func:`workbench.engine.solve.solve`); raises NoSolution."""
+        return solve(self.inputs, self.unknown, self.target, self.value)
 
 
 @dataclass(frozen=True)
@@ -525,12 +543,13 @@ class Document:
         return self.units
 
     # ---- solver -------------------------------------------------------------------------
-    def solve(self, index: int, unknown: str, target_text: str) -> Solution:
-        """Back-solve ``unknown`` of case ``index`` for a target like "Lnm=20000 h".
+    def question(self, index: int, unknown: str, target_text: str) -> Question:
+        """The reverse question for case ``index``: back-solve ``unknown`` for a target like
+        "Lnm=20000 h"; kept in the session as its solver setup.
 
-        Raises FieldError for a target that cannot be read and InputError (NoSolution among
-        them) when the case cannot be derived or no value meets the target.  The answer
-        belongs to this revision: any later change makes it out of date.
+        Raises FieldError for a target that cannot be read and InputError when the case cannot
+        be derived.  Solve it with :meth:`Question.solve` (on any thread) and hand the answer
+        to :meth:`answer`.
         """
         from .targets import parse_target_text
 
@@ -542,8 +561,22 @@ class Document:
         target, value = parse_target_text(target_text)
         solver = self.session.solver
         solver.unknown, solver.target, solver.case = unknown, target_text.strip(), result.case.name
-        solution = solve(result.inputs, unknown, target, value)
-        self.solved = Solved(result.case.name, self.revision, solution)
+        return Question(result.case.name, self.revision, result.inputs, unknown, target, value)
+
+    def answer(self, question: Question, solution: Solution) -> bool:
+        """Keep ``solution`` as the answer to ``question``; False (and nothing kept) when the
+        session has changed since the question was asked."""
+        if question.revision != self.revision:
+            return False
+        self.solved = Solved(question.case_name, question.revision, solution)
+        return True
+
+    def solve(self, index: int, unknown: str, target_text: str) -> Solution:
+        """Ask and answer at once (see :meth:`question`); raises NoSolution when no value of
+        the unknown meets the target."""
+        question = self.question(index, unknown, target_text)
+        solution = question.solve()
+        self.answer(question, solution)
         return solution
 
     @property

@@ -31,6 +31,12 @@ class FieldSpec(NamedTuple):
     required: bool = False
     hint: str = ""
     group: str = "case"  # "bearing" fields belong to the bearing a case uses
+    short: str = ""  # the label where columns are few (at most 16 characters); "" = label
+
+    @property
+    def short_label(self) -> str:
+        """The label for a narrow screen (the long one when it is short already)."""
+        return self.short or self.label
 
 
 CLEANLINESS_CHOICES = tuple(T.CONTAMINATION_LEVELS)
@@ -49,29 +55,36 @@ FIELDS: tuple[FieldSpec, ...] = (
     FieldSpec("fr", "--fr", "Radial load Fr", "quantity", "force", "N"),
     FieldSpec("fa", "--fa", "Axial load Fa", "quantity", "force", "N"),
     FieldSpec("speed", "--speed", "Speed n", "quantity", "speed", "rpm"),
-    FieldSpec("af", "--af", "Application factor af", "number", hint=T.APPLICATION_FACTOR_HINT),
-    FieldSpec("outer_ring_rotates", "--outer-ring-rotates", "Outer ring rotates (V = 1.2)",
-              "switch"),
+    FieldSpec("af", "--af", "Application factor af", "number", hint=T.APPLICATION_FACTOR_HINT,
+              short="App. factor af"),
+    FieldSpec("outer_ring_rotates", "--outer-ring-rotates", "Outer ring rotates",
+              "switch", short="Outer ring turns"),
     FieldSpec("reliability", "--reliability", "Reliability R", "fraction",
               hint="fraction, e.g. 0.95"),
     FieldSpec("reliability_model", "--reliability-model", "Reliability model", "choice",
-              choices=RELIABILITY_MODELS),
+              choices=RELIABILITY_MODELS, short="Reliab. model"),
     FieldSpec("weibull_x0", "--weibull-x0", "Weibull x0", "number"),
     FieldSpec("weibull_theta", "--weibull-theta", "Weibull θ", "number"),
     FieldSpec("weibull_b", "--weibull-b", "Weibull b", "number"),
     FieldSpec("rating_life_mrev", "--rating-life", "Rating basis life LR", "quantity",
-              "revolutions", "Mrev", hint="revolutions at which C is rated (Weibull model)"),
+              "revolutions", "Mrev", hint="revolutions at which C is rated (Weibull model)",
+              short="Basis life LR"),
     FieldSpec("vg", "--vg", "Oil grade ISO VG", "number"),
-    FieldSpec("vi", "--vi", "Viscosity index VI", "number", hint="blank: 100"),
-    FieldSpec("nu100", "--nu100", "Viscosity at 100 °C", "quantity", "viscosity", "mm**2/s"),
-    FieldSpec("temp", "--temp", "Operating temperature", "quantity", "temperature", "degC"),
+    FieldSpec("vi", "--vi", "Viscosity index VI", "number", hint="blank: 100",
+              short="Visc. index VI"),
+    FieldSpec("nu100", "--nu100", "Viscosity at 100 °C", "quantity", "viscosity", "mm**2/s",
+              short="ν at 100 °C"),
+    FieldSpec("temp", "--temp", "Operating temperature", "quantity", "temperature", "degC",
+              short="Operating temp."),
     FieldSpec("nu", "--nu", "Operating viscosity ν", "quantity", "viscosity", "mm**2/s",
-              hint="overrides ISO VG and temperature"),
+              hint="overrides ISO VG and temperature", short="Operating ν"),
     FieldSpec("dm", "--dm", "Mean diameter dm", "quantity", "length", "mm", group="bearing"),
     FieldSpec("cu", "--cu", "Fatigue load limit Cu", "quantity", "force", "N",
-              hint="blank: estimated from C0", group="bearing"),
+              hint="blank: estimated from C0", group="bearing",
+              short="Fatigue limit Cu"),
     FieldSpec("cleanliness", "--cleanliness", "Cleanliness (or eC)", "choice",
-              choices=CLEANLINESS_CHOICES, hint="a level or a number 0–1 for eC"),
+              choices=CLEANLINESS_CHOICES, hint="a level or a number 0–1 for eC",
+              short="Cleanliness eC"),
     FieldSpec("static_duty", "--static-duty", "Static duty", "choice",
               choices=tuple(T.STATIC_SAFETY_MINIMUMS)),
     FieldSpec("s0_min", "--s0-min", "Required s0", "number", hint="blank: the duty's minimum"),

@@ -5,7 +5,6 @@
 
 from __future__ import annotations
 
-import gc
 import os
 import sys
 from pathlib import Path
@@ -16,10 +15,10 @@ from textual.binding import Binding
 from textual.notifications import SeverityLevel
 
 from ..model.session import Session
-from . import files, settings
+from ..model import files, settings
+from ..model.document import Document
 from .actions import bindings, check_keymap
 from .commands import WorkbenchCommands
-from .state import Workbench
 from .theme_files import DEFAULT_THEME, MONOCHROME_THEME, load_theme_files
 from .workbench_screen import AUTOSAVE_DELAY_S, WorkbenchScreen
 
@@ -42,34 +41,16 @@ class WorkbenchApp(App[int]):
                  autosave_delay: float | None = AUTOSAVE_DELAY_S,
                  theme_folder: Path | None = None) -> None:
         super().__init__()
-        self.workbench = Workbench(session if session is not None else Session(), path)
+        self.document = Document(session if session is not None else Session(), path)
         self._offer_recovery = offer_recovery
         self._autosave_delay = autosave_delay
         self._theme_folder = theme_folder
         self._our_themes: list[str] = []
         self._remember_theme = False
-        self._theme_restyle_pending = False
         self._theme_problem = self._install_themes()
         self.personal_keymap: dict[str, str] = {}
         """The person's keys in force (action id → keys), from ``keys.toml``."""
         self._keymap_problems = self._install_keymap()
-
-    def refresh_css(self, animate: bool = True) -> None:
-        """Restyle after a theme change, except for the one queued by choosing the starting
-        theme in ``__init__`` (its variables were set before anything was styled: re-reading
-        every stylesheet for it was about 4 ms of start-up)."""
-        if self._theme_restyle_pending:
-            self._theme_restyle_pending = False
-            return
-        super().refresh_css(animate)
-
-    def run(self, **options: Any) -> int | None:
-        """Run the app (``App.run``'s options).  The modules, the session and its analysis made
-        so far live as long as the app, so they are frozen out of the garbage collector's full
-        passes first (``gc.freeze``): those passes would otherwise walk them again and again
-        while the screen is built, a sixth of the start-up."""
-        gc.freeze()
-        return super().run(**options)
 
     def notify(self, message: str, *, title: str = "", severity: SeverityLevel = "information",
                timeout: float | None = None, markup: bool = False) -> None:
@@ -79,7 +60,7 @@ class WorkbenchApp(App[int]):
 
     def get_default_screen(self) -> WorkbenchScreen:
         """The workbench screen is the base of the screen stack."""
-        return WorkbenchScreen(self.workbench, self._autosave_delay)
+        return WorkbenchScreen(self.document, self._autosave_delay)
 
     @property
     def workbench_screen(self) -> WorkbenchScreen:
@@ -100,8 +81,8 @@ class WorkbenchApp(App[int]):
 
     # ---- themes -----------------------------------------------------------------------------
     def _install_themes(self) -> str | None:
-        """Register the theme files and choose the theme (before the first styling, so the
-        screen is styled once); the message naming the files that failed, if any."""
+        """Register the theme files and choose the theme; the message naming the files that
+        failed, if any."""
         load = load_theme_files(self._theme_folder)
         for theme in load.themes:
             self.register_theme(theme)
@@ -109,12 +90,7 @@ class WorkbenchApp(App[int]):
         wanted = MONOCHROME_THEME if no_color_requested() else settings.saved_theme()
         for name in (wanted, DEFAULT_THEME):
             if name and name in self.available_themes:
-                if name != self.theme:
-                    self.theme = name  # queues a restyle (refresh_css)
-                    # The stylesheet gets the theme's variables now, before it is first read,
-                    # so that queued restyle has nothing left to do.
-                    self.stylesheet.set_variables(self.get_css_variables())
-                    self._theme_restyle_pending = True
+                self.theme = name
                 break
         self._remember_theme = not no_color_requested()
         return load.failure_message()
@@ -157,7 +133,7 @@ class WorkbenchApp(App[int]):
 
     async def action_quit(self) -> None:
         """Leave, asking first when there is unsaved work."""
-        if not self.workbench.dirty:
+        if not self.document.dirty:
             self.exit(0)
             return
         from .dialogs import ChoiceDialog  # loaded when the first dialog opens
@@ -167,7 +143,7 @@ class WorkbenchApp(App[int]):
 
         def answered(answer: str | None) -> None:
             if answer == "quit":
-                files.discard_recovery_copy(self.workbench.path)
+                files.discard_recovery_copy(self.document.path)
                 self.exit(0)
             elif answer == "save":
                 self.workbench_screen.save(then=lambda: self.exit(0))
@@ -179,20 +155,20 @@ class WorkbenchApp(App[int]):
 
     # ---- recovery ---------------------------------------------------------------------------
     def _ask_about_recovery(self) -> None:
-        found = files.recovery_for(self.workbench.path)
+        found = files.recovery_for(self.document.path)
         if found is None:
             return
         from .dialogs import ChoiceDialog
 
         def answered(answer: str | None) -> None:
             if answer != "recover":
-                files.discard_recovery_copy(self.workbench.path)
+                files.discard_recovery_copy(self.document.path)
                 return
             outcome = files.open_session(found, recovered=True)
             if outcome.session is None:
                 self.notify(outcome.error or "recovery copy unreadable", severity="error")
                 return
-            self.workbench_screen.open_session(outcome.session, self.workbench.path, dirty=True)
+            self.workbench_screen.open_session(outcome.session, self.document.path, dirty=True)
             self.notify("Recovered the unsaved work: save it to keep it")
 
         self.push_screen(ChoiceDialog(

@@ -115,7 +115,7 @@ class _MinimalApp(App[None]):
 
 
 def _demo_or_bench_session() -> Session:
-    from . import files
+    from ..model import files
 
     path = files.demo_path()
     if path is not None:

@@ -13,6 +13,7 @@ import math
 from rich.style import Style as RichStyle
 from textual.content import Content
 from textual.geometry import Size
+from textual.reactive import var
 from textual.scroll_view import ScrollView
 from textual.strip import Strip
 from textual.style import Style
@@ -21,7 +22,8 @@ from ..engine.record import Step, fmt
 from ..model.fields import FIELD_BY_NAME
 from ..model.quantities import format_quantity
 from ..model.session import CaseResult
-from .state import input_field
+from ..model.document import Document, input_field
+from .view import View
 
 # Engine units that have a display quantity (the rest are shown as the engine writes them).
 UNIT_QUANTITY = {"N": "force", "h": "time", "mm²/s": "viscosity", "rpm": "speed", "mm": "length"}
@@ -164,13 +166,36 @@ class DerivationPane(ScrollView, can_focus=True):
     text: Content = Content("")
     """What the pane shows now (its plain text is ``text.plain``)."""
 
-    def __init__(self, *, id: str | None = None) -> None:
+    view: var[View] = var(View(-1, -1))
+    """The document's revision and the selected case (bound to the screen's)."""
+
+    def __init__(self, document: Document, *, id: str | None = None) -> None:
         super().__init__(id=id)
+        self.document = document
+        self._shown: tuple[View, str] | None = None
         self._lines: list[Content] = []
         self._rows: list[tuple[_WrappedLine, int]] = []
         self._wrapped: dict[tuple[str, tuple[object, ...]], _WrappedLine] = {}
         self._wrapped_width = 0
         self._blank_style: RichStyle | None = None
+
+    def watch_view(self, view: View) -> None:
+        """Show the selected case as it stands now (derived with its steps only while the pane
+        is on show; it catches up when it comes on show)."""
+        if self.display and self.is_attached and self.parent is not None and \
+                self.parent.display:
+            self._show_selected()
+
+    def on_show(self) -> None:
+        """Catch up with the document when the pane comes on show."""
+        self._show_selected()
+
+    def _show_selected(self) -> None:
+        document = self.document
+        key = (self.view, document.units)
+        if key != self._shown:
+            self._shown = key
+            self.show(document.with_steps(self.view.selected), document.units)
 
     def show(self, result: CaseResult | None, system: str) -> None:
         """Redraw for ``result`` in the display ``system``."""

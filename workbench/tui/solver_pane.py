@@ -2,8 +2,10 @@
 the solver found (value, residual, evaluations, bracket, branch) or why nothing meets the target.
 
 The pane asks with :class:`SolverPane.SolveRequested` / :class:`SolverPane.ApplyRequested`; the
-screen runs :func:`workbench.engine.solve.solve` (through the workbench state) and hands the
-outcome back to :meth:`SolverPane.show_solution` or :meth:`SolverPane.show_failure`.
+screen solves (in a worker, through the document) and hands the outcome back to
+:meth:`SolverPane.show_solution` or :meth:`SolverPane.show_failure`.  An answer belongs to the
+revision it was solved on: the pane follows :attr:`SolverPane.view` and marks it out of date as
+soon as anything changes.
 """
 
 from __future__ import annotations
@@ -13,13 +15,15 @@ from textual.app import ComposeResult
 from textual.containers import Horizontal, VerticalScroll
 from textual.content import Content
 from textual.message import Message
-from textual.widgets import Button, Input, Label, Static
+from textual.reactive import var
+from textual.widgets import Button, Input, Label, Select, Static
 
 from ..engine.record import fmt
 from ..engine.solve import TARGETS, UNKNOWNS, Solution
 from ..model.quantities import format_quantity
 from ..model.session import SolverSetup
-from .choice_field import ChoiceField
+from .choice_box import ChoiceBox
+from .view import View
 
 UNKNOWN_QUANTITY = {"N": "force", "rpm": "speed"}
 TARGET_EXAMPLE = {"h": "20000 h", "10⁶ rev": "900 Mrev", "": "2"}
@@ -71,18 +75,19 @@ class SolverPane(VerticalScroll):
     SolverPane {
         height: 1fr;
         padding: 0 1;
-    }
-    #solver-buttons {
-        height: 1;
-        margin: 1 0;
-    }
-    #solver-buttons Button {
-        margin-right: 2;
-    }
-    #solver-result {
-        width: 1fr;
+        & FieldRow { height: 1; }
+        & .field-label { width: 12; color: $text-muted; }
+        & FieldRow > Select, & FieldRow > Input { width: 1fr; }
+        #solver-buttons { height: 1; margin: 1 0; }
+        #solver-buttons Button { margin-right: 2; }
+        #solver-result { width: 1fr; }
+        #solver-stale { display: none; color: $text-warning; background: $warning-muted; }
+        #solver-stale.-shown { display: block; }
     }
     """
+
+    view: var[View] = var(View(-1, -1))
+    """The document's revision and the selected case (bound to the screen's)."""
 
     class SolveRequested(Message):
         """Solve ``unknown`` so that the target text ("Lnm=20000 h") is met."""
@@ -101,72 +106,94 @@ class SolverPane(VerticalScroll):
     def __init__(self, setup: SolverSetup, *, id: str | None = None) -> None:
         super().__init__(id=id)
         self._setup = setup
-
-    def on_mount(self) -> None:
-        """Show the session's solver question."""
-        self.load(self._setup)
+        self._answered_at: int | None = None
+        """The revision the answer on show was solved on (None: no answer on show)."""
 
     def compose(self) -> ComposeResult:
         """Unknown, target, value, the two buttons and the result area."""
-        with Horizontal(classes="field-row"):
+        from .case_form import FieldRow
+
+        with FieldRow():
             yield Label("Solve for", classes="field-label")
-            yield ChoiceField(list(UNKNOWNS), title="Solve for", allow_blank=False,
-                              labels={name: u.label for name, u in UNKNOWNS.items()},
-                              value=next(iter(UNKNOWNS)), id="solver-unknown")
-        with Horizontal(classes="field-row"):
+            yield ChoiceBox([(u.label, name) for name, u in UNKNOWNS.items()],
+                            allow_blank=False, compact=True, id="solver-unknown")
+        with FieldRow():
             yield Label("so that", classes="field-label")
-            yield ChoiceField(list(TARGETS), title="so that", allow_blank=False,
-                              labels={name: f"{name}: {label}"
-                                      for name, (label, _) in TARGETS.items()},
-                              value="Lnm", id="solver-target")
-        with Horizontal(classes="field-row"):
+            yield ChoiceBox([(f"{name}: {label}", name) for name, (label, _) in TARGETS.items()],
+                            allow_blank=False, value="Lnm", compact=True, id="solver-target")
+        with FieldRow():
             yield Label("reaches", classes="field-label")
             yield Input(placeholder="e.g. 20000 h", compact=True, id="solver-value")
         with Horizontal(id="solver-buttons"):
             yield Button("Solve (f9)", id="solver-solve", compact=True)
             yield Button("Apply (f10)", id="solver-apply", compact=True, disabled=True)
+        yield Static("", id="solver-stale")
         yield Static(id="solver-result")
+
+    def on_mount(self) -> None:
+        """Show the session's solver question."""
+        self.load(self._setup)
 
     def load(self, setup: SolverSetup) -> None:
         """Show the session's solver question (unknown, and "target=value" split for editing)."""
-        unknown = self.query_one("#solver-unknown", ChoiceField)
         if setup.unknown in UNKNOWNS:
-            unknown.value = setup.unknown
+            self.query_one("#solver-unknown", ChoiceBox).value = setup.unknown
         name, _, value_text = setup.target.partition("=")
         if name.strip() in TARGETS:
-            self.query_one("#solver-target", ChoiceField).value = name.strip()
+            self.query_one("#solver-target", ChoiceBox).value = name.strip()
         self.query_one("#solver-value", Input).value = value_text.strip()
 
     def request(self) -> tuple[str, str]:
         """The question as asked now: (unknown, "target=value text")."""
-        unknown = self.query_one("#solver-unknown", ChoiceField).value
-        target = self.query_one("#solver-target", ChoiceField).value
+        unknown = self.query_one("#solver-unknown", ChoiceBox).value
+        target = self.query_one("#solver-target", ChoiceBox).value
         value_text = self.query_one("#solver-value", Input).value
         return str(unknown), f"{target}={value_text}"
 
-    def _show(self, content: Content, can_apply: bool) -> None:
+    def watch_view(self, view: View) -> None:
+        """An answer solved on another revision is out of date: say so, and no applying it."""
+        stale = self._answered_at is not None and self._answered_at != view.revision
+        note = self.query_one("#solver-stale", Static)
+        note.update("⚠ The session has changed since this was solved: solve again (f9)."
+                    if stale else "")
+        note.set_class(stale, "-shown")
+        if stale:
+            self.query_one("#solver-apply", Button).disabled = True
+
+    def _show(self, content: Content, can_apply: bool, revision: int | None) -> None:
         self.text = content
+        self._answered_at = revision
         self.query_one("#solver-result", Static).update(content)
         self.query_one("#solver-apply", Button).disabled = not can_apply
+        self.watch_view(self.view)
 
-    def show_solution(self, case_name: str, solution: Solution, system: str) -> None:
-        """Show what the solver found for ``case_name``."""
-        self._show(solution_content(case_name, solution, system), True)
+    def show_busy(self) -> None:
+        """Say that the solver is working."""
+        self._show(Content.styled("Solving…", "italic"), False, None)
+
+    def show_solution(self, case_name: str, solution: Solution, system: str, *,
+                      revision: int) -> None:
+        """Show what the solver found for ``case_name`` on ``revision``."""
+        self._show(solution_content(case_name, solution, system), True, revision)
 
     def show_failure(self, message: str, reachable: tuple[float, float] | None = None) -> None:
         """Show why nothing was solved."""
-        target = str(self.query_one("#solver-target", ChoiceField).value)
-        self._show(failure_content(message, reachable, target), False)
+        target = str(self.query_one("#solver-target", ChoiceBox).value)
+        self._show(failure_content(message, reachable, target), False, None)
 
     def show_note(self, message: str) -> None:
         """A plain line in the result area (e.g. after applying)."""
-        self._show(Content(message), False)
+        self._show(Content(message), False, None)
 
-    @on(ChoiceField.Changed, "#solver-target")
-    def _target_changed(self, event: ChoiceField.Changed) -> None:
+    @on(Select.Changed, "#solver-target")
+    def _target_changed(self, event: Select.Changed) -> None:
         event.stop()
         unit = TARGETS.get(str(event.value), ("", ""))[1]
         self.query_one("#solver-value", Input).placeholder = "e.g. " + TARGET_EXAMPLE.get(unit, "")
+
+    @on(Select.Changed, "#solver-unknown")
+    def _unknown_changed(self, event: Select.Changed) -> None:
+        event.stop()
 
     @on(Input.Submitted, "#solver-value")
     @on(Button.Pressed, "#solver-solve")
@@ -178,3 +205,7 @@ class SolverPane(VerticalScroll):
     def _apply_asked(self, event: Button.Pressed) -> None:
         event.stop()
         self.post_message(self.ApplyRequested())
+
+    def focus_first(self) -> None:
+        """Put the focus on the first choice."""
+        self.query_one("#solver-unknown", ChoiceBox).focus()

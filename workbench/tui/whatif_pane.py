@@ -8,7 +8,11 @@ one-sided), the life against a scale on Fr and Fa from
 from :func:`~workbench.engine.curves.aiso_curve` (ISO 281:2007 §9.3.2), drawn by
 :func:`workbench.plot_text.plot_lines` in braille and plain marks so they read in monochrome.
 The Duty block shows each state's share of the Palmgren–Miner damage as a text bar, for the duty
-cycles on the selected case's bearing.  The screen hands the pane what to draw with :meth:`show`.
+cycles on the selected case's bearing.
+
+The pane follows :attr:`WhatIfPane.view` (bound to the screen's) while it is on show: the sweep
+and the curves are worked out in a thread worker (a newer revision cancels the older work, and
+an answer that arrives for an older revision is dropped), so typing never waits for them.
 """
 
 from __future__ import annotations
@@ -16,20 +20,26 @@ from __future__ import annotations
 import math
 from collections.abc import Sequence
 
+from textual import work
 from textual.app import ComposeResult
 from textual.containers import VerticalScroll
 from textual.content import Content
+from textual.reactive import var
 from textual.widgets import Label, Static
 
 from ..engine.curves import Curve, aiso_curve, life_curve
 from ..engine.record import InputError, fmt
 from ..engine.sensitivity import SensitivityItem, sensitivity_of
 from ..model.analysis import DutyOutcome
+from ..model.document import Document
 from ..model.quantities import format_quantity
 from ..model.session import CaseResult
 from ..plot_text import plot_lines
 from ..render import percent, signed
+from .view import View
 
+SENSITIVITY_TITLE = "Sensitivity of life"
+BUSY_MARK = " · working…"
 PLOT_HEIGHT = 8
 PLOT_GUTTER = 10  # plot_lines puts the y labels and the axis in the first ten columns
 PLOT_MIN_WIDTH = 16
@@ -125,15 +135,23 @@ class WhatIfPane(VerticalScroll):
     items: list[SensitivityItem]
     """The sensitivity items shown now (empty when the case cannot be derived)."""
 
-    def __init__(self, *, id: str | None = None) -> None:
+    view: var[View] = var(View(-1, -1))
+    """The document's revision and the selected case (bound to the screen's)."""
+
+    shown: var[View | None] = var(None)
+    """The view whose what-if is on show (None until the first is drawn)."""
+
+    def __init__(self, document: Document, *, id: str | None = None) -> None:
         super().__init__(id=id)
+        self.document = document
         self.items = []
         self._curves: dict[str, Curve | None] = {}
         self._plot_width = 0
+        self._asked: View | None = None
 
     def compose(self) -> ComposeResult:
         """The four blocks, each under its title."""
-        yield Label("Sensitivity of life", classes="group-title")
+        yield Label(SENSITIVITY_TITLE, classes="group-title", id="whatif-title")
         yield Static(id="whatif-sensitivity")
         yield Label("Life against a scale on Fr and Fa", classes="group-title")
         yield Static(id="whatif-life-plot", classes="plot")
@@ -150,35 +168,68 @@ class WhatIfPane(VerticalScroll):
         return "\n".join(str(widget.render()) for widget in self.query(Static)
                          if not isinstance(widget, Label))
 
-    def show(self, result: CaseResult | None, system: str, duties: Sequence[DutyOutcome]) -> None:
-        """Work out and draw the what-if of ``result``, with the duty cycles on its bearing."""
-        self.items = []
-        self._curves = {}
-        if result is None or result.inputs is None or result.derivation is None:
-            reason = ("No load case selected." if result is None
-                      else "The case cannot be derived: see the derivation tab.")
-            self._static("whatif-sensitivity").update(Content.styled(reason, ERROR_STYLE))
-        else:
-            inputs = result.inputs
-            try:
-                self.items = sensitivity_of(inputs)
-                self._curves["life"] = life_curve(inputs, result.life_target_h)
-                self._curves["aiso"] = aiso_curve(inputs)
-            except InputError as exc:
-                self._static("whatif-sensitivity").update(
-                    Content.styled(f"✘ {exc.field}: {exc.message}", ERROR_STYLE))
-            else:
-                self._static("whatif-sensitivity").update(
-                    Content("\n").join(sensitivity_lines(self.items)))
-        self._draw_plots()
+    def watch_view(self, view: View) -> None:
+        """Work the what-if out again while the pane is on show."""
+        if self.parent is not None and self.parent.display:
+            self._ask()
+
+    def on_show(self) -> None:
+        """Catch up with the document when the pane comes on show."""
+        self._ask()
+
+    def _ask(self) -> None:
+        view = self.view
+        if view == self._asked or view.revision < 0:
+            return
+        self._asked = view
+        document = self.document
+        result = document.result(view.selected)
+        duties = document.analysis.duties
         shown = duties_on(result.case.bearing, duties) if result is not None else []
+        self.query_one("#whatif-title", Label).update(SENSITIVITY_TITLE + BUSY_MARK)
+        self._work(view, result, document.units, shown)
+
+    @work(thread=True, exclusive=True, group="whatif")
+    def _work(self, view: View, result: CaseResult | None, system: str,
+              duties: Sequence[DutyOutcome]) -> None:
+        """The sweep and the curves, away from the screen's thread."""
+        items: list[SensitivityItem] = []
+        curves: dict[str, Curve | None] = {}
+        error: str | None = None
+        if result is None or result.inputs is None or result.derivation is None:
+            error = ("No load case selected." if result is None
+                     else "The case cannot be derived: see the derivation tab.")
+        else:
+            try:
+                items = sensitivity_of(result.inputs)
+                curves["life"] = life_curve(result.inputs, result.life_target_h)
+                curves["aiso"] = aiso_curve(result.inputs)
+            except InputError as exc:
+                error = f"✘ {exc.field}: {exc.message}"
+        self.app.call_from_thread(self._draw, view, items, curves, error, result, system, duties)
+
+    def _draw(self, view: View, items: list[SensitivityItem], curves: dict[str, Curve | None],
+              error: str | None, result: CaseResult | None, system: str,
+              duties: Sequence[DutyOutcome]) -> None:
+        """Draw what the worker found, unless the document has moved on since."""
+        if view != self.view:
+            return
+        self.items, self._curves = items, curves
+        self.query_one("#whatif-title", Label).update(SENSITIVITY_TITLE)
+        sensitivity = self._static("whatif-sensitivity")
+        if error is not None:
+            sensitivity.update(Content.styled(error, ERROR_STYLE))
+        else:
+            sensitivity.update(Content("\n").join(sensitivity_lines(items)))
+        self._draw_plots()
         duty = self._static("whatif-duty")
-        if shown:
-            duty.update(Content("\n").join(duty_lines(shown, system)))
+        if duties:
+            duty.update(Content("\n").join(duty_lines(duties, system)))
         else:
             where = f" on bearing {result.case.bearing}" if result is not None else ""
-            duty.update(Content(f"No duty cycle{where}. A [[duty_cycles]] table or a shaft in "
-                                "the session file makes one."))
+            duty.update(Content(f"No duty cycle{where}. A duty cycle or a shaft in the "
+                                "session makes one."))
+        self.shown = view
 
     def _static(self, name: str) -> Static:
         return self.query_one(f"#{name}", Static)

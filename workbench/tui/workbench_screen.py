@@ -1,9 +1,10 @@
-"""The workbench screen: load-case list, case editor, and the derivation and solver panes.
+"""The workbench screen: the load-case list across the top; under it the case form, and the
+Derivation, Solver and What-if panes beside it.
 
-State lives in :class:`~workbench.tui.state.Workbench`; the panes announce what a person does
-with messages, this screen asks the state to do it and tells each pane what to draw.  At 80×24
-the list and the editor share the left column and the derivation, the solver and the what-if
-share the right one as tabs (f5 / f6 / f11).
+The screen holds one :class:`~workbench.tui.view.View` (the document's revision and the selected
+case); the list, the form and the panes follow it through ``data_bind`` and redraw themselves
+from the document.  Every action here edits the document (:mod:`workbench.model.document`) and
+then sets the view once: there is no list of panes to redraw by hand.
 """
 
 from __future__ import annotations
@@ -12,27 +13,30 @@ from collections.abc import Callable
 from pathlib import Path
 from typing import TYPE_CHECKING
 
-from textual import on
+from textual import on, work
 from textual.app import ComposeResult
+from textual.binding import Binding
 from textual.containers import Horizontal, Vertical
+from textual.events import Resize
+from textual.lazy import Lazy
+from textual.reactive import var
 from textual.screen import Screen
 from textual.timer import Timer
-from textual.widgets import ContentSwitcher
+from textual.widgets import Header, Static, TabbedContent, TabPane
 
 from ..engine.record import InputError
-from ..engine.solve import NoSolution
+from ..engine.solve import NoSolution, Solution
+from ..model import files
+from ..model.document import Document, Question
 from ..model.fields import FieldError
 from ..model.session import Session
-from . import files
 from .actions import bindings
-from .case_editor import CaseEditor
-from .case_list import CaseList
+from .case_form import CaseForm
+from .case_table import CaseTable
 from .derivation_pane import DerivationPane
 from .key_footer import KeyFooter
-from .pane_tabs import PaneTabs
 from .solver_pane import SolverPane
-from .state import Workbench, input_field
-from .title_bar import TitleBar
+from .view import View, fit_words
 
 if TYPE_CHECKING:
     from .selection_screen import Adoption
@@ -40,337 +44,321 @@ if TYPE_CHECKING:
 
 AUTOSAVE_DELAY_S = 2.0
 DEFAULT_SAVE_NAME = "session.toml"
-PANES = (("derivation", "Derivation"), ("solver", "Solver"), ("whatif", "What-if"))
-"""The right column's panes: (name, title); the first is on show at start."""
-PANE_PREFIX = "pane-"
+PANES = ("derivation", "solver", "whatif")
+"""The right column's panes (their tab ids); the first is on show at start."""
+APP_NAME = "Bearing workbench"
 
 
 class WorkbenchScreen(Screen[None]):
     """The main screen; every key action here comes from :data:`~workbench.tui.actions.ACTIONS`."""
 
-    BINDINGS = bindings("screen")
+    BINDINGS = [*bindings("screen"),
+                Binding("escape", "focus_cases", "Case list", show=False)]
 
-    def __init__(self, workbench: Workbench, autosave_delay: float | None = AUTOSAVE_DELAY_S) -> None:
+    view: var[View] = var(View(-1, -1), init=False)
+    """The document's revision and the selected case: what every pane follows."""
+
+    def __init__(self, document: Document,
+                 autosave_delay: float | None = AUTOSAVE_DELAY_S) -> None:
         super().__init__(id="workbench")
-        self.workbench = workbench
+        self.document = document
         self._autosave_delay = autosave_delay
         self._autosave_timer: Timer | None = None
         self._autosave_failed = False
-        self._saved_revision = workbench.revision
-        self._solver_pane: SolverPane | None = None
-        self._whatif_pane: WhatIfPane | None = None
-        """The panes mounted just after the first frame (None until then)."""
 
     def compose(self) -> ComposeResult:
-        """Left: the list over the editor; right: the pane strip over the Derivation, Solver
-        and What-if panes (the last two mounted after the first frame)."""
-        yield TitleBar()
+        """The list across the screen; under it the form with its help line (left) and the
+        panes as tabs (right)."""
+        from .whatif_pane import WhatIfPane
+
+        document = self.document
+        yield Header(show_clock=False, icon="≡")
+        yield CaseTable(document, id="cases").data_bind(WorkbenchScreen.view)
         with Horizontal(id="body"):
             with Vertical(id="left"):
-                yield CaseList(id="cases")
-                yield CaseEditor(id="editor")
-            with Vertical(id="panes"):
-                yield PaneTabs(PANES, active=PANES[0][0], id="pane-tabs")
-                with ContentSwitcher(initial=PANE_PREFIX + PANES[0][0], id="pane-switcher"):
-                    with Vertical(id=PANE_PREFIX + "derivation"):
-                        yield DerivationPane(id="derivation")
-                    yield Vertical(id=PANE_PREFIX + "solver")
-                    yield Vertical(id=PANE_PREFIX + "whatif")
+                yield CaseForm(document, id="editor").data_bind(WorkbenchScreen.view)
+                yield Static("", id="help-line", markup=False)
+            with TabbedContent(id="panes", initial=PANES[0]):
+                with TabPane("Derivation", id="derivation"):
+                    yield DerivationPane(document, id="derivation-view").data_bind(
+                        WorkbenchScreen.view)
+                with TabPane("Solver", id="solver"):
+                    yield Lazy(SolverPane(document.session.solver, id="solver-view").data_bind(
+                        WorkbenchScreen.view))
+                with TabPane("What-if", id="whatif"):
+                    yield Lazy(WhatIfPane(document, id="whatif-view").data_bind(
+                        WorkbenchScreen.view))
         yield KeyFooter()
 
     def on_mount(self) -> None:
-        """Draw the session; the hidden panes come after the first frame."""
-        self.redraw_all()
-        self.query_one(CaseList).focus()
-        self.call_after_refresh(self._mount_hidden_panes)
+        """Show the first case, with the focus in the list."""
+        self.view = View(self.document.revision, 0 if self.document.results else -1)
+        self.query_one(CaseTable).focus()
 
-    async def _mount_hidden_panes(self) -> None:
-        """The Solver and What-if panes, off show at start, mounted once the first frame is
-        painted; the What-if's module (the sensitivity sweep, the curves, the plots) is
-        imported then."""
-        from .whatif_pane import WhatIfPane
+    # ---- following the document --------------------------------------------------------------
+    @property
+    def selected(self) -> int:
+        """The index of the selected case (−1: none)."""
+        return self.view.selected
 
-        solver = SolverPane(self.workbench.session.solver, id="solver")
-        whatif = WhatIfPane(id="whatif")
-        await self.query_one(f"#{PANE_PREFIX}solver").mount(solver)
-        await self.query_one(f"#{PANE_PREFIX}whatif").mount(whatif)
-        self._solver_pane, self._whatif_pane = solver, whatif  # in use once mounted
-        self._show_whatif()
+    def _changed(self, selected: int | None = None) -> None:
+        """The document changed (or the selection did): every pane follows from the new view."""
+        count = len(self.document.results)
+        index = self.view.selected if selected is None else selected
+        index = max(0, min(index, count - 1)) if count else -1
+        self.view = View(self.document.revision, index)
 
-    # ---- drawing ----------------------------------------------------------------------------
-    def _title(self) -> None:
-        state = self.workbench
-        self.app.title = state.session.title or "Bearing workbench"
-        where = state.path.name if state.path else "not saved yet"
-        mark = " ●" if state.dirty else ""
-        self.app.sub_title = f"{where}{mark} · {state.units}"
-
-    def _show_case(self) -> None:
-        """The derivation and the editor's case error of the selected case."""
-        state = self.workbench
-        result = state.result
-        self.query_one(DerivationPane).show(result, state.units)
-        editor = self.query_one(CaseEditor)
-        if result is None or result.derivation is not None:
-            editor.show_case_error(None, None)
-        else:
-            editor.show_case_error(input_field(result.error_field), result.error)
-        self._show_whatif()
-
-    def _show_whatif(self) -> None:
-        """The what-if of the selected case, worked out only while its tab is on show."""
-        pane = self._whatif_pane
-        if pane is None or self.query_one(PaneTabs).active != "whatif":
-            return
-        state = self.workbench
-        pane.show(state.result, state.units, state.analysis.duties)
-
-    def _show_pane(self, name: str) -> None:
-        """Put the pane ``name`` on show in the right column (the what-if brought up to date)."""
-        self.query_one(PaneTabs).active = name
-        self.query_one(ContentSwitcher).current = PANE_PREFIX + name
-        self._show_whatif()
-
-    @on(PaneTabs.Chosen)
-    def _pane_chosen(self, event: PaneTabs.Chosen) -> None:
-        self._show_pane(event.name)
-
-    def redraw_all(self) -> None:
-        """Redraw every pane (after a structural change, an undo or an open)."""
-        state = self.workbench
-        self.query_one(CaseList).show(state.results, state.selected, state.units)
-        self._load_editor()
-        self._show_case()
+    def watch_view(self, old: View, new: View) -> None:
+        """The title follows; a change to the document schedules the recovery copy."""
         self._title()
-
-    def _load_editor(self) -> None:
-        state = self.workbench
-        case = state.case
-        editor = self.query_one(CaseEditor)
-        editor.token += 1  # edits announced before this load belong to what was shown then
-        bearing = case.bearing if case is not None else None
-        editor.load(state.texts(), [b.name for b in state.session.bearings], bearing,
-                    state.bearing_users(bearing) if bearing else 0)
-
-    def _after_change(self) -> None:
-        self._title()
-        if self.workbench.revision != self._saved_revision:
+        if new.revision != old.revision and self.document.dirty:
             self._schedule_autosave()
 
+    def _title(self) -> None:
+        document = self.document
+        where = document.path.name if document.path else "not saved yet"
+        mark = "● " if document.dirty else ""
+        sub_title = f"{mark}{where} · {document.units}"
+        room = self.app.size.width - len(sub_title) - 22  # the icon, the dash and margins
+        self.app.sub_title = sub_title
+        self.app.title = fit_words(document.session.title or APP_NAME, max(room, 8))
+
+    def on_resize(self, event: Resize) -> None:
+        """Fit the title to the new width."""
+        self._title()
+
     # ---- messages from the panes ------------------------------------------------------------
-    @on(CaseList.Chosen)
-    def _case_chosen(self, event: CaseList.Chosen) -> None:
-        """Move the editor and the derivation to the case highlighted in the list."""
-        if event.index == self.workbench.selected:
-            return
-        self.workbench.select(event.index)
-        self._load_editor()
-        self._show_case()
+    @on(CaseTable.Chosen)
+    def _case_chosen(self, event: CaseTable.Chosen) -> None:
+        """Move the form and the panes to the case under the list's cursor."""
+        self.document.end_run()
+        self._changed(event.index)
+        self._help_for_case()
 
-    @on(CaseEditor.Changed)
-    def _field_changed(self, event: CaseEditor.Changed) -> None:
-        """Check a typed value; write it and re-derive, or show why it was not taken."""
-        editor = self.query_one(CaseEditor)
-        if event.token != editor.token:
-            return  # typed into what the editor showed before its last load
-        state = self.workbench
-        problem = state.set_text(event.field, event.text)
+    def _help_for_case(self) -> None:
+        case = self.document.case(self.selected)
+        text = "" if case is None else f"{case.name} · bearing {case.bearing}" + (
+            f" · {case.notes}" if case.notes else "")
+        self.query_one("#help-line", Static).update(text)
+
+    @on(CaseForm.HelpShown)
+    def _help_shown(self, event: CaseForm.HelpShown) -> None:
+        self.query_one("#help-line", Static).update(event.text)
+
+    @on(CaseForm.Edited)
+    def _field_edited(self, event: CaseForm.Edited) -> None:
+        """Write a typed or chosen value, or show why it was not taken."""
+        document, form = self.document, self.query_one(CaseForm)
+        if event.field == "bearing":
+            problem = document.choose_bearing(self.selected, event.text)
+        else:
+            problem = document.set_field(self.selected, event.field, event.text)
         if event.done:
-            state.end_run()
+            document.end_run()
         if problem is not None:
-            in_force = state.texts().get(event.field, "")
-            editor.reject(event.field, f"{problem} · in force: {in_force or '(blank)'}")
-            self._show_case()
-            self._refresh_rows()
-            self._after_change()
-            return
-        editor.accept(event.field)
-        self._refresh_rows()
-        self._show_case()
-        self._after_change()
+            in_force = document.texts(self.selected).get(event.field, "")
+            form.show_note(event.field, f"{problem} · in force: {in_force or '(blank)'}")
+        else:
+            form.show_note(event.field, None)
+        self._changed()
 
-    def _refresh_rows(self) -> None:
-        """Redraw the list rows an edit of the selected case can touch (its bearing's cases)."""
-        state = self.workbench
-        case_list = self.query_one(CaseList)
-        case = state.case
-        for index, other in enumerate(state.session.cases):
-            if other is case or (case is not None and other.bearing == case.bearing):
-                case_list.show_row(index, state.results[index], state.units)
-
-    @on(CaseEditor.Done)
+    @on(CaseForm.TypingDone)
     def _typing_done(self) -> None:
         """Enter or leaving a field ends its edit run: the value now in force stands."""
-        self.workbench.end_run()
-
-    @on(CaseEditor.BearingChosen)
-    def _bearing_chosen(self, event: CaseEditor.BearingChosen) -> None:
-        """Let the selected case use another bearing of the session."""
-        problem = self.workbench.choose_bearing(event.name)
-        if problem is not None:
-            self.notify(problem, severity="warning")
-            self._load_editor()  # show the bearing still in force
-            return
-        self.redraw_all()
-        self._after_change()
+        self.document.end_run()
 
     @on(SolverPane.SolveRequested)
     def _solve_requested(self, event: SolverPane.SolveRequested) -> None:
-        """Solve from the pane's button or its value field."""
         self._solve(event.unknown, event.target_text)
 
     @on(SolverPane.ApplyRequested)
     def _apply_requested(self) -> None:
-        """Apply from the pane's button."""
         self.action_apply_solution()
 
     # ---- actions (keys, footer and palette) -------------------------------------------------
+    def _refuse_generated(self) -> bool:
+        """Say so and refuse when the selected case is generated from a shaft (read-only)."""
+        problem = self.document.generated_problem(self.selected)
+        if problem is not None:
+            self.notify(problem, severity="warning")
+        return problem is not None
+
     def action_add_case(self) -> None:
         """Add an empty load case after the selected one."""
-        name = self.workbench.add_case()
-        self.redraw_all()
-        self._after_change()
-        self.notify(f"Added {name}: give its loads in the editor")
+        index = self.document.add_case(self.selected)
+        self._changed(index)
+        self.notify(f"Added {self.document.case(index).name}: give its loads in the form")
 
     def action_duplicate_case(self) -> None:
         """Copy the selected load case."""
-        name = self.workbench.duplicate_case()
-        if name is None:
+        index = self.document.duplicate_case(self.selected)
+        if index is None:
             self.notify("No case to duplicate", severity="warning")
             return
-        self.redraw_all()
-        self._after_change()
+        self._changed(index)
 
     def action_rename_case(self) -> None:
         """Ask for a new name for the selected case."""
-        case = self.workbench.case
+        case = self.document.case(self.selected)
         if case is None:
             self.notify("No case to rename", severity="warning")
             return
         if self._refuse_generated():
             return
-
         from .dialogs import TextPrompt  # the dialogs load when the first one opens
+
+        index = self.selected
 
         def renamed(name: str | None) -> None:
             if name is None:
                 return
-            problem = self.workbench.rename_case(name)
+            problem = self.document.rename_case(index, name)
             if problem is not None:
                 self.notify(problem, severity="warning")
-                return
-            self.redraw_all()
-            self._after_change()
+            self._changed()
 
         self.app.push_screen(TextPrompt("Rename load case", case.name,
-                                        self.workbench.name_problem), renamed)
-
-    def _refuse_generated(self) -> bool:
-        """Say so and refuse when the selected case is generated from a shaft (read-only)."""
-        problem = self.workbench.generated_problem()
-        if problem is not None:
-            self.notify(problem, severity="warning")
-        return problem is not None
+                                        lambda text: self.document.case_name_problem(index, text)),
+                             renamed)
 
     def action_delete_case(self) -> None:
         """Delete the selected case (ctrl+z brings it back)."""
         if self._refuse_generated():
             return
-        name = self.workbench.delete_case()
+        name = self.document.delete_case(self.selected)
         if name is None:
             self.notify("No case to delete", severity="warning")
             return
-        self.redraw_all()
-        self._after_change()
+        self._changed()
         self.notify(f"Deleted {name} (ctrl+z brings it back)")
 
     def action_move_case(self, delta: int) -> None:
         """Move the selected case up or down the list."""
         if self._refuse_generated():
             return
-        if self.workbench.move_case(delta):
-            self.redraw_all()
-            self._after_change()
+        index = self.document.move_case(self.selected, delta)
+        if index is not None:
+            self._changed(index)
 
-    def _undo_redo(self, step: Callable[[], str | None], verb: str) -> None:
-        label = step()
-        if label is None:
+    def _undo_redo(self, step: Callable[[], object], verb: str) -> None:
+        done = step()
+        if done is None:
             self.notify(f"Nothing to {verb.lower()}", severity="warning")
             return
-        self.redraw_all()
-        if (pane := self._solver_pane) is not None:
-            pane.show_note("")
-        self._after_change()
-        self.notify(f"{verb}: {label}")
+        self.query_one(CaseForm).drop_notes()
+        self._changed(getattr(done, "case_index", None))
+        self.notify(f"{verb}: {getattr(done, 'label', '')}")
 
     def action_undo(self) -> None:
         """Undo the last change."""
-        self._undo_redo(self.workbench.undo, "Undone")
+        self._undo_redo(self.document.undo, "Undone")
 
     def action_redo(self) -> None:
         """Redo what was undone."""
-        self._undo_redo(self.workbench.redo, "Redone")
+        self._undo_redo(self.document.redo, "Redone")
 
     def action_nudge(self, factor: float) -> None:
         """Scale the focused numeric field by ``factor`` (what-if), its unit kept."""
-        self.workbench.end_run()
-        problem = self.query_one(CaseEditor).nudge(factor)
+        name = self.query_one(CaseForm).focused_field()
+        if name is None:
+            self.notify("Put the focus on a number in the form first", severity="warning")
+            return
+        problem = self.document.nudge(self.selected, name, factor)
         if problem is not None:
             self.notify(problem, severity="warning")
+        self._changed()
+
+    def _solver(self) -> SolverPane | None:
+        found = self.query(SolverPane)
+        return found.first() if found else None
 
     def _solve(self, unknown: str, target_text: str) -> None:
-        pane = self._solver_pane
+        self._show_pane("solver", focus=False)
+        pane = self._solver()
         if pane is None:
             return
-        self._show_pane("solver")
-        state = self.workbench
         try:
-            solution = state.solve(unknown, target_text)
-        except NoSolution as exc:
-            pane.show_failure(exc.message, exc.reachable)
+            question = self.document.question(self.selected, unknown, target_text)
         except (FieldError, InputError) as exc:
             pane.show_failure(exc.message)
+            return
+        pane.show_busy()
+        self._answer(question)
+
+    @work(thread=True, exclusive=True, group="solve")
+    def _answer(self, question: Question) -> None:
+        """Solve away from the screen's thread (a search over the unknown's whole range)."""
+        try:
+            solution: Solution | NoSolution | InputError = question.solve()
+        except (NoSolution, InputError) as exc:
+            solution = exc
+        self.app.call_from_thread(self._answered, question, solution)
+
+    def _answered(self, question: Question, outcome: Solution | NoSolution | InputError) -> None:
+        pane = self._solver()
+        if pane is None:
+            return
+        if isinstance(outcome, NoSolution):
+            pane.show_failure(outcome.message, outcome.reachable)
+        elif isinstance(outcome, InputError):
+            pane.show_failure(outcome.message)
+        elif self.document.answer(question, outcome):
+            pane.show_solution(question.case_name, outcome, self.document.units,
+                               revision=question.revision)
         else:
-            case = state.case
-            pane.show_solution(case.name if case else "", solution, state.units)
-        self._after_change()
+            pane.show_note("The session changed while solving: solve again (f9).")
 
     def action_solve(self) -> None:
         """Back-solve the chosen input for the chosen target."""
-        pane = self._solver_pane
-        if pane is not None:
-            self._solve(*pane.request())
+        pane = self._solver()
+        if pane is None:
+            self._show_pane("solver")
+            return
+        self._solve(*pane.request())
 
     def action_apply_solution(self) -> None:
         """Write the solved value into its case (undoable)."""
         try:
-            done = self.workbench.apply_solution()
+            done = self.document.apply_solution(self.selected)
         except InputError as exc:
             self.notify(exc.message, severity="warning")
             return
-        self.redraw_all()
-        if (pane := self._solver_pane) is not None:
+        self._changed()
+        if (pane := self._solver()) is not None:
             pane.show_note(f"Applied: {done} (ctrl+z undoes it)")
-        self._after_change()
         self.notify(f"Applied {done}")
 
     def action_toggle_units(self) -> None:
         """Switch the display system between SI and US customary."""
-        system = self.workbench.toggle_units()
-        self.redraw_all()
-        self._after_change()
+        system = self.document.toggle_units()
+        self._changed()
         self.notify(f"Results in {'US customary' if system == 'US' else 'SI'} units")
 
+    def _show_pane(self, name: str, *, focus: bool = True) -> None:
+        self.query_one(TabbedContent).active = name
+        if focus:
+            self.call_after_refresh(self._focus_pane, name)
+
+    def _focus_pane(self, name: str) -> None:
+        if name == "solver" and (pane := self._solver()) is not None:
+            pane.focus_first()
+        elif name == "whatif":
+            found = self.query("#whatif-view")
+            if found:
+                found.first().focus()
+        else:
+            self.query_one(DerivationPane).focus()
+
     def action_show_pane(self, name: str) -> None:
-        """Show the derivation or the solver in the right column."""
+        """Show a pane of the right column and put the focus in it."""
         self._show_pane(name)
 
     def action_select_from_catalog(self) -> None:
         """List the catalog bearings for every case on the selected case's bearing; adopt one."""
         from .selection_screen import SelectionScreen  # the catalog and its sweep load on first use
 
-        state = self.workbench
-        case = state.case
+        document = self.document
+        case = document.case(self.selected)
         if case is None:
             self.notify("No load case selected", severity="warning")
             return
@@ -379,49 +367,50 @@ class WorkbenchScreen(Screen[None]):
         def adopted(choice: Adoption | None) -> None:
             if choice is None:
                 return
-            problem = state.adopt_bearing(choice.texts, choice.designation)
+            problem = document.adopt_bearing(bearing, choice.texts,
+                                             designation=choice.designation,
+                                             source=getattr(choice, "source", ""))
             if problem is not None:
                 self.notify(problem, severity="warning")
                 return
-            self.redraw_all()
-            self._after_change()
+            self._changed()
             self.notify(f"Bearing {bearing} now has the data of {choice.designation} "
                         "(ctrl+z undoes it)")
 
-        users = [result for result in state.results if result.case.bearing == bearing]
-        held = state.session.bearing(bearing)
+        users = [result for result in document.results if result.case.bearing == bearing]
+        held = document.session.bearing(bearing)
         self.app.push_screen(SelectionScreen(bearing, users,
                                              bearing_texts=held.texts if held else None,
-                                             system=state.units), adopted)
+                                             system=document.units), adopted)
 
     def action_show_shafts(self) -> None:
         """Show the shafts, their bearing loads and free bodies, and the duty cycles."""
         from .shafts_screen import ShaftsScreen  # loaded on first use, not at start
 
-        self.app.push_screen(ShaftsScreen(self.workbench.analysis, self.workbench.units))
+        self.app.push_screen(ShaftsScreen(self.document.analysis, self.document.units))
 
     def action_focus_cases(self) -> None:
         """Go to the load-case list."""
-        self.query_one(CaseList).focus()
+        self.query_one(CaseTable).focus()
 
     def action_focus_editor(self) -> None:
-        """Go to the case editor."""
-        self.query_one(CaseEditor).focus_first()
+        """Go to the case form."""
+        self.query_one(CaseForm).focus_first()
 
     # ---- files ------------------------------------------------------------------------------
     def save_to(self, path: Path, then: Callable[[], object] | None = None) -> None:
         """Write the session to ``path`` and report what the writer said."""
-        outcome = files.save(self.workbench.session, path)
+        document = self.document
+        outcome = files.save(document.session, path)
         if outcome.error is not None:
             self.notify(outcome.error, title="Not saved", severity="error")
             return
-        for saved_from in {self.workbench.path, path}:
+        for saved_from in {document.path, path}:
             files.discard_recovery_copy(saved_from)
         if self._autosave_timer is not None:
             self._autosave_timer.stop()
             self._autosave_timer = None
-        self.workbench.mark_saved(path)
-        self._saved_revision = self.workbench.revision
+        document.mark_saved(path)
         for message in outcome.messages:
             self.notify(message, title="Saved")
         if not outcome.messages:
@@ -434,7 +423,7 @@ class WorkbenchScreen(Screen[None]):
         """Ask for a file name and save there."""
         from .dialogs import TextPrompt
 
-        current = self.workbench.path
+        current = self.document.path
 
         def chosen(text: str | None) -> None:
             if text:
@@ -447,10 +436,10 @@ class WorkbenchScreen(Screen[None]):
 
     def save(self, then: Callable[[], object] | None = None) -> None:
         """Save to the session's file, asking for one the first time."""
-        if self.workbench.path is None:
+        if self.document.path is None:
             self.save_as(then)
         else:
-            self.save_to(self.workbench.path, then)
+            self.save_to(self.document.path, then)
 
     def action_save(self) -> None:
         """Save the session."""
@@ -479,7 +468,7 @@ class WorkbenchScreen(Screen[None]):
                                                 lambda t: None if t.strip() else "a file name is needed"),
                                      chosen)
 
-        if self.workbench.dirty:
+        if self.document.dirty:
             self.app.push_screen(ChoiceDialog(
                 "Unsaved changes", "Open another file and drop the changes made here?",
                 [("discard", "Drop changes and open"), ("stay", "Stay")]), ask_path)
@@ -487,13 +476,13 @@ class WorkbenchScreen(Screen[None]):
             ask_path()
 
     def open_session(self, session: Session, path: Path | None, dirty: bool = False) -> None:
-        """Put ``session`` under edit and redraw."""
-        self.workbench.replace_session(session, path, dirty)
-        self._saved_revision = -1 if dirty else self.workbench.revision
-        if (pane := self._solver_pane) is not None:
+        """Put ``session`` under edit and show it."""
+        self.document.replace(session, path, dirty=dirty)
+        if (pane := self._solver()) is not None:
             pane.load(session.solver)
             pane.show_note("")
-        self.redraw_all()
+        self.query_one(CaseForm).drop_notes()
+        self._changed(0)
 
     # ---- recovery ---------------------------------------------------------------------------
     def _schedule_autosave(self) -> None:
@@ -506,7 +495,7 @@ class WorkbenchScreen(Screen[None]):
     def autosave(self) -> None:
         """Write the recovery copy now (called after a quiet spell following a change)."""
         self._autosave_timer = None
-        problem = files.write_recovery_copy(self.workbench.session, self.workbench.path)
+        problem = files.write_recovery_copy(self.document.session, self.document.path)
         if problem is not None and not self._autosave_failed:
             self._autosave_failed = True
             self.notify(problem, title="Recovery", severity="warning")

@@ -1,0 +1,369 @@
+"""The case form: every input of the selected load case, grouped as an engineer reads them.
+
+Built from Textual's own fields: a :class:`FieldBox` (an ``Input`` checked by the field table)
+for typed values, a :class:`ChoiceBox` (a ``Select``) for fixed choices and the bearing, a
+``Checkbox`` for a switch.  The form never writes to the session: each edit is announced with
+:class:`CaseForm.Edited` and the screen answers with :meth:`CaseForm.show_note`.  The form
+follows :attr:`view` (bound to the screen's) and shows what the document holds for the selected
+case; a rejected text stays in its field with its message under it while the value in force
+stays in the document.
+"""
+
+from __future__ import annotations
+
+from textual import on
+from textual.app import ComposeResult
+from textual.binding import Binding
+from textual.containers import Horizontal, VerticalScroll
+from textual.events import DescendantFocus, Resize
+from textual.message import Message
+from textual.reactive import var
+from textual.suggester import SuggestFromList
+from textual.widget import Widget
+from textual.widgets import Checkbox, Input, Label, Select, Static
+
+from ..engine.kinds import ARRANGEMENTS, parse_kind
+from ..model.document import Document
+from ..model.fields import FIELD_BY_NAME, FieldError, FieldSpec, parse_field
+from ..model.quantities import QUANTITIES
+from .choice_box import ChoiceBox
+from .field_box import FieldBox, FieldValidator
+from .view import View
+
+EDITOR_GROUPS: tuple[tuple[str, tuple[str, ...]], ...] = (
+    ("Bearing", ("bearing", "kind", "arrangement", "c", "c0", "f0", "contact_angle", "e_given",
+                 "y_given", "dm", "cu")),
+    ("Loads and speed", ("fr", "fa", "speed", "af", "outer_ring_rotates")),
+    ("Reliability", ("reliability", "reliability_model", "weibull_x0", "weibull_theta",
+                     "weibull_b", "rating_life_mrev")),
+    ("Lubrication", ("vg", "vi", "nu100", "temp", "nu", "cleanliness")),
+    ("Static", ("static_duty", "s0_min")),
+)
+BEARING_FIELD = "bearing"
+BEARING_LABEL = "Bearing used"
+BEARING_HINT = "the bearing of the session this case loads; its fields are shared by its cases"
+FIELD_ORDER: tuple[str, ...] = tuple(name for _, names in EDITOR_GROUPS for name in names)
+WIDE = 100
+"""From this many columns of screen the labels are written in full."""
+BLANK_CHOICE = "(default)"
+
+
+def takes_text(name: str) -> bool:
+    """Numbers, quantities and the cleanliness level (which also takes an eC number) are typed;
+    fixed choices, switches and the bearing are chosen."""
+    if name == BEARING_FIELD:
+        return False
+    spec = FIELD_BY_NAME[name]
+    return spec.kind not in ("switch", "choice") or name == "cleanliness"
+
+
+def field_help(name: str) -> str:
+    """The full words for a field: its long label and its hint."""
+    if name == BEARING_FIELD:
+        return f"{BEARING_LABEL}: {BEARING_HINT}"
+    spec = FIELD_BY_NAME[name]
+    example = _example(spec)
+    hint = spec.hint or (f"for example {example}" if example else "")
+    return f"{spec.label}: {hint}" if hint else spec.label
+
+
+def _example(spec: FieldSpec) -> str:
+    if spec.kind == "quantity" and spec.quantity in QUANTITIES:
+        return QUANTITIES[spec.quantity].example
+    return ""
+
+
+def _switch_on(name: str, text: str) -> bool:
+    try:
+        return bool(parse_field(name, text))
+    except FieldError:
+        return False
+
+
+def _choices(name: str, texts: dict[str, str]) -> tuple[str, ...]:
+    """The options of a choice field; the arrangements follow the kind typed."""
+    spec = FIELD_BY_NAME[name]
+    if name == "arrangement":
+        try:
+            return tuple(a.value for a in ARRANGEMENTS[parse_kind(texts.get("kind", ""))])
+        except (KeyError, ValueError):
+            return spec.choices
+    return spec.choices
+
+
+class FieldRow(Horizontal):
+    """A label and the field's control on one line."""
+
+
+class CaseForm(VerticalScroll):
+    """The inputs of one load case; ↑/↓ move between fields, Esc goes back to the list."""
+
+    BINDINGS = [
+        Binding("down", "app.focus_next", "Next field", show=False),
+        Binding("up", "app.focus_previous", "Previous field", show=False),
+    ]
+
+    DEFAULT_CSS = """
+    CaseForm {
+        height: 1fr;
+        scrollbar-gutter: stable;
+        & .group-title {
+            text-style: bold;
+            color: $text-primary;
+            background: $boost;
+            padding: 0 1;
+            margin-top: 1;
+        }
+        & .group-title.-first { margin-top: 0; }
+        & FieldRow { height: 1; }
+        & .field-label {
+            width: 18;
+            padding: 0 1;
+            color: $text-muted;
+        }
+        &.-wide .field-label { width: 26; }
+        & FieldRow > Input, & FieldRow > Select, & FieldRow > Checkbox { width: 1fr; }
+        & .field-note {
+            display: none;
+            padding: 0 1 0 3;
+            color: $text-error;
+            background: $error-muted;
+        }
+        & .field-note.-shown { display: block; }
+        & #case-note {
+            display: none;
+            color: $text-warning;
+            background: $warning-muted;
+            padding: 0 1;
+        }
+        & #case-note.-shown { display: block; }
+    }
+    """
+
+    view: var[View] = var(View(-1, -1))
+    """The document's revision and the selected case (bound to the screen's)."""
+
+    class Edited(Message):
+        """Field ``field`` was edited to ``text`` (not yet checked); ``done`` when the edit is
+        complete in itself (a choice, a switch, enter)."""
+
+        def __init__(self, field: str, text: str, done: bool) -> None:
+            super().__init__()
+            self.field = field
+            self.text = text
+            self.done = done
+
+    class TypingDone(Message):
+        """Typing in a field ended (enter, or the focus moved on)."""
+
+    class HelpShown(Message):
+        """The field under the focus, in full words, for the help line."""
+
+        def __init__(self, text: str) -> None:
+            super().__init__()
+            self.text = text
+
+    def __init__(self, document: Document, *, id: str | None = None) -> None:
+        super().__init__(id=id)
+        self.document = document
+        self._notes: dict[str, str] = {}
+        """Fields whose typed text was refused, with the message shown under them."""
+        self._shown_case: object = None
+        self._loaded: dict[str, str] = {}
+        """What each choice and switch was last loaded with (its text in the document)."""
+
+    # ---- building --------------------------------------------------------------------------
+    def compose(self) -> ComposeResult:
+        """A title per group, then a row and a (hidden) note line per field."""
+        yield Static(id="case-note")
+        for number, (title, names) in enumerate(EDITOR_GROUPS):
+            yield Static(title, classes="group-title" + (" -first" if number == 0 else ""))
+            for name in names:
+                with FieldRow(id=f"row-{name}"):
+                    yield Label(self._label(name, wide=False), id=f"label-{name}",
+                                classes="field-label")
+                    yield self._control(name)
+                yield Static("", id=f"note-{name}", classes="field-note", markup=False)
+
+    @staticmethod
+    def _label(name: str, *, wide: bool) -> str:
+        if name == BEARING_FIELD:
+            return BEARING_LABEL
+        spec = FIELD_BY_NAME[name]
+        return spec.label if wide else spec.short_label
+
+    def _control(self, name: str) -> Widget:
+        control_id = f"field-{name}"
+        tooltip = field_help(name)
+        if name == BEARING_FIELD:
+            return ChoiceBox([], id=control_id, compact=True, prompt="(no bearing)",
+                             tooltip=tooltip)
+        spec = FIELD_BY_NAME[name]
+        if spec.kind == "switch":
+            return Checkbox("V = 1.2", id=control_id, compact=True, tooltip=tooltip)
+        if not takes_text(name):
+            return ChoiceBox([(choice, choice) for choice in spec.choices], id=control_id,
+                             compact=True, allow_blank=not spec.required,
+                             prompt=BLANK_CHOICE, tooltip=tooltip)
+        suggester = SuggestFromList(spec.choices) if spec.choices else None
+        return FieldBox(placeholder="", id=control_id, compact=True, tooltip=tooltip,
+                        validators=[FieldValidator(name)], suggester=suggester,
+                        validate_on=["changed", "submitted"])
+
+    def on_resize(self, event: Resize) -> None:
+        """Long labels where the screen is wide, short ones where it is not; a placeholder
+        only where it fits whole."""
+        wide = self.app.size.width >= WIDE
+        self.set_class(wide, "-wide")
+        for name in FIELD_ORDER:
+            self.query_one(f"#label-{name}", Label).update(self._label(name, wide=wide))
+        self.call_after_refresh(self._fit_placeholders)
+
+    def _fit_placeholders(self) -> None:
+        for name in FIELD_ORDER:
+            if not takes_text(name):
+                continue
+            box = self.query_one(f"#field-{name}", FieldBox)
+            spec = FIELD_BY_NAME[name]
+            room = box.content_region.width - 1
+            fitting = [text for text in (spec.hint, _example(spec) and "e.g. " + _example(spec))
+                       if text and len(text) <= room]
+            box.placeholder = fitting[0] if fitting else ""  # the help line has it in full
+
+    # ---- showing the document ----------------------------------------------------------------
+    def watch_view(self, view: View) -> None:
+        """Show the selected case as the document holds it now."""
+        self.load()
+
+    def load(self) -> None:
+        """Put the document's texts for the selected case into the fields (a field whose text
+        was refused keeps it while its case stays selected)."""
+        document, index = self.document, self.view.selected
+        case = document.case(index)
+        if case is not self._shown_case:
+            self._shown_case = case
+            self._notes.clear()
+            for note in self.query(".field-note.-shown"):
+                note.remove_class("-shown")
+        texts = document.texts(index)
+        bearings = [(b.name, b.name) for b in document.session.bearings]
+        read_only = document.generated_problem(index)
+        if case is None:
+            text = "No load case selected: add one with ctrl+n."
+        elif read_only:
+            text = read_only
+        else:
+            result = document.result(index)
+            problem = None if result is None or result.derivation is not None else result.error
+            text = f"⚠ {problem}" if problem else ""
+        note = self.query_one("#case-note", Static)
+        note.update(text)
+        note.set_class(bool(text), "-shown")
+        for name in FIELD_ORDER:
+            control = self.query_one(f"#field-{name}")
+            control.disabled = case is None or read_only is not None
+            if name in self._notes:
+                continue
+            with control.prevent(Input.Changed, Select.Changed, Checkbox.Changed):
+                self._put(name, control, texts, bearings, case.bearing if case else None)
+
+    def _put(self, name: str, control: Widget, texts: dict[str, str],
+             bearings: list[tuple[str, str]], bearing: str | None) -> None:
+        if isinstance(control, ChoiceBox):
+            options = bearings if name == BEARING_FIELD else [
+                (choice, choice) for choice in _choices(name, texts)]
+            value = bearing if name == BEARING_FIELD else texts.get(name, "")
+            if [o for _, o in control._options if o is not Select.NULL] != [v for _, v in options]:
+                control.set_options(options)
+            self._loaded[name] = value or ""
+            wanted = value if value in [v for _, v in options] else Select.NULL
+            blank_ok = name == BEARING_FIELD or not FIELD_BY_NAME[name].required
+            if control.value != wanted and (wanted is not Select.NULL or blank_ok):
+                control.value = wanted
+        elif isinstance(control, Checkbox):
+            on = _switch_on(name, texts.get(name, ""))
+            self._loaded[name] = "yes" if on else "no"
+            if control.value != on:
+                control.value = on
+        elif isinstance(control, Input) and control.value != texts.get(name, ""):
+            control.value = texts.get(name, "")
+            control.cursor_position = len(control.value)
+
+    def show_note(self, name: str, message: str | None) -> None:
+        """Show ``message`` under field ``name`` (None: clear it)."""
+        note = self.query_one(f"#note-{name}", Static)
+        if message:
+            self._notes[name] = message
+            note.update(f"✘ {message}")
+        else:
+            self._notes.pop(name, None)
+        note.set_class(bool(message), "-shown")
+
+    def drop_notes(self) -> None:
+        """Forget the refused texts: every field shows the value in force again."""
+        for name in list(self._notes):
+            self.show_note(name, None)
+        self.load()
+
+    def focus_first(self) -> None:
+        """Put the focus on the first field that takes input."""
+        for name in FIELD_ORDER:
+            control = self.query_one(f"#field-{name}")
+            if control.focusable:
+                control.focus()
+                return
+
+    def focused_field(self) -> str | None:
+        """The field under the focus, if the focus is in the form."""
+        focused = self.screen.focused
+        if focused is not None and focused.id and focused.id.startswith("field-") and \
+                focused in self.query("*"):
+            return focused.id.removeprefix("field-")
+        return None
+
+    # ---- edits -----------------------------------------------------------------------------
+    @staticmethod
+    def _field_of(widget: Widget) -> str:
+        return (widget.id or "").removeprefix("field-")
+
+    @on(Input.Changed)
+    def _typed(self, event: Input.Changed) -> None:
+        event.stop()
+        self.post_message(self.Edited(self._field_of(event.input), event.value, done=False))
+
+    @on(Input.Submitted)
+    def _submitted(self, event: Input.Submitted) -> None:
+        event.stop()
+        self.post_message(self.TypingDone())
+
+    @on(Input.Blurred)
+    def _left(self, event: Input.Blurred) -> None:
+        self.post_message(self.TypingDone())
+
+    def _announce(self, name: str, text: str, *, done: bool) -> None:
+        """Tell the screen of an edit, unless the field only shows what is in force (a choice
+        settling on its value as it mounts, or a message queued before a load)."""
+        if name in self._loaded and self._loaded[name] != text:
+            self._loaded[name] = text
+            self.post_message(self.Edited(name, text, done=done))
+
+    @on(Select.Changed)
+    def _chosen(self, event: Select.Changed) -> None:
+        event.stop()
+        value = event.select.value
+        self._announce(self._field_of(event.select),
+                       "" if value is Select.NULL else str(value), done=True)
+
+    @on(Checkbox.Changed)
+    def _switched(self, event: Checkbox.Changed) -> None:
+        event.stop()
+        self._announce(self._field_of(event.checkbox),
+                       "yes" if event.checkbox.value else "no", done=True)
+
+    def on_descendant_focus(self, event: DescendantFocus) -> None:
+        """Say in full what the focused field is, and keep it in view."""
+        name = self._field_of(event.widget)
+        if name in FIELD_ORDER:
+            self.post_message(self.HelpShown(field_help(name)))
+            row = self.query_one(f"#row-{name}")
+            self.scroll_to_widget(row, animate=False)

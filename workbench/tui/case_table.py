@@ -1,0 +1,133 @@
+"""The load-case list: Textual's ``DataTable``, one row per case (own, then generated).
+
+It follows :attr:`CaseTable.view` (bound to the screen's): on a new revision it rewrites only
+the cells that changed, and it keeps its cursor on the selected case.  Moving the cursor posts
+:class:`CaseTable.Chosen`.  The name column takes the room the other columns leave, so wide
+screens show whole names; a name that does not fit is cut between words (its full text is in
+the help line and the derivation's heading).
+"""
+
+from __future__ import annotations
+
+import math
+
+from textual.events import Resize
+from textual.message import Message
+from textual.reactive import var
+from textual.widgets import DataTable
+
+from ..engine.record import fmt
+from ..model.document import Document
+from ..model.quantities import format_quantity
+from ..model.session import CaseResult
+from .view import View, fit_words
+
+COLUMNS = (("P", 9), ("Lnm h", 7), ("s0", 5), ("Checks", 7))
+"""The columns after the name: (heading, width)."""
+NAME_HEADING = "Load case"
+MIN_NAME = 12
+LIFE_LIMIT_H = 1e6
+
+
+def life_text(hours: float) -> str:
+    """A life in hours for the list: whole hours, ">1e6" past a million, "—" undefined."""
+    if math.isnan(hours):
+        return "—"
+    if hours > LIFE_LIMIT_H:
+        return ">1e6"
+    return f"{hours:.0f}"
+
+
+def checks_text(result: CaseResult) -> str:
+    """The verdicts in one short cell: L (life target) and s0, each ✔ met, ✘ missed, – none.
+
+    A case with no life target shows "L–", never a life ✔."""
+    if result.derivation is None:
+        return "error"
+    mark = {True: "✔", False: "✘", None: "–"}
+    return f"L{mark[result.meets_life]} s0{mark[result.meets_s0]}"
+
+
+def row_cells(result: CaseResult, system: str) -> tuple[str, ...]:
+    """The cells after the name for one case."""
+    if result.derivation is None:
+        return ("—", "—", "—", checks_text(result))
+    values = result.derivation.results
+    return (format_quantity(values["P"], "force", system),  # type: ignore[arg-type]
+            life_text(values.get("Lnm", math.nan)), fmt(values["s0"], 3), checks_text(result))
+
+
+class CaseTable(DataTable[str]):
+    """Every load case with its equivalent load, life, static safety and verdicts."""
+
+    DEFAULT_CSS = """
+    CaseTable { scrollbar-size-vertical: 1; }
+    """
+
+    view: var[View] = var(View(-1, -1))
+    """The document's revision and the selected case (bound to the screen's)."""
+
+    class Chosen(Message):
+        """The cursor moved to case ``index``."""
+
+        def __init__(self, index: int) -> None:
+            super().__init__()
+            self.index = index
+
+    def __init__(self, document: Document, *, id: str | None = None) -> None:
+        super().__init__(id=id, cursor_type="row", zebra_stripes=True)
+        self.document = document
+        self._rows: list[tuple[str, ...]] = []
+        self._name_width = MIN_NAME
+
+    def on_mount(self) -> None:
+        """The columns, sized to the table."""
+        self._columns_for(self.size.width)
+
+    def _columns_for(self, width: int) -> None:
+        others = sum(w + 2 for _, w in COLUMNS)  # each column has a cell padding of one a side
+        name_width = max(MIN_NAME, width - others - 2 - 1)  # the scrollbar's column
+        if name_width == self._name_width and self.columns:
+            return
+        self._name_width = name_width
+        self.clear(columns=True)
+        self.add_column(NAME_HEADING, width=name_width, key="name")
+        for heading, column_width in COLUMNS:
+            self.add_column(heading, width=column_width, key=heading)
+        self._rows = []
+        self._show(self.view)
+
+    def on_resize(self, event: Resize) -> None:
+        """Give the name column the room the other columns leave."""
+        self._columns_for(event.size.width)
+
+    def watch_view(self, view: View) -> None:
+        """Rewrite what changed, and keep the cursor on the selected case."""
+        self._show(view)
+
+    def _show(self, view: View) -> None:
+        if not self.columns:
+            return
+        document = self.document
+        system = document.units
+        rows = [(fit_words(result.case.name, self._name_width), *row_cells(result, system))
+                for result in document.results]
+        if len(rows) != len(self._rows):
+            self.clear()
+            for number, row in enumerate(rows):
+                self.add_row(*row, key=str(number))
+        else:
+            keys = [column.key for column in self.ordered_columns]
+            for number, (old, new) in enumerate(zip(self._rows, rows)):
+                for key, before, after in zip(keys, old, new):
+                    if before != after:
+                        self.update_cell(str(number), key, after)
+        self._rows = rows
+        if rows and 0 <= view.selected < len(rows) and self.cursor_row != view.selected:
+            self.move_cursor(row=view.selected, animate=False)
+
+    def on_data_table_row_highlighted(self, event: DataTable.RowHighlighted) -> None:
+        """Tell the screen the cursor moved to another case."""
+        event.stop()
+        if event.cursor_row != self.view.selected:
+            self.post_message(self.Chosen(event.cursor_row))
