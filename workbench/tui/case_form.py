@@ -44,7 +44,7 @@ BEARING_LABEL = "Bearing used"
 BEARING_HINT = "the bearing of the session this case loads; its fields are shared by its cases"
 FIELD_ORDER: tuple[str, ...] = tuple(name for _, names in EDITOR_GROUPS for name in names)
 WIDE = 100
-"""From this many columns of screen the labels are written in full."""
+"""From this many columns of screen the labels are written in full (the screen's ``-wide``)."""
 BLANK_CHOICE = "(default)"
 
 
@@ -121,7 +121,7 @@ class CaseForm(VerticalScroll):
             padding: 0 1;
             color: $text-muted;
         }
-        &.-wide .field-label { width: 26; }
+        & .field-label.-long { display: none; width: 26; }
         & FieldRow > Input, & FieldRow > Select, & FieldRow > Checkbox { width: 1fr; }
         & .field-note {
             display: none;
@@ -180,8 +180,9 @@ class CaseForm(VerticalScroll):
             yield Static(title, classes="group-title" + (" -first" if number == 0 else ""))
             for name in names:
                 with FieldRow(id=f"row-{name}"):
-                    yield Label(self._label(name, wide=False), id=f"label-{name}",
-                                classes="field-label")
+                    yield Label(self._label(name, wide=True), id=f"label-{name}",
+                                classes="field-label -long")
+                    yield Label(self._label(name, wide=False), classes="field-label -short")
                     yield self._control(name)
                 yield Static("", id=f"note-{name}", classes="field-note", markup=False)
 
@@ -211,12 +212,8 @@ class CaseForm(VerticalScroll):
                         validate_on=["changed", "submitted"])
 
     def on_resize(self, event: Resize) -> None:
-        """Long labels where the screen is wide, short ones where it is not; a placeholder
-        only where it fits whole."""
-        wide = self.app.size.width >= WIDE
-        self.set_class(wide, "-wide")
-        for name in FIELD_ORDER:
-            self.query_one(f"#label-{name}", Label).update(self._label(name, wide=wide))
+        """A placeholder only where it fits whole (the long and short labels follow the
+        screen's width class, ``-wide`` from :data:`WIDE` columns)."""
         self.call_after_refresh(self._fit_placeholders)
 
     def _fit_placeholders(self) -> None:

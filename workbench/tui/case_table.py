@@ -81,10 +81,13 @@ class CaseTable(DataTable[str]):
         self._name_width = MIN_NAME
 
     def on_mount(self) -> None:
-        """The columns, sized to the table."""
+        """The columns, sized to the table once it is laid out."""
         self._columns_for(self.size.width)
+        self.call_after_refresh(lambda: self._columns_for(self.size.width))
 
     def _columns_for(self, width: int) -> None:
+        if width <= 0:
+            return
         others = sum(w + 2 for _, w in COLUMNS)  # each column has a cell padding of one a side
         name_width = max(MIN_NAME, width - others - 2 - 1)  # the scrollbar's column
         if name_width == self._name_width and self.columns:
@@ -107,6 +110,7 @@ class CaseTable(DataTable[str]):
 
     def _show(self, view: View) -> None:
         if not self.columns:
+            self._columns_for(self.size.width)
             return
         document = self.document
         system = document.units

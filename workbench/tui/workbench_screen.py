@@ -31,7 +31,7 @@ from ..model.document import Document, Question
 from ..model.fields import FieldError
 from ..model.session import Session
 from .actions import bindings
-from .case_form import CaseForm
+from .case_form import WIDE, CaseForm
 from .case_table import CaseTable
 from .derivation_pane import DerivationPane
 from .key_footer import KeyFooter
@@ -54,6 +54,9 @@ class WorkbenchScreen(Screen[None]):
 
     BINDINGS = [*bindings("screen"),
                 Binding("escape", "focus_cases", "Case list", show=False)]
+
+    HORIZONTAL_BREAKPOINTS = [(0, "-narrow"), (WIDE, "-wide")]
+    """The screen's width class: long field labels from :data:`WIDE` columns."""
 
     view: var[View] = var(View(-1, -1), init=False)
     """The document's revision and the selected case: what every pane follows."""
