@@ -117,9 +117,10 @@ class CaseTable(DataTable[str]):
         rows = [(fit_words(result.case.name, self._name_width), *row_cells(result, system))
                 for result in document.results]
         if len(rows) != len(self._rows):
-            self.clear()
-            for number, row in enumerate(rows):
-                self.add_row(*row, key=str(number))
+            with self.prevent(DataTable.RowHighlighted):  # the cursor is put back below
+                self.clear()
+                for number, row in enumerate(rows):
+                    self.add_row(*row, key=str(number))
         else:
             keys = [column.key for column in self.ordered_columns]
             for number, (old, new) in enumerate(zip(self._rows, rows)):
@@ -128,7 +129,8 @@ class CaseTable(DataTable[str]):
                         self.update_cell(str(number), key, after)
         self._rows = rows
         if rows and 0 <= view.selected < len(rows) and self.cursor_row != view.selected:
-            self.move_cursor(row=view.selected, animate=False)
+            with self.prevent(DataTable.RowHighlighted):
+                self.move_cursor(row=view.selected, animate=False)
 
     def on_data_table_row_highlighted(self, event: DataTable.RowHighlighted) -> None:
         """Tell the screen the cursor moved to another case."""
