@@ -517,25 +517,37 @@ class Document:
         return None
 
     # ---- session details and targets ------------------------------------------------------
-    def set_detail(self, name: str, text: str) -> None:
-        """Set one of the session's details (title, project, engineer, revision, notes)."""
-        if getattr(self.session, name) != text:
-            self.apply(SetSessionText(name, text), f"edit the session's {name}")
+    def target_problem(self, name: str, text: str) -> str | None:
+        """Why ``text`` cannot be the session's ``name`` target (life, reliability, s0), or None.
 
-    def set_target(self, name: str, text: str) -> str | None:
-        """Set a target (life, reliability, s0) if it can be read; None, or the message."""
+        Blank life or s0 means none; a blank reliability means the default 0.90."""
         from .session import parse_target
 
         try:
             if name == "reliability":
-                parse_field("reliability", text)
+                parse_field("reliability", text or "0.90")
             else:
                 parse_target(name, text)
         except FieldError as exc:
             return exc.message
-        if getattr(self.session.targets, name) != text.strip():
-            self.apply(SetTarget(name, text.strip()), f"edit the {name} target")
         return None
+
+    def set_details(self, details: dict[str, str], targets: dict[str, str]) -> dict[str, str]:
+        """Set the session's details (title, project, engineer, revision, notes) and targets
+        (life, reliability, s0) as one undo step; {name: message} for what cannot be read (and
+        then nothing is changed)."""
+        problems = {name: problem for name, text in targets.items()
+                    if (problem := self.target_problem(name, text.strip())) is not None}
+        if problems:
+            return problems
+        edits: list[Edit] = [SetSessionText(name, text) for name, text in details.items()
+                             if getattr(self.session, name) != text]
+        edits += [SetTarget(name, text.strip() or ("0.90" if name == "reliability" else ""))
+                  for name, text in targets.items()
+                  if getattr(self.session.targets, name) != text.strip()]
+        if edits:
+            self.apply(Together(tuple(edits)), "edit the session's details and targets")
+        return {}
 
     def toggle_units(self) -> str:
         """Switch the display system between SI and US customary; the new one."""

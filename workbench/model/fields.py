@@ -88,7 +88,11 @@ FIELDS: tuple[FieldSpec, ...] = (
     FieldSpec("static_duty", "--static-duty", "Static duty", "choice",
               choices=tuple(T.STATIC_SAFETY_MINIMUMS)),
     FieldSpec("s0_min", "--s0-min", "Required s0", "number", hint="blank: the duty's minimum"),
+    FieldSpec("static_only", "--static-only", "Static check only", "switch",
+              hint="a start-up or peak case checked for s0 alone: no life verdict"),
 )
+NOT_ENGINE_INPUTS = frozenset({"static_only"})
+"""Fields that say how a case is judged, not what the engine derives from."""
 FIELD_BY_NAME: dict[str, FieldSpec] = {f.name: f for f in FIELDS}
 BEARING_FIELDS: tuple[str, ...] = tuple(f.name for f in FIELDS if f.group == "bearing")
 CASE_FIELDS: tuple[str, ...] = tuple(f.name for f in FIELDS if f.group == "case")
@@ -158,7 +162,7 @@ def inputs_from_values(values: Mapping[str, object]) -> CaseInputs:
     """CaseInputs from parsed field values (blank optional fields keep the engine's defaults)."""
     kwargs: dict[str, object] = {}
     for name, value in values.items():
-        if value is None:
+        if value is None or name in NOT_ENGINE_INPUTS:
             continue
         if name == "cleanliness" and isinstance(value, float):
             kwargs["ec"] = value

@@ -63,9 +63,7 @@ class Session:
     """Everything a colleague needs to reopen the work."""
 
     title: str = "Untitled session"
-    project: str = ""
     engineer: str = ""
-    revision: str = ""  # the document's own revision mark, as the engineer writes it
     notes: str = ""
     units: str = "SI"
     targets: Targets = field(default_factory=Targets)
@@ -73,6 +71,8 @@ class Session:
     cases: list[LoadCase] = field(default_factory=list)
     solver: SolverSetup = field(default_factory=SolverSetup)
     reserved: dict[str, object] = field(default_factory=dict)  # duty_cycles, shafts: kept as read
+    project: str = ""
+    revision: str = ""  # the document's own revision mark, as the engineer writes it
 
     def bearing(self, name: str) -> Bearing | None:
         """The bearing called ``name``, or None."""
@@ -101,11 +101,14 @@ class CaseResult:
     error_field: str | None
     life_target_h: float | None
     s0_target: float | None
+    static_only: bool = False
+    """A static check: judged on s0 alone, its life shown for completeness only."""
 
     @property
     def meets_life(self) -> bool | None:
-        """True/False against the session's life target on Lnm; None when there is no verdict."""
-        if self.derivation is None or self.life_target_h is None:
+        """True/False against the session's life target on Lnm; None when there is no verdict
+        (no target, a static check, or no life)."""
+        if self.derivation is None or self.life_target_h is None or self.static_only:
             return None
         lnm = self.derivation.results.get("Lnm", math.nan)
         if math.isnan(lnm):
@@ -167,15 +170,19 @@ def evaluate_case(session: Session, case: LoadCase, *, keep_steps: bool = True) 
         values["s0_min"] = s0_target
     if session.bearing(case.bearing) is None:
         errors["bearing"] = f"no bearing called {case.bearing!r} in this session"
+    static_only = bool(values.get("static_only"))
     if errors:
         first = next(iter(errors))
-        return CaseResult(case, None, None, errors, errors[first], first, life_target, s0_target)
+        return CaseResult(case, None, None, errors, errors[first], first, life_target, s0_target,
+                          static_only)
     inputs = inputs_from_values(values)
     try:
         derivation = derive(inputs, keep_steps=keep_steps)
     except InputError as exc:
-        return CaseResult(case, None, inputs, {}, exc.message, exc.field, life_target, s0_target)
-    return CaseResult(case, derivation, inputs, {}, None, None, life_target, s0_target)
+        return CaseResult(case, None, inputs, {}, exc.message, exc.field, life_target, s0_target,
+                          static_only)
+    return CaseResult(case, derivation, inputs, {}, None, None, life_target, s0_target,
+                      static_only)
 
 
 def evaluate(session: Session) -> list[CaseResult]:

@@ -37,7 +37,7 @@ EDITOR_GROUPS: tuple[tuple[str, tuple[str, ...]], ...] = (
     ("Reliability", ("reliability", "reliability_model", "weibull_x0", "weibull_theta",
                      "weibull_b", "rating_life_mrev")),
     ("Lubrication", ("vg", "vi", "nu100", "temp", "nu", "cleanliness")),
-    ("Static", ("static_duty", "s0_min")),
+    ("Static", ("static_duty", "s0_min", "static_only")),
 )
 BEARING_FIELD = "bearing"
 BEARING_LABEL = "Bearing used"
@@ -46,6 +46,7 @@ FIELD_ORDER: tuple[str, ...] = tuple(name for _, names in EDITOR_GROUPS for name
 WIDE = 100
 """From this many columns of screen the labels are written in full (the screen's ``-wide``)."""
 BLANK_CHOICE = "(default)"
+SWITCH_WORDS = {"outer_ring_rotates": "V = 1.2", "static_only": "s0 verdict only"}
 
 
 def takes_text(name: str) -> bool:
@@ -201,7 +202,8 @@ class CaseForm(VerticalScroll):
                              tooltip=tooltip)
         spec = FIELD_BY_NAME[name]
         if spec.kind == "switch":
-            return Checkbox("V = 1.2", id=control_id, compact=True, tooltip=tooltip)
+            return Checkbox(SWITCH_WORDS.get(name, "yes"), id=control_id, compact=True,
+                            tooltip=tooltip)
         if not takes_text(name):
             return ChoiceBox([(choice, choice) for choice in spec.choices], id=control_id,
                              compact=True, allow_blank=not spec.required,

@@ -22,7 +22,7 @@ from ..model.quantities import format_quantity
 from ..model.session import CaseResult
 from .view import View, fit_words
 
-COLUMNS = (("P", 9), ("Lnm h", 7), ("s0", 5), ("Checks", 7))
+COLUMNS = (("P", 9), ("Lnm h", 7), ("s0", 5), ("Checks", 8))
 """The columns after the name: (heading, width)."""
 NAME_HEADING = "Load case"
 MIN_NAME = 12
@@ -41,10 +41,13 @@ def life_text(hours: float) -> str:
 def checks_text(result: CaseResult) -> str:
     """The verdicts in one short cell: L (life target) and s0, each ✔ met, ✘ missed, – none.
 
-    A case with no life target shows "L–", never a life ✔."""
+    A case with no life target shows "L–", never a life ✔; a static check shows its s0
+    verdict alone ("s0✔ only")."""
     if result.derivation is None:
         return "error"
     mark = {True: "✔", False: "✘", None: "–"}
+    if result.static_only:
+        return f"s0{mark[result.meets_s0]} only"
     return f"L{mark[result.meets_life]} s0{mark[result.meets_s0]}"
 
 

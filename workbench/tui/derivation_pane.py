@@ -68,6 +68,12 @@ def _summary(result: CaseResult, system: str) -> list[Content]:
             "P = ", (format_quantity(values["P"], "force", system), RESULT_STYLE),  # type: ignore[arg-type]
             "   s0 = ", (fmt(values["s0"], 3), RESULT_STYLE)))
         lines.append(Content.assemble("Lnm = ", (lnm_text, RESULT_STYLE)))
+    if result.static_only:
+        lines.append(Content.styled("Static check only: judged on s0; the life is shown for "
+                                    "completeness", "italic"))
+    elif result.life_target_h is None and result.derivation is not None:
+        lines.append(Content.styled("No life target: set one with alt+i for a life verdict",
+                                    "italic"))
     if result.life_target_h is not None and result.meets_life is not None:
         word = "meets" if result.meets_life else "misses"
         lines.append(Content.assemble(

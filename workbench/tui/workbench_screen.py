@@ -386,6 +386,34 @@ class WorkbenchScreen(Screen[None]):
                                              bearing_texts=held.texts if held else None,
                                              system=document.units), adopted)
 
+    def action_manage_bearings(self) -> None:
+        """Add, duplicate, rename or delete bearings; enter uses one for the selected case."""
+        from .bearings_screen import BearingsScreen
+
+        case = self.document.case(self.selected)
+        index = self.selected
+
+        def chosen(name: str | None) -> None:
+            if name is not None and case is not None:
+                problem = self.document.choose_bearing(index, name)
+                if problem is not None:
+                    self.notify(problem, severity="warning")
+            self._changed()
+
+        self.app.push_screen(BearingsScreen(self.document, case.bearing if case else None),
+                             chosen)
+
+    def action_edit_session(self) -> None:
+        """Edit the session's details and targets in one dialog."""
+        from .session_screen import SessionScreen
+
+        def closed(kept: bool | None) -> None:
+            self._changed()
+            if kept:
+                self.notify("Session details and targets kept (ctrl+z undoes them)")
+
+        self.app.push_screen(SessionScreen(self.document), closed)
+
     def action_show_shafts(self) -> None:
         """Show the shafts, their bearing loads and free bodies, and the duty cycles."""
         from .shafts_screen import ShaftsScreen  # loaded on first use, not at start

@@ -1,0 +1,144 @@
+"""The session's details and targets, edited in one dialog: title, project, engineer, revision,
+notes; the life, reliability and static safety every case must meet.
+
+Enter (or ctrl+s) keeps what is typed as one undo step; Esc leaves everything as it was.  A
+target that cannot be read is named under its field and nothing is kept until it is put right.
+"""
+
+from __future__ import annotations
+
+from textual import on
+from textual.app import ComposeResult
+from textual.binding import Binding
+from textual.containers import Horizontal, VerticalScroll
+from textual.screen import ModalScreen
+from textual.validation import ValidationResult, Validator
+from textual.widgets import Input, Label, Static
+
+from ..model.document import Document
+from ..model.edits import SESSION_TEXTS, TARGET_TEXTS
+
+LABELS = {
+    "title": "Title", "project": "Project", "engineer": "Engineer", "revision": "Revision",
+    "notes": "Notes", "life": "Life target Lnm", "reliability": "Reliability R",
+    "s0": "Required s0",
+}
+HINTS = {
+    "life": "hours on Lnm, e.g. 30000 h; blank: no life verdict",
+    "reliability": "for cases that give none, e.g. 0.95; blank: 0.90",
+    "s0": "overrides each case's static duty minimum; blank: by duty",
+    "revision": "your document's revision mark, e.g. B",
+}
+
+
+class TargetValidator(Validator):
+    """Checks a target as the document would read it."""
+
+    def __init__(self, document: Document, name: str) -> None:
+        super().__init__()
+        self.document = document
+        self.target = name
+
+    def validate(self, value: str) -> ValidationResult:
+        problem = self.document.target_problem(self.target, value.strip())
+        return self.success() if problem is None else self.failure(problem, value)
+
+
+class SessionScreen(ModalScreen[bool]):
+    """Edit the session's details and targets; dismisses True when something was kept."""
+
+    BINDINGS = [
+        Binding("escape", "close", "Cancel", show=True),
+        Binding("ctrl+s", "keep", "Keep", show=True, priority=True),
+        Binding("down", "app.focus_next", show=False),
+        Binding("up", "app.focus_previous", show=False),
+    ]
+
+    DEFAULT_CSS = """
+    SessionScreen {
+        align: center middle;
+        background: $background 60%;
+        & #session-box {
+            width: 76;
+            max-width: 100%;
+            height: auto;
+            max-height: 100%;
+            border: round $primary;
+            background: $surface;
+            padding: 0 1;
+        }
+        & .dialog-title { text-style: bold; color: $text-primary; }
+        & .group-title { margin-top: 1; text-style: bold; color: $text-primary; }
+        & .form-row { height: 1; }
+        & .form-label { width: 18; color: $text-muted; }
+        & .form-row Input { width: 1fr; }
+        & .form-note { color: $text-error; padding-left: 18; display: none; }
+        & .form-note.-shown { display: block; }
+        & .form-hint { color: $text-muted; padding-left: 18; }
+        & #session-keys { color: $text-muted; margin-top: 1; }
+    }
+    """
+
+    def __init__(self, document: Document) -> None:
+        super().__init__()
+        self.document = document
+
+    def compose(self) -> ComposeResult:
+        """A row per detail, then per target, each target with its hint."""
+        session = self.document.session
+        with VerticalScroll(id="session-box"):
+            yield Static("Session details and targets", classes="dialog-title")
+            for name in SESSION_TEXTS:
+                with Horizontal(classes="form-row"):
+                    yield Label(LABELS[name], classes="form-label")
+                    yield Input(getattr(session, name), id=f"detail-{name}", compact=True)
+                if name in HINTS:
+                    yield Static(HINTS[name], classes="form-hint")
+            yield Static("Targets", classes="group-title")
+            for name in TARGET_TEXTS:
+                with Horizontal(classes="form-row"):
+                    yield Label(LABELS[name], classes="form-label")
+                    yield Input(getattr(session.targets, name), id=f"target-{name}",
+                                compact=True, validators=[TargetValidator(self.document, name)])
+                yield Static("", id=f"target-note-{name}", classes="form-note")
+                yield Static(HINTS[name], classes="form-hint")
+            yield Static("enter or ctrl+s keeps · esc cancels · ↑/↓ move", id="session-keys")
+
+    def on_mount(self) -> None:
+        """The focus starts on the title."""
+        self.query_one("#detail-title", Input).focus()
+
+    @on(Input.Changed)
+    def _checked(self, event: Input.Changed) -> None:
+        name = (event.input.id or "").removeprefix("target-")
+        if event.input.id and event.input.id.startswith("target-"):
+            result = event.validation_result
+            self._note(name, None if result is None or result.is_valid
+                       else "; ".join(result.failure_descriptions))
+
+    def _note(self, name: str, message: str | None) -> None:
+        note = self.query_one(f"#target-note-{name}", Static)
+        note.update(f"✘ {message}" if message else "")
+        note.set_class(bool(message), "-shown")
+
+    @on(Input.Submitted)
+    def _submitted(self) -> None:
+        self.action_keep()
+
+    def action_keep(self) -> None:
+        """Keep what is typed (one undo step), unless a target cannot be read."""
+        if self.app.screen is not self:
+            return
+        details = {name: self.query_one(f"#detail-{name}", Input).value for name in SESSION_TEXTS}
+        targets = {name: self.query_one(f"#target-{name}", Input).value for name in TARGET_TEXTS}
+        before = self.document.revision
+        problems = self.document.set_details(details, targets)
+        for name in TARGET_TEXTS:
+            self._note(name, problems.get(name))
+        if not problems:
+            self.dismiss(self.document.revision != before)
+
+    def action_close(self) -> None:
+        """Leave everything as it was."""
+        if self.app.screen is self:
+            self.dismiss(False)
