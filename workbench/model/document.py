@@ -38,7 +38,7 @@ from .edits import (
     Together, Touch,
 )
 from .fields import BEARING_FIELDS, FIELD_BY_NAME, FieldError, parse_field
-from .nudge import leading_number, number_text, scale_text
+from .nudge import Rounding, leading_number, number_text, scale_text
 from .quantities import format_quantity
 from .session import (
     Bearing, CaseResult, LoadCase, Session, UNIT_SYSTEMS, case_texts, evaluate_case,
@@ -596,27 +596,41 @@ class Document:
         """Whether the last solution was found on the session as it is now."""
         return self.solved is not None and self.solved.revision == self.revision
 
-    def _solved_texts(self, index: int, solution: Solution, current: float) -> dict[str, str]:
+    def _solved_texts(self, index: int, solution: Solution, current: float,
+                      rounding: Rounding) -> dict[str, str]:
         """The typed texts that put the solved value into the case, units kept as typed."""
         texts = self.texts(index)
         if solution.unknown == "load_scale":
-            scaled = {name: scale_text(texts.get(name, ""), solution.value) for name in ("fr", "fa")}
+            scaled = {name: scale_text(texts.get(name, ""), solution.value, rounding)
+                      for name in ("fr", "fa")}
             return {name: text for name, text in scaled.items() if text is not None}
         name = solution.unknown
         typed = leading_number(texts.get(name, ""))
         if typed and current > 0 and math.isfinite(current):
-            scaled_text = scale_text(texts[name], solution.value / current)
+            scaled_text = scale_text(texts[name], solution.value / current, rounding)
             if scaled_text is not None:
                 return {name: scaled_text}
         spec = FIELD_BY_NAME[name]
         if spec.kind == "quantity" and spec.quantity is not None:
             return {name: format_quantity(solution.value, spec.quantity, self.units,  # type: ignore[arg-type]
                                           digits=7)}
-        return {name: number_text(solution.value)}
+        return {name: number_text(solution.value, rounding)}
+
+    def _meets(self, index: int, solution: Solution) -> bool:
+        """Whether case ``index`` as it stands meets the solution's target (every target is a
+        least value: a life or a static safety)."""
+        result = self.result(index)
+        if result is None or result.derivation is None:
+            return False
+        achieved = result.derivation.results.get(solution.target, math.nan)
+        return achieved >= solution.target_value
 
     def apply_solution(self, index: int) -> str:
         """Write the last solved value into case ``index`` (one undo step); a line saying
-        what changed.  Raises InputError when there is no current solution for that case."""
+        what changed.  Raises InputError when there is no current solution for that case.
+
+        The value is written with seven figures, rounded the way that still meets the target
+        (a load solved for 30 000 h is written so that the case gives at least 30 000 h)."""
         solved, case, result = self.solved, self.case(index), self.result(index)
         if solved is None:
             raise InputError("solve", "nothing solved yet: solve first")
@@ -633,17 +647,20 @@ class Document:
         solution = solved.solution
         current = 1.0 if solution.unknown == "load_scale" else float(
             getattr(result.inputs, solution.unknown))
-        changed = self._solved_texts(index, solution, current)
-        if not changed:
-            raise InputError("solve", "no typed value to change")
-        edits = []
-        for name, text in changed.items():
-            owner = self._owner(index, name)
-            if owner is not None:
-                edits.append(SetText(owner[0], owner[1], name, text))  # type: ignore[arg-type]
         self.end_run()
-        self.apply(Together(tuple(edits)), f"apply solved {UNKNOWNS[solution.unknown].label}",
-                   case_index=index)
+        label = f"apply solved {UNKNOWNS[solution.unknown].label}"
+        changed: dict[str, str] = {}
+        for rounding in ("nearest", "down", "up"):
+            changed = self._solved_texts(index, solution, current, rounding)
+            if not changed:
+                raise InputError("solve", "no typed value to change")
+            edits = [SetText(owner[0], owner[1], name, text)  # type: ignore[arg-type]
+                     for name, text in changed.items()
+                     if (owner := self._owner(index, name)) is not None]
+            self.apply(Together(tuple(edits)), label, case_index=index)
+            if self._meets(index, solution):
+                break
+            self._swap(self._undo, [])  # this rounding misses the target: take it back
         self.solved = None  # applied once: solve again to apply again
         words = ", ".join(f"{FIELD_BY_NAME[n].label} = {t}" for n, t in changed.items())
         users = self.bearing_users(case.bearing)

@@ -9,6 +9,7 @@ from __future__ import annotations
 
 import math
 import re
+from typing import Literal
 
 SIGNIFICANT_DIGITS = 7
 _LEADING_NUMBER = re.compile(
@@ -17,8 +18,15 @@ _LEADING_NUMBER = re.compile(
 )
 
 
-def number_text(value: float) -> str:
-    """A number written with up to seven significant figures and no trailing zeros."""
+Rounding = Literal["nearest", "up", "down"]
+
+
+def number_text(value: float, rounding: Rounding = "nearest") -> str:
+    """A number written with up to seven significant figures and no trailing zeros; rounded to
+    the nearest, or up or down (toward +∞ or −∞) at the seventh figure."""
+    if rounding != "nearest" and value != 0.0 and math.isfinite(value):
+        step = 10.0 ** (math.floor(math.log10(abs(value))) - SIGNIFICANT_DIGITS + 1)
+        value = (math.ceil if rounding == "up" else math.floor)(value / step) * step
     return f"{value:.{SIGNIFICANT_DIGITS}g}"
 
 
@@ -31,8 +39,9 @@ def leading_number(text: str) -> float | None:
     return value if math.isfinite(value) else None
 
 
-def scale_text(text: str, factor: float) -> str | None:
-    """``text`` with its leading number multiplied by ``factor``, the rest kept as typed.
+def scale_text(text: str, factor: float, rounding: Rounding = "nearest") -> str | None:
+    """``text`` with its leading number multiplied by ``factor``, the rest kept as typed
+    (the product written by :func:`number_text` with ``rounding``).
 
     None when the text has no leading number or the product is not a finite number.
     """
@@ -42,4 +51,4 @@ def scale_text(text: str, factor: float) -> str | None:
     value = float(match["number"]) * factor
     if not math.isfinite(value):
         return None
-    return f"{match['lead']}{number_text(value)}{match['rest']}"
+    return f"{match['lead']}{number_text(value, rounding)}{match['rest']}"
