@@ -22,19 +22,21 @@ force when the run began, so a half-typed "5" of "5 kN" never stays in force.
 
 from __future__ import annotations
 
+import copy
 import math
 import unicodedata
 from dataclasses import dataclass, field
 from pathlib import Path
-from typing import NamedTuple
+from typing import Any, NamedTuple
 
 from ..engine.derive import CaseInputs
 from ..engine.record import InputError
 from ..engine.solve import UNKNOWNS, Solution, solve
 from .analysis import SessionAnalysis, analyse_extras
 from .edits import (
-    EVERYTHING, DeleteBearing, DeleteCase, Edit, InsertBearing, InsertCase, MoveCase,
-    RenameBearing, RenameCase, SetBearingOrigin, SetCaseBearing, SetSessionText, SetTarget, SetText, SetUnits,
+    DeleteBearing, DeleteCase, Edit, InsertBearing, InsertCase, MoveCase,
+    RenameBearing, RenameCase, SetBearingOrigin, SetCaseBearing, SetSessionText, SetTable,
+    SetTarget, SetText, SetUnits,
     Together, Touch,
 )
 from .fields import BEARING_FIELDS, FIELD_BY_NAME, FieldError, parse_field
@@ -516,6 +518,68 @@ class Document:
         self.end_run()
         return None
 
+    # ---- shafts and duty cycles (tables kept as typed) -------------------------------------
+    def tables(self, name: str) -> list[dict[str, Any]]:
+        """The session's ``shafts`` or ``duty_cycles`` tables as typed (a copy to read)."""
+        value = self.session.reserved.get(name)
+        return copy.deepcopy(value) if isinstance(value, list) else []
+
+    def _set_tables(self, name: str, tables: list[dict[str, Any]], label: str, *,
+                    merge_key: tuple[str, int, str] | None = None) -> None:
+        self.apply(SetTable(name, tables or None), label, merge_key=merge_key)
+
+    def set_table_text(self, name: str, index: int, where: tuple[str | int, ...], key: str,
+                       text: str) -> None:
+        """Set one text of table ``index`` of ``name`` (``where`` leads into it: () for the
+        table itself, ("elements", 2) for its third element, ("case_fields",) …).
+
+        Kept as typed, as in the file: a text that cannot be read is named by the analysis
+        (the shaft or cycle then gives no cases or life) until it is put right.  Keystrokes in
+        one text merge into one undo step."""
+        tables = self.tables(name)
+        target: Any = tables[index]
+        for step in where:
+            target = target.setdefault(step, {}) if isinstance(step, str) else target[step]
+        if target.get(key, "") == text:
+            return
+        if text:
+            target[key] = text
+        else:
+            target.pop(key, None)
+        run_key = ".".join(map(str, (name, index, *where, key)))
+        self._set_tables(name, tables, f"edit {run_key}", merge_key=("table", index, run_key))
+
+    def add_table(self, name: str, table: dict[str, Any]) -> int:
+        """Add a shaft or duty cycle table; its index."""
+        tables = self.tables(name)
+        taken = {str(item.get("name", "")) for item in tables}
+        table = dict(table, name=self._unique(str(table.get("name", "")), taken))
+        tables.append(table)
+        self._set_tables(name, tables, f"add {name[:-1].replace('_', ' ')} {table['name']}")
+        return len(tables) - 1
+
+    def delete_table(self, name: str, index: int) -> None:
+        """Delete a shaft or duty cycle table (undoable)."""
+        tables = self.tables(name)
+        removed = tables.pop(index)
+        self._set_tables(name, tables, f"delete {removed.get('name', '')}")
+
+    def add_row(self, name: str, index: int, rows: str, row: dict[str, str]) -> int:
+        """Add a row (an element or state) to table ``index``; the row's index."""
+        tables = self.tables(name)
+        items = tables[index].setdefault(rows, [])
+        if "name" in row:
+            row = dict(row, name=self._unique(row["name"], {str(r.get("name", "")) for r in items}))
+        items.append(row)
+        self._set_tables(name, tables, f"add to {tables[index].get('name', '')}")
+        return len(items) - 1
+
+    def delete_row(self, name: str, index: int, rows: str, row: int) -> None:
+        """Delete row ``row`` of table ``index`` (undoable)."""
+        tables = self.tables(name)
+        del tables[index][rows][row]
+        self._set_tables(name, tables, f"delete from {tables[index].get('name', '')}")
+
     # ---- session details and targets ------------------------------------------------------
     def target_problem(self, name: str, text: str) -> str | None:
         """Why ``text`` cannot be the session's ``name`` target (life, reliability, s0), or None.
@@ -684,4 +748,4 @@ class Document:
         self._derive_all()
 
 
-__all__ = ["Document", "EVERYTHING", "Solved", "Undone", "input_field", "name_problem"]
+__all__ = ["Document", "Question", "Solved", "Undone", "input_field", "name_problem"]

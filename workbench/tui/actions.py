@@ -91,6 +91,18 @@ ACTIONS: tuple[Action, ...] = (
     Action("session.details", "alt+i", "edit_session", "Session details and targets",
            "Title, project, engineer, revision and notes; the life, reliability and s0 "
            "targets every case must meet"),
+    Action("shaft.edit", "alt+h", "edit_shaft", "Edit the shaft",
+           "Edit the shaft the selected case comes from (else the first shaft): bearings, "
+           "positions, gears and pulleys, operating states; its cases follow as you type"),
+    Action("shaft.add", "", "add_shaft", "Add a new shaft",
+           "A shaft on two of the session's bearings, with one operating state to start from"),
+    Action("duty.edit", "alt+y", "edit_duty_cycle", "Edit a duty cycle",
+           "Edit the duty cycle on the selected case's bearing (else the first one): its "
+           "states, their load cases and shares"),
+    Action("duty.add", "", "add_duty_cycle", "Add a new duty cycle",
+           "A duty cycle over the selected case, to which states are added"),
+    Action("bearing.add", "", "add_bearing", "Add a new bearing",
+           "A new bearing of the session (deep-groove, no ratings yet), in the bearings list"),
     Action("view.shafts", "alt+s", "show_shafts", "Shafts and duty cycles",
            "Show each shaft's bearing loads and free body, system lives and duty cycles"),
     Action("focus.cases", "f3", "focus_cases", "Cases", "Go to the load-case list"),
@@ -108,8 +120,9 @@ ACTIONS: tuple[Action, ...] = (
 
 
 def bindings(scope: Scope) -> list[Binding]:
-    """The bindings of every action in ``scope``, in table order."""
-    return [action.binding() for action in ACTIONS if action.scope == scope]
+    """The bindings of every action in ``scope`` that has keys (the rest are palette commands
+    only), in table order."""
+    return [action.binding() for action in ACTIONS if action.scope == scope and action.keys]
 
 
 ACTION_BY_ID: dict[str, Action] = {action.id: action for action in ACTIONS}
@@ -129,7 +142,7 @@ def check_keymap(table: Mapping[str, object]) -> tuple[dict[str, str], list[str]
             keymap[action_id] = ",".join(key.strip() for key in keys.split(",") if key.strip())
     claimed: dict[str, list[str]] = {}
     for action in ACTIONS:
-        for key in action.key_text(keymap).split(", "):
+        for key in filter(None, action.key_text(keymap).split(", ")):
             claimed.setdefault(key, []).append(action.id)
     problems += [f"{key} is claimed by {' and '.join(ids)}: only one of them acts"
                  for key, ids in claimed.items() if len(ids) > 1]

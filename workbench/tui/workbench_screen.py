@@ -30,6 +30,7 @@ from ..model import files
 from ..model.document import Document, Question
 from ..model.fields import FieldError
 from ..model.session import Session
+from ..model.shafts import GENERATED_NOTE
 from .actions import bindings
 from .case_form import WIDE, CaseForm
 from .case_table import CaseTable
@@ -413,6 +414,65 @@ class WorkbenchScreen(Screen[None]):
                 self.notify("Session details and targets kept (ctrl+z undoes them)")
 
         self.app.push_screen(SessionScreen(self.document), closed)
+
+    def _open_table(self, tables: str, index: int) -> None:
+        from .shaft_editor import DutyEditor, ShaftEditor
+
+        editor = ShaftEditor if tables == "shafts" else DutyEditor
+        self.app.push_screen(editor(self.document, index), lambda _: self._changed())
+
+    def action_edit_shaft(self) -> None:
+        """Edit the shaft the selected case comes from, else the first; none: add one."""
+        shafts = self.document.tables("shafts")
+        if not shafts:
+            self.action_add_shaft()
+            return
+        case = self.document.case(self.selected)
+        notes = case.notes if case is not None else ""
+        index = next((i for i, table in enumerate(shafts)
+                      if notes == GENERATED_NOTE + str(table.get("name", ""))), 0)
+        self._open_table("shafts", index)
+
+    def action_add_shaft(self) -> None:
+        """Add a shaft on the session's first two bearings and edit it."""
+        from .shaft_editor import new_shaft
+
+        if not self.document.session.bearings:
+            self.document.add_bearing()
+        index = self.document.add_table(
+            "shafts", new_shaft([b.name for b in self.document.session.bearings]))
+        self._changed()
+        self._open_table("shafts", index)
+
+    def action_edit_duty_cycle(self) -> None:
+        """Edit the duty cycle over the selected case's bearing, else the first; none: add."""
+        cycles = self.document.tables("duty_cycles")
+        if not cycles:
+            self.action_add_duty_cycle()
+            return
+        case = self.document.case(self.selected)
+        names = {r.case.name for r in self.document.results
+                 if case is not None and r.case.bearing == case.bearing}
+        index = next((i for i, table in enumerate(cycles)
+                      if any(state.get("case") in names for state in table.get("states", []))), 0)
+        self._open_table("duty_cycles", index)
+
+    def action_add_duty_cycle(self) -> None:
+        """Add a duty cycle over the selected case and edit it."""
+        from .shaft_editor import new_duty_cycle
+
+        case = self.document.case(self.selected)
+        index = self.document.add_table("duty_cycles",
+                                        new_duty_cycle([case.name] if case else []))
+        self._changed()
+        self._open_table("duty_cycles", index)
+
+    def action_add_bearing(self) -> None:
+        """Add a bearing and show the session's bearings."""
+        name = self.document.add_bearing()
+        self._changed()
+        self.notify(f"Added bearing {name}")
+        self.action_manage_bearings()
 
     def action_show_shafts(self) -> None:
         """Show the shafts, their bearing loads and free bodies, and the duty cycles."""

@@ -1,0 +1,279 @@
+"""Editing a shaft or a duty cycle from the keyboard, its results worked out as you type.
+
+A :class:`TableEditor` edits one ``[[shafts]]`` or ``[[duty_cycles]]`` table of the session as
+typed: a form on the left (the table's own fields, then a group per row: a gear or pulley, an
+operating state, a duty-cycle state) and, on the right, what the analysis makes of it now — the
+bearing loads of each state and the free-body derivation for a shaft, the Palmgren–Miner life for
+a duty cycle — or the error naming the key to put right.  Each edit is a step of the document's
+undo stack (keystrokes in one field merge); the main screen's list follows the generated cases.
+"""
+
+from __future__ import annotations
+
+from collections.abc import Sequence
+from typing import Any, NamedTuple
+
+from textual import on
+from textual.app import ComposeResult
+from textual.binding import Binding
+from textual.containers import Horizontal, VerticalScroll
+from textual.content import Content
+from textual.reactive import var
+from textual.screen import Screen
+from textual.widget import Widget
+from textual.widgets import Footer, Input, Label, Select, Static
+
+from ..model.document import Document
+from .choice_box import ChoiceBox
+
+Choices = tuple[str, ...] | str | None
+"""A field's options: None typed, a tuple of fixed choices ("" = blank allowed), or the name of
+a list the editor fills from the session ("bearings", "cases")."""
+
+
+class Field(NamedTuple):
+    """One text of a table: its key, its label and what may be chosen."""
+
+    key: str
+    label: str
+    choices: Choices = None
+    hint: str = ""
+
+
+class Rows(NamedTuple):
+    """A list of rows in the table (``elements``, ``states``): how a row reads and a new one."""
+
+    key: str
+    title: str
+    fields: tuple[Field, ...]
+    new: dict[str, str]
+
+
+SEP = "--"
+
+
+def control_id(where: tuple[str | int, ...], key: str) -> str:
+    """The id of the control for ``key`` at ``where`` (() the table, ("states", 1) a row)."""
+    return SEP.join(["t", *map(str, where), key])
+
+
+def parse_control_id(widget_id: str) -> tuple[tuple[str | int, ...], str]:
+    """(where, key) of a control id made by :func:`control_id`."""
+    parts = widget_id.split(SEP)[1:]
+    where: tuple[str | int, ...] = tuple(int(p) if p.isdigit() else p for p in parts[:-1])
+    return where, parts[-1]
+
+
+class TableForm(VerticalScroll):
+    """The editor's form; built again (``recompose``) when rows come or go."""
+
+    def __init__(self, editor: TableEditor, *, id: str | None = None) -> None:
+        super().__init__(id=id)
+        self.editor = editor
+
+    def compose(self) -> ComposeResult:
+        """The editor's groups and rows as the table holds them now."""
+        yield from self.editor.form_widgets()
+
+
+class TableEditor(Screen[None]):
+    """The form of one table and its results; subclasses say what the table holds."""
+
+    TABLES = ""
+    """The session's tables this edits (``shafts`` or ``duty_cycles``)."""
+    TITLE_WORD = ""
+    HEAD: tuple[Field, ...] = ()
+    ROWS: tuple[Rows, ...] = ()
+
+    BINDINGS = [
+        Binding("escape", "close", "Back"),
+        Binding("down", "app.focus_next", show=False),
+        Binding("up", "app.focus_previous", show=False),
+        Binding("f8", "delete_row", "Delete this row"),
+        Binding("ctrl+z", "undo", "Undo", show=False),
+        Binding("ctrl+y", "redo", "Redo", show=False),
+    ]
+
+    DEFAULT_CSS = """
+    TableEditor {
+        & #editor-title { background: $boost; color: $text-primary; text-style: bold;
+                          padding: 0 1; }
+        & #table-form { width: 50%; min-width: 40; border-right: vkey $panel; }
+        & #table-results { width: 1fr; padding: 0 1; }
+        & .group-title { margin-top: 1; background: $boost; color: $text-primary;
+                         text-style: bold; padding: 0 1; }
+        & .form-row { height: 1; }
+        & .form-label { width: 22; padding: 0 1; color: $text-muted; }
+        & .form-row Input, & .form-row Select { width: 1fr; }
+        & .form-hint { color: $text-muted; padding: 0 1 0 23; }
+    }
+    """
+
+    revision: var[int] = var(-1)
+
+    def __init__(self, document: Document, index: int) -> None:
+        super().__init__()
+        self.document = document
+        self.index = index
+
+    # ---- the form -----------------------------------------------------------------------
+    @property
+    def table(self) -> dict[str, Any]:
+        """The table as typed now."""
+        return self.document.tables(self.TABLES)[self.index]
+
+    def compose(self) -> ComposeResult:
+        """The title, the form and the results side by side."""
+        yield Static(id="editor-title")
+        with Horizontal():
+            yield TableForm(self, id="table-form")
+            with VerticalScroll(id="table-results"):
+                yield Static(id="results-text")
+        yield Footer()
+
+    def form_widgets(self) -> ComposeResult:
+        table = self.table
+        yield Static(self.TITLE_WORD.capitalize(), classes="group-title")
+        yield from self._rows_of(self.HEAD, (), table)
+        yield from self.extra_groups(table)
+        for rows in self.ROWS:
+            for number, row in enumerate(table.get(rows.key, [])):
+                title = f"{rows.title} {number + 1}: {row.get('name', row.get('case', ''))}"
+                yield Static(title, classes="group-title")
+                yield from self._rows_of(self.row_fields(rows, row), (rows.key, number), row)
+
+    def extra_groups(self, table: dict[str, Any]) -> ComposeResult:
+        """More groups after the table's own fields (a shaft's case inputs)."""
+        yield from ()
+
+    def row_fields(self, rows: Rows, row: dict[str, str]) -> tuple[Field, ...]:
+        """The fields a row shows (a gear shows what its kind needs)."""
+        return rows.fields
+
+    def _rows_of(self, fields: Sequence[Field], where: tuple[str | int, ...],
+                 values: dict[str, Any]) -> ComposeResult:
+        for field in fields:
+            with Horizontal(classes="form-row"):
+                yield Label(field.label, classes="form-label")
+                yield self._control(field, where, str(values.get(field.key, "")))
+            if field.hint:
+                yield Static(field.hint, classes="form-hint")
+
+    def _options(self, choices: Choices) -> list[str]:
+        if choices == "bearings":
+            return [b.name for b in self.document.session.bearings]
+        if choices == "cases":
+            return [r.case.name for r in self.document.results]
+        return [c for c in choices or () if c]
+
+    def _control(self, field: Field, where: tuple[str | int, ...], value: str) -> Widget:
+        widget_id = control_id(where, field.key)
+        if field.choices is None:
+            return Input(value, id=widget_id, compact=True, tooltip=field.hint or None)
+        options = self._options(field.choices)
+        if value and value not in options:
+            options.append(value)
+        blank = isinstance(field.choices, str) or "" in field.choices
+        return ChoiceBox([(o, o) for o in options], value=value if value else Select.NULL,
+                         allow_blank=blank or not value, compact=True, id=widget_id,
+                         prompt="(blank)")
+
+    async def _rebuild(self, focus: str | None = None) -> None:
+        """Build the form again (a row added or removed, a gear's kind changed)."""
+        await self.query_one(TableForm).recompose()
+        if focus is not None:
+            found = self.query(f"#{focus}")
+            if found:
+                found.first().focus()
+
+    # ---- editing ------------------------------------------------------------------------
+    def on_mount(self) -> None:
+        """Show the results, the focus on the first field."""
+        self._show()
+        first = self.query(Input)
+        if first:
+            first.first().focus()
+
+    def _edited(self, widget_id: str, text: str) -> None:
+        where, key = parse_control_id(widget_id)
+        self.document.set_table_text(self.TABLES, self.index, where, key, text)
+        self._show()
+
+    @on(Input.Changed)
+    def _typed(self, event: Input.Changed) -> None:
+        if event.input.id and event.input.id.startswith("t" + SEP):
+            self._edited(event.input.id, event.value)
+
+    @on(Input.Blurred)
+    @on(Input.Submitted)
+    def _typing_done(self) -> None:
+        self.document.end_run()
+
+    @on(Select.Changed)
+    async def _chosen(self, event: Select.Changed) -> None:
+        widget_id = event.select.id or ""
+        if not widget_id.startswith("t" + SEP):
+            return
+        value = "" if event.value is Select.NULL else str(event.value)
+        where, key = parse_control_id(widget_id)
+        current = self.table
+        for step in where:
+            current = current.get(step, {}) if isinstance(step, str) else current[step]
+        if str(current.get(key, "")) == value:
+            return
+        self._edited(widget_id, value)
+        self.document.end_run()
+        if self.rebuilds_on(key):
+            await self._rebuild(focus=widget_id)
+
+    def rebuilds_on(self, key: str) -> bool:
+        """Whether choosing a new ``key`` changes which fields show."""
+        return False
+
+    async def add_row(self, rows: Rows) -> None:
+        """Add a row to ``rows`` and put the focus on its first field."""
+        number = self.document.add_row(self.TABLES, self.index, rows.key, dict(rows.new))
+        await self._rebuild(focus=control_id((rows.key, number), rows.fields[0].key))
+        self._show()
+
+    async def action_delete_row(self) -> None:
+        """Delete the row (gear, state) the focus is in."""
+        focused = self.focused
+        if focused is None or not (focused.id or "").startswith("t" + SEP):
+            return
+        where, _ = parse_control_id(focused.id or "")
+        if len(where) != 2 or not isinstance(where[1], int):
+            self.notify("Put the focus in a row to delete it", severity="warning")
+            return
+        self.document.delete_row(self.TABLES, self.index, str(where[0]), where[1])
+        await self._rebuild()
+        self._show()
+
+    async def action_undo(self) -> None:
+        """Undo the last change (the form shows the table as it is then)."""
+        if self.document.undo() is not None and self.index < len(self.document.tables(self.TABLES)):
+            await self._rebuild()
+            self._show()
+
+    async def action_redo(self) -> None:
+        """Redo what was undone."""
+        if self.document.redo() is not None and self.index < len(self.document.tables(self.TABLES)):
+            await self._rebuild()
+            self._show()
+
+    def action_close(self) -> None:
+        """Back to the main screen."""
+        if self.app.screen is self:
+            self.document.end_run()
+            self.dismiss(None)
+
+    # ---- results ------------------------------------------------------------------------
+    def _show(self) -> None:
+        self.query_one("#editor-title", Static).update(
+            f"{self.TITLE_WORD.capitalize()}: {self.table.get('name', '')}   "
+            f"(results follow as you type; esc goes back)")
+        self.query_one("#results-text", Static).update(Content("\n").join(self.results()))
+
+    def results(self) -> list[Content]:
+        """What the analysis makes of the table now, line by line."""
+        raise NotImplementedError
