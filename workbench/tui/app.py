@@ -39,8 +39,9 @@ class WorkbenchApp(App[int]):
     def __init__(self, session: Session | None = None, path: Path | None = None, *,
                  offer_recovery: bool = True,
                  autosave_delay: float | None = AUTOSAVE_DELAY_S,
-                 theme_folder: Path | None = None) -> None:
+                 theme_folder: Path | None = None, greeting: str = "") -> None:
         super().__init__()
+        self._greeting = greeting
         self.document = Document(session if session is not None else Session(), path)
         self._offer_recovery = offer_recovery
         self._autosave_delay = autosave_delay
@@ -76,6 +77,8 @@ class WorkbenchApp(App[int]):
         if self._keymap_problems:
             self.notify("\n".join(self._keymap_problems), title=settings.KEYS_FILE,
                         severity="warning", timeout=12)
+        if self._greeting:
+            self.notify(self._greeting, timeout=10)
         if self._offer_recovery:
             self._ask_about_recovery()
 
@@ -189,11 +192,15 @@ def run_app(path: str | None) -> int:
     else:
         file_path = Path(path)
         if not file_path.exists():
-            outcome = files.FileOutcome(session=Session(title=file_path.stem), path=file_path)
+            outcome = files.FileOutcome(session=Session(title=file_path.stem), path=file_path,
+                                        messages=[f"New session {file_path.name}: no file there "
+                                                  "yet; ctrl+s writes it. Add a case with "
+                                                  "ctrl+n, the targets with alt+i."])
         else:
             outcome = files.open_session(file_path)
     if outcome.session is None:
         print(f"workbench: {outcome.error}", file=sys.stderr)
         return 2
-    result = WorkbenchApp(outcome.session, file_path).run()
+    app = WorkbenchApp(outcome.session, file_path, greeting=" ".join(outcome.messages))
+    result = app.run()
     return result if isinstance(result, int) else 0

@@ -541,13 +541,19 @@ class WorkbenchScreen(Screen[None]):
         self.save_as()
 
     def action_open(self) -> None:
-        """Open another session file (asking first when there is unsaved work)."""
-        from .dialogs import ChoiceDialog, TextPrompt
+        """Open another session file, or start a new one (asking first when there is unsaved
+        work)."""
+        from .dialogs import ChoiceDialog
+        from .open_dialog import Opened, OpenDialog
 
-        def chosen(text: str | None) -> None:
-            if not text:
+        def chosen(opened: Opened | None) -> None:
+            if opened is None:
                 return
-            outcome = files.open_session(Path(text).expanduser())
+            if opened.new:
+                self.open_session(Session(title=opened.path.stem), opened.path)
+                self.notify(f"New session {opened.path.name}: ctrl+s writes it")
+                return
+            outcome = files.open_session(opened.path)
             if outcome.session is None:
                 self.notify(outcome.error or "not opened", title="Not opened", severity="error")
                 return
@@ -555,9 +561,8 @@ class WorkbenchScreen(Screen[None]):
 
         def ask_path(answer: str | None = "discard") -> None:
             if answer == "discard":
-                self.app.push_screen(TextPrompt("Open session file", "",
-                                                lambda t: None if t.strip() else "a file name is needed"),
-                                     chosen)
+                folder = str(self.document.path.parent) + "/" if self.document.path else ""
+                self.app.push_screen(OpenDialog(folder), chosen)
 
         if self.document.dirty:
             self.app.push_screen(ChoiceDialog(
