@@ -113,18 +113,19 @@ class KeyFooter(Widget, can_focus=False):
                 groups.extend(KeyGroupShown((key,), key.description) for key in shown)
         return tuple(groups), palette
 
-    def _pieces(self) -> Iterator[tuple[str, str | None, str]]:
-        """(text, key pressed by clicking it or None, component) in drawing order."""
+    def _pieces(self) -> Iterator[tuple[str, str | None, str, int]]:
+        """(text, key pressed by clicking it or None, component, group index) in drawing
+        order."""
         for index, group in enumerate(self._groups):
             if index:
-                yield "  ", None, ""
+                yield "  ", None, "", index
             for position, key in enumerate(group.keys):
                 if position:
-                    yield " ", None, ""
+                    yield " ", None, "", index
                 yield key.display, key.key if key.enabled else None, \
-                    "key" if key.enabled else "dim-key"
+                    "key" if key.enabled else "dim-key", index
             yield " " + group.description, group.keys[0].key if len(group.keys) == 1 else None, \
-                "description"
+                "description", index
 
     def _styles(self) -> dict[str, Style]:
         key = self.get_visual_style("key-footer--key")
@@ -132,7 +133,7 @@ class KeyFooter(Widget, can_focus=False):
         return {"key": key, "dim-key": key + Style(dim=True), "description": words, "": Style()}
 
     def render(self) -> Content:
-        """The keys from the scroll offset on, cut to the width, the palette key at the end."""
+        """The keys from the scroll offset on that fit whole, the palette key at the end."""
         styles = self._styles()
         width = self.size.width
         palette = Content()
@@ -143,9 +144,16 @@ class KeyFooter(Widget, can_focus=False):
         parts: list[tuple[str, Style]] = []
         self._hits = []
         x = -self.scroll_offset_x
-        for text, key, component in self._pieces():
+        ends: dict[int, int] = {}
+        for text, _, _, group in self._pieces():
+            x += len(text)
+            ends[group] = x
+        x = -self.scroll_offset_x
+        for text, key, component, group in self._pieces():
             start, x = x, x + len(text)
-            if x <= 0 or start >= room:
+            if ends[group] > room:
+                break  # a key is shown whole or not at all
+            if x <= 0:
                 continue
             visible = text[max(0, -start):max(0, room - start)]
             parts.append((visible, styles[component]))
@@ -161,7 +169,7 @@ class KeyFooter(Widget, can_focus=False):
     @property
     def text(self) -> str:
         """The whole key list as plain text (not cut to the width)."""
-        return "".join(text for text, _, _ in self._pieces())
+        return "".join(piece[0] for piece in self._pieces())
 
     def on_click(self, event: events.Click) -> None:
         """Press the key under the pointer."""

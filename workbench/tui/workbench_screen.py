@@ -123,7 +123,7 @@ class WorkbenchScreen(Screen[None]):
         where = document.path.name if document.path else "not saved yet"
         mark = "● " if document.dirty else ""
         sub_title = f"{mark}{where} · {document.units}"
-        room = self.app.size.width - len(sub_title) - 22  # the icon, the dash and margins
+        room = self.app.size.width - len(sub_title) - 26  # the icon, the dash and margins
         self.app.sub_title = sub_title
         self.app.title = fit_words(document.session.title or APP_NAME, max(room, 8))
 
