@@ -8,6 +8,7 @@ files and the case editor all go through :func:`parse_field`, so "2 kN" means on
 from __future__ import annotations
 
 import math
+from functools import lru_cache
 from typing import Mapping, NamedTuple
 
 from ..engine import tables as T
@@ -16,6 +17,7 @@ from ..engine.kinds import ARRANGEMENTS, Kind
 from .quantities import QuantityError, parse
 
 MAX_TEXT = 200
+PARSED_TEXTS_KEPT = 8192
 
 
 class FieldSpec(NamedTuple):
@@ -121,8 +123,27 @@ def _plain_number(spec: FieldSpec, text: str) -> float:
 def parse_field(name: str, text: str) -> object:
     """The engine value of one typed field; ``None`` for a blank optional one.
 
-    The cleanliness field returns either a level name or a float (an eC value).
+    The cleanliness field returns either a level name or a float (an eC value).  Raises
+    FieldError.  A text is read once: the answer (value or message) is kept for the next time
+    the same text of the same field is read, as it is for every case on one bearing.
     """
+    value, message = _read_field(name, text)
+    if message is not None:
+        raise FieldError(name, message)
+    return value
+
+
+@lru_cache(maxsize=PARSED_TEXTS_KEPT)
+def _read_field(name: str, text: str) -> tuple[object, str | None]:
+    """(value, None) or (None, message) for one typed field (see :func:`parse_field`)."""
+    try:
+        return _parse_field(name, text), None
+    except FieldError as exc:
+        return None, exc.message
+
+
+def _parse_field(name: str, text: str) -> object:
+    """The reading itself, for :func:`parse_field`."""
     spec = FIELD_BY_NAME[name]
     if len(text) > MAX_TEXT:
         raise FieldError(name, f"too long ({len(text)} characters)")
