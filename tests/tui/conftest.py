@@ -13,9 +13,9 @@ sys.path.insert(0, str(Path(__file__).parent))  # tui_sessions and tui_helpers b
 
 from tui_sessions import rig_session  # noqa: E402
 
-from workbench.tui import files  # noqa: E402
+from workbench.model import files  # noqa: E402
+from workbench.model.settings import CONFIG_DIR_VARIABLE  # noqa: E402
 from workbench.tui.app import WorkbenchApp  # noqa: E402
-from workbench.tui.settings import CONFIG_DIR_VARIABLE  # noqa: E402
 
 
 @pytest.fixture(autouse=True)

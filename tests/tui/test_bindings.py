@@ -9,7 +9,7 @@ from textual import events
 from textual._xterm_parser import XTermParser
 from textual.widgets import ContentSwitcher, Input
 
-from tui_helpers import editor, retype, text_box
+from tui_helpers import editor, retype, selected, text_box
 
 from workbench.tui.about_screen import AboutScreen
 from workbench.tui.actions import ACTIONS, check_keymap
@@ -54,7 +54,7 @@ async def check_save(pilot, app: WorkbenchApp, calls) -> None:
     assert isinstance(app.screen, TextPrompt)
     await pilot.press("enter")
     await pilot.pause()
-    assert any(call[0] == "save" for call in calls) and not app.workbench.dirty
+    assert any(call[0] == "save" for call in calls) and not app.document.dirty
 
 
 async def check_save_as(pilot, app: WorkbenchApp, calls) -> None:
@@ -63,7 +63,7 @@ async def check_save_as(pilot, app: WorkbenchApp, calls) -> None:
     app.screen.query_one(Input).value = "elsewhere.toml"
     await pilot.press("enter")
     await pilot.pause()
-    assert ("save", app.workbench.path) in calls and app.workbench.path.name == "elsewhere.toml"
+    assert ("save", app.document.path) in calls and app.document.path.name == "elsewhere.toml"
 
 
 async def check_open(pilot, app: WorkbenchApp, calls) -> None:
@@ -79,19 +79,19 @@ async def check_undo_redo(pilot, app: WorkbenchApp) -> None:
     await retype(pilot, app, "fr", "4 kN")
     await pilot.press("f3")
     await press(pilot, "edit.undo")
-    assert app.workbench.session.cases[0].texts["fr"] == "3 kN"
+    assert app.document.session.cases[0].texts["fr"] == "3 kN"
     await press(pilot, "edit.redo")
-    assert app.workbench.session.cases[0].texts["fr"] == "4 kN"
+    assert app.document.session.cases[0].texts["fr"] == "4 kN"
 
 
 async def check_add(pilot, app: WorkbenchApp) -> None:
     await press(pilot, "case.add")
-    assert len(app.workbench.session.cases) == 4 and app.workbench.selected == 1
+    assert len(app.document.session.cases) == 4 and selected(app) == 1
 
 
 async def check_duplicate(pilot, app: WorkbenchApp) -> None:
     await press(pilot, "case.duplicate")
-    cases = app.workbench.session.cases
+    cases = app.document.session.cases
     assert cases[1].name == "Steady run copy" and cases[1].texts == cases[0].texts
 
 
@@ -105,34 +105,34 @@ async def check_rename(pilot, app: WorkbenchApp) -> None:
     app.screen.query_one(Input).value = "Cruise"
     await pilot.press("enter")
     await pilot.pause()
-    assert app.workbench.session.cases[0].name == "Cruise"
+    assert app.document.session.cases[0].name == "Cruise"
 
 
 async def check_delete(pilot, app: WorkbenchApp) -> None:
     await press(pilot, "case.delete")
-    assert [c.name for c in app.workbench.session.cases] == ["Peak torque", "Idler end"]
+    assert [c.name for c in app.document.session.cases] == ["Peak torque", "Idler end"]
     await press(pilot, "edit.undo")
-    assert app.workbench.session.cases[0].name == "Steady run"
+    assert app.document.session.cases[0].name == "Steady run"
 
 
 async def check_move(pilot, app: WorkbenchApp) -> None:
     await press(pilot, "case.move_down")
-    assert app.workbench.session.cases[1].name == "Steady run" and app.workbench.selected == 1
+    assert app.document.session.cases[1].name == "Steady run" and selected(app) == 1
     await press(pilot, "case.move_up")
-    assert app.workbench.session.cases[0].name == "Steady run"
+    assert app.document.session.cases[0].name == "Steady run"
 
 
 def _nudge_check(action_id: str, expected: str) -> Check:
     async def check(pilot, app: WorkbenchApp) -> None:
         await text_box(pilot, app, "fa")
         await press(pilot, action_id)
-        assert app.workbench.session.cases[0].texts["fa"] == expected
+        assert app.document.session.cases[0].texts["fa"] == expected
     return check
 
 
 async def check_solve(pilot, app: WorkbenchApp) -> None:
     await press(pilot, "solver.solve")
-    assert app.workbench.solved is not None
+    assert app.document.solved is not None
     assert app.workbench_screen.query_one(PaneTabs).active == "solver"
     assert app.workbench_screen.query_one(ContentSwitcher).current == "pane-solver"
 
@@ -140,12 +140,12 @@ async def check_solve(pilot, app: WorkbenchApp) -> None:
 async def check_apply(pilot, app: WorkbenchApp) -> None:
     await press(pilot, "solver.solve")
     await press(pilot, "solver.apply")
-    assert app.workbench.session.bearing("Drive").texts["c"] != "30 kN"
+    assert app.document.session.bearing("Drive").texts["c"] != "30 kN"
 
 
 async def check_units(pilot, app: WorkbenchApp) -> None:
     await press(pilot, "view.units")
-    assert app.workbench.session.units == "US"
+    assert app.document.session.units == "US"
 
 
 def _pane_check(action_id: str, pane: str) -> Check:
@@ -191,7 +191,7 @@ async def check_quit(pilot, app: WorkbenchApp) -> None:
     await pilot.press("escape")
     await pilot.pause()
     assert app.is_running
-    app.workbench.dirty = False
+    app.document.dirty = False
     await press(pilot, "app.quit")
     assert app.return_value == 0
 
@@ -271,7 +271,7 @@ async def test_palette_offers_every_action(make_app) -> None:
         await pilot.press(*"Add case", "enter")
         await pilot.pause()
         await pilot.pause()
-        assert len(app.workbench.session.cases) == 4
+        assert len(app.document.session.cases) == 4
 
 
 async def test_footer_click_presses_the_key_under_it(make_app) -> None:
@@ -282,7 +282,7 @@ async def test_footer_click_presses_the_key_under_it(make_app) -> None:
         column = footer.text.index("Add case")
         await pilot.click(KeyFooter, offset=(column, 0))
         await pilot.pause()
-        assert len(app.workbench.session.cases) == 4
+        assert len(app.document.session.cases) == 4
 
 
 async def test_footer_wheel_brings_the_cut_off_keys_into_view(make_app) -> None:
@@ -317,10 +317,10 @@ async def test_key_table_moves_an_action_to_the_persons_key(make_app, private_co
         await pilot.pause()
         await pilot.press("ctrl+k")
         await pilot.pause()
-        assert len(app.workbench.session.cases) == 4
+        assert len(app.document.session.cases) == 4
         await pilot.press("ctrl+n")  # the old key no longer adds a case
         await pilot.pause()
-        assert len(app.workbench.session.cases) == 4
+        assert len(app.document.session.cases) == 4
         assert "^k Add case" in app.screen.query_one(KeyFooter).text
         assert any("'no.such' is not an action" in note.message
                    for note in app._notifications)
@@ -339,7 +339,7 @@ async def test_unreadable_key_table_is_reported_and_the_keys_stay(make_app, priv
         assert any("keys.toml not used" in note.message for note in app._notifications)
         await pilot.press("ctrl+n")
         await pilot.pause()
-        assert len(app.workbench.session.cases) == 4
+        assert len(app.document.session.cases) == 4
 
 
 @pytest.mark.parametrize(("action_id", "sequence"), [

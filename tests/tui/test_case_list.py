@@ -3,7 +3,7 @@ engine's figures) and the title line above it."""
 
 from __future__ import annotations
 
-from tui_helpers import retype
+from tui_helpers import retype, selected, selected_case
 
 from workbench.engine.record import fmt
 from workbench.model.quantities import format_quantity
@@ -19,20 +19,20 @@ async def test_keys_move_the_cursor_and_choose_the_case(make_app) -> None:
     app = make_app(cases=5)
     async with app.run_test(size=(80, 24)) as pilot:
         await pilot.pause()
-        assert _list(app).has_focus and app.workbench.selected == 0
+        assert _list(app).has_focus and selected(app) == 0
         await pilot.press("up")  # already at the top: stays
         await pilot.pause()
-        assert app.workbench.selected == 0
+        assert selected(app) == 0
         await pilot.press("down", "down")
         await pilot.pause()
-        assert _list(app).cursor == 2 and app.workbench.selected == 2
-        assert app.workbench.case is app.workbench.session.cases[2]
+        assert _list(app).cursor == 2 and selected(app) == 2
+        assert selected_case(app) is app.document.session.cases[2]
         await pilot.press("end")
         await pilot.pause()
-        assert app.workbench.selected == 4
+        assert selected(app) == 4
         await pilot.press("home")
         await pilot.pause()
-        assert app.workbench.selected == 0
+        assert selected(app) == 0
 
 
 async def test_a_click_on_a_row_chooses_its_case(make_app) -> None:
@@ -41,11 +41,11 @@ async def test_a_click_on_a_row_chooses_its_case(make_app) -> None:
         await pilot.pause()
         await pilot.click(CaseList, offset=(3, 1 + 3))  # the heading, then rows 0, 1, 2, 3
         await pilot.pause()
-        assert app.workbench.selected == 3
+        assert selected(app) == 3
         await pilot.click(CaseList, offset=(3, 0))  # the heading: nothing
         await pilot.click(CaseList, offset=(3, 1 + 7))  # below the last row: nothing
         await pilot.pause()
-        assert app.workbench.selected == 3
+        assert selected(app) == 3
 
 
 async def test_the_cursor_stays_in_view_in_a_long_list(make_app) -> None:
@@ -57,14 +57,14 @@ async def test_the_cursor_stays_in_view_in_a_long_list(make_app) -> None:
         assert shown < 40
         await pilot.press("end")
         await pilot.pause()
-        assert app.workbench.selected == 39
+        assert selected(app) == 39
         top = cases.scroll_offset.y
         assert top <= 39 < top + shown
         assert cases.row_texts(39)[0] == "Sweep 40"
         await pilot.press("pageup")
         await pilot.pause()
         top = cases.scroll_offset.y
-        assert app.workbench.selected < 39 and top <= cases.cursor < top + shown
+        assert selected(app) < 39 and top <= cases.cursor < top + shown
 
 
 async def test_rows_show_the_derived_figures(make_app) -> None:
@@ -86,7 +86,7 @@ async def test_rows_show_the_derived_figures(make_app) -> None:
 
 async def test_title_line_keeps_the_save_state_in_view_when_the_title_is_long(make_app) -> None:
     app = make_app()
-    app.workbench.session.title = "A very long session title " * 4
+    app.document.session.title = "A very long session title " * 4
     async with app.run_test(size=(80, 24)) as pilot:
         await pilot.pause()
         line = app.workbench_screen.query_one(TitleBar).render().plain

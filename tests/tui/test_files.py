@@ -19,12 +19,12 @@ async def test_save_shows_the_writers_messages(make_app, no_disk, tmp_path: Path
     app = make_app(path=tmp_path / "rig.toml")
     async with app.run_test(size=(80, 24)) as pilot:
         await retype(pilot, app, "fr", "4 kN")
-        assert app.workbench.dirty and "●" in app.sub_title
+        assert app.document.dirty and "●" in app.sub_title
         await pilot.press("ctrl+s")
         await pilot.pause()
         assert ("save", tmp_path / "rig.toml") in no_disk
         assert ("discard", tmp_path / "rig.toml") in no_disk  # the recovery copy goes
-        assert not app.workbench.dirty and "●" not in app.sub_title
+        assert not app.document.dirty and "●" not in app.sub_title
         assert any("wrote rig.toml" in n.message for n in app._notifications)
 
 
@@ -35,7 +35,7 @@ async def test_save_error_is_a_notice(make_app, monkeypatch, tmp_path: Path) -> 
         await retype(pilot, app, "fr", "4 kN")
         await pilot.press("ctrl+s")
         await pilot.pause()
-        assert app.workbench.dirty
+        assert app.document.dirty
         assert any("disk full" in n.message for n in app._notifications)
 
 
@@ -77,8 +77,8 @@ async def test_recovery_is_offered_and_taken(monkeypatch, tmp_path: Path) -> Non
         assert isinstance(app.screen, ChoiceDialog)
         app.screen.query_one("#answer-recover").press()
         await pilot.pause()
-        assert app.workbench.session.cases[0].texts["fr"] == "7 kN"
-        assert app.workbench.dirty and app.workbench.path == tmp_path / "rig.toml"
+        assert app.document.session.cases[0].texts["fr"] == "7 kN"
+        assert app.document.dirty and app.document.path == tmp_path / "rig.toml"
 
 
 def test_missing_session_module_is_a_message_not_a_crash(monkeypatch, tmp_path) -> None:

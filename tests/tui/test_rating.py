@@ -7,6 +7,7 @@ from textual.widgets import Input
 
 from workbench.tui.rating_screen import RatingScreen
 from workbench.tui.selection_screen import SelectionScreen
+from tui_helpers import selected_result
 
 
 async def _open_rating(pilot, app) -> RatingScreen:
@@ -46,13 +47,13 @@ async def test_rated_bearing_is_adopted_and_undone(make_app) -> None:
         await pilot.press("f10")
         await pilot.pause()
         assert not isinstance(app.screen, (RatingScreen, SelectionScreen))
-        drive = app.workbench.session.bearing("Drive")
+        drive = app.document.session.bearing("Drive")
         assert drive.texts["c"] == "32.69 kN" and drive.texts["dm"] == "65 mm"
-        result = app.workbench.result
+        result = selected_result(app)
         assert result is not None and result.inputs.c == pytest.approx(c_formula, rel=5e-4)
         await pilot.press("ctrl+z")
         await pilot.pause()
-        assert app.workbench.session.bearing("Drive").texts["c"] == "30 kN"
+        assert app.document.session.bearing("Drive").texts["c"] == "30 kN"
 
 
 async def test_unratable_inputs_say_why_and_adopt_nothing(make_app) -> None:
@@ -70,4 +71,4 @@ async def test_unratable_inputs_say_why_and_adopt_nothing(make_app) -> None:
         await pilot.press("escape")
         await pilot.pause()
         assert isinstance(app.screen, SelectionScreen)
-        assert app.workbench.session.bearing("Drive").texts["c"] == "30 kN"
+        assert app.document.session.bearing("Drive").texts["c"] == "30 kN"

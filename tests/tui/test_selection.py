@@ -9,10 +9,11 @@ from workbench.engine.select import select
 from workbench.model.catalog import demo_catalog_path, load_catalog
 from workbench.tui.app import WorkbenchApp
 from workbench.tui.selection_screen import SelectionScreen
+from tui_helpers import selected_result
 
 
 def drive_inputs(app: WorkbenchApp) -> list:
-    return [r.inputs for r in app.workbench.results if r.case.bearing == "Drive"]
+    return [r.inputs for r in app.document.results if r.case.bearing == "Drive"]
 
 
 async def test_first_candidate_is_selects_first_and_adopting_sets_c(make_app) -> None:
@@ -36,20 +37,20 @@ async def test_first_candidate_is_selects_first_and_adopting_sets_c(make_app) ->
         await pilot.pause()
         assert not isinstance(app.screen, SelectionScreen)
         c_catalog = float(catalog.c_n[expected[0].index])
-        result = app.workbench.result
+        result = selected_result(app)
         assert result is not None and result.derivation is not None
         assert result.inputs.c == pytest.approx(c_catalog)
         # ISO 281:2007 §7.1 closed form: L10 = (C/P)^p, p = 10/3 for a roller bearing, 3 for a ball
         p = 10 / 3 if catalog.kind[expected[0].index] != "deep-groove" else 3.0
         assert result.derivation.results["L10"] == pytest.approx(
             (c_catalog / result.derivation.results["P"]) ** p)
-        assert f"{c_catalog / 1000:g} kN" == app.workbench.session.bearing("Drive").texts["c"]
+        assert f"{c_catalog / 1000:g} kN" == app.document.session.bearing("Drive").texts["c"]
 
         await pilot.press("ctrl+z")
         await pilot.pause()
-        again = app.workbench.result
+        again = selected_result(app)
         assert again is not None and again.inputs.c == 30000.0  # the rig's Drive: "30 kN"
-        assert app.workbench.session.bearing("Drive").texts["c"] == "30 kN"
+        assert app.document.session.bearing("Drive").texts["c"] == "30 kN"
 
 
 async def test_a_catalog_path_that_cannot_be_read_is_reported(make_app, tmp_path) -> None:
@@ -70,12 +71,12 @@ async def test_a_catalog_path_that_cannot_be_read_is_reported(make_app, tmp_path
         assert screen.query_one("#candidates", DataTable).row_count == 0
         await pilot.press("escape")
         await pilot.pause()
-        assert not isinstance(app.screen, SelectionScreen) and not app.workbench.dirty
+        assert not isinstance(app.screen, SelectionScreen) and not app.document.dirty
 
 
 async def test_no_life_target_is_reported(make_app) -> None:
     app = make_app()
-    app.workbench.session.targets.life = ""
+    app.document.session.targets.life = ""
     app.workbench.reevaluate()
     async with app.run_test(size=(80, 24)) as pilot:
         await pilot.pause()

@@ -5,7 +5,7 @@ from __future__ import annotations
 import pytest
 from textual.widgets import Input
 
-from tui_helpers import reference_derivation
+from tui_helpers import reference_derivation, selected_result
 
 from workbench.engine.solve import solve
 from workbench.model.fields import inputs_from_texts
@@ -30,13 +30,13 @@ async def test_solver_round_trip_writes_c_and_meets_the_target(make_app) -> None
     app = make_app()
     async with app.run_test(size=(80, 24)) as pilot:
         await _ask(pilot, app, "c", "Lnm", "20000 h")
-        solved = app.workbench.solved
+        solved = app.document.solved
         assert solved is not None
         solution = solved.solution
         shown = app.workbench_screen.query_one("#solver").text.plain
         assert "evaluations" in shown and "bracket" in shown and "Fa/Fr > e" in shown
         # The same question asked of the engine directly gives the same C.
-        session = app.workbench.session
+        session = app.document.session
         direct = solve(inputs_from_texts({**case_texts(session, session.cases[0]),
                                           "s0_min": "2"}), "c", "Lnm", 20000.0)
         assert solution.value == pytest.approx(direct.value, rel=1e-9)
@@ -44,13 +44,13 @@ async def test_solver_round_trip_writes_c_and_meets_the_target(make_app) -> None
         await pilot.pause()
         bearing_c = session.bearing("Drive").texts["c"]
         assert bearing_c.endswith(" kN")  # the unit typed, kept
-        lnm = app.workbench.result.derivation.results["Lnm"]
+        lnm = selected_result(app).derivation.results["Lnm"]
         # Seven significant figures written back: the target is met to about 1e-6.
         assert lnm == pytest.approx(20000.0, rel=1e-5)
         assert reference_derivation(app).results["Lnm"] == pytest.approx(lnm)
         await pilot.press("ctrl+z")
         await pilot.pause()
-        assert app.workbench.session.bearing("Drive").texts["c"] == "30 kN"
+        assert app.document.session.bearing("Drive").texts["c"] == "30 kN"
 
 
 async def test_solver_load_scale_keeps_both_units(make_app) -> None:
@@ -59,10 +59,10 @@ async def test_solver_load_scale_keeps_both_units(make_app) -> None:
         await _ask(pilot, app, "load_scale", "s0", "4")
         await pilot.press("f10")
         await pilot.pause()
-        texts = app.workbench.session.cases[0].texts
+        texts = app.document.session.cases[0].texts
         assert texts["fr"].endswith(" kN") and texts["fa"].endswith(" kN")
         # ISO 76:2006 §9: s0 = C0/P0; here P0 = Fr (the P0 = Fr rule), so Fr = 16 kN / 4.
-        assert app.workbench.result.derivation.results["s0"] == pytest.approx(4.0, rel=1e-6)
+        assert selected_result(app).derivation.results["s0"] == pytest.approx(4.0, rel=1e-6)
 
 
 async def test_no_solution_shows_the_reachable_range(make_app) -> None:
@@ -73,7 +73,7 @@ async def test_no_solution_shows_the_reachable_range(make_app) -> None:
         assert "✘" in shown and "reachable Lnm" in shown
         await pilot.press("f10")
         await pilot.pause()
-        assert app.workbench.session.cases[0].texts.get("reliability") is None
+        assert app.document.session.cases[0].texts.get("reliability") is None
 
 
 async def test_unreadable_target_is_reported_not_raised(make_app) -> None:

@@ -4,7 +4,7 @@ from __future__ import annotations
 
 import pytest
 
-from tui_helpers import retype
+from tui_helpers import retype, selected_case, selected_result
 
 from workbench.engine.sensitivity import sensitivity_of
 from workbench.model.analysis import analyse
@@ -28,7 +28,7 @@ async def test_elasticities_are_the_engines_and_follow_typed_fr(make_app) -> Non
         await pilot.press("f11")
         await pilot.pause()
         shown = pane(app).items
-        result = app.workbench.result
+        result = selected_result(app)
         assert result is not None and result.inputs is not None
         assert elasticities(shown) == elasticities(sensitivity_of(result.inputs))
         # ISO 281:2007 §7.1: L10 = (C/P)^p with p = 3 for ball bearings, so ε(C) = 3 exactly.
@@ -38,9 +38,9 @@ async def test_elasticities_are_the_engines_and_follow_typed_fr(make_app) -> Non
 
         await retype(pilot, app, "fr", "4.5 kN")
         after = pane(app).items
-        assert app.workbench.session.cases[0].texts["fr"] == "4.5 kN"
+        assert app.document.session.cases[0].texts["fr"] == "4.5 kN"
         assert elasticities(after) != before
-        fresh = app.workbench.result
+        fresh = selected_result(app)
         assert fresh is not None and fresh.inputs is not None and fresh.inputs.fr == 4500.0
         assert elasticities(after) == elasticities(sensitivity_of(fresh.inputs))
 
@@ -53,7 +53,7 @@ async def test_a_case_that_cannot_be_derived_says_so(make_app) -> None:
         await pilot.pause()
         await pilot.press("down", "down")  # Idler end
         await pilot.pause()
-        app.workbench.session.cases[2].texts["fr"] = "-5 kN"  # refused by the engine
+        app.document.session.cases[2].texts["fr"] = "-5 kN"  # refused by the engine
         app.workbench.reevaluate()
         app.workbench_screen.redraw_all()
         await pilot.pause()
@@ -69,7 +69,7 @@ async def test_duty_block_shows_the_damage_shares_of_the_bearings_cycles() -> No
         await pilot.press("f11")
         await pilot.pause()
         text = pane(app).text
-        bearing = app.workbench.case.bearing
+        bearing = selected_case(app).bearing
         duties = [d for d in analyse(session).duties if d.result and d.result.bearing == bearing]
         assert duties
         for duty in duties:

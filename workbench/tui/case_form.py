@@ -298,6 +298,21 @@ class CaseForm(VerticalScroll):
             self._notes.pop(name, None)
         note.set_class(bool(message), "-shown")
 
+    def message_for(self, name: str) -> str | None:
+        """The message under field ``name`` (a refused text), or None."""
+        return self._notes.get(name)
+
+    def field_text(self, name: str) -> str:
+        """What field ``name`` shows: its typed text, the chosen option ("" for none), or
+        "yes"/"no" for a switch."""
+        control = self.query_one(f"#field-{name}")
+        if isinstance(control, Input):
+            return control.value
+        if isinstance(control, Checkbox):
+            return "yes" if control.value else "no"
+        assert isinstance(control, Select)
+        return "" if control.value is Select.NULL else str(control.value)
+
     def drop_notes(self) -> None:
         """Forget the refused texts: every field shows the value in force again."""
         for name in list(self._notes):

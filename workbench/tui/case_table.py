@@ -1,5 +1,7 @@
 """The load-case list: Textual's ``DataTable``, one row per case (own, then generated).
 
+Cells are given as plain ``Text``, so a name is shown as written, never read as markup.
+
 It follows :attr:`CaseTable.view` (bound to the screen's): on a new revision it rewrites only
 the cells that changed, and it keeps its cursor on the selected case.  Moving the cursor posts
 :class:`CaseTable.Chosen`.  The name column takes the room the other columns leave, so wide
@@ -11,6 +13,7 @@ from __future__ import annotations
 
 import math
 
+from rich.text import Text
 from textual.events import Resize
 from textual.message import Message
 from textual.reactive import var
@@ -60,7 +63,7 @@ def row_cells(result: CaseResult, system: str) -> tuple[str, ...]:
             life_text(values.get("Lnm", math.nan)), fmt(values["s0"], 3), checks_text(result))
 
 
-class CaseTable(DataTable[str]):
+class CaseTable(DataTable[Text]):
     """Every load case with its equivalent load, life, static safety and verdicts."""
 
     DEFAULT_CSS = """
@@ -123,17 +126,21 @@ class CaseTable(DataTable[str]):
             with self.prevent(DataTable.RowHighlighted):  # the cursor is put back below
                 self.clear()
                 for number, row in enumerate(rows):
-                    self.add_row(*row, key=str(number))
+                    self.add_row(*map(Text, row), key=str(number))
         else:
             keys = [column.key for column in self.ordered_columns]
             for number, (old, new) in enumerate(zip(self._rows, rows)):
                 for key, before, after in zip(keys, old, new):
                     if before != after:
-                        self.update_cell(str(number), key, after)
+                        self.update_cell(str(number), key, Text(after))
         self._rows = rows
         if rows and 0 <= view.selected < len(rows) and self.cursor_row != view.selected:
             with self.prevent(DataTable.RowHighlighted):
                 self.move_cursor(row=view.selected, animate=False)
+
+    def row_texts(self, index: int) -> tuple[str, ...]:
+        """The cells of row ``index`` as shown."""
+        return self._rows[index]
 
     def on_data_table_row_highlighted(self, event: DataTable.RowHighlighted) -> None:
         """Tell the screen the cursor moved to another case."""
