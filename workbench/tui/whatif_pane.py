@@ -6,7 +6,7 @@ ranked by |ε|, signs kept, the method named where a piece boundary makes the di
 one-sided), the life against a scale on Fr and Fa from
 :func:`~workbench.engine.curves.life_curve` (target life and e switch marked) and aISO against κ
 from :func:`~workbench.engine.curves.aiso_curve` (ISO 281:2007 §9.3.2), drawn by
-:func:`workbench.plot_text.plot_lines` in braille and plain marks so they read in monochrome.
+:func:`workbench.report.plot_text.plot_lines` in braille and plain marks so they read in monochrome.
 The Duty block shows each state's share of the Palmgren–Miner damage as a text bar, for the duty
 cycles on the selected case's bearing.  The screen hands the pane what to draw with :meth:`show`.
 """
@@ -27,8 +27,8 @@ from ..engine.sensitivity import SensitivityItem, sensitivity_of
 from ..model.analysis import DutyOutcome
 from ..model.quantities import format_quantity
 from ..model.session import CaseResult
-from ..plot_text import plot_lines
-from ..render import percent, signed
+from ..report.plot_text import plot_lines
+from ..report.contents import percent, signed
 
 PLOT_HEIGHT = 8
 PLOT_GUTTER = 10  # plot_lines puts the y labels and the axis in the first ten columns
