@@ -30,7 +30,9 @@ import math
 import numbers
 from typing import Literal, NamedTuple
 
-from .num import Num, is_array
+import numpy as np
+
+from .num import Num, cosd, extremes, sind, tand
 from .record import InputError
 
 #: Shaft-load factor f in F = f·Wt for belt and chain drives, with the usual spread [common
@@ -67,19 +69,13 @@ def checked(field_name: str, value: Num, *, low: float | None = None, high: floa
 
     Works on a float or on every element of a numpy array.
     """
-    if is_array(value):
-        import numpy as np
-
-        values = np.asarray(value, dtype=float)
-        if values.size == 0:
-            return value
-        finite = bool(np.all(np.isfinite(values)))
-        smallest, largest = float(values.min()), float(values.max())
-    else:
-        if not isinstance(value, numbers.Real) or isinstance(value, bool):
-            raise InputError(field_name, f"a number is needed, not {value!r}")
-        finite = math.isfinite(value)
-        smallest = largest = float(value)
+    if not isinstance(value, numbers.Real | np.ndarray) or isinstance(value, bool):
+        raise InputError(field_name, f"a number is needed, not {value!r}")
+    span = extremes(value)
+    if span is None:  # an empty array
+        return value
+    smallest, largest = span
+    finite = math.isfinite(smallest) and math.isfinite(largest)
     if not finite:
         raise InputError(field_name, "must be a finite number")
     if low is not None and (smallest < low or (low_open and smallest == low)):
@@ -87,30 +83,6 @@ def checked(field_name: str, value: Num, *, low: float | None = None, high: floa
     if high is not None and (largest > high or (high_open and largest == high)):
         raise InputError(field_name, f"must be {'<' if high_open else '≤'} {high:g}")
     return value
-
-
-def _tan_deg(angle_deg: Num) -> Num:
-    if is_array(angle_deg):
-        import numpy as np
-
-        return np.tan(np.radians(angle_deg))
-    return math.tan(math.radians(angle_deg))
-
-
-def _cos_deg(angle_deg: Num) -> Num:
-    if is_array(angle_deg):
-        import numpy as np
-
-        return np.cos(np.radians(angle_deg))
-    return math.cos(math.radians(angle_deg))
-
-
-def _sin_deg(angle_deg: Num) -> Num:
-    if is_array(angle_deg):
-        import numpy as np
-
-        return np.sin(np.radians(angle_deg))
-    return math.sin(math.radians(angle_deg))
 
 
 def tangential_load(torque_Nm: Num, diameter_mm: Num) -> Num:
@@ -131,7 +103,7 @@ def spur_forces(torque_Nm: Num, pitch_diameter_mm: Num, pressure_angle_deg: Num)
     """Spur gear: Wt = T/(d/2), Wr = Wt·tan φ, Wa = 0 (gear-force relations, spur gears)."""
     checked("pressure_angle", pressure_angle_deg, low=0.0, high=90.0, low_open=True, high_open=True)
     wt = tangential_load(torque_Nm, pitch_diameter_mm)
-    return MeshForces(wt, wt * _tan_deg(pressure_angle_deg), 0.0 * wt)
+    return MeshForces(wt, wt * tand(pressure_angle_deg), 0.0 * wt)
 
 
 def helical_forces(torque_Nm: Num, pitch_diameter_mm: Num, normal_pressure_angle_deg: Num,
@@ -151,8 +123,8 @@ def helical_forces(torque_Nm: Num, pitch_diameter_mm: Num, normal_pressure_angle
         raise InputError("rotation", f"rotation is +1 or −1 about +x, not {rotation!r}")
     wt = tangential_load(torque_Nm, pitch_diameter_mm)
     sign = (1 if hand == "right" else -1) * (1 if driving else -1) * rotation
-    radial = wt * _tan_deg(normal_pressure_angle_deg) / _cos_deg(helix_angle_deg)
-    return MeshForces(wt, radial, sign * wt * _tan_deg(helix_angle_deg))
+    radial = wt * tand(normal_pressure_angle_deg) / cosd(helix_angle_deg)
+    return MeshForces(wt, radial, sign * wt * tand(helix_angle_deg))
 
 
 def straight_bevel_forces(torque_Nm: Num, mean_pitch_diameter_mm: Num, pressure_angle_deg: Num,
@@ -165,9 +137,9 @@ def straight_bevel_forces(torque_Nm: Num, mean_pitch_diameter_mm: Num, pressure_
     checked("pressure_angle", pressure_angle_deg, low=0.0, high=90.0, low_open=True, high_open=True)
     checked("pitch_cone_angle", pitch_cone_angle_deg, low=0.0, high=90.0)
     wt = tangential_load(torque_Nm, mean_pitch_diameter_mm)
-    separating = wt * _tan_deg(pressure_angle_deg)
-    return MeshForces(wt, separating * _cos_deg(pitch_cone_angle_deg),
-                      separating * _sin_deg(pitch_cone_angle_deg))
+    separating = wt * tand(pressure_angle_deg)
+    return MeshForces(wt, separating * cosd(pitch_cone_angle_deg),
+                      separating * sind(pitch_cone_angle_deg))
 
 
 def belt_pull(torque_Nm: Num, pulley_diameter_mm: Num, factor: Num = V_BELT_PULL_FACTOR,
@@ -180,4 +152,4 @@ def belt_pull(torque_Nm: Num, pulley_diameter_mm: Num, factor: Num = V_BELT_PULL
     checked("belt_pull_factor", factor, low=1.0)
     checked("belt_direction", direction_deg)
     force = factor * tangential_load(torque_Nm, pulley_diameter_mm)
-    return BeltPull(force, force * _cos_deg(direction_deg), force * _sin_deg(direction_deg))
+    return BeltPull(force, force * cosd(direction_deg), force * sind(direction_deg))

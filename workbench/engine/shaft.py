@@ -18,6 +18,7 @@ import math
 from typing import Literal, NamedTuple, Sequence
 
 from .gears import checked
+from .num import cosd, sind
 from .record import Derivation, InputError
 
 Locating = Literal["A", "B", "both"]
@@ -38,12 +39,12 @@ class PointLoad(NamedTuple):
     @property
     def offset_y_mm(self) -> float:
         """y of the point of application: r·cos θ."""
-        return self.radius_mm * math.cos(math.radians(self.angle_deg))
+        return self.radius_mm * cosd(self.angle_deg)
 
     @property
     def offset_z_mm(self) -> float:
         """z of the point of application: r·sin θ."""
-        return self.radius_mm * math.sin(math.radians(self.angle_deg))
+        return self.radius_mm * sind(self.angle_deg)
 
 
 class ShaftLayout(NamedTuple):
