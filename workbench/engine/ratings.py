@@ -416,34 +416,39 @@ def _check_layout(g: BearingGeometry) -> None:
 def _add_gamma(record: Derivation, g: BearingGeometry, table: RatingTable) -> float:
     """Step: the geometry ratio γ that the fc table is read at."""
     if g.kind in THRUST_KINDS:
-        return record.add("gamma", "γ", "geometry ratio", "γ = Dw/Dpw (α = 90°)", "γ = {0}/{1}",
-                          (g.dw, g.dpw), g.dw / g.dpw, "", table.source)
-    return record.add("gamma", "γ", "geometry ratio", "γ = Dw·cos α/Dpw", "γ = {0}·cos {1}°/{2}",
-                      (g.dw, g.alpha_deg, g.dpw), g.dw * cosd(g.alpha_deg) / g.dpw, "", table.source)
+        return record.add("gamma", g.dw / g.dpw, symbol="γ", label="geometry ratio",
+                          formula="γ = Dw/Dpw (α = 90°)", template="γ = {0}/{1}",
+                          args=(g.dw, g.dpw), source=table.source)
+    return record.add("gamma", g.dw * cosd(g.alpha_deg) / g.dpw, symbol="γ",
+                      label="geometry ratio", formula="γ = Dw·cos α/Dpw",
+                      template="γ = {0}·cos {1}°/{2}", args=(g.dw, g.alpha_deg, g.dpw),
+                      source=table.source)
 
 
 def _add_table_step(record: Derivation, key: str, label: str, table: RatingTable, gamma: float) -> float:
     """Step: a factor read from a standard table at γ, held at the table end (with a warning) outside."""
     value, warning = _clamped_factor(table, gamma)
-    return record.add(key, table.symbol, f"{label} ({table.name})",
-                      f"{table.symbol} = table({table.argument}), linear interpolation",
-                      f"{table.symbol} read at γ = {{0}}", (gamma,), value, "", table.source, warning=warning)
+    return record.add(key, value, symbol=table.symbol, label=f"{label} ({table.name})",
+                      formula=f"{table.symbol} = table({table.argument}), linear interpolation",
+                      template=f"{table.symbol} read at γ = {{0}}", args=(gamma,),
+                      source=table.source, warning=warning)
 
 
 def _add_bm(record: Derivation, g: BearingGeometry) -> float:
     """Step: the rating factor bm, from ISO 281 Table 1 unless overridden."""
     label = "rating factor for material and manufacture"
     if g.bm is not None:
-        return record.add("bm", "bm", label, "bm (given)", "bm (given)", (), g.bm, "", "given",
-                          result=False)
+        return record.add("bm", g.bm, symbol="bm", label=label, formula="bm (given)",
+                          template="bm (given)", source="given", result=False)
     value = tables.BM_BY_KIND[g.kind]
-    return record.add("bm", "bm", label, f"bm ({g.kind})", f"bm ({g.kind})", (), value, "",
-                      tables.BM_SOURCE, result=False)
+    return record.add("bm", value, symbol="bm", label=label, formula=f"bm ({g.kind})",
+                      template=f"bm ({g.kind})", source=tables.BM_SOURCE, result=False)
 
 
 def _add_given_f0(record: Derivation, f0: float) -> float:
     """Step: a static factor f0 supplied with the geometry."""
-    return record.add("f0", "f0", "static factor", "f0 (given)", "f0 (given)", (), f0, "", "given")
+    return record.add("f0", f0, symbol="f0", label="static factor", formula="f0 (given)",
+                      template="f0 (given)", source="given")
 
 
 def _rate_radial_ball(record: Derivation, g: BearingGeometry, gamma: float, bm: float, fc: float) -> None:
@@ -454,31 +459,37 @@ def _rate_radial_ball(record: Derivation, g: BearingGeometry, gamma: float, bm: 
     else:
         formula = "Cr = 3.647·bm·fc·(i·cos α)^0.7·Z^(2/3)·Dw^1.4  (Dw > 25.4 mm)"
         template = "Cr = 3.647·{0}·{1}·({2}·cos {3}°)^0.7·{4}^(2/3)·{5}^1.4"
-    record.add("C", "Cr", "basic dynamic radial load rating", formula, template,
-               (bm, fc, g.i, g.alpha_deg, g.z, g.dw), _radial_ball_c(g.i, g.z, g.dw, g.alpha_deg, bm, fc),
-               "N", tables.FC_RADIAL_BALL.source)
+    record.add("C", _radial_ball_c(g.i, g.z, g.dw, g.alpha_deg, bm, fc), symbol="Cr",
+               label="basic dynamic radial load rating", formula=formula, template=template,
+               args=(bm, fc, g.i, g.alpha_deg, g.z, g.dw), unit="N",
+               source=tables.FC_RADIAL_BALL.source)
     if g.f0 is None:
         f0 = _add_table_step(record, "f0", "static factor", tables.F0_DEEP_GROOVE, gamma)
     else:
         f0 = _add_given_f0(record, g.f0)
-    record.add("C0", "C0r", "basic static radial load rating", "C0r = f0·i·Z·Dw²·cos α",
-               "C0r = {0}·{1}·{2}·{3}²·cos {4}°", (f0, g.i, g.z, g.dw, g.alpha_deg),
-               _radial_ball_c0(g.i, g.z, g.dw, g.alpha_deg, f0), "N", tables.STATIC_RADIAL_BALL_SOURCE)
+    record.add("C0", _radial_ball_c0(g.i, g.z, g.dw, g.alpha_deg, f0), symbol="C0r",
+               label="basic static radial load rating", formula="C0r = f0·i·Z·Dw²·cos α",
+               template="C0r = {0}·{1}·{2}·{3}²·cos {4}°", args=(f0, g.i, g.z, g.dw, g.alpha_deg),
+               unit="N", source=tables.STATIC_RADIAL_BALL_SOURCE)
 
 
 def _rate_radial_roller(record: Derivation, g: BearingGeometry, gamma: float, bm: float, fc: float) -> None:
     """Steps Cr, f0 (the ISO 76 factor 44·(1 − γ)), C0r of a radial roller bearing."""
     lwe = float(g.lwe)  # type: ignore[arg-type]  # present: checked by _check_layout
-    record.add("C", "Cr", "basic dynamic radial load rating",
-               "Cr = bm·fc·(i·Lwe·cos α)^(7/9)·Z^(3/4)·Dwe^(29/27)",
-               "Cr = {0}·{1}·({2}·{3}·cos {4}°)^(7/9)·{5}^(3/4)·{6}^(29/27)",
-               (bm, fc, g.i, lwe, g.alpha_deg, g.z, g.dw),
-               _radial_roller_c(g.i, g.z, g.dw, lwe, g.alpha_deg, bm, fc), "N", tables.FC_RADIAL_ROLLER.source)
-    f0 = record.add("f0", "f0", "static factor", "f0 = 44·(1 − γ)", "f0 = 44·(1 − {0})", (gamma,),
-                    _radial_roller_static_factor(gamma), "N/mm²", tables.STATIC_RADIAL_ROLLER_SOURCE)
-    record.add("C0", "C0r", "basic static radial load rating", "C0r = f0·i·Z·Lwe·Dwe·cos α",
-               "C0r = {0}·{1}·{2}·{3}·{4}·cos {5}°", (f0, g.i, g.z, lwe, g.dw, g.alpha_deg),
-               _radial_roller_c0(g.i, g.z, g.dw, lwe, g.alpha_deg, f0), "N", tables.STATIC_RADIAL_ROLLER_SOURCE)
+    record.add("C", _radial_roller_c(g.i, g.z, g.dw, lwe, g.alpha_deg, bm, fc), symbol="Cr",
+               label="basic dynamic radial load rating",
+               formula="Cr = bm·fc·(i·Lwe·cos α)^(7/9)·Z^(3/4)·Dwe^(29/27)",
+               template="Cr = {0}·{1}·({2}·{3}·cos {4}°)^(7/9)·{5}^(3/4)·{6}^(29/27)",
+               args=(bm, fc, g.i, lwe, g.alpha_deg, g.z, g.dw), unit="N",
+               source=tables.FC_RADIAL_ROLLER.source)
+    f0 = record.add("f0", _radial_roller_static_factor(gamma), symbol="f0", label="static factor",
+                    formula="f0 = 44·(1 − γ)", template="f0 = 44·(1 − {0})", args=(gamma,),
+                    unit="N/mm²", source=tables.STATIC_RADIAL_ROLLER_SOURCE)
+    record.add("C0", _radial_roller_c0(g.i, g.z, g.dw, lwe, g.alpha_deg, f0), symbol="C0r",
+               label="basic static radial load rating", formula="C0r = f0·i·Z·Lwe·Dwe·cos α",
+               template="C0r = {0}·{1}·{2}·{3}·{4}·cos {5}°",
+               args=(f0, g.i, g.z, lwe, g.dw, g.alpha_deg), unit="N",
+               source=tables.STATIC_RADIAL_ROLLER_SOURCE)
 
 
 def _rate_thrust_ball(record: Derivation, g: BearingGeometry, gamma: float, bm: float, fc: float) -> None:
@@ -490,30 +501,34 @@ def _rate_thrust_ball(record: Derivation, g: BearingGeometry, gamma: float, bm: 
     else:
         formula = "Ca = 3.647·bm·fc·Z^(2/3)·Dw^1.4  (α = 90°, Dw > 25.4 mm)"
         template = "Ca = 3.647·{0}·{1}·{2}^(2/3)·{3}^1.4"
-    record.add("C", "Ca", "basic dynamic axial load rating", formula, template, (bm, fc, g.z, g.dw),
-               _thrust_ball_c(g.z, g.dw, bm, fc), "N", tables.FC_THRUST_BALL_90.source,
+    record.add("C", _thrust_ball_c(g.z, g.dw, bm, fc), symbol="Ca",
+               label="basic dynamic axial load rating", formula=formula, template=template,
+               args=(bm, fc, g.z, g.dw), unit="N", source=tables.FC_THRUST_BALL_90.source,
                note="thrust formula from memory")
     _add_given_f0(record, f0)
-    record.add("C0", "C0a", "basic static axial load rating", "C0a = f0·Z·Dw²·sin α",
-               "C0a = {0}·{1}·{2}²·sin {3}°", (f0, g.z, g.dw, g.alpha_deg),
-               _thrust_ball_c0(g.z, g.dw, g.alpha_deg, f0), "N", tables.STATIC_THRUST_BALL_SOURCE)
+    record.add("C0", _thrust_ball_c0(g.z, g.dw, g.alpha_deg, f0), symbol="C0a",
+               label="basic static axial load rating", formula="C0a = f0·Z·Dw²·sin α",
+               template="C0a = {0}·{1}·{2}²·sin {3}°", args=(f0, g.z, g.dw, g.alpha_deg), unit="N",
+               source=tables.STATIC_THRUST_BALL_SOURCE)
 
 
 def _rate_thrust_roller(record: Derivation, g: BearingGeometry, gamma: float, bm: float, fc: float) -> None:
     """Steps Ca, f0 (the ISO 76 factor 220·(1 − Dwe·cos α/Dpw)), C0a of a thrust roller bearing."""
     lwe = float(g.lwe)  # type: ignore[arg-type]  # present: checked by _check_layout
-    record.add("C", "Ca", "basic dynamic axial load rating",
-               "Ca = bm·fc·Lwe^(7/9)·Z^(3/4)·Dwe^(29/27)  (α = 90°)",
-               "Ca = {0}·{1}·{2}^(7/9)·{3}^(3/4)·{4}^(29/27)", (bm, fc, lwe, g.z, g.dw),
-               _thrust_roller_c(g.z, g.dw, lwe, bm, fc), "N", tables.FC_THRUST_ROLLER_90.source,
+    record.add("C", _thrust_roller_c(g.z, g.dw, lwe, bm, fc), symbol="Ca",
+               label="basic dynamic axial load rating",
+               formula="Ca = bm·fc·Lwe^(7/9)·Z^(3/4)·Dwe^(29/27)  (α = 90°)",
+               template="Ca = {0}·{1}·{2}^(7/9)·{3}^(3/4)·{4}^(29/27)",
+               args=(bm, fc, lwe, g.z, g.dw), unit="N", source=tables.FC_THRUST_ROLLER_90.source,
                note="thrust formula and fc table from memory")
-    f0 = record.add("f0", "f0", "static factor", "f0 = 220·(1 − Dwe·cos α/Dpw)",
-                    "f0 = 220·(1 − {0}·cos {1}°/{2})", (g.dw, g.alpha_deg, g.dpw),
-                    _thrust_roller_static_factor(g.dw * cosd(g.alpha_deg) / g.dpw), "N/mm²",
-                    tables.STATIC_THRUST_ROLLER_SOURCE)
-    record.add("C0", "C0a", "basic static axial load rating", "C0a = f0·Z·Lwe·Dwe·sin α",
-               "C0a = {0}·{1}·{2}·{3}·sin {4}°", (f0, g.z, lwe, g.dw, g.alpha_deg),
-               _thrust_roller_c0(g.z, g.dw, lwe, g.alpha_deg, f0), "N", tables.STATIC_THRUST_ROLLER_SOURCE)
+    f0 = record.add("f0", _thrust_roller_static_factor(g.dw * cosd(g.alpha_deg) / g.dpw),
+                    symbol="f0", label="static factor", formula="f0 = 220·(1 − Dwe·cos α/Dpw)",
+                    template="f0 = 220·(1 − {0}·cos {1}°/{2})", args=(g.dw, g.alpha_deg, g.dpw),
+                    unit="N/mm²", source=tables.STATIC_THRUST_ROLLER_SOURCE)
+    record.add("C0", _thrust_roller_c0(g.z, g.dw, lwe, g.alpha_deg, f0), symbol="C0a",
+               label="basic static axial load rating", formula="C0a = f0·Z·Lwe·Dwe·sin α",
+               template="C0a = {0}·{1}·{2}·{3}·sin {4}°", args=(f0, g.z, lwe, g.dw, g.alpha_deg),
+               unit="N", source=tables.STATIC_THRUST_ROLLER_SOURCE)
 
 
 def rate_bearing(geometry: BearingGeometry) -> Derivation:

@@ -134,34 +134,43 @@ def derivation_steps(layout: ShaftLayout, reactions: ShaftReactions) -> Derivati
     """The free-body results of :func:`solve_reactions` as derivation steps (shaft statics)."""
     sums = _validated_sums(layout)
     record = Derivation()
-    record.add("M_A_xy", "ΣM_A,xy", "moment of the loads about A, x–y plane",
-               "ΣM_A,xy = Σ(Fy,i·(xi − xA) − Fx,i·yi)", "ΣM_A,xy = {0}", (sums.moment_xy,),
-               sums.moment_xy, "N·mm", SOURCE, result=False)
-    record.add("R_By", "R_B,y", "reaction at B, y", "R_B,y = −ΣM_A,xy/(xB − xA)",
-               "R_B,y = −{0}/{1}", (sums.moment_xy, sums.span), reactions.b_y, "N", SOURCE)
-    record.add("R_Ay", "R_A,y", "reaction at A, y", "R_A,y = −ΣFy,i − R_B,y",
-               "R_A,y = −({0}) − ({1})", (sums.force_y, reactions.b_y), reactions.a_y, "N", SOURCE)
-    record.add("M_A_xz", "ΣM_A,xz", "moment of the loads about A, x–z plane",
-               "ΣM_A,xz = Σ(Fx,i·zi − Fz,i·(xi − xA))", "ΣM_A,xz = {0}", (sums.moment_xz,),
-               sums.moment_xz, "N·mm", SOURCE, result=False)
-    record.add("R_Bz", "R_B,z", "reaction at B, z", "R_B,z = ΣM_A,xz/(xB − xA)",
-               "R_B,z = {0}/{1}", (sums.moment_xz, sums.span), reactions.b_z, "N", SOURCE)
-    record.add("R_Az", "R_A,z", "reaction at A, z", "R_A,z = −ΣFz,i − R_B,z",
-               "R_A,z = −({0}) − ({1})", (sums.force_z, reactions.b_z), reactions.a_z, "N", SOURCE)
-    record.add("Fr_A", "Fr,A", "radial load on bearing A", "Fr,A = √(R_A,y² + R_A,z²)",
-               "Fr,A = √({0}² + {1}²)", (reactions.a_y, reactions.a_z), reactions.radial_a, "N",
-               SOURCE)
-    record.add("Fr_B", "Fr,B", "radial load on bearing B", "Fr,B = √(R_B,y² + R_B,z²)",
-               "Fr,B = √({0}² + {1}²)", (reactions.b_y, reactions.b_z), reactions.radial_b, "N",
-               SOURCE)
-    record.add("F_thrust", "ΣFx", "net external thrust on the shaft, + toward B", "ΣFx = ΣFx,i",
-               "ΣFx = {0}", (sums.thrust,), reactions.thrust, "N", SOURCE)
+    record.add("M_A_xy", sums.moment_xy, symbol="ΣM_A,xy",
+               label="moment of the loads about A, x–y plane",
+               formula="ΣM_A,xy = Σ(Fy,i·(xi − xA) − Fx,i·yi)", template="ΣM_A,xy = {0}",
+               args=(sums.moment_xy,), unit="N·mm", source=SOURCE, result=False)
+    record.add("R_By", reactions.b_y, symbol="R_B,y", label="reaction at B, y",
+               formula="R_B,y = −ΣM_A,xy/(xB − xA)", template="R_B,y = −{0}/{1}",
+               args=(sums.moment_xy, sums.span), unit="N", source=SOURCE)
+    record.add("R_Ay", reactions.a_y, symbol="R_A,y", label="reaction at A, y",
+               formula="R_A,y = −ΣFy,i − R_B,y", template="R_A,y = −({0}) − ({1})",
+               args=(sums.force_y, reactions.b_y), unit="N", source=SOURCE)
+    record.add("M_A_xz", sums.moment_xz, symbol="ΣM_A,xz",
+               label="moment of the loads about A, x–z plane",
+               formula="ΣM_A,xz = Σ(Fx,i·zi − Fz,i·(xi − xA))", template="ΣM_A,xz = {0}",
+               args=(sums.moment_xz,), unit="N·mm", source=SOURCE, result=False)
+    record.add("R_Bz", reactions.b_z, symbol="R_B,z", label="reaction at B, z",
+               formula="R_B,z = ΣM_A,xz/(xB − xA)", template="R_B,z = {0}/{1}",
+               args=(sums.moment_xz, sums.span), unit="N", source=SOURCE)
+    record.add("R_Az", reactions.a_z, symbol="R_A,z", label="reaction at A, z",
+               formula="R_A,z = −ΣFz,i − R_B,z", template="R_A,z = −({0}) − ({1})",
+               args=(sums.force_z, reactions.b_z), unit="N", source=SOURCE)
+    record.add("Fr_A", reactions.radial_a, symbol="Fr,A", label="radial load on bearing A",
+               formula="Fr,A = √(R_A,y² + R_A,z²)", template="Fr,A = √({0}² + {1}²)",
+               args=(reactions.a_y, reactions.a_z), unit="N", source=SOURCE)
+    record.add("Fr_B", reactions.radial_b, symbol="Fr,B", label="radial load on bearing B",
+               formula="Fr,B = √(R_B,y² + R_B,z²)", template="Fr,B = √({0}² + {1}²)",
+               args=(reactions.b_y, reactions.b_z), unit="N", source=SOURCE)
+    record.add("F_thrust", reactions.thrust, symbol="ΣFx",
+               label="net external thrust on the shaft, + toward B", formula="ΣFx = ΣFx,i",
+               template="ΣFx = {0}", args=(sums.thrust,), unit="N", source=SOURCE)
     if layout.locating == "both":
         note = "paired bearings adjusted against each other: split by the paired-bearing thrust rule"
     else:
         note = f"bearing {layout.locating} locates and carries |ΣFx|; the other floats"
-    record.add("Fa_A", "Fa,A", "axial load on bearing A", "Fa,A from the locating arrangement",
-               "Fa,A = {0}", (reactions.axial_a,), reactions.axial_a, "N", SOURCE, note=note)
-    record.add("Fa_B", "Fa,B", "axial load on bearing B", "Fa,B from the locating arrangement",
-               "Fa,B = {0}", (reactions.axial_b,), reactions.axial_b, "N", SOURCE, note=note)
+    record.add("Fa_A", reactions.axial_a, symbol="Fa,A", label="axial load on bearing A",
+               formula="Fa,A from the locating arrangement", template="Fa,A = {0}",
+               args=(reactions.axial_a,), unit="N", source=SOURCE, note=note)
+    record.add("Fa_B", reactions.axial_b, symbol="Fa,B", label="axial load on bearing B",
+               formula="Fa,B from the locating arrangement", template="Fa,B = {0}",
+               args=(reactions.axial_b,), unit="N", source=SOURCE, note=note)
     return record

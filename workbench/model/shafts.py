@@ -400,13 +400,14 @@ def _torque(d: Derivation, power: float | None, torque: float | None, speed: flo
             key: str) -> float:
     """The state's torque: as given, or T = P/ω."""
     if torque is not None:
-        return d.add("T", "T", "Torque through the shaft", "given", "{0}", (torque,), torque,
-                     "N·m", "input")
+        return d.add("T", torque, symbol="T", label="Torque through the shaft", formula="given",
+                     template="{0}", args=(torque,), unit="N·m", source="input")
     assert power is not None
     with _engine_keys(key, {"power": "power", "speed": "speed"}):
         value = torque_from_power(power, speed)
-    return d.add("T", "T", "Torque through the shaft", "T = P/(2π·n/60)",
-                 "{0} / (2π × {1} / 60)", (power, speed), value, "N·m", TORQUE_SOURCE)
+    return d.add("T", value, symbol="T", label="Torque through the shaft",
+                 formula="T = P/(2π·n/60)", template="{0} / (2π × {1} / 60)", args=(power, speed),
+                 unit="N·m", source=TORQUE_SOURCE)
 
 
 def _element_load(d: Derivation, values: Mapping[str, Any], torque: float, rotation: int,
@@ -415,9 +416,9 @@ def _element_load(d: Derivation, values: Mapping[str, Any], torque: float, rotat
     name, kind = values["name"], values["kind"]
     share = values["share"]
     if share != 1.0:
-        torque = d.add(f"T[{name}]", f"T,{name}", f"Torque carried by {name}", "share·T",
-                       "{0} × {1}", (share, torque), share * torque, "N·m", "input",
-                       result=False)
+        torque = d.add(f"T[{name}]", share * torque, symbol=f"T,{name}",
+                       label=f"Torque carried by {name}", formula="share·T", template="{0} × {1}",
+                       args=(share, torque), unit="N·m", source="input", result=False)
     theta = values["mesh_angle"]
     cos_t, sin_t = math.cos(math.radians(theta)), math.sin(math.radians(theta))
     with _engine_keys(key, _ELEMENT_ENGINE_KEYS):
@@ -427,13 +428,16 @@ def _element_load(d: Derivation, values: Mapping[str, Any], torque: float, rotat
             note = None if values["pull_factor"] is not None else (
                 f"no pull factor given: the V-belt value {V_BELT_PULL_FACTOR:g} "
                 f"(spread {BELT_PULL_FACTORS['v_belt'][1][0]:g}–{BELT_PULL_FACTORS['v_belt'][1][1]:g})")
-            d.add(f"F[{name}]", f"F,{name}", f"Belt pull of {name}", "F = f·2T/D",
-                  "{0} × 2 × {1} / {2}", (factor, torque, values["diameter"]), pull.force, "N",
-                  PULLEY_SOURCE, note=note, result=False)
-            d.add(f"Fy[{name}]", f"Fy,{name}", f"Pull of {name}, y", "F·cos θ",
-                  "{0} × cos {1}°", (pull.force, theta), pull.fy, "N", RESOLVE_SOURCE, result=False)
-            d.add(f"Fz[{name}]", f"Fz,{name}", f"Pull of {name}, z", "F·sin θ",
-                  "{0} × sin {1}°", (pull.force, theta), pull.fz, "N", RESOLVE_SOURCE, result=False)
+            d.add(f"F[{name}]", pull.force, symbol=f"F,{name}", label=f"Belt pull of {name}",
+                  formula="F = f·2T/D", template="{0} × 2 × {1} / {2}",
+                  args=(factor, torque, values["diameter"]), unit="N", source=PULLEY_SOURCE,
+                  note=note, result=False)
+            d.add(f"Fy[{name}]", pull.fy, symbol=f"Fy,{name}", label=f"Pull of {name}, y",
+                  formula="F·cos θ", template="{0} × cos {1}°", args=(pull.force, theta), unit="N",
+                  source=RESOLVE_SOURCE, result=False)
+            d.add(f"Fz[{name}]", pull.fz, symbol=f"Fz,{name}", label=f"Pull of {name}, z",
+                  formula="F·sin θ", template="{0} × sin {1}°", args=(pull.force, theta), unit="N",
+                  source=RESOLVE_SOURCE, result=False)
             return PointLoad(values["position"], pull.fy, pull.fz, 0.0, 0.0, theta, name)
         if kind == "spur":
             forces = spur_forces(torque, values["diameter"], values["pressure_angle"])
@@ -454,23 +458,24 @@ def _element_load(d: Derivation, values: Mapping[str, Any], torque: float, rotat
             fx = -forces.axial if values["apex"] == "B" else forces.axial
             radial_formula, radial_template = "Wt·tan φ·cos γ", "{0} × tan {1}° × cos {2}°"
             angles = (values["pressure_angle"], values["pitch_cone_angle"])
-    d.add(f"Wt[{name}]", f"Wt,{name}", f"Tangential load of {name}", "Wt = 2T/d",
-          "2 × {0} / {1}", (torque, values["diameter"]), forces.tangential, "N", source,
-          result=False)
-    d.add(f"Wr[{name}]", f"Wr,{name}", f"Radial load of {name}", radial_formula, radial_template,
-          (forces.tangential, *angles), forces.radial, "N", source, note="toward the axis",
-          result=False)
+    d.add(f"Wt[{name}]", forces.tangential, symbol=f"Wt,{name}",
+          label=f"Tangential load of {name}", formula="Wt = 2T/d", template="2 × {0} / {1}",
+          args=(torque, values["diameter"]), unit="N", source=source, result=False)
+    d.add(f"Wr[{name}]", forces.radial, symbol=f"Wr,{name}", label=f"Radial load of {name}",
+          formula=radial_formula, template=radial_template, args=(forces.tangential, *angles),
+          unit="N", source=source, note="toward the axis", result=False)
     if kind == "helical":
         role = "driving" if values["driving"] else "driven"
-        d.add(f"Wa[{name}]", f"Wa,{name}", f"Axial load of {name}, + toward B", "±Wt·tan ψ",
-              "({2}) × {0} × tan {1}°", (forces.tangential, values["helix_angle"],
-                                         math.copysign(1.0, fx)), fx, "N", source,
-              note=f"{values['hand']} hand, {role}, rotation {'+' if rotation > 0 else '−'}: "
-                   f"thrust toward {'B' if fx >= 0 else 'A'}", result=False)
+        d.add(f"Wa[{name}]", fx, symbol=f"Wa,{name}", label=f"Axial load of {name}, + toward B",
+              formula="±Wt·tan ψ", template="({2}) × {0} × tan {1}°",
+              args=(forces.tangential, values["helix_angle"], math.copysign(1.0, fx)), unit="N",
+              source=source,
+              note=f"{values['hand']} hand, {role}, rotation {'+' if rotation > 0 else '−'}: " f"thrust toward {'B' if fx >= 0 else 'A'}",
+              result=False)
     elif kind == "bevel":
-        d.add(f"Wa[{name}]", f"Wa,{name}", f"Axial load of {name}, + toward B", "±Wt·tan φ·sin γ",
-              "({3}) × {0} × tan {1}° × sin {2}°", (forces.tangential, *angles,
-                                                   math.copysign(1.0, fx)), fx, "N", source,
+        d.add(f"Wa[{name}]", fx, symbol=f"Wa,{name}", label=f"Axial load of {name}, + toward B",
+              formula="±Wt·tan φ·sin γ", template="({3}) × {0} × tan {1}° × sin {2}°",
+              args=(forces.tangential, *angles, math.copysign(1.0, fx)), unit="N", source=source,
               note=f"apex on the {values['apex']} side: thrust away from it", result=False)
     # radial load toward the axis, tangential load against (driving) or with (driven) the motion
     # of the mesh point, which moves along rotation·(−sin θ, cos θ) in (y, z)
@@ -479,14 +484,14 @@ def _element_load(d: Derivation, values: Mapping[str, Any], torque: float, rotat
     fz = -forces.radial * sin_t + along * forces.tangential * cos_t
     role_words = "against the mesh-point motion (driving)" if values["driving"] else \
         "with the mesh-point motion (driven)"
-    d.add(f"Fy[{name}]", f"Fy,{name}", f"Force of {name}, y", "−Wr·cos θ ∓ Wt·sin θ",
-          "−{0} × cos {2}° − ({3}) × {1} × sin {2}°", (forces.radial, forces.tangential, theta,
-                                                       float(along)),
-          fy, "N", RESOLVE_SOURCE, note=f"Wr toward the axis; Wt {role_words}", result=False)
-    d.add(f"Fz[{name}]", f"Fz,{name}", f"Force of {name}, z", "−Wr·sin θ ± Wt·cos θ",
-          "−{0} × sin {2}° + ({3}) × {1} × cos {2}°", (forces.radial, forces.tangential, theta,
-                                                       float(along)),
-          fz, "N", RESOLVE_SOURCE, result=False)
+    d.add(f"Fy[{name}]", fy, symbol=f"Fy,{name}", label=f"Force of {name}, y",
+          formula="−Wr·cos θ ∓ Wt·sin θ", template="−{0} × cos {2}° − ({3}) × {1} × sin {2}°",
+          args=(forces.radial, forces.tangential, theta, float(along)), unit="N",
+          source=RESOLVE_SOURCE, note=f"Wr toward the axis; Wt {role_words}", result=False)
+    d.add(f"Fz[{name}]", fz, symbol=f"Fz,{name}", label=f"Force of {name}, z",
+          formula="−Wr·sin θ ± Wt·cos θ", template="−{0} × sin {2}° + ({3}) × {1} × cos {2}°",
+          args=(forces.radial, forces.tangential, theta, float(along)), unit="N",
+          source=RESOLVE_SOURCE, result=False)
     return PointLoad(values["position"], fy, fz, fx, values["diameter"] / 2.0, theta, name)
 
 
@@ -547,21 +552,25 @@ def _pair_steps(d: Derivation, pair: dict[str, _PairBearing], reactions: ShaftRe
     for side in SIDES:
         factor, fi, factors = induced[side]
         if pair[side].kind is Kind.TAPERED:
-            d.add(f"Y_{side}", f"Y,{side}", f"Axial factor of bearing {side} (Fa/Fr > e)",
-                  factors.basis, "{0}", (factor,), factor, "", factors.source,
+            d.add(f"Y_{side}", factor, symbol=f"Y,{side}",
+                  label=f"Axial factor of bearing {side} (Fa/Fr > e)", formula=factors.basis,
+                  template="{0}", args=(factor,), source=factors.source,
                   note="the Y of the bearing's own derivation on the Fa/Fr > e branch")
-            d.add(f"Fi_{side}", f"Fi,{side}", f"Induced thrust of bearing {side}", "Fr/(2Y)",
-                  "{0} / (2 × {1})", (fr[side], factor), fi, "N", TAPERED_SOURCE)
+            d.add(f"Fi_{side}", fi, symbol=f"Fi,{side}", label=f"Induced thrust of bearing {side}",
+                  formula="Fr/(2Y)", template="{0} / (2 × {1})", args=(fr[side], factor), unit="N",
+                  source=TAPERED_SOURCE)
         else:
-            d.add(f"e_{side}", f"e,{side}", f"Limit ratio e of bearing {side}", factors.basis,
-                  "{0}", (factor,), factor, "", factors.source,
+            d.add(f"e_{side}", factor, symbol=f"e,{side}",
+                  label=f"Limit ratio e of bearing {side}", formula=factors.basis, template="{0}",
+                  args=(factor,), source=factors.source,
                   note="at the bearing's own Fa" if factors.index_formula else None)
-            d.add(f"Fi_{side}", f"Fi,{side}", f"Induced thrust of bearing {side}", "e·Fr",
-                  "{0} × {1}", (factor, fr[side]), fi, "N", ANGULAR_SOURCE)
+            d.add(f"Fi_{side}", fi, symbol=f"Fi,{side}", label=f"Induced thrust of bearing {side}",
+                  formula="e·Fr", template="{0} × {1}", args=(factor, fr[side]), unit="N",
+                  source=ANGULAR_SOURCE)
     for side in SIDES:
-        d.add(f"Fa_{side}", f"Fa,{side}", f"Axial load on bearing {side}",
-              "thrust-sharing rule", "{0}", (fa[side],), fa[side], "N", SHARING_SOURCE,
-              note=explanation, warning=warning if side == "B" else None)
+        d.add(f"Fa_{side}", fa[side], symbol=f"Fa,{side}", label=f"Axial load on bearing {side}",
+              formula="thrust-sharing rule", template="{0}", args=(fa[side],), unit="N",
+              source=SHARING_SOURCE, warning=warning if side == "B" else None, note=explanation)
     return fa
 
 
