@@ -153,3 +153,31 @@ def belt_pull(torque_Nm: Num, pulley_diameter_mm: Num, factor: Num = V_BELT_PULL
     checked("belt_direction", direction_deg)
     force = factor * tangential_load(torque_Nm, pulley_diameter_mm)
     return BeltPull(force, force * cosd(direction_deg), force * sind(direction_deg))
+
+
+def bevel_axial_load(thrust: Num, apex: Literal["A", "B"]) -> Num:
+    """A straight bevel gear's thrust Wa (a magnitude) signed in the shaft frame, in N.
+
+    The thrust points from the pitch-cone apex toward the back cone (gear-force relations for
+    straight bevel gears): Fx = −Wa when the apex lies on the B side of the gear, +Wa on the A side.
+    """
+    if apex not in ("A", "B"):
+        raise InputError("apex", f"the apex lies on side 'A' or 'B', not {apex!r}")
+    return -thrust if apex == "B" else thrust
+
+
+def mesh_force_components(tangential: Num, radial: Num, mesh_angle_deg: Num, *, rotation: int,
+                          driving: bool) -> tuple[Num, Num]:
+    """(Fy, Fz): a mesh's loads on the shaft resolved in the y–z plane of the shaft frame, in N.
+
+    Fy = −Wr·cos θ − s·Wt·sin θ and Fz = −Wr·sin θ + s·Wt·cos θ, with θ the direction of the mesh
+    point from +y toward +z (degrees) and s = −rotation on a driving gear, +rotation on a driven
+    one: Wr points toward the axis, and Wt against (driving) or with (driven) the motion of the
+    mesh point, which moves along rotation·(−sin θ, cos θ) (gear statics, module notes).
+    """
+    if rotation not in (1, -1):
+        raise InputError("rotation", f"rotation is +1 or −1 about +x, not {rotation!r}")
+    along = -rotation if driving else rotation
+    cos_t, sin_t = cosd(mesh_angle_deg), sind(mesh_angle_deg)
+    return (-radial * cos_t - along * tangential * sin_t,
+            -radial * sin_t + along * tangential * cos_t)

@@ -15,17 +15,31 @@ My = z₀·Fx and Mz = −y₀·Fx; the transverse components at radius r add on
 from __future__ import annotations
 
 import math
-from typing import Literal, NamedTuple, Sequence
+from collections.abc import Sequence
+from dataclasses import dataclass
+from typing import Literal
 
-from .gears import checked
+from .gears import (
+    BELT_PULL_FACTORS, V_BELT_PULL_FACTOR, belt_pull, bevel_axial_load, checked, helical_forces,
+    mesh_force_components, spur_forces, straight_bevel_forces, torque_from_power,
+)
 from .num import cosd, sind
 from .record import Derivation, InputError
 
 Locating = Literal["A", "B", "both"]
+ElementKind = Literal["spur", "helical", "bevel", "pulley"]
 SOURCE = "shaft statics, ΣF = 0, ΣM = 0"
+SPUR_SOURCE = "spur gear force relations: Wt = 2T/d, Wr = Wt·tan φ"
+HELICAL_SOURCE = "helical gear force relations: Wt = 2T/d, Wr = Wt·tan φn/cos ψ, Wa = Wt·tan ψ"
+BEVEL_SOURCE = ("straight bevel gear force relations: Wt = 2T/dm, Wr = Wt·tan φ·cos γ, "
+                "Wa = Wt·tan φ·sin γ")
+PULLEY_SOURCE = "belt or chain shaft load F = f·2T/D (factor f: common practice)"
+RESOLVE_SOURCE = "gear-force relations resolved in the shaft frame (x from A toward B)"
+TORQUE_SOURCE = "T = P/ω, ω = 2π·n/60"
 
 
-class PointLoad(NamedTuple):
+@dataclass(frozen=True, slots=True)
+class PointLoad:
     """A force on the shaft in N at axial position ``x_mm``; axial ``fx`` acts at (radius, angle)."""
 
     x_mm: float
@@ -47,7 +61,8 @@ class PointLoad(NamedTuple):
         return self.radius_mm * sind(self.angle_deg)
 
 
-class ShaftLayout(NamedTuple):
+@dataclass(frozen=True, slots=True)
+class ShaftLayout:
     """Bearing positions (mm), which bearing locates axially, and the loads on the shaft.
 
     ``locating`` is "A" or "B" when one bearing takes all the thrust (the other floats), or "both"
@@ -61,7 +76,8 @@ class ShaftLayout(NamedTuple):
     loads: Sequence[PointLoad] = ()
 
 
-class ShaftReactions(NamedTuple):
+@dataclass(frozen=True, slots=True)
+class ShaftReactions:
     """Forces the bearings exert on the shaft (N), their radial loads, and the axial loads.
 
     ``thrust`` is the net external axial force on the shaft, positive toward +x; the locating
@@ -80,7 +96,8 @@ class ShaftReactions(NamedTuple):
     axial_b: float
 
 
-class _LoadSums(NamedTuple):
+@dataclass(frozen=True, slots=True)
+class _LoadSums:
     span: float
     force_y: float
     force_z: float
@@ -174,3 +191,139 @@ def derivation_steps(layout: ShaftLayout, reactions: ShaftReactions) -> Derivati
                formula="Fa,B from the locating arrangement", template="Fa,B = {0}",
                args=(reactions.axial_b,), unit="N", source=SOURCE, note=note)
     return record
+
+
+@dataclass(frozen=True, slots=True, kw_only=True)
+class ShaftElement:
+    """A gear or pulley on the shaft, in engine units (mm, degrees).
+
+    ``diameter_mm`` is the pitch diameter (spur), the transverse pitch diameter (helical), the
+    mean pitch diameter (straight bevel) or the pulley diameter.  ``mesh_angle_deg`` is the
+    direction, from +y toward +z, from the shaft's axis toward the mating gear or the other
+    pulley.  ``share`` is the fraction of the shaft's torque this element carries.  The gears need
+    ``pressure_angle_deg`` (the normal one for a helical gear) and ``driving``; a helical gear
+    also ``helix_angle_deg`` and ``hand``, a bevel gear ``pitch_cone_angle_deg`` and ``apex`` (the
+    side, "A" or "B", on which its pitch-cone apex lies).  A pulley may give ``pull_factor``
+    (default the V-belt value).
+    """
+
+    name: str
+    kind: ElementKind
+    position_mm: float
+    diameter_mm: float
+    mesh_angle_deg: float
+    pressure_angle_deg: float | None = None
+    helix_angle_deg: float | None = None
+    hand: Literal["left", "right"] | None = None
+    driving: bool | None = None
+    pitch_cone_angle_deg: float | None = None
+    apex: Literal["A", "B"] | None = None
+    pull_factor: float | None = None
+    share: float = 1.0
+
+
+def shaft_torque(d: Derivation, *, power_W: float | None, torque_Nm: float | None,
+                 speed_rpm: float) -> float:
+    """The torque through the shaft in N·m, with its step: as given, or T = P/ω with
+    ω = 2π·n/60 (P in W, n in r/min)."""
+    if torque_Nm is not None:
+        return d.add("T", torque_Nm, symbol="T", label="Torque through the shaft",
+                     formula="given", template="{0}", args=(torque_Nm,), unit="N·m",
+                     source="input")
+    assert power_W is not None
+    value = torque_from_power(power_W, speed_rpm)
+    return d.add("T", value, symbol="T", label="Torque through the shaft",
+                 formula="T = P/(2π·n/60)", template="{0} / (2π × {1} / 60)",
+                 args=(power_W, speed_rpm), unit="N·m", source=TORQUE_SOURCE)
+
+
+def element_load(d: Derivation, element: ShaftElement, torque_Nm: float, *,
+                 rotation: int) -> PointLoad:
+    """The force of a gear mesh or a belt on the shaft as a point load, with its steps.
+
+    Gear-force relations (spur, helical, straight bevel; :mod:`workbench.engine.gears`) at the
+    element's share of ``torque_Nm``, resolved in the shaft frame by
+    :func:`~workbench.engine.gears.mesh_force_components`; a pulley's pull F = f·2T/D points at
+    the mesh angle.  ``rotation`` is +1 or −1 about +x.  Forces in N, positions in mm.
+    """
+    name, theta = element.name, element.mesh_angle_deg
+    torque = torque_Nm
+    if element.share != 1.0:
+        torque = d.add(f"T[{name}]", element.share * torque_Nm, symbol=f"T,{name}",
+                       label=f"Torque carried by {name}", formula="share·T", template="{0} × {1}",
+                       args=(element.share, torque_Nm), unit="N·m", source="input", result=False)
+    if element.kind == "pulley":
+        return _pulley_load(d, element, torque)
+    if element.kind == "spur":
+        forces = spur_forces(torque, element.diameter_mm, element.pressure_angle_deg)
+        source, fx = SPUR_SOURCE, 0.0
+        radial_formula, radial_template = "Wt·tan φ", "{0} × tan {1}°"
+        angles: tuple[float, ...] = (element.pressure_angle_deg,)
+    elif element.kind == "helical":
+        forces = helical_forces(torque, element.diameter_mm, element.pressure_angle_deg,
+                                element.helix_angle_deg, element.hand, element.driving,
+                                rotation=rotation)
+        source, fx = HELICAL_SOURCE, forces.axial
+        radial_formula, radial_template = "Wt·tan φn/cos ψ", "{0} × tan {1}° / cos {2}°"
+        angles = (element.pressure_angle_deg, element.helix_angle_deg)
+    else:
+        forces = straight_bevel_forces(torque, element.diameter_mm, element.pressure_angle_deg,
+                                       element.pitch_cone_angle_deg)
+        source, fx = BEVEL_SOURCE, bevel_axial_load(forces.axial, element.apex)
+        radial_formula, radial_template = "Wt·tan φ·cos γ", "{0} × tan {1}° × cos {2}°"
+        angles = (element.pressure_angle_deg, element.pitch_cone_angle_deg)
+    d.add(f"Wt[{name}]", forces.tangential, symbol=f"Wt,{name}",
+          label=f"Tangential load of {name}", formula="Wt = 2T/d", template="2 × {0} / {1}",
+          args=(torque, element.diameter_mm), unit="N", source=source, result=False)
+    d.add(f"Wr[{name}]", forces.radial, symbol=f"Wr,{name}", label=f"Radial load of {name}",
+          formula=radial_formula, template=radial_template, args=(forces.tangential, *angles),
+          unit="N", source=source, note="toward the axis", result=False)
+    if element.kind == "helical":
+        role = "driving" if element.driving else "driven"
+        d.add(f"Wa[{name}]", fx, symbol=f"Wa,{name}", label=f"Axial load of {name}, + toward B",
+              formula="±Wt·tan ψ", template="({2}) × {0} × tan {1}°",
+              args=(forces.tangential, element.helix_angle_deg, math.copysign(1.0, fx)),
+              unit="N", source=source,
+              note=f"{element.hand} hand, {role}, rotation {'+' if rotation > 0 else '−'}: "
+                   f"thrust toward {'B' if fx >= 0 else 'A'}",
+              result=False)
+    elif element.kind == "bevel":
+        d.add(f"Wa[{name}]", fx, symbol=f"Wa,{name}", label=f"Axial load of {name}, + toward B",
+              formula="±Wt·tan φ·sin γ", template="({3}) × {0} × tan {1}° × sin {2}°",
+              args=(forces.tangential, *angles, math.copysign(1.0, fx)), unit="N", source=source,
+              note=f"apex on the {element.apex} side: thrust away from it", result=False)
+    fy, fz = mesh_force_components(forces.tangential, forces.radial, theta, rotation=rotation,
+                                   driving=bool(element.driving))
+    along = float(-rotation if element.driving else rotation)
+    role_words = ("against the mesh-point motion (driving)" if element.driving
+                  else "with the mesh-point motion (driven)")
+    d.add(f"Fy[{name}]", fy, symbol=f"Fy,{name}", label=f"Force of {name}, y",
+          formula="−Wr·cos θ ∓ Wt·sin θ", template="−{0} × cos {2}° − ({3}) × {1} × sin {2}°",
+          args=(forces.radial, forces.tangential, theta, along), unit="N",
+          source=RESOLVE_SOURCE, note=f"Wr toward the axis; Wt {role_words}", result=False)
+    d.add(f"Fz[{name}]", fz, symbol=f"Fz,{name}", label=f"Force of {name}, z",
+          formula="−Wr·sin θ ± Wt·cos θ", template="−{0} × sin {2}° + ({3}) × {1} × cos {2}°",
+          args=(forces.radial, forces.tangential, theta, along), unit="N",
+          source=RESOLVE_SOURCE, result=False)
+    return PointLoad(element.position_mm, fy, fz, fx, element.diameter_mm / 2.0, theta, name)
+
+
+def _pulley_load(d: Derivation, element: ShaftElement, torque_Nm: float) -> PointLoad:
+    """A belt or chain pull F = f·2T/D on the shaft at the mesh angle, with its steps."""
+    name, theta = element.name, element.mesh_angle_deg
+    factor = V_BELT_PULL_FACTOR if element.pull_factor is None else element.pull_factor
+    pull = belt_pull(torque_Nm, element.diameter_mm, factor, theta)
+    low, high = BELT_PULL_FACTORS["v_belt"][1]
+    note = None if element.pull_factor is not None else (
+        f"no pull factor given: the V-belt value {V_BELT_PULL_FACTOR:g} (spread {low:g}–{high:g})")
+    d.add(f"F[{name}]", pull.force, symbol=f"F,{name}", label=f"Belt pull of {name}",
+          formula="F = f·2T/D", template="{0} × 2 × {1} / {2}",
+          args=(factor, torque_Nm, element.diameter_mm), unit="N", source=PULLEY_SOURCE,
+          note=note, result=False)
+    d.add(f"Fy[{name}]", pull.fy, symbol=f"Fy,{name}", label=f"Pull of {name}, y",
+          formula="F·cos θ", template="{0} × cos {1}°", args=(pull.force, theta), unit="N",
+          source=RESOLVE_SOURCE, result=False)
+    d.add(f"Fz[{name}]", pull.fz, symbol=f"Fz,{name}", label=f"Pull of {name}, z",
+          formula="F·sin θ", template="{0} × sin {1}°", args=(pull.force, theta), unit="N",
+          source=RESOLVE_SOURCE, result=False)
+    return PointLoad(element.position_mm, pull.fy, pull.fz, 0.0, 0.0, theta, name)

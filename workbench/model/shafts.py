@@ -69,17 +69,16 @@ import math
 from collections.abc import Iterator, Mapping, Sequence
 from contextlib import contextmanager
 from dataclasses import dataclass, field, fields
-from typing import Any, NamedTuple
+from typing import Any
 
-from ..engine.derive import CaseInputs, validate
-from ..engine.gears import (
-    BELT_PULL_FACTORS, V_BELT_PULL_FACTOR, belt_pull, helical_forces, spur_forces,
-    straight_bevel_forces, torque_from_power,
-)
-from ..engine.kinds import Arrangement, DynamicFactors, Kind, dynamic_factors
-from ..engine.pairs import induced_thrust_angular_contact, induced_thrust_tapered, share_thrust
+from ..engine.derive import validate
+from ..engine.kinds import Arrangement, Kind
+from ..engine.pairs import SIDES, PairBearing, paired_axial_loads
 from ..engine.record import Derivation, InputError
-from ..engine.shaft import PointLoad, ShaftLayout, ShaftReactions, derivation_steps, solve_reactions
+from ..engine.shaft import (
+    PointLoad, ShaftElement, ShaftLayout, ShaftReactions, derivation_steps, element_load,
+    shaft_torque, solve_reactions,
+)
 from .fields import BEARING_FIELDS, CASE_FIELDS, FieldError, inputs_from_values, parse_field
 from .quantities import QuantityError, parse
 from .session import LoadCase, Session
@@ -90,7 +89,6 @@ LOCATING = ("A", "B", "pair")
 MOUNTINGS = ("O", "X")
 ROTATIONS = {"+": 1, "-": -1, "−": -1}
 HANDS = ("left", "right")
-SIDES = ("A", "B")
 YES = ("yes", "true", "on", "1")
 NO = ("no", "false", "off", "0")
 #: case inputs a shaft fills in itself; the rest may be given in ``case_fields``
@@ -99,18 +97,7 @@ CASE_FIELD_KEYS = tuple(name for name in CASE_FIELDS if name not in SOLVED_FIELD
 SEPARATOR = " · "
 GENERATED_NOTE = "generated from shaft "
 
-SPUR_SOURCE = "spur gear force relations: Wt = 2T/d, Wr = Wt·tan φ"
-HELICAL_SOURCE = "helical gear force relations: Wt = 2T/d, Wr = Wt·tan φn/cos ψ, Wa = Wt·tan ψ"
-BEVEL_SOURCE = ("straight bevel gear force relations: Wt = 2T/dm, Wr = Wt·tan φ·cos γ, "
-                "Wa = Wt·tan φ·sin γ")
-PULLEY_SOURCE = "belt or chain shaft load F = f·2T/D (factor f: common practice)"
-RESOLVE_SOURCE = "gear-force relations resolved in the shaft frame (x from A toward B)"
-TORQUE_SOURCE = "T = P/ω, ω = 2π·n/60"
-TAPERED_SOURCE = "induced axial component of a tapered roller bearing, Fi = Fr/(2Y) (ISO form)"
-ANGULAR_SOURCE = "induced axial component of an angular-contact ball bearing, Fi = e·Fr (common practice)"
-SHARING_SOURCE = "two-bearing thrust-sharing rule: shaft axial equilibrium with each Fa ≥ its Fi"
 PAIR_KINDS = (Kind.ANGULAR_CONTACT, Kind.TAPERED)
-PAIR_ITERATIONS = 100
 
 
 # ---- the typed text ------------------------------------------------------------------------
@@ -285,17 +272,25 @@ _ELEMENT_PARSERS = {
 }
 
 
-class _ParsedShaft(NamedTuple):
+#: the engine's name of each element text (the others keep theirs)
+_ENGINE_NAMES = {"position": "position_mm", "diameter": "diameter_mm",
+                 "pressure_angle": "pressure_angle_deg", "helix_angle": "helix_angle_deg",
+                 "pitch_cone_angle": "pitch_cone_angle_deg", "mesh_angle": "mesh_angle_deg"}
+
+
+@dataclass(frozen=True, slots=True)
+class _ParsedShaft:
     position_a: float
     position_b: float
     locating: str
     mounting: str
     rotation: int
-    elements: tuple[dict[str, Any], ...]
+    elements: tuple[ShaftElement, ...]
 
 
-def _parsed_element(element: Element, key: str) -> dict[str, Any]:
-    """The element's texts as values, after checking each kind has what it needs and no more."""
+def _parsed_element(element: Element, key: str) -> ShaftElement:
+    """The element's texts as engine inputs, after checking each kind has what it needs and no
+    more."""
     kind = _choice(f"{key}.kind", element.kind, ELEMENT_KINDS)
     required, optional = REQUIRED_TEXTS[kind], OPTIONAL_TEXTS[kind]
     values: dict[str, Any] = {"name": element.name, "kind": kind}
@@ -311,7 +306,7 @@ def _parsed_element(element: Element, key: str) -> dict[str, Any]:
         values[name] = _ELEMENT_PARSERS[name](f"{key}.{name}", text)
     if values["share"] is None:
         values["share"] = 1.0
-    return values
+    return ShaftElement(**{_ENGINE_NAMES.get(name, name): value for name, value in values.items()})
 
 
 def _parsed_shaft(shaft: Shaft, key: str) -> _ParsedShaft:
@@ -383,7 +378,8 @@ _LAYOUT_ENGINE_KEYS = {"bearing_a_position": "position_a", "bearing_b_position":
 
 
 # ---- the free body -------------------------------------------------------------------------
-class ShaftSolution(NamedTuple):
+@dataclass(frozen=True, slots=True)
+class ShaftSolution:
     """One state of a shaft solved: the loads on it, the reactions and per bearing (Fr, Fa) in N."""
 
     shaft: Shaft
@@ -396,113 +392,7 @@ class ShaftSolution(NamedTuple):
     derivation: Derivation
 
 
-def _torque(d: Derivation, power: float | None, torque: float | None, speed: float,
-            key: str) -> float:
-    """The state's torque: as given, or T = P/ω."""
-    if torque is not None:
-        return d.add("T", torque, symbol="T", label="Torque through the shaft", formula="given",
-                     template="{0}", args=(torque,), unit="N·m", source="input")
-    assert power is not None
-    with _engine_keys(key, {"power": "power", "speed": "speed"}):
-        value = torque_from_power(power, speed)
-    return d.add("T", value, symbol="T", label="Torque through the shaft",
-                 formula="T = P/(2π·n/60)", template="{0} / (2π × {1} / 60)", args=(power, speed),
-                 unit="N·m", source=TORQUE_SOURCE)
-
-
-def _element_load(d: Derivation, values: Mapping[str, Any], torque: float, rotation: int,
-                  key: str) -> PointLoad:
-    """The element's force on the shaft as a point load, with its steps."""
-    name, kind = values["name"], values["kind"]
-    share = values["share"]
-    if share != 1.0:
-        torque = d.add(f"T[{name}]", share * torque, symbol=f"T,{name}",
-                       label=f"Torque carried by {name}", formula="share·T", template="{0} × {1}",
-                       args=(share, torque), unit="N·m", source="input", result=False)
-    theta = values["mesh_angle"]
-    cos_t, sin_t = math.cos(math.radians(theta)), math.sin(math.radians(theta))
-    with _engine_keys(key, _ELEMENT_ENGINE_KEYS):
-        if kind == "pulley":
-            factor = V_BELT_PULL_FACTOR if values["pull_factor"] is None else values["pull_factor"]
-            pull = belt_pull(torque, values["diameter"], factor, theta)
-            note = None if values["pull_factor"] is not None else (
-                f"no pull factor given: the V-belt value {V_BELT_PULL_FACTOR:g} "
-                f"(spread {BELT_PULL_FACTORS['v_belt'][1][0]:g}–{BELT_PULL_FACTORS['v_belt'][1][1]:g})")
-            d.add(f"F[{name}]", pull.force, symbol=f"F,{name}", label=f"Belt pull of {name}",
-                  formula="F = f·2T/D", template="{0} × 2 × {1} / {2}",
-                  args=(factor, torque, values["diameter"]), unit="N", source=PULLEY_SOURCE,
-                  note=note, result=False)
-            d.add(f"Fy[{name}]", pull.fy, symbol=f"Fy,{name}", label=f"Pull of {name}, y",
-                  formula="F·cos θ", template="{0} × cos {1}°", args=(pull.force, theta), unit="N",
-                  source=RESOLVE_SOURCE, result=False)
-            d.add(f"Fz[{name}]", pull.fz, symbol=f"Fz,{name}", label=f"Pull of {name}, z",
-                  formula="F·sin θ", template="{0} × sin {1}°", args=(pull.force, theta), unit="N",
-                  source=RESOLVE_SOURCE, result=False)
-            return PointLoad(values["position"], pull.fy, pull.fz, 0.0, 0.0, theta, name)
-        if kind == "spur":
-            forces = spur_forces(torque, values["diameter"], values["pressure_angle"])
-            source, fx = SPUR_SOURCE, 0.0
-            radial_formula, radial_template = "Wt·tan φ", "{0} × tan {1}°"
-            angles: tuple[float, ...] = (values["pressure_angle"],)
-        elif kind == "helical":
-            forces = helical_forces(torque, values["diameter"], values["pressure_angle"],
-                                    values["helix_angle"], values["hand"], values["driving"],
-                                    rotation=rotation)
-            source, fx = HELICAL_SOURCE, forces.axial
-            radial_formula, radial_template = "Wt·tan φn/cos ψ", "{0} × tan {1}° / cos {2}°"
-            angles = (values["pressure_angle"], values["helix_angle"])
-        else:
-            forces = straight_bevel_forces(torque, values["diameter"], values["pressure_angle"],
-                                           values["pitch_cone_angle"])
-            source = BEVEL_SOURCE
-            fx = -forces.axial if values["apex"] == "B" else forces.axial
-            radial_formula, radial_template = "Wt·tan φ·cos γ", "{0} × tan {1}° × cos {2}°"
-            angles = (values["pressure_angle"], values["pitch_cone_angle"])
-    d.add(f"Wt[{name}]", forces.tangential, symbol=f"Wt,{name}",
-          label=f"Tangential load of {name}", formula="Wt = 2T/d", template="2 × {0} / {1}",
-          args=(torque, values["diameter"]), unit="N", source=source, result=False)
-    d.add(f"Wr[{name}]", forces.radial, symbol=f"Wr,{name}", label=f"Radial load of {name}",
-          formula=radial_formula, template=radial_template, args=(forces.tangential, *angles),
-          unit="N", source=source, note="toward the axis", result=False)
-    if kind == "helical":
-        role = "driving" if values["driving"] else "driven"
-        d.add(f"Wa[{name}]", fx, symbol=f"Wa,{name}", label=f"Axial load of {name}, + toward B",
-              formula="±Wt·tan ψ", template="({2}) × {0} × tan {1}°",
-              args=(forces.tangential, values["helix_angle"], math.copysign(1.0, fx)), unit="N",
-              source=source,
-              note=f"{values['hand']} hand, {role}, rotation {'+' if rotation > 0 else '−'}: " f"thrust toward {'B' if fx >= 0 else 'A'}",
-              result=False)
-    elif kind == "bevel":
-        d.add(f"Wa[{name}]", fx, symbol=f"Wa,{name}", label=f"Axial load of {name}, + toward B",
-              formula="±Wt·tan φ·sin γ", template="({3}) × {0} × tan {1}° × sin {2}°",
-              args=(forces.tangential, *angles, math.copysign(1.0, fx)), unit="N", source=source,
-              note=f"apex on the {values['apex']} side: thrust away from it", result=False)
-    # radial load toward the axis, tangential load against (driving) or with (driven) the motion
-    # of the mesh point, which moves along rotation·(−sin θ, cos θ) in (y, z)
-    along = -rotation if values["driving"] else rotation
-    fy = -forces.radial * cos_t - along * forces.tangential * sin_t
-    fz = -forces.radial * sin_t + along * forces.tangential * cos_t
-    role_words = "against the mesh-point motion (driving)" if values["driving"] else \
-        "with the mesh-point motion (driven)"
-    d.add(f"Fy[{name}]", fy, symbol=f"Fy,{name}", label=f"Force of {name}, y",
-          formula="−Wr·cos θ ∓ Wt·sin θ", template="−{0} × cos {2}° − ({3}) × {1} × sin {2}°",
-          args=(forces.radial, forces.tangential, theta, float(along)), unit="N",
-          source=RESOLVE_SOURCE, note=f"Wr toward the axis; Wt {role_words}", result=False)
-    d.add(f"Fz[{name}]", fz, symbol=f"Fz,{name}", label=f"Force of {name}, z",
-          formula="−Wr·sin θ ± Wt·cos θ", template="−{0} × sin {2}° + ({3}) × {1} × cos {2}°",
-          args=(forces.radial, forces.tangential, theta, float(along)), unit="N",
-          source=RESOLVE_SOURCE, result=False)
-    return PointLoad(values["position"], fy, fz, fx, values["diameter"] / 2.0, theta, name)
-
-
-class _PairBearing(NamedTuple):
-    inputs: CaseInputs
-    kind: Kind
-    arrangement: Arrangement
-    alpha: float
-
-
-def _bearing_inputs(session: Session, name: str, key: str) -> _PairBearing:
+def _bearing_inputs(session: Session, name: str, key: str) -> PairBearing:
     """The session bearing ``name`` as engine inputs; errors name ``bearings[n].<field>``."""
     for number, bearing in enumerate(session.bearings, start=1):
         if bearing.name == name:
@@ -521,64 +411,8 @@ def _bearing_inputs(session: Session, name: str, key: str) -> _PairBearing:
         kind, arrangement, alpha = validate(inputs)
     except InputError as exc:
         raise FieldError(f"{where}.{exc.field}", exc.message) from None
-    return _PairBearing(inputs, kind, arrangement, alpha)
-
-
-def _induced(bearing: _PairBearing, fr: float, fa: float) -> tuple[float, float, DynamicFactors]:
-    """(factor, Fi, factors): Y for a tapered bearing (Fi = Fr/(2Y)), e for angular contact."""
-    inputs = bearing.inputs
-    factors = dynamic_factors(bearing.kind, bearing.arrangement, bearing.alpha, fa, inputs.c0,
-                              inputs.f0, inputs.e_given, inputs.y_given)
-    if bearing.kind is Kind.TAPERED:
-        return factors.y_high, induced_thrust_tapered(fr, factors.y_high), factors
-    return factors.e, induced_thrust_angular_contact(fr, factors.e), factors
-
-
-def _pair_steps(d: Derivation, pair: dict[str, _PairBearing], reactions: ShaftReactions,
-                mounting: str) -> dict[str, float]:
-    """Induced thrusts and the thrust-sharing rule; returns Fa per side (fixed point, see notes)."""
-    fr = {"A": reactions.radial_a, "B": reactions.radial_b}
-    fa = {"A": 0.0, "B": 0.0}
-    for _ in range(PAIR_ITERATIONS):
-        induced = {side: _induced(pair[side], fr[side], fa[side]) for side in SIDES}
-        fa_a, fa_b, explanation = share_thrust(fr["A"], fr["B"], induced["A"][1], induced["B"][1],
-                                               reactions.thrust, mounting)  # type: ignore[arg-type]
-        settled = max(abs(fa_a - fa["A"]), abs(fa_b - fa["B"])) <= 1e-9 * max(fa_a, fa_b, 1.0)
-        fa = {"A": fa_a, "B": fa_b}
-        if settled:
-            break
-    warning = None if settled else (
-        f"the axial loads of the pair did not settle in {PAIR_ITERATIONS} rounds (e depends on Fa)")
-    for side in SIDES:
-        factor, fi, factors = induced[side]
-        if pair[side].kind is Kind.TAPERED:
-            d.add(f"Y_{side}", factor, symbol=f"Y,{side}",
-                  label=f"Axial factor of bearing {side} (Fa/Fr > e)", formula=factors.basis,
-                  template="{0}", args=(factor,), source=factors.source,
-                  note="the Y of the bearing's own derivation on the Fa/Fr > e branch")
-            d.add(f"Fi_{side}", fi, symbol=f"Fi,{side}", label=f"Induced thrust of bearing {side}",
-                  formula="Fr/(2Y)", template="{0} / (2 × {1})", args=(fr[side], factor), unit="N",
-                  source=TAPERED_SOURCE)
-        else:
-            d.add(f"e_{side}", factor, symbol=f"e,{side}",
-                  label=f"Limit ratio e of bearing {side}", formula=factors.basis, template="{0}",
-                  args=(factor,), source=factors.source,
-                  note="at the bearing's own Fa" if factors.index_formula else None)
-            d.add(f"Fi_{side}", fi, symbol=f"Fi,{side}", label=f"Induced thrust of bearing {side}",
-                  formula="e·Fr", template="{0} × {1}", args=(factor, fr[side]), unit="N",
-                  source=ANGULAR_SOURCE)
-    for side in SIDES:
-        d.add(f"Fa_{side}", fa[side], symbol=f"Fa,{side}", label=f"Axial load on bearing {side}",
-              formula="thrust-sharing rule", template="{0}", args=(fa[side],), unit="N",
-              source=SHARING_SOURCE, warning=warning if side == "B" else None, note=explanation)
-    return fa
-
-
-def _merge(target: Derivation, more: Derivation) -> None:
-    target.steps.extend(more.steps)
-    target.results.update(more.results)
-    target.warnings.extend(more.warnings)
-    target.notes.extend(more.notes)
+    return PairBearing(kind=kind, arrangement=arrangement, alpha_deg=alpha, c0=inputs.c0,
+                       f0=inputs.f0, e_given=inputs.e_given, y_given=inputs.y_given)
 
 
 def _state_key(shaft: Shaft, state: OperatingState, key: str) -> str:
@@ -614,21 +448,26 @@ def solve_shaft(shaft: Shaft, state: OperatingState, session: Session, *,
                 raise FieldError(f"{key}.{side}",
                                  f"no bearing called {getattr(shaft, side)!r} in this session")
     d = Derivation()
-    total_torque = _torque(d, power, torque, speed, state_key)
-    loads = tuple(_element_load(d, values, total_torque, parsed.rotation,
-                                f"{key}.elements[{number}]")
-                  for number, values in enumerate(parsed.elements, start=1))
+    with _engine_keys(state_key, {"power": "power", "speed": "speed"}):
+        total_torque = shaft_torque(d, power_W=power, torque_Nm=torque, speed_rpm=speed)
+    loads = []
+    for number, element in enumerate(parsed.elements, start=1):
+        with _engine_keys(f"{key}.elements[{number}]", _ELEMENT_ENGINE_KEYS):
+            loads.append(element_load(d, element, total_torque, rotation=parsed.rotation))
     layout = ShaftLayout(parsed.position_a, parsed.position_b,
-                         "both" if pair is not None else parsed.locating, loads)  # type: ignore[arg-type]
+                         "both" if pair is not None else parsed.locating,  # type: ignore[arg-type]
+                         tuple(loads))
     with _engine_keys(key, _LAYOUT_ENGINE_KEYS):
         reactions = solve_reactions(layout)
-        _merge(d, derivation_steps(layout, reactions))
+        d.extend(derivation_steps(layout, reactions))
     if pair is not None:
-        fa = _pair_steps(d, pair, reactions, parsed.mounting)
+        fa = paired_axial_loads(d, pair, {"A": reactions.radial_a, "B": reactions.radial_b},
+                                reactions.thrust, parsed.mounting)  # type: ignore[arg-type]
     else:
         fa = {"A": reactions.axial_a, "B": reactions.axial_b}
     bearing_loads = {"A": (reactions.radial_a, fa["A"]), "B": (reactions.radial_b, fa["B"])}
-    return ShaftSolution(shaft, state, total_torque, speed, loads, reactions, bearing_loads, d)
+    return ShaftSolution(shaft, state, total_torque, speed, layout.loads, reactions, bearing_loads,
+                         d)
 
 
 # ---- load cases ----------------------------------------------------------------------------
