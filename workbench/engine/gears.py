@@ -28,7 +28,8 @@ from __future__ import annotations
 
 import math
 import numbers
-from typing import Literal, NamedTuple
+from dataclasses import dataclass
+from typing import Literal
 
 import numpy as np
 
@@ -47,7 +48,8 @@ BELT_PULL_FACTORS: dict[str, tuple[float, tuple[float, float]]] = {
 V_BELT_PULL_FACTOR = BELT_PULL_FACTORS["v_belt"][0]
 
 
-class MeshForces(NamedTuple):
+@dataclass(frozen=True, slots=True)
+class MeshForces:
     """Tangential Wt, radial Wr (magnitudes) and axial Wa (signed, see module notes), in N."""
 
     tangential: Num
@@ -55,7 +57,8 @@ class MeshForces(NamedTuple):
     axial: Num
 
 
-class BeltPull(NamedTuple):
+@dataclass(frozen=True, slots=True)
+class BeltPull:
     """Resultant pull of a belt or chain on its shaft, in N, and its y and z components."""
 
     force: Num

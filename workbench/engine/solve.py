@@ -10,7 +10,7 @@ from __future__ import annotations
 
 import math
 from dataclasses import dataclass, replace
-from typing import Callable, NamedTuple
+from typing import Callable
 
 from .derive import CaseInputs, derive
 from .record import Derivation, InputError, fmt
@@ -21,7 +21,8 @@ GRID_POINTS = 25  # scan for sign changes before brentq: catches a second root o
 SWITCH_BISECTIONS = 24  # locate an e switch between grid points to about 1e-6 of the span
 
 
-class Unknown(NamedTuple):
+@dataclass(frozen=True, slots=True)
+class Unknown:
     """An input the solver can vary: its label, unit, the range it may take, and how it scales."""
 
     name: str

@@ -37,7 +37,7 @@ from __future__ import annotations
 import math
 from collections.abc import Mapping, Sequence
 from dataclasses import dataclass, field
-from typing import Any, NamedTuple
+from typing import Any
 
 from ..engine import duty
 from ..engine.kinds import ROLLER_KINDS, parse_kind
@@ -68,7 +68,8 @@ class DutyCycle:
     basis: str = "time"
 
 
-class DutyResult(NamedTuple):
+@dataclass(frozen=True, slots=True)
+class DutyResult:
     """A duty cycle worked out: Miner life, hours at the mean speed, each state's damage share.
 
     ``bearing`` and ``kind`` are the session bearing the states load and its kind.
@@ -88,7 +89,8 @@ class DutyResult(NamedTuple):
     derivation: Derivation
 
 
-class SystemResult(NamedTuple):
+@dataclass(frozen=True, slots=True)
+class SystemResult:
     """A shaft's bearings as a series system: each duty life and the combined life."""
 
     shaft: Shaft

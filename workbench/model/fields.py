@@ -8,7 +8,8 @@ files and the case editor all go through :func:`parse_field`, so "2 kN" means on
 from __future__ import annotations
 
 import math
-from typing import Mapping, NamedTuple
+from dataclasses import dataclass
+from typing import Mapping
 
 from ..engine import tables as T
 from ..engine.derive import RELIABILITY_MODELS, CaseInputs
@@ -18,7 +19,8 @@ from .quantities import QuantityError, parse
 MAX_TEXT = 200
 
 
-class FieldSpec(NamedTuple):
+@dataclass(frozen=True, slots=True)
+class FieldSpec:
     """One input: ``kind`` is quantity, number, fraction, choice or switch."""
 
     name: str
