@@ -27,13 +27,10 @@ driving gear and follows it on a driven one).  The axial load Wa is signed:
 from __future__ import annotations
 
 import math
-import numbers
 from dataclasses import dataclass
 from typing import Literal
 
-import numpy as np
-
-from .num import Num, cosd, extremes, sind, tand
+from .num import Num, cosd, extremes, is_number, sind, tand
 from .record import InputError
 
 #: Shaft-load factor f in F = f·Wt for belt and chain drives, with the usual spread [common
@@ -72,7 +69,7 @@ def checked(field_name: str, value: Num, *, low: float | None = None, high: floa
 
     Works on a float or on every element of a numpy array.
     """
-    if not isinstance(value, numbers.Real | np.ndarray) or isinstance(value, bool):
+    if not is_number(value):
         raise InputError(field_name, f"a number is needed, not {value!r}")
     span = extremes(value)
     if span is None:  # an empty array

@@ -11,6 +11,7 @@ scalar (about a microsecond).  Angles are in degrees.
 from __future__ import annotations
 
 import math
+import numbers
 from bisect import bisect_right
 from collections.abc import Sequence
 from typing import TypeAlias
@@ -23,6 +24,11 @@ Num: TypeAlias = float | np.ndarray
 def _is_array(*values: object) -> bool:
     """True when any value is a numpy array (then numpy does the work)."""
     return any(isinstance(v, np.ndarray) for v in values)
+
+
+def is_number(value: object) -> bool:
+    """True for a real number (not a bool) or a numpy array."""
+    return _is_array(value) or (isinstance(value, numbers.Real) and not isinstance(value, bool))
 
 
 def as_number(value: object) -> Num:

@@ -5,10 +5,11 @@ larger) and carries gears and pulleys (:class:`Element`); each :class:`Operating
 torque (or power) and speed it runs at and its share of the time.  Like the rest of the session,
 every value is the text a person typed ("80 mm", "20°", "15 kW").
 
-:func:`solve_shaft` works the free body of one state: the mesh or belt force of each element by
-the gear-force relations, the bearing reactions by shaft statics (:mod:`workbench.engine.shaft`),
-and for a pair of angular-contact or tapered roller bearings adjusted against each other the axial
-loads by the two-bearing thrust-sharing rule (:mod:`workbench.engine.pairs`).
+:func:`solve_shaft` turns the texts into the engine's inputs and has the engine work the free
+body of one state: the mesh or belt force of each element by the gear-force relations and the
+bearing reactions by shaft statics (:mod:`workbench.engine.shaft`), and for a pair of
+angular-contact or tapered roller bearings adjusted against each other the axial loads by the
+two-bearing thrust-sharing rule (:mod:`workbench.engine.pairs`).
 :func:`generated_cases` turns each shaft × state × bearing into an ordinary :class:`LoadCase`, so
 ``evaluate_case``, the solver and the selection apply to it unchanged.
 
@@ -53,14 +54,9 @@ Table layout (TOML, an array of tables; every value is text)::
 Errors are :class:`~workbench.model.fields.FieldError` naming the key, counted from 1 like the
 session file: ``shafts[1].elements[2].helix_angle``.
 
-Y for the induced thrust: the induced axial component of a tapered roller bearing is taken in its
-ISO form Fi = Fr/(2Y), with Y the bearing's axial factor on the Fa/Fr > e branch as
-``engine.kinds.dynamic_factors`` gives it — the maker's Y when the bearing has one, else
-0.4·cot α from its contact angle (or from the maker's e through e = 1.5·tan α) — that is, the very
-Y the bearing's own derivation shows on that branch.  An angular-contact ball bearing takes
-Fi = e·Fr with its ISO 281 Table 3 e (common practice); where e depends on the bearing's own axial
-load (the 15° rows, by f0·Fa/C0) the loads are found by fixed-point iteration, which rises
-monotonically from Fa = 0 because e grows with Fa.
+Y for the induced thrust: a pair's bearings are read from the session as
+:class:`~workbench.engine.pairs.PairBearing`; :func:`~workbench.engine.pairs.induced_thrust` takes
+the very Y (or e) the bearing's own derivation shows on the Fa/Fr > e branch.
 """
 
 from __future__ import annotations
@@ -415,6 +411,13 @@ def _bearing_inputs(session: Session, name: str, key: str) -> PairBearing:
                        f0=inputs.f0, e_given=inputs.e_given, y_given=inputs.y_given)
 
 
+def _element_load(d: Derivation, element: ShaftElement, torque: float, rotation: int,
+                  key: str) -> PointLoad:
+    """The element's load on the shaft (engine), its errors named under the element's ``key``."""
+    with _engine_keys(key, _ELEMENT_ENGINE_KEYS):
+        return element_load(d, element, torque, rotation=rotation)
+
+
 def _state_key(shaft: Shaft, state: OperatingState, key: str) -> str:
     for number, item in enumerate(shaft.states, start=1):
         if item is state:
@@ -450,13 +453,12 @@ def solve_shaft(shaft: Shaft, state: OperatingState, session: Session, *,
     d = Derivation()
     with _engine_keys(state_key, {"power": "power", "speed": "speed"}):
         total_torque = shaft_torque(d, power_W=power, torque_Nm=torque, speed_rpm=speed)
-    loads = []
-    for number, element in enumerate(parsed.elements, start=1):
-        with _engine_keys(f"{key}.elements[{number}]", _ELEMENT_ENGINE_KEYS):
-            loads.append(element_load(d, element, total_torque, rotation=parsed.rotation))
+    loads = tuple(_element_load(d, element, total_torque, parsed.rotation,
+                                f"{key}.elements[{number}]")
+                  for number, element in enumerate(parsed.elements, start=1))
     layout = ShaftLayout(parsed.position_a, parsed.position_b,
                          "both" if pair is not None else parsed.locating,  # type: ignore[arg-type]
-                         tuple(loads))
+                         loads)
     with _engine_keys(key, _LAYOUT_ENGINE_KEYS):
         reactions = solve_reactions(layout)
         d.extend(derivation_steps(layout, reactions))
@@ -466,8 +468,7 @@ def solve_shaft(shaft: Shaft, state: OperatingState, session: Session, *,
     else:
         fa = {"A": reactions.axial_a, "B": reactions.axial_b}
     bearing_loads = {"A": (reactions.radial_a, fa["A"]), "B": (reactions.radial_b, fa["B"])}
-    return ShaftSolution(shaft, state, total_torque, speed, layout.loads, reactions, bearing_loads,
-                         d)
+    return ShaftSolution(shaft, state, total_torque, speed, loads, reactions, bearing_loads, d)
 
 
 # ---- load cases ----------------------------------------------------------------------------
