@@ -102,10 +102,12 @@ def run_benchmarks(quick: bool = False) -> dict[str, Any]:
     from ..engine.select import benchmark_select
 
     figures.update(benchmark_select(n_bearings=1000 if quick else 10000))
-    from ..tui.bench import measure_keystroke_ms, measure_startup_ratio
+    from ..tui import bench as screen
 
-    figures["keystroke_ms"] = measure_keystroke_ms(cases=20)
-    figures["startup_ratio"] = measure_startup_ratio()
+    figures.update(screen.measure_typing(
+        screen.QUICK_TYPING_KEYS if quick else screen.TYPING_KEYS))
+    figures["startup_ratio"] = screen.measure_startup_ratio(
+        screen.QUICK_STARTUP_ROUNDS if quick else screen.STARTUP_ROUNDS)
     return figures
 
 
