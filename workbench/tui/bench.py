@@ -208,9 +208,10 @@ def _number_end(text: str) -> int:
 
 
 async def _type_in(app: App[object], field: str, pane: str, keys: int) -> list[KeyTiming]:
-    show_pane(app, pane)  # first: on the new screen showing a pane moves the focus into it
+    """Type ``keys`` keys in ``field`` with ``pane`` on show; each key's timing."""
     from textual.widgets import Input
 
+    show_pane(app, pane)  # first: on the new screen showing a pane moves the focus into it
     box = await focus_field(app, field)
     for text_box in app.screen.query(Input):
         text_box.cursor_blink = False
