@@ -1,6 +1,7 @@
 """``workbench bench [--json] [--quick]``: speed figures measured on this machine, in one run.
 
-Each figure is a median over repeated runs.  ``pint_ratio`` compares the engine with the same
+Each figure is a median over repeated runs, but for the typing figures, 90th percentiles over
+keys (:mod:`workbench.tui.bench`).  ``pint_ratio`` compares the engine with the same
 chain of ISO 281 / ISO 76 relations evaluated on pint quantities throughout
 (:func:`pint_chain`), which doubles as a unit cross-check in the tests.
 """

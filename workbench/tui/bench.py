@@ -51,7 +51,7 @@ TYPING_FIELDS = ("fr", "c")
 TYPING_PANES = ("derivation", "solver", "whatif")
 TYPING_KEYS = 40
 """Keys per combination of field and pane."""
-QUICK_TYPING_KEYS = 4
+QUICK_TYPING_KEYS = 2
 QUIET_S = 0.3
 """The screen is settled after a key once it has drawn nothing for this long."""
 SETTLE_LIMIT_S = 5.0
