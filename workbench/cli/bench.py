@@ -124,5 +124,12 @@ def run(args: argparse.Namespace) -> int:
         print_json(figures)
     else:
         for key, value in figures.items():
-            print(f"{key:>16}  {value:.4g}" if isinstance(value, float) else f"{key:>16}  {value}")
+            if isinstance(value, dict):  # a figure's parts (echo_settle: one line a combination)
+                print(f"{key:>16}")
+                for part, numbers in value.items():
+                    print(f"{part:>16}  " + "  ".join(f"{name} {number:.4g}"
+                                                      for name, number in numbers.items()))
+            else:
+                print(f"{key:>16}  {value:.4g}" if isinstance(value, float)
+                      else f"{key:>16}  {value}")
     return 0
