@@ -1,4 +1,4 @@
-"""What-if curves are samples of the engine itself; the text plot fits its box."""
+"""What-if curves are samples of the engine itself."""
 
 from __future__ import annotations
 
@@ -8,7 +8,6 @@ from workbench.engine.curves import aiso_curve, life_curve
 from workbench.engine.derive import CaseInputs, derive
 from workbench.engine.life import aiso
 from workbench.engine.solve import apply_unknown
-from workbench.plot_text import plot_lines
 
 CASE = CaseInputs(kind="deep-groove", fr=5200.0, fa=1300.0, c=33000.0, c0=19000.0, speed=1450.0,
                   nu=20.0, dm=47.5, cleanliness="normal")
@@ -42,11 +41,3 @@ def test_aiso_curve_uses_the_case_load_ratio() -> None:
     assert curve.y[0] == pytest.approx(aiso(curve.x[0], ratio, False))
     plain = CaseInputs(kind="deep-groove", fr=5200.0, c=33000.0, c0=19000.0, speed=1450.0)
     assert aiso_curve(plain) is None
-
-
-@pytest.mark.parametrize(("width", "height"), [(40, 8), (60, 12)])
-def test_plot_fits_its_box(width: int, height: int) -> None:
-    lines = plot_lines(life_curve(CASE, 20000.0), width, height)
-    assert len(lines) == height + 3
-    assert all(len(line) <= width + 10 for line in lines[:-1])
-    assert any("●" in line for line in lines)

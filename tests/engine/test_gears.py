@@ -10,7 +10,9 @@ import pytest
 from workbench.engine.gears import (
     BELT_PULL_FACTORS,
     belt_pull,
+    bevel_axial_load,
     helical_forces,
+    mesh_force_components,
     spur_forces,
     straight_bevel_forces,
     torque_from_power,
@@ -137,3 +139,34 @@ def test_bad_input_names_its_field(call, field: str) -> None:
     with pytest.raises(InputError) as caught:
         call()
     assert caught.value.field == field
+
+
+# ---- resolution in the shaft frame ------------------------------------------------------------
+def test_mesh_force_components_at_the_axes() -> None:
+    # Gear statics by hand: Wr points from the mesh point toward the axis; the mesh point at θ moves
+    # along rotation·(−sin θ, cos θ), and Wt opposes that motion on a driving gear.
+    # θ = 0°, driving, + rotation: the point moves along +z → Fy = −Wr, Fz = −Wt.
+    assert mesh_force_components(2000.0, 750.0, 0.0, rotation=1, driving=True) == (
+        pytest.approx(-750.0), pytest.approx(-2000.0))
+    # θ = 90°, driving, + rotation: the point moves along −y → Fy = +Wt, Fz = −Wr.
+    fy, fz = mesh_force_components(2000.0, 750.0, 90.0, rotation=1, driving=True)
+    assert (fy, fz) == (pytest.approx(2000.0), pytest.approx(-750.0))
+    # a driven gear, or the other rotation, turns the tangential part round
+    for changes in ({"rotation": -1, "driving": True}, {"rotation": 1, "driving": False}):
+        fy, fz = mesh_force_components(2000.0, 750.0, 90.0, **changes)  # type: ignore[arg-type]
+        assert (fy, fz) == (pytest.approx(-2000.0), pytest.approx(-750.0))
+
+
+@pytest.mark.parametrize("theta", [-170.0, -45.0, 13.0, 120.0, 200.0])
+def test_mesh_force_components_keep_the_magnitude(theta: float) -> None:
+    # A rotation of the frame keeps |F| = √(Wt² + Wr²) (closed form).
+    fy, fz = mesh_force_components(1234.0, 456.0, theta, rotation=-1, driving=False)
+    assert math.hypot(fy, fz) == pytest.approx(math.hypot(1234.0, 456.0), rel=1e-12)
+
+
+def test_bevel_axial_load_points_away_from_the_apex() -> None:
+    # Straight bevel gear force relations: the thrust points from the apex toward the back cone.
+    assert bevel_axial_load(300.0, "A") == 300.0
+    assert bevel_axial_load(300.0, "B") == -300.0
+    with pytest.raises(InputError):
+        bevel_axial_load(300.0, "C")  # type: ignore[arg-type]

@@ -8,13 +8,17 @@ import pytest
 from hypothesis import given, settings
 from hypothesis import strategies as st
 
+from workbench.engine.kinds import Arrangement, Kind
 from workbench.engine.pairs import (
+    PairBearing,
+    induced_thrust,
     induced_thrust_angular_contact,
     induced_thrust_tapered,
+    paired_axial_loads,
     receiving_bearing,
     share_thrust,
 )
-from workbench.engine.record import InputError
+from workbench.engine.record import Derivation, InputError
 
 
 def test_induced_thrust_tapered_iso_form() -> None:
@@ -120,3 +124,37 @@ def test_bad_input(args: tuple, field: str) -> None:
     assert caught.value.field == field
     with pytest.raises(InputError):
         induced_thrust_tapered(1000.0, 0.0)
+
+
+# ---- a pair on a shaft -------------------------------------------------------------------------
+def _taper(y: float) -> PairBearing:
+    return PairBearing(kind=Kind.TAPERED, arrangement=Arrangement.SINGLE, alpha_deg=15.0,
+                       c0=60_000.0, e_given=0.4, y_given=y)
+
+
+@pytest.mark.parametrize("mounting", ["O", "X"])
+@pytest.mark.parametrize("thrust", [-900.0, 0.0, 250.0, 2500.0])
+def test_paired_axial_loads_of_a_tapered_pair(mounting: str, thrust: float) -> None:
+    # ISO form Fi = Fr/(2Y) with the maker's Y (1.6 at A, 1.8 at B), then the rule as share_thrust
+    # gives it; the steps carry Y, Fi and Fa of each side.
+    d = Derivation()
+    fa = paired_axial_loads(d, {"A": _taper(1.6), "B": _taper(1.8)}, {"A": 4000.0, "B": 2500.0},
+                            thrust, mounting)  # type: ignore[arg-type]
+    expected = share_thrust(4000.0, 2500.0, 4000.0 / 3.2, 2500.0 / 3.6, thrust,
+                            mounting)  # type: ignore[arg-type]
+    assert (fa["A"], fa["B"]) == (pytest.approx(expected[0], rel=1e-12),
+                                  pytest.approx(expected[1], rel=1e-12))
+    assert d.results["Fi_B"] == pytest.approx(2500.0 / 3.6, rel=1e-12)
+    assert d.results["Y_A"] == 1.6
+    assert d.step("Fa_A").note == expected[2]
+    assert not d.warnings
+
+
+def test_induced_thrust_of_an_angular_contact_bearing_uses_e() -> None:
+    # Fi = e·Fr (common practice) with e = 1.14 for 40° (ISO 281 Table 3 as quoted in
+    # REFERENCE.md §2, from memory): 3000·1.14 = 3420 N.
+    bearing = PairBearing(kind=Kind.ANGULAR_CONTACT, arrangement=Arrangement.SINGLE,
+                          alpha_deg=40.0, c0=30_000.0)
+    factor, fi, _ = induced_thrust(bearing, 3000.0, 0.0)
+    assert factor == pytest.approx(1.14)
+    assert fi == pytest.approx(3420.0, rel=1e-12)

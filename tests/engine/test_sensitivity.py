@@ -10,7 +10,7 @@ import pytest
 
 from workbench.engine.derive import CaseInputs, derive
 from workbench.engine.sensitivity import SensitivityItem, benchmark_sensitivity, sensitivity_of
-from workbench.render import sensitivity_text
+from workbench.report.text import sensitivity_text
 
 H = 0.01
 # Deep-groove case with f0 given and no lubrication data, so aISO = 1 (ISO 281:2007 §9.3 not used).

@@ -9,8 +9,11 @@ import pytest
 from hypothesis import given, settings
 from hypothesis import strategies as st
 
-from workbench.engine.record import InputError
-from workbench.engine.shaft import PointLoad, ShaftLayout, derivation_steps, solve_reactions
+from workbench.engine.record import Derivation, InputError
+from workbench.engine.shaft import (
+    PointLoad, ShaftElement, ShaftLayout, derivation_steps, element_load, shaft_torque,
+    solve_reactions,
+)
 
 positions = st.floats(-500.0, 500.0, allow_nan=False)
 forces = st.floats(-2e4, 2e4, allow_nan=False)
@@ -121,3 +124,45 @@ def test_bad_layouts_raise_input_error(layout: ShaftLayout, field: str) -> None:
     with pytest.raises(InputError) as caught:
         solve_reactions(layout)
     assert caught.value.field == field
+
+
+# ---- the loads of gears and pulleys -----------------------------------------------------------
+def test_shaft_torque_given_or_from_power() -> None:
+    # T = P/ω, ω = 2π·n/60: 15 kW at 1200 r/min → 15 000·60/(2π·1200) = 119.366 N·m.
+    d = Derivation()
+    assert shaft_torque(d, power_W=None, torque_Nm=80.0, speed_rpm=1000.0) == 80.0
+    assert shaft_torque(d, power_W=15_000.0, torque_Nm=None, speed_rpm=1200.0) == pytest.approx(
+        15_000 * 60 / (2 * math.pi * 1200), rel=1e-12)
+    assert d.step("T").formula == "T = P/(2π·n/60)"
+
+
+def test_helical_element_load_by_hand() -> None:
+    # The hand case of tests/model/test_shafts.py: right-hand driving pinion, d = 100 mm, φn = 20°,
+    # ψ = 15°, T = 100 N·m, mesh point at θ = 0°, + rotation.  Wt = 2000 N,
+    # Wr = 2000·tan 20°/cos 15° = 753.62 N, Wa = 2000·tan 15° = 535.90 N toward +x;
+    # Fy = −Wr, Fz = −Wt, Fx acting at y = +50 mm.
+    pinion = ShaftElement(name="pinion", kind="helical", position_mm=80.0, diameter_mm=100.0,
+                          mesh_angle_deg=0.0, pressure_angle_deg=20.0, helix_angle_deg=15.0,
+                          hand="right", driving=True)
+    d = Derivation()
+    load = element_load(d, pinion, 100.0, rotation=1)
+    wr = 2000 * math.tan(math.radians(20)) / math.cos(math.radians(15))
+    assert (load.x_mm, load.radius_mm, load.angle_deg, load.name) == (80.0, 50.0, 0.0, "pinion")
+    assert load.fy == pytest.approx(-wr, rel=1e-12)
+    assert load.fz == pytest.approx(-2000.0, rel=1e-12)
+    assert load.fx == pytest.approx(2000 * math.tan(math.radians(15)), rel=1e-12)
+    assert [step.key for step in d.steps] == [
+        "Wt[pinion]", "Wr[pinion]", "Wa[pinion]", "Fy[pinion]", "Fz[pinion]"]
+    assert d.results == {}  # the element's steps are shown, not results of the shaft
+
+
+def test_pulley_load_takes_its_share_and_the_v_belt_factor() -> None:
+    # F = f·2T/D (common practice f = 2 for a V belt) at half of 100 N·m on D = 200 mm:
+    # 2·2·50 000/200 = 1000 N, pointing at θ = 90° (+z).
+    pulley = ShaftElement(name="pulley", kind="pulley", position_mm=-40.0, diameter_mm=200.0,
+                          mesh_angle_deg=90.0, share=0.5)
+    d = Derivation()
+    load = element_load(d, pulley, 100.0, rotation=-1)
+    assert (load.fy, load.fz, load.fx) == (pytest.approx(0.0, abs=1e-9), pytest.approx(1000.0), 0.0)
+    assert d.step("T[pulley]").value == 50.0
+    assert "V-belt value 2" in (d.step("F[pulley]").note or "")

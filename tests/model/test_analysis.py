@@ -17,6 +17,7 @@ from pathlib import Path
 
 import pytest
 
+from workbench.engine.shaft import HELICAL_SOURCE
 from workbench.model.analysis import analyse, session_duty_cycles, session_shafts, time_shares
 from workbench.model.duty_cycles import (
     DutyCycle, duty_cycle_to_table, duty_life, shaft_cycles, system_life,
@@ -24,8 +25,7 @@ from workbench.model.duty_cycles import (
 from workbench.model.session import Bearing, LoadCase, Session
 from workbench.model.sessionfile import load_session
 from workbench.model.shafts import (
-    HELICAL_SOURCE, Element, OperatingState, Shaft, generated_cases, is_generated, shaft_to_table,
-    solve_shaft,
+    Element, OperatingState, Shaft, generated_cases, is_generated, shaft_to_table, solve_shaft,
 )
 from workbench.report import render_report
 

@@ -237,6 +237,19 @@ def test_tapered_pair_y_from_contact_angle() -> None:
     assert solution.bearing_loads["B"][1] == pytest.approx(expected[1], rel=1e-12)
 
 
+def test_pair_derivation_shows_the_statics_before_the_sharing_rule() -> None:
+    # The reactions (shaft statics) come first, then the induced thrusts and the rule's Fa; the
+    # statics leave Fa undefined for a pair, the rule fills it in.
+    shaft = hand_shaft(bearing_a="taper 1.6", bearing_b="taper 1.8", locating="pair",
+                       mounting="O")
+    derivation = solve_shaft(shaft, shaft.states[0], session()).derivation
+    keys = [step.key for step in derivation.steps]
+    assert keys.index("R_By") < keys.index("Fr_B") < keys.index("Fi_A") < len(keys) - 2
+    assert keys[-2:] == ["Fa_A", "Fa_B"]
+    assert "shaft statics, ΣF = 0, ΣM = 0" in derivation.sources
+    assert derivation.step("Fa_B").value == derivation.results["Fa_B"] > 0.0
+
+
 @pytest.mark.parametrize("mounting", ["O", "X"])
 def test_angular_contact_pair_uses_e(mounting: str) -> None:
     # Fi = e·Fr (common practice), e = 1.14 for 40° (ISO 281 Table 3 as quoted in REFERENCE.md §2,

@@ -194,9 +194,10 @@ def derive(case: CaseInputs, keep_steps: bool = True) -> Derivation:
     p = d.results["P"]
     p_eff = p * case.af
     if case.af != 1.0:
-        d.derived("P_eff", p_eff, lambda: (
-            "af·P", "Load with the application factor", "af·P", "{0} × {1}", (case.af, p), "N",
-            "common practice", T.APPLICATION_FACTOR_HINT))
+        d.derived("P_eff", p_eff, lambda: StepWords(
+            symbol="af·P", label="Load with the application factor", formula="af·P",
+            template="{0} × {1}", args=(case.af, p), unit="N", source="common practice",
+            note=T.APPLICATION_FACTOR_HINT))
     exponent = life_exponent(kind)
     rating_mrev = rating_basis_mrev(case)
     l10 = rating_mrev * basic_rating_life(case.c, p_eff, exponent)
@@ -205,9 +206,10 @@ def derive(case: CaseInputs, keep_steps: bool = True) -> Derivation:
     a_rel = _reliability(d, case)
     a_iso = _lubrication(d, case, kind, p_eff)
     lnm_mrev = a_rel * a_iso * l10
-    d.derived("Lnm_mrev", lnm_mrev, lambda: (
-        "Lnm", "Modified rating life", "a1·aISO·L10", "{0} × {1} × {2}", (a_rel, a_iso, l10),
-        "10⁶ rev", MODIFIED_LIFE_SOURCE, None))
+    d.derived("Lnm_mrev", lnm_mrev, lambda: StepWords(
+        symbol="Lnm", label="Modified rating life", formula="a1·aISO·L10",
+        template="{0} × {1} × {2}", args=(a_rel, a_iso, l10), unit="10⁶ rev",
+        source=MODIFIED_LIFE_SOURCE))
     _hours(d, "Lnm", "Lnm", "Modified rating life in hours", lnm_mrev, case.speed, kind)
     _static(d, case, kind, arrangement, alpha)
     return d
@@ -217,11 +219,15 @@ def _l10_words(case: CaseInputs, kind: Kind, rating_mrev: float, p_eff: float,
                exponent: float) -> StepWords:
     p_word = "10/3 (roller)" if kind in ROLLER_KINDS else "3 (ball)"
     if rating_mrev != 1.0:
-        return ("L10", "Basic rating life", "LR·(C/P)^p", "{0} × ({1} / {2})^{3}",
-                         (rating_mrev, case.c, p_eff, exponent), "10⁶ rev", _LIFE_CLAUSE[kind],
-                         f"p = {p_word}; C rated at LR = {rating_mrev:g}·10⁶ revolutions")
-    return ("L10", "Basic rating life", "(C/P)^p", "({0} / {1})^{2}",
-                     (case.c, p_eff, exponent), "10⁶ rev", _LIFE_CLAUSE[kind], f"p = {p_word}")
+        return StepWords(
+            symbol="L10", label="Basic rating life", formula="LR·(C/P)^p",
+            template="{0} × ({1} / {2})^{3}", args=(rating_mrev, case.c, p_eff, exponent),
+            unit="10⁶ rev", source=_LIFE_CLAUSE[kind],
+            note=f"p = {p_word}; C rated at LR = {rating_mrev:g}·10⁶ revolutions")
+    return StepWords(
+        symbol="L10", label="Basic rating life", formula="(C/P)^p", template="({0} / {1})^{2}",
+        args=(case.c, p_eff, exponent), unit="10⁶ rev", source=_LIFE_CLAUSE[kind],
+        note=f"p = {p_word}")
 
 
 def _dynamic_load(d: Derivation, case: CaseInputs, kind: Kind, arrangement: Arrangement,
@@ -232,20 +238,22 @@ def _dynamic_load(d: Derivation, case: CaseInputs, kind: Kind, arrangement: Arra
     v = rotation_factor(case)
     p, ratio, high, possible = dynamic_load(kind, factors, case.fr, case.fa, v)
     if case.outer_ring_rotates:
-        d.derived("V", v, lambda: (
-            "V", "Rotation factor", "outer ring rotates relative to the load", "1.2", (), "",
-            "common practice (older practice; ISO 281:2007 no longer carries V)",
-            "V multiplies Fr in the branch test and in X·V·Fr"))
+        d.derived("V", v, lambda: StepWords(
+            symbol="V", label="Rotation factor", formula="outer ring rotates relative to the load",
+            template="1.2",
+            source="common practice (older practice; ISO 281:2007 no longer carries V)",
+            note="V multiplies Fr in the branch test and in X·V·Fr"))
     if kind is _CYLINDRICAL:
-        d.derived("P", p, lambda: (
-            "P", "Equivalent dynamic load", "P = Fr (α = 0)", "{0}", (case.fr,), "N",
-            factors.source, None), _cylindrical_axial_warning(case))
+        d.derived("P", p, lambda: StepWords(
+            symbol="P", label="Equivalent dynamic load", formula="P = Fr (α = 0)", template="{0}",
+            args=(case.fr,), unit="N", source=factors.source),
+            warning=_cylindrical_axial_warning(case))
         d.results.update(e=NAN, X=1.0, Y=0.0)
         return
     if kind in THRUST_KINDS and alpha >= 90.0:
-        d.derived("P", case.fa, lambda: (
-            "P", "Equivalent dynamic load", "P = Fa (α = 90°)", "{0}", (case.fa,), "N",
-            factors.source, None))
+        d.derived("P", case.fa, lambda: StepWords(
+            symbol="P", label="Equivalent dynamic load", formula="P = Fa (α = 90°)",
+            template="{0}", args=(case.fa,), unit="N", source=factors.source))
         d.results.update(e=NAN, X=0.0, Y=1.0)
         return
     if not possible:  # refused before any step is recorded: a refused case has no derivation
@@ -257,30 +265,37 @@ def _dynamic_load(d: Derivation, case: CaseInputs, kind: Kind, arrangement: Arra
     if factors.clamped and (high or factors.clamped > 0) and case.fa > 0:
         warning = f"{factors.index_formula} lies outside the table; e and Y clamped at its end"
     if factors.index_formula and case.fa > 0:  # with no axial load the table plays no part
-        d.derived("index", factors.index, lambda: (
-            factors.index_formula.split(" ")[0], "Table index for e and Y",
-            factors.index_formula, "{0} × {1} / {2}", _index_args(case, arrangement), "",
-            factors.source, _clamp_note(factors.clamped)))
-    d.derived("e", factors.e, lambda: (
-        "e", "Limit ratio e", factors.basis, "{0}", (factors.e,), "", factors.source, None))
+        d.derived("index", factors.index, lambda: StepWords(
+            symbol=factors.index_formula.split(" ")[0], label="Table index for e and Y",
+            formula=factors.index_formula, template="{0} × {1} / {2}",
+            args=_index_args(case, arrangement), source=factors.source,
+            note=_clamp_note(factors.clamped)))
+    d.derived("e", factors.e, lambda: StepWords(
+        symbol="e", label="Limit ratio e", formula=factors.basis, template="{0}",
+        args=(factors.e,), source=factors.source))
     vfr = "V·Fr" if case.outer_ring_rotates else "Fr"
     side = f"Fa/{vfr} > e" if high else f"Fa/{vfr} ≤ e"
-    d.derived("ratio", ratio, lambda: (
-        f"Fa/{vfr}", "Axial-to-radial load ratio", f"Fa/{vfr}, compared with e", "{0} / {1}",
-        (case.fa, v * case.fr), "", _LOAD_CLAUSE[kind], f"branch: {side}"))
-    d.derived("X", x, lambda: (
-        "X", f"Radial factor ({side})", "Table 3", "{0}", (x,), "", factors.source, None))
-    d.derived("Y", y, lambda: (
-        "Y", f"Axial factor ({side})", "Table 3" if factors.index_formula else factors.basis,
-        "{0}", (y,), "", factors.source, None), warning)
+    d.derived("ratio", ratio, lambda: StepWords(
+        symbol=f"Fa/{vfr}", label="Axial-to-radial load ratio",
+        formula=f"Fa/{vfr}, compared with e", template="{0} / {1}", args=(case.fa, v * case.fr),
+        source=_LOAD_CLAUSE[kind], note=f"branch: {side}"))
+    d.derived("X", x, lambda: StepWords(
+        symbol="X", label=f"Radial factor ({side})", formula="Table 3", template="{0}", args=(x,),
+        source=factors.source))
+    d.derived("Y", y, lambda: StepWords(
+        symbol="Y", label=f"Axial factor ({side})",
+        formula="Table 3" if factors.index_formula else factors.basis, template="{0}", args=(y,),
+        source=factors.source), warning=warning)
     if case.outer_ring_rotates:
-        d.derived("P", p, lambda: (
-            "P", "Equivalent dynamic load", "X·V·Fr + Y·Fa", "{0} × {1} × {2} + {3} × {4}",
-            (x, v, case.fr, y, case.fa), "N", _LOAD_CLAUSE[kind], None))
+        d.derived("P", p, lambda: StepWords(
+            symbol="P", label="Equivalent dynamic load", formula="X·V·Fr + Y·Fa",
+            template="{0} × {1} × {2} + {3} × {4}", args=(x, v, case.fr, y, case.fa), unit="N",
+            source=_LOAD_CLAUSE[kind]))
     else:
-        d.derived("P", p, lambda: (
-            "P", "Equivalent dynamic load", "X·Fr + Y·Fa", "{0} × {1} + {2} × {3}",
-            (x, case.fr, y, case.fa), "N", _LOAD_CLAUSE[kind], None))
+        d.derived("P", p, lambda: StepWords(
+            symbol="P", label="Equivalent dynamic load", formula="X·Fr + Y·Fa",
+            template="{0} × {1} + {2} × {3}", args=(x, case.fr, y, case.fa), unit="N",
+            source=_LOAD_CLAUSE[kind]))
 
 
 def _clamp_note(clamp: float) -> str | None:
@@ -317,13 +332,14 @@ def _hours(d: Derivation, key: str, symbol: str, label: str, life_mrev: float, s
            kind: Kind) -> None:
     """A life in hours at the case speed, or an undefined value with a warning at speed 0."""
     if speed > 0.0:
-        d.derived(key, life_hours(life_mrev, speed), lambda: (
-            symbol, label, "L·10⁶/(60·n)", "{0} × 10⁶ / (60 × {1})", (life_mrev, speed), "h",
-            _LIFE_CLAUSE[kind], None))
+        d.derived(key, life_hours(life_mrev, speed), lambda: StepWords(
+            symbol=symbol, label=label, formula="L·10⁶/(60·n)", template="{0} × 10⁶ / (60 × {1})",
+            args=(life_mrev, speed), unit="h", source=_LIFE_CLAUSE[kind]))
         return
-    d.derived(key, NAN, lambda: (
-        symbol, label, "L·10⁶/(60·n)", "speed is 0", (), "h", _LIFE_CLAUSE[kind], None),
-        f"speed is 0: {symbol} in hours is undefined (life in revolutions stands)")
+    d.derived(key, NAN, lambda: StepWords(
+        symbol=symbol, label=label, formula="L·10⁶/(60·n)", template="speed is 0", unit="h",
+        source=_LIFE_CLAUSE[kind]),
+        warning=f"speed is 0: {symbol} in hours is undefined (life in revolutions stands)")
 
 
 def rating_basis_mrev(case: CaseInputs) -> float:
@@ -346,42 +362,47 @@ def _reliability(d: Derivation, case: CaseInputs) -> float:
 def _reliability_words(case: CaseInputs) -> StepWords:
     r = case.reliability
     if case.reliability_model == "iso281":
-        return ("a1", "Life factor for reliability",
-                         "0.95·(ln(100/R)/ln(100/90))^(2/3) + 0.05",
-                         "0.95 × (ln(100/{0}) / ln(100/90))^(2/3) + 0.05", (100.0 * r,), "",
-                         "ISO 281:2007 §9.2, Table 12", None)
-    return ("aR", "Life factor for reliability (Weibull)",
-                     "x0 + (θ − x0)·(ln 1/R)^(1/b)", "{0} + ({1} − {0}) × (ln 1/{2})^(1/{3})",
-                     (case.weibull_x0, case.weibull_theta, r, case.weibull_b), "",
-                     "three-parameter Weibull, R = exp(−((x − x0)/(θ − x0))^b)",
-                     "life at R as a multiple of the rating life")
+        return StepWords(
+            symbol="a1", label="Life factor for reliability",
+            formula="0.95·(ln(100/R)/ln(100/90))^(2/3) + 0.05",
+            template="0.95 × (ln(100/{0}) / ln(100/90))^(2/3) + 0.05", args=(100.0 * r,),
+            source="ISO 281:2007 §9.2, Table 12")
+    return StepWords(
+        symbol="aR", label="Life factor for reliability (Weibull)",
+        formula="x0 + (θ − x0)·(ln 1/R)^(1/b)", template="{0} + ({1} − {0}) × (ln 1/{2})^(1/{3})",
+        args=(case.weibull_x0, case.weibull_theta, r, case.weibull_b),
+        source="three-parameter Weibull, R = exp(−((x − x0)/(θ − x0))^b)",
+        note="life at R as a multiple of the rating life")
 
 
 def operating_viscosity(d: Derivation, case: CaseInputs) -> float | None:
     """ν at operating temperature: given directly, or from ISO VG and VI (ISO 3448, ASTM D341)."""
     if case.nu is not None:
-        return d.derived("nu", case.nu, lambda: (
-            "ν", "Operating viscosity", "given", "{0}", (case.nu,), "mm²/s", "input", None))
+        return d.derived("nu", case.nu, lambda: StepWords(
+            symbol="ν", label="Operating viscosity", formula="given", template="{0}",
+            args=(case.nu,), unit="mm²/s", source="input"))
     if case.vg is None or case.temp is None:
         return None
     nu40 = viscosity.nu40_of_grade(case.vg)
     vi = 100.0 if case.vi is None else case.vi
     nu100 = case.nu100 if case.nu100 is not None else viscosity.nu100_from_viscosity_index(nu40, vi)
     nu = viscosity.viscosity_at_temperature(nu40, nu100, case.temp)
-    d.derived("nu40", nu40, lambda: (
-        "ν40", "Viscosity at 40 °C", f"ISO VG {case.vg:g} midpoint", "{0}", (nu40,), "mm²/s",
-        "ISO 3448", None))
+    d.derived("nu40", nu40, lambda: StepWords(
+        symbol="ν40", label="Viscosity at 40 °C", formula=f"ISO VG {case.vg:g} midpoint",
+        template="{0}", args=(nu40,), unit="mm²/s", source="ISO 3448"))
     if case.nu100 is not None:
-        d.derived("nu100", nu100, lambda: (
-            "ν100", "Viscosity at 100 °C", "given", "{0}", (nu100,), "mm²/s", "input", None))
+        d.derived("nu100", nu100, lambda: StepWords(
+            symbol="ν100", label="Viscosity at 100 °C", formula="given", template="{0}",
+            args=(nu100,), unit="mm²/s", source="input"))
     else:
-        d.derived("nu100", nu100, lambda: (
-            "ν100", "Viscosity at 100 °C", "from ν40 and VI", "VI {0}", (vi,), "mm²/s",
-            "ASTM D2270", "VI 100 assumed (no VI given)" if case.vi is None else None))
-    return d.derived("nu", nu, lambda: (
-        "ν", "Operating viscosity", "log log(ν + 0.7) = A − B·log T",
-        "at {0} °C through ν40 = {1}, ν100 = {2}", (case.temp, nu40, nu100), "mm²/s",
-        "ASTM D341", None))
+        d.derived("nu100", nu100, lambda: StepWords(
+            symbol="ν100", label="Viscosity at 100 °C", formula="from ν40 and VI",
+            template="VI {0}", args=(vi,), unit="mm²/s", source="ASTM D2270",
+            note="VI 100 assumed (no VI given)" if case.vi is None else None))
+    return d.derived("nu", nu, lambda: StepWords(
+        symbol="ν", label="Operating viscosity", formula="log log(ν + 0.7) = A − B·log T",
+        template="at {0} °C through ν40 = {1}, ν100 = {2}", args=(case.temp, nu40, nu100),
+        unit="mm²/s", source="ASTM D341"))
 
 
 def lubrication_gaps(case: CaseInputs) -> list[str]:
@@ -402,9 +423,9 @@ def _lubrication(d: Derivation, case: CaseInputs, kind: Kind, p_eff: float) -> f
     """aISO from κ, eC, Cu and P (ISO 281:2007 §9.3); 1 with a note when data is missing."""
     missing = lubrication_gaps(case)
     if missing:
-        return d.derived("aISO", 1.0, lambda: (
-            "aISO", "Systems-approach factor", "not evaluated", "1", (), "", "ISO 281:2007 §9.3",
-            "aISO = 1: no " + ", no ".join(missing)))
+        return d.derived("aISO", 1.0, lambda: StepWords(
+            symbol="aISO", label="Systems-approach factor", formula="not evaluated", template="1",
+            source="ISO 281:2007 §9.3", note="aISO = 1: no " + ", no ".join(missing)))
     nu = operating_viscosity(d, case)
     dm = case.dm
     assert nu is not None and dm is not None
@@ -425,49 +446,61 @@ def _lubrication(d: Derivation, case: CaseInputs, kind: Kind, p_eff: float) -> f
     load_ratio = ec * cu / (divisor * p_eff)
     a = aiso(used, load_ratio, roller)
     slow = case.speed < 1000
-    d.derived("nu1", nu1, lambda: (
-        "ν1", "Rated viscosity", "45000·n^−0.83·dm^−0.5" if slow else "4500·n^−0.5·dm^−0.5",
-        "45000 × {0}^−0.83 × {1}^−0.5" if slow else "4500 × {0}^−0.5 × {1}^−0.5",
-        (case.speed, dm), "mm²/s", "ISO 281:2007 §9.3.3", None))
-    d.derived("kappa", used, lambda: (
-        "κ", "Viscosity ratio", "ν/ν1", "{0} / {1}", (nu, nu1), "", "ISO 281:2007 §9.3.3",
-        f"κ = {kappa:.3g} above 4: 4 used" if kappa > KAPPA_MAX else None), warning)
+    d.derived("nu1", nu1, lambda: StepWords(
+        symbol="ν1", label="Rated viscosity",
+        formula="45000·n^−0.83·dm^−0.5" if slow else "4500·n^−0.5·dm^−0.5",
+        template="45000 × {0}^−0.83 × {1}^−0.5" if slow else "4500 × {0}^−0.5 × {1}^−0.5",
+        args=(case.speed, dm), unit="mm²/s", source="ISO 281:2007 §9.3.3"))
+    d.derived("kappa", used, lambda: StepWords(
+        symbol="κ", label="Viscosity ratio", formula="ν/ν1", template="{0} / {1}", args=(nu, nu1),
+        source="ISO 281:2007 §9.3.3",
+        note=f"κ = {kappa:.3g} above 4: 4 used" if kappa > KAPPA_MAX else None),
+        warning=warning)
     d.derived("eC", ec, lambda: _contamination_words(case, ec, low, high))
     d.derived("Cu", cu, lambda: _fatigue_limit_words(case, cu, roller))
     d.derived("load_ratio", load_ratio, lambda: _load_ratio_words(ec, cu, divisor, p_eff))
-    return d.derived("aISO", a, lambda: (
-        "aISO", "Systems-approach factor",
-        f"ISO 281 {'roller' if roller else 'ball'} relation in κ, eC·Cu/P",
-        "κ = {0}, eC·Cu/P = {1}", (used, load_ratio), "", "ISO 281:2007 §9.3.2",
-        "capped at 50" if a >= AISO_CAP else None))
+    return d.derived("aISO", a, lambda: StepWords(
+        symbol="aISO", label="Systems-approach factor",
+        formula=f"ISO 281 {'roller' if roller else 'ball'} relation in κ, eC·Cu/P",
+        template="κ = {0}, eC·Cu/P = {1}", args=(used, load_ratio), source="ISO 281:2007 §9.3.2",
+        note="capped at 50" if a >= AISO_CAP else None))
 
 
 def _contamination_words(case: CaseInputs, ec: float, low: float, high: float) -> StepWords:
     if case.ec is not None or case.cleanliness is None or case.dm is None:
-        return ("eC", "Contamination factor", "given", "{0}", (ec,), "", "input", None)
-    return ("eC", "Contamination factor", T.CONTAMINATION_WORDS[case.cleanliness],
-                     "midpoint of {0}–{1}", (low, high), "", "ISO 281:2007 §9.3.4, Table 13",
-                     "dpw ≥ 100 mm column" if case.dm >= 100 else "dpw < 100 mm column")
+        return StepWords(
+            symbol="eC", label="Contamination factor", formula="given", template="{0}", args=(ec,),
+            source="input")
+    return StepWords(
+        symbol="eC", label="Contamination factor", formula=T.CONTAMINATION_WORDS[case.cleanliness],
+        template="midpoint of {0}–{1}", args=(low, high), source="ISO 281:2007 §9.3.4, Table 13",
+        note="dpw ≥ 100 mm column" if case.dm >= 100 else "dpw < 100 mm column")
 
 
 def _fatigue_limit_words(case: CaseInputs, cu: float, roller: bool) -> StepWords:
     if case.cu is not None or case.dm is None:
-        return ("Cu", "Fatigue load limit", "given", "{0}", (cu,), "N", "input", None)
+        return StepWords(
+            symbol="Cu", label="Fatigue load limit", formula="given", template="{0}", args=(cu,),
+            unit="N", source="input")
     formula = "C0/8.2" if roller else "C0/22"
     if case.dm > 100:
         formula += "·(100/dpw)^0.3" if roller else "·(100/dpw)^0.5"
-    return ("Cu", "Fatigue load limit (estimated)", formula, "from C0 = {0}, dpw = {1}",
-                     (case.c0, case.dm), "N", "ISO 281:2007 Annex B (estimate)",
-                     "no Cu given: estimated from C0; the maker's value is better")
+    return StepWords(
+        symbol="Cu", label="Fatigue load limit (estimated)", formula=formula,
+        template="from C0 = {0}, dpw = {1}", args=(case.c0, case.dm), unit="N",
+        source="ISO 281:2007 Annex B (estimate)",
+        note="no Cu given: estimated from C0; the maker's value is better")
 
 
 def _load_ratio_words(ec: float, cu: float, divisor: float, p_eff: float) -> StepWords:
     if divisor != 1.0:
-        return ("eC·Cu/P", "Load ratio for aISO", f"eC·Cu/({divisor:g}·P)",
-                         "{0} × {1} / ({2} × {3})", (ec, cu, divisor, p_eff), "",
-                         "ISO 281:2007 §9.3.2", None)
-    return ("eC·Cu/P", "Load ratio for aISO", "eC·Cu/P", "{0} × {1} / {2}",
-                     (ec, cu, p_eff), "", "ISO 281:2007 §9.3.2", None)
+        return StepWords(
+            symbol="eC·Cu/P", label="Load ratio for aISO", formula=f"eC·Cu/({divisor:g}·P)",
+            template="{0} × {1} / ({2} × {3})", args=(ec, cu, divisor, p_eff),
+            source="ISO 281:2007 §9.3.2")
+    return StepWords(
+        symbol="eC·Cu/P", label="Load ratio for aISO", formula="eC·Cu/P",
+        template="{0} × {1} / {2}", args=(ec, cu, p_eff), source="ISO 281:2007 §9.3.2")
 
 
 def static_safety_minimum(case: CaseInputs, kind: Kind) -> tuple[float, str]:
@@ -492,23 +525,28 @@ def _static(d: Derivation, case: CaseInputs, kind: Kind, arrangement: Arrangemen
     d.derived("P0", p0, lambda: _static_load_words(case, kind, sf, floored))
     if sf.radial and kind is not _CYLINDRICAL:
         d.results.update(X0=sf.x0, Y0=sf.y0)
-    d.derived("s0", s0, lambda: (
-        "s0", "Static safety factor", "C0/P0", "{0} / {1}", (case.c0, p0), "",
-        "ISO 76:2006 (s0 = C0/P0); minimum: common practice", f"minimum {minimum:g}: {why}"),
-        warning)
+    d.derived("s0", s0, lambda: StepWords(
+        symbol="s0", label="Static safety factor", formula="C0/P0", template="{0} / {1}",
+        args=(case.c0, p0), source="ISO 76:2006 (s0 = C0/P0); minimum: common practice",
+        note=f"minimum {minimum:g}: {why}"),
+        warning=warning)
     d.results["s0_min"] = minimum
 
 
 def _static_load_words(case: CaseInputs, kind: Kind, sf: StaticFactors, floored: bool) -> StepWords:
     if not sf.radial:
         if sf.x0 == 0.0:
-            return ("P0", "Equivalent static load", "P0 = Fa (α = 90°)", "{0}",
-                             (case.fa,), "N", sf.source, None)
-        return ("P0", "Equivalent static load", "2.3·Fr·tan α + Fa", "{0} × {1} + {2}",
-                         (sf.x0, case.fr, case.fa), "N", sf.source, None)
+            return StepWords(
+                symbol="P0", label="Equivalent static load", formula="P0 = Fa (α = 90°)",
+                template="{0}", args=(case.fa,), unit="N", source=sf.source)
+        return StepWords(
+            symbol="P0", label="Equivalent static load", formula="2.3·Fr·tan α + Fa",
+            template="{0} × {1} + {2}", args=(sf.x0, case.fr, case.fa), unit="N", source=sf.source)
     if kind is _CYLINDRICAL:
-        return ("P0", "Equivalent static load", "P0 = Fr", "{0}", (case.fr,), "N",
-                         sf.source, None)
-    return ("P0", "Equivalent static load", "max(X0·Fr + Y0·Fa, Fr)",
-                     "max({0} × {1} + {2} × {3}, {1})", (sf.x0, case.fr, sf.y0, case.fa), "N",
-                     sf.source, "P0 = Fr rule applied" if floored else None)
+        return StepWords(
+            symbol="P0", label="Equivalent static load", formula="P0 = Fr", template="{0}",
+            args=(case.fr,), unit="N", source=sf.source)
+    return StepWords(
+        symbol="P0", label="Equivalent static load", formula="max(X0·Fr + Y0·Fa, Fr)",
+        template="max({0} × {1} + {2} × {3}, {1})", args=(sf.x0, case.fr, sf.y0, case.fa),
+        unit="N", source=sf.source, note="P0 = Fr rule applied" if floored else None)

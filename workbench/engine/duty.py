@@ -13,7 +13,8 @@ floats (math.fsum), not arrays.
 from __future__ import annotations
 
 import math
-from typing import Literal, NamedTuple, Sequence
+from dataclasses import dataclass
+from typing import Literal, Sequence
 
 from .gears import checked
 from .record import InputError
@@ -25,7 +26,8 @@ WEIBULL_SLOPE_BALL = 10.0 / 9.0
 WEIBULL_SLOPE_ROLLER = 9.0 / 8.0
 
 
-class MinerLife(NamedTuple):
+@dataclass(frozen=True, slots=True)
+class MinerLife:
     """Life under the duty cycle and each state's share of the damage (shares sum to 1)."""
 
     life: float

@@ -27,10 +27,10 @@ driving gear and follows it on a driven one).  The axial load Wa is signed:
 from __future__ import annotations
 
 import math
-import numbers
-from typing import Literal, NamedTuple
+from dataclasses import dataclass
+from typing import Literal
 
-from .num import Num, is_array
+from .num import Num, cosd, extremes, is_number, sind, tand
 from .record import InputError
 
 #: Shaft-load factor f in F = f·Wt for belt and chain drives, with the usual spread [common
@@ -45,7 +45,8 @@ BELT_PULL_FACTORS: dict[str, tuple[float, tuple[float, float]]] = {
 V_BELT_PULL_FACTOR = BELT_PULL_FACTORS["v_belt"][0]
 
 
-class MeshForces(NamedTuple):
+@dataclass(frozen=True, slots=True)
+class MeshForces:
     """Tangential Wt, radial Wr (magnitudes) and axial Wa (signed, see module notes), in N."""
 
     tangential: Num
@@ -53,7 +54,8 @@ class MeshForces(NamedTuple):
     axial: Num
 
 
-class BeltPull(NamedTuple):
+@dataclass(frozen=True, slots=True)
+class BeltPull:
     """Resultant pull of a belt or chain on its shaft, in N, and its y and z components."""
 
     force: Num
@@ -67,19 +69,13 @@ def checked(field_name: str, value: Num, *, low: float | None = None, high: floa
 
     Works on a float or on every element of a numpy array.
     """
-    if is_array(value):
-        import numpy as np
-
-        values = np.asarray(value, dtype=float)
-        if values.size == 0:
-            return value
-        finite = bool(np.all(np.isfinite(values)))
-        smallest, largest = float(values.min()), float(values.max())
-    else:
-        if not isinstance(value, numbers.Real) or isinstance(value, bool):
-            raise InputError(field_name, f"a number is needed, not {value!r}")
-        finite = math.isfinite(value)
-        smallest = largest = float(value)
+    if not is_number(value):
+        raise InputError(field_name, f"a number is needed, not {value!r}")
+    span = extremes(value)
+    if span is None:  # an empty array
+        return value
+    smallest, largest = span
+    finite = math.isfinite(smallest) and math.isfinite(largest)
     if not finite:
         raise InputError(field_name, "must be a finite number")
     if low is not None and (smallest < low or (low_open and smallest == low)):
@@ -87,30 +83,6 @@ def checked(field_name: str, value: Num, *, low: float | None = None, high: floa
     if high is not None and (largest > high or (high_open and largest == high)):
         raise InputError(field_name, f"must be {'<' if high_open else '≤'} {high:g}")
     return value
-
-
-def _tan_deg(angle_deg: Num) -> Num:
-    if is_array(angle_deg):
-        import numpy as np
-
-        return np.tan(np.radians(angle_deg))
-    return math.tan(math.radians(angle_deg))
-
-
-def _cos_deg(angle_deg: Num) -> Num:
-    if is_array(angle_deg):
-        import numpy as np
-
-        return np.cos(np.radians(angle_deg))
-    return math.cos(math.radians(angle_deg))
-
-
-def _sin_deg(angle_deg: Num) -> Num:
-    if is_array(angle_deg):
-        import numpy as np
-
-        return np.sin(np.radians(angle_deg))
-    return math.sin(math.radians(angle_deg))
 
 
 def tangential_load(torque_Nm: Num, diameter_mm: Num) -> Num:
@@ -131,7 +103,7 @@ def spur_forces(torque_Nm: Num, pitch_diameter_mm: Num, pressure_angle_deg: Num)
     """Spur gear: Wt = T/(d/2), Wr = Wt·tan φ, Wa = 0 (gear-force relations, spur gears)."""
     checked("pressure_angle", pressure_angle_deg, low=0.0, high=90.0, low_open=True, high_open=True)
     wt = tangential_load(torque_Nm, pitch_diameter_mm)
-    return MeshForces(wt, wt * _tan_deg(pressure_angle_deg), 0.0 * wt)
+    return MeshForces(wt, wt * tand(pressure_angle_deg), 0.0 * wt)
 
 
 def helical_forces(torque_Nm: Num, pitch_diameter_mm: Num, normal_pressure_angle_deg: Num,
@@ -151,8 +123,8 @@ def helical_forces(torque_Nm: Num, pitch_diameter_mm: Num, normal_pressure_angle
         raise InputError("rotation", f"rotation is +1 or −1 about +x, not {rotation!r}")
     wt = tangential_load(torque_Nm, pitch_diameter_mm)
     sign = (1 if hand == "right" else -1) * (1 if driving else -1) * rotation
-    radial = wt * _tan_deg(normal_pressure_angle_deg) / _cos_deg(helix_angle_deg)
-    return MeshForces(wt, radial, sign * wt * _tan_deg(helix_angle_deg))
+    radial = wt * tand(normal_pressure_angle_deg) / cosd(helix_angle_deg)
+    return MeshForces(wt, radial, sign * wt * tand(helix_angle_deg))
 
 
 def straight_bevel_forces(torque_Nm: Num, mean_pitch_diameter_mm: Num, pressure_angle_deg: Num,
@@ -165,9 +137,9 @@ def straight_bevel_forces(torque_Nm: Num, mean_pitch_diameter_mm: Num, pressure_
     checked("pressure_angle", pressure_angle_deg, low=0.0, high=90.0, low_open=True, high_open=True)
     checked("pitch_cone_angle", pitch_cone_angle_deg, low=0.0, high=90.0)
     wt = tangential_load(torque_Nm, mean_pitch_diameter_mm)
-    separating = wt * _tan_deg(pressure_angle_deg)
-    return MeshForces(wt, separating * _cos_deg(pitch_cone_angle_deg),
-                      separating * _sin_deg(pitch_cone_angle_deg))
+    separating = wt * tand(pressure_angle_deg)
+    return MeshForces(wt, separating * cosd(pitch_cone_angle_deg),
+                      separating * sind(pitch_cone_angle_deg))
 
 
 def belt_pull(torque_Nm: Num, pulley_diameter_mm: Num, factor: Num = V_BELT_PULL_FACTOR,
@@ -180,4 +152,32 @@ def belt_pull(torque_Nm: Num, pulley_diameter_mm: Num, factor: Num = V_BELT_PULL
     checked("belt_pull_factor", factor, low=1.0)
     checked("belt_direction", direction_deg)
     force = factor * tangential_load(torque_Nm, pulley_diameter_mm)
-    return BeltPull(force, force * _cos_deg(direction_deg), force * _sin_deg(direction_deg))
+    return BeltPull(force, force * cosd(direction_deg), force * sind(direction_deg))
+
+
+def bevel_axial_load(thrust: Num, apex: Literal["A", "B"]) -> Num:
+    """A straight bevel gear's thrust Wa (a magnitude) signed in the shaft frame, in N.
+
+    The thrust points from the pitch-cone apex toward the back cone (gear-force relations for
+    straight bevel gears): Fx = −Wa when the apex lies on the B side of the gear, +Wa on the A side.
+    """
+    if apex not in ("A", "B"):
+        raise InputError("apex", f"the apex lies on side 'A' or 'B', not {apex!r}")
+    return -thrust if apex == "B" else thrust
+
+
+def mesh_force_components(tangential: Num, radial: Num, mesh_angle_deg: Num, *, rotation: int,
+                          driving: bool) -> tuple[Num, Num]:
+    """(Fy, Fz): a mesh's loads on the shaft resolved in the y–z plane of the shaft frame, in N.
+
+    Fy = −Wr·cos θ − s·Wt·sin θ and Fz = −Wr·sin θ + s·Wt·cos θ, with θ the direction of the mesh
+    point from +y toward +z (degrees) and s = −rotation on a driving gear, +rotation on a driven
+    one: Wr points toward the axis, and Wt against (driving) or with (driven) the motion of the
+    mesh point, which moves along rotation·(−sin θ, cos θ) (gear statics, module notes).
+    """
+    if rotation not in (1, -1):
+        raise InputError("rotation", f"rotation is +1 or −1 about +x, not {rotation!r}")
+    along = -rotation if driving else rotation
+    cos_t, sin_t = cosd(mesh_angle_deg), sind(mesh_angle_deg)
+    return (-radial * cos_t - along * tangential * sin_t,
+            -radial * sin_t + along * tangential * cos_t)

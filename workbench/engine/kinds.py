@@ -12,7 +12,7 @@ from dataclasses import dataclass
 from enum import StrEnum
 
 from . import tables as T
-from .num import Num, interp, is_array, safe_ratio, where
+from .num import Num, interp, safe_ratio, tand, where
 from .record import InputError
 
 
@@ -165,11 +165,7 @@ class DynamicFactors:
 
 def _clamp_flag(index: Num, lo: float, hi: float) -> Num:
     """-1 below the table, +1 above it, 0 inside."""
-    if is_array(index):
-        import numpy as np
-
-        return np.where(index < lo, -1, np.where(index > hi, 1, 0))
-    return -1 if index < lo else (1 if index > hi else 0)
+    return where(index < lo, -1, where(index > hi, 1, 0))
 
 
 def contact_angle_from_e(e: float) -> float:
@@ -262,7 +258,7 @@ def _table_factors(fa: Num, c0: Num, f0: Num | None, xp: tuple[float, ...],
 def _angle_factors(kind: Kind, arrangement: Arrangement, alpha_deg: float,
                    e_given: float | None, y_given: float | None) -> DynamicFactors:
     """Self-aligning ball, tapered and spherical roller: e = 1.5·tan α, Y ∝ cot α (Table 3)."""
-    tan_a = math.tan(math.radians(alpha_deg))
+    tan_a = tand(alpha_deg)
     double = arrangement is not Arrangement.SINGLE
     if kind is Kind.SELF_ALIGNING:
         low, high_x, high = 0.42, 0.65, 0.65
@@ -290,7 +286,7 @@ def _thrust_factors(kind: Kind, alpha_deg: float) -> DynamicFactors:
     if abs(alpha_deg - 90.0) < 1e-9:
         return DynamicFactors(0.0, 0.0, 1.0, 0.0, 1.0, "α = 90°: P = Fa",
                               f"{load_clause(kind)} (thrust, α = 90°)")
-    tan_a = math.tan(math.radians(alpha_deg))
+    tan_a = tand(alpha_deg)
     if kind is Kind.THRUST_ROLLER:
         if not 45.0 <= alpha_deg < 90.0:
             raise InputError("contact_angle", "a thrust roller bearing needs 45° ≤ α ≤ 90°")
@@ -367,10 +363,10 @@ def static_factors(kind: Kind, arrangement: Arrangement, alpha_deg: float) -> St
     if kind is Kind.CYLINDRICAL:
         return StaticFactors(1.0, 0.0, True, f"{static_clause(kind)} (radial roller, α = 0)")
     if kind in THRUST_KINDS:
-        tan_a = math.tan(math.radians(alpha_deg)) if alpha_deg < 90 else math.inf
+        tan_a = tand(alpha_deg) if alpha_deg < 90 else math.inf
         x0 = 0.0 if alpha_deg >= 90 else 2.3 * tan_a
         return StaticFactors(x0, 1.0, False, static_clause(kind))
-    cot_a = 1.0 / math.tan(math.radians(alpha_deg))
+    cot_a = 1.0 / tand(alpha_deg)
     if kind is Kind.SELF_ALIGNING:
         return StaticFactors(1.0, 0.44 * cot_a, True, f"{static_clause(kind)} (self-aligning ball)")
     if paired:

@@ -9,7 +9,7 @@ from __future__ import annotations
 import math
 
 from . import tables as T
-from .num import Num, is_array, maximum, minimum, where
+from .num import Num, log, maximum, minimum, power, take, where
 
 AISO_CAP = 50.0
 KAPPA_MIN, KAPPA_MAX = 0.1, 4.0
@@ -21,16 +21,7 @@ def basic_rating_life(c: Num, p_eff: Num, exponent: float) -> Num:
     A load so small that (C/P)^p exceeds the largest float gives an infinite life (the relation
     sets no limit), not an overflow: numpy arrays give inf there too.
     """
-    ratio = c / p_eff
-    if is_array(ratio):
-        import numpy as np
-
-        with np.errstate(over="ignore"):
-            return ratio ** exponent
-    try:
-        return ratio ** exponent
-    except OverflowError:
-        return math.inf
+    return power(c / p_eff, exponent)
 
 
 def life_hours(life_mrev: Num, speed_rpm: Num) -> Num:
@@ -43,13 +34,7 @@ def a1_iso281(reliability: Num) -> Num:
 
     a1 = 0.95·(ln(100/R)/ln(100/90))^(2/3) + 0.05 for 90 % ≤ R ≤ 99.95 % (R as a fraction here).
     """
-    if is_array(reliability):
-        import numpy as np
-
-        ratio = np.log(1.0 / reliability) / math.log(1.0 / 0.9)
-    else:
-        ratio = math.log(1.0 / reliability) / math.log(1.0 / 0.9)
-    return 0.95 * ratio ** (2.0 / 3.0) + 0.05
+    return 0.95 * (log(1.0 / reliability) / math.log(1.0 / 0.9)) ** (2.0 / 3.0) + 0.05
 
 
 def weibull_life_factor(reliability: Num, x0: float, theta: float, b: float) -> Num:
@@ -58,11 +43,7 @@ def weibull_life_factor(reliability: Num, x0: float, theta: float, b: float) -> 
     Three-parameter Weibull survival R = exp(−((x − x0)/(θ − x0))^b); equals
     ``scipy.stats.weibull_min(c=b, loc=x0, scale=θ − x0).ppf(1 − R)``.
     """
-    if is_array(reliability):
-        import numpy as np
-
-        return x0 + (theta - x0) * np.log(1.0 / reliability) ** (1.0 / b)
-    return x0 + (theta - x0) * math.log(1.0 / reliability) ** (1.0 / b)
+    return x0 + (theta - x0) * log(1.0 / reliability) ** (1.0 / b)
 
 
 def weibull_required_rating(design_load: float, design_life_x: float, reliability: float,
@@ -121,30 +102,12 @@ _AISO_ROLLER = (1.5859, (1.3993, 1.2348, 1.2348), (0.054381, 0.19087, 0.071739),
 
 def _kappa_piece(kappa: Num) -> Num:
     """Which piece of the aISO relation applies: 0 for κ < 0.4, 1 for 0.4 ≤ κ < 1, 2 above."""
-    if is_array(kappa):
-        return 2 - (kappa < 0.4) - (kappa < 1.0)
-    return 0 if kappa < 0.4 else (1 if kappa < 1.0 else 2)
-
-
-def _pick(values: tuple[float, float, float], piece: Num) -> Num:
-    """The coefficient of each κ piece (elementwise on arrays)."""
-    if is_array(piece):
-        import numpy as np
-
-        return np.take(values, piece)
-    return values[piece]
+    return 2 - (kappa < 0.4) - (kappa < 1.0)
 
 
 def _capped(inner: Num, final: float) -> Num:
     """0.1·inner^final, capped at 50; 50 where inner ≤ 0 (the relation's pole and beyond)."""
-    if is_array(inner):
-        import numpy as np
-
-        with np.errstate(divide="ignore", invalid="ignore"):
-            return np.fmin(0.1 * np.maximum(inner, 0.0) ** final, AISO_CAP)
-    if inner <= 0.0:
-        return AISO_CAP
-    return minimum(0.1 * inner ** final, AISO_CAP)
+    return where(inner > 0.0, minimum(0.1 * power(maximum(inner, 0.0), final), AISO_CAP), AISO_CAP)
 
 
 def aiso(kappa: Num, load_ratio: Num, roller: bool) -> Num:
@@ -155,7 +118,7 @@ def aiso(kappa: Num, load_ratio: Num, roller: bool) -> Num:
     """
     c1, c2s, ks, outer, load_power, final = _AISO_ROLLER if roller else _AISO_BALL
     piece = _kappa_piece(kappa)
-    bracket = c1 - _pick(c2s, piece) / kappa ** _pick(ks, piece)
+    bracket = c1 - take(c2s, piece) / kappa ** take(ks, piece)
     bracket = maximum(bracket, 0.0)
     inner = 1.0 - bracket ** outer * load_ratio ** load_power
     return _capped(inner, final)

@@ -24,14 +24,22 @@ direction of :mod:`workbench.engine.shaft`, where A lies at the smaller x); ``< 
 
 from __future__ import annotations
 
+from collections.abc import Mapping
+from dataclasses import dataclass
 from typing import Literal
 
 from .gears import checked
+from .kinds import Arrangement, DynamicFactors, Kind, dynamic_factors
 from .num import Num, safe_ratio
-from .record import InputError, fmt
+from .record import Derivation, InputError, fmt
 
 Mounting = Literal["O", "X"]
 MOUNTING_NAMES = {"O": "back-to-back (O)", "X": "face-to-face (X)"}
+SIDES = ("A", "B")
+TAPERED_SOURCE = "induced axial component of a tapered roller bearing, Fi = Fr/(2Y) (ISO form)"
+ANGULAR_SOURCE = "induced axial component of an angular-contact ball bearing, Fi = e·Fr (common practice)"
+SHARING_SOURCE = "two-bearing thrust-sharing rule: shaft axial equilibrium with each Fa ≥ its Fi"
+PAIR_ITERATIONS = 100
 
 
 def induced_thrust_tapered(fr: Num, y: Num) -> Num:
@@ -103,3 +111,79 @@ def share_thrust(fr_a: float, fr_b: float, induced_a: float, induced_b: float,
     explanation = (f"{MOUNTING_NAMES[mounting]}, external thrust Ka = {fmt(ka)} N toward {toward} "
                    f"is resisted by bearing {receiver}. {case}. {ratios}.")
     return fa["A"], fa["B"], explanation
+
+
+@dataclass(frozen=True, slots=True, kw_only=True)
+class PairBearing:
+    """What the induced thrust of one bearing of a pair needs: its kind, arrangement and contact
+    angle (degrees), C0 (N), and the f0, e and Y the maker gives (None when not given)."""
+
+    kind: Kind
+    arrangement: Arrangement
+    alpha_deg: float
+    c0: float
+    f0: float | None = None
+    e_given: float | None = None
+    y_given: float | None = None
+
+
+def induced_thrust(bearing: PairBearing, fr: float, fa: float) -> tuple[float, float, DynamicFactors]:
+    """(factor, Fi, factors) of one bearing of a pair at radial load ``fr`` and axial load ``fa``.
+
+    A tapered roller bearing takes Fi = Fr/(2Y) with Y its Fa/Fr > e factor as
+    :func:`~workbench.engine.kinds.dynamic_factors` gives it (the maker's Y, else 0.4·cot α); an
+    angular-contact ball bearing Fi = e·Fr with its ISO 281:2007 Table 3 e, which for the 15° rows
+    depends on ``fa`` (common practice).  Forces in N.
+    """
+    factors = dynamic_factors(bearing.kind, bearing.arrangement, bearing.alpha_deg, fa, bearing.c0,
+                              bearing.f0, bearing.e_given, bearing.y_given)
+    if bearing.kind is Kind.TAPERED:
+        return factors.y_high, induced_thrust_tapered(fr, factors.y_high), factors
+    return factors.e, induced_thrust_angular_contact(fr, factors.e), factors
+
+
+def paired_axial_loads(d: Derivation, bearings: Mapping[str, PairBearing],
+                       radial: Mapping[str, float], external_thrust: float,
+                       mounting: Mounting) -> dict[str, float]:
+    """Fa of each bearing ("A", "B") of a pair adjusted against each other, with the steps.
+
+    The induced thrusts (:func:`induced_thrust`) and the two-bearing thrust-sharing rule
+    (:func:`share_thrust`).  Where e depends on the bearing's own axial load (15° angular
+    contact) the loads are found by fixed-point iteration from Fa = 0, which rises monotonically
+    because e grows with Fa; a warning says so if it has not settled after
+    :data:`PAIR_ITERATIONS` rounds.  ``radial`` holds Fr per side; forces in N.
+    """
+    fa = {"A": 0.0, "B": 0.0}
+    for _ in range(PAIR_ITERATIONS):
+        induced = {side: induced_thrust(bearings[side], radial[side], fa[side]) for side in SIDES}
+        fa_a, fa_b, explanation = share_thrust(radial["A"], radial["B"], induced["A"][1],
+                                               induced["B"][1], external_thrust, mounting)
+        settled = max(abs(fa_a - fa["A"]), abs(fa_b - fa["B"])) <= 1e-9 * max(fa_a, fa_b, 1.0)
+        fa = {"A": fa_a, "B": fa_b}
+        if settled:
+            break
+    warning = None if settled else (
+        f"the axial loads of the pair did not settle in {PAIR_ITERATIONS} rounds (e depends on Fa)")
+    for side in SIDES:
+        factor, fi, factors = induced[side]
+        if bearings[side].kind is Kind.TAPERED:
+            d.add(f"Y_{side}", factor, symbol=f"Y,{side}",
+                  label=f"Axial factor of bearing {side} (Fa/Fr > e)", formula=factors.basis,
+                  template="{0}", args=(factor,), source=factors.source,
+                  note="the Y of the bearing's own derivation on the Fa/Fr > e branch")
+            d.add(f"Fi_{side}", fi, symbol=f"Fi,{side}", label=f"Induced thrust of bearing {side}",
+                  formula="Fr/(2Y)", template="{0} / (2 × {1})", args=(radial[side], factor),
+                  unit="N", source=TAPERED_SOURCE)
+        else:
+            d.add(f"e_{side}", factor, symbol=f"e,{side}",
+                  label=f"Limit ratio e of bearing {side}", formula=factors.basis, template="{0}",
+                  args=(factor,), source=factors.source,
+                  note="at the bearing's own Fa" if factors.index_formula else None)
+            d.add(f"Fi_{side}", fi, symbol=f"Fi,{side}", label=f"Induced thrust of bearing {side}",
+                  formula="e·Fr", template="{0} × {1}", args=(factor, radial[side]), unit="N",
+                  source=ANGULAR_SOURCE)
+    for side in SIDES:
+        d.add(f"Fa_{side}", fa[side], symbol=f"Fa,{side}", label=f"Axial load on bearing {side}",
+              formula="thrust-sharing rule", template="{0}", args=(fa[side],), unit="N",
+              source=SHARING_SOURCE, warning=warning if side == "B" else None, note=explanation)
+    return fa

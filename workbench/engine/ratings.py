@@ -15,14 +15,10 @@ of angular-contact and thrust ball bearings unless f0 is supplied.
 
 from __future__ import annotations
 
-import math
 from dataclasses import dataclass
-from typing import Callable
-
-import numpy as np
 
 from workbench.engine import rating_tables as tables
-from workbench.engine.num import Num, interp, is_array, where
+from workbench.engine.num import Num, all_true, as_number, cosd, interp, isfinite, sind, where
 from workbench.engine.record import Derivation, InputError, fmt
 from workbench.engine.rating_tables import RatingTable
 
@@ -36,28 +32,15 @@ _TABLE_END_TOLERANCE = 1e-9
 def _as_number(field: str, value: object) -> Num:
     """``value`` as a float or a float array; anything else is refused."""
     try:
-        if isinstance(value, np.ndarray):
-            return np.asarray(value, dtype=float)
-        if isinstance(value, bool):
-            raise TypeError
-        return float(value)  # type: ignore[arg-type]
+        return as_number(value)
     except (TypeError, ValueError):
         raise InputError(field, f"expected a number, got {value!r}") from None
-
-
-def _holds(
-    value: Num, test: Callable[[float], bool], array_test: Callable[[np.ndarray], np.ndarray]
-) -> bool:
-    """True when ``test`` holds for a float, or ``array_test`` for every element of an array."""
-    if isinstance(value, np.ndarray):
-        return bool(np.all(array_test(value)))
-    return test(value)
 
 
 def _positive(field: str, value: object, label: str) -> Num:
     """A finite value above zero (a diameter, a length, a factor)."""
     number = _as_number(field, value)
-    if not _holds(number, lambda v: math.isfinite(v) and v > 0, lambda a: np.isfinite(a) & (a > 0)):
+    if not all_true(isfinite(number) & (number > 0)):
         raise InputError(field, f"{label} must be a finite number above zero")
     return number
 
@@ -65,11 +48,11 @@ def _positive(field: str, value: object, label: str) -> Num:
 def _count(field: str, value: object, label: str) -> Num:
     """A whole number of at least one (rows, rolling elements)."""
     number = _as_number(field, value)
-    if not _holds(number, math.isfinite, np.isfinite):
+    if not all_true(isfinite(number)):
         raise InputError(field, f"{label} must be a finite whole number")
-    if not _holds(number, lambda v: v >= 1, lambda a: a >= 1):
+    if not all_true(number >= 1):
         raise InputError(field, f"{label} must be at least 1")
-    if not _holds(number, lambda v: v == round(v), lambda a: a == np.round(a)):
+    if not all_true(number % 1.0 == 0.0):
         raise InputError(field, f"{label} must be a whole number")
     return number
 
@@ -77,8 +60,7 @@ def _count(field: str, value: object, label: str) -> Num:
 def _radial_angle(value: object) -> Num:
     """Nominal contact angle of a radial bearing: 0° ≤ α ≤ 45° (ISO 281:2007 §3, from memory)."""
     angle = _as_number("alpha_deg", value)
-    if not _holds(angle, lambda v: math.isfinite(v) and 0 <= v <= 45,
-                  lambda a: np.isfinite(a) & (a >= 0) & (a <= 45)):
+    if not all_true(isfinite(angle) & (angle >= 0) & (angle <= 45)):
         raise InputError("alpha_deg", "a radial bearing has a contact angle from 0° to 45°")
     return angle
 
@@ -86,8 +68,7 @@ def _radial_angle(value: object) -> Num:
 def _thrust_angle(value: object) -> Num:
     """Nominal contact angle of a thrust bearing: 45° < α ≤ 90° (ISO 281:2007 §3, from memory)."""
     angle = _as_number("alpha_deg", value)
-    if not _holds(angle, lambda v: math.isfinite(v) and 45 < v <= 90,
-                  lambda a: np.isfinite(a) & (a > 45) & (a <= 90)):
+    if not all_true(isfinite(angle) & (angle > 45) & (angle <= 90)):
         raise InputError("alpha_deg", "a thrust bearing has a contact angle above 45° and up to 90°")
     return angle
 
@@ -95,7 +76,7 @@ def _thrust_angle(value: object) -> Num:
 def _right_angle(value: object) -> Num:
     """α = 90°: the only thrust contact angle whose dynamic fc column is carried here."""
     angle = _thrust_angle(value)
-    if not _holds(angle, lambda v: v == 90, lambda a: a == 90):
+    if not all_true(angle == 90):
         raise InputError(
             "alpha_deg",
             "dynamic thrust ratings are only available for α = 90°: the ISO 281 fc columns for "
@@ -106,22 +87,8 @@ def _right_angle(value: object) -> Num:
 
 def _within_pitch_circle(dw: Num, dpw: Num) -> None:
     """The rolling element must be smaller than the pitch diameter."""
-    if not _holds(dw - dpw, lambda v: v < 0, lambda a: a < 0):
+    if not all_true(dw - dpw < 0):
         raise InputError("dw", "the rolling-element diameter must be smaller than the pitch diameter Dpw")
-
-
-def _cos_deg(angle: Num) -> Num:
-    """cos of an angle in degrees (float or array)."""
-    if is_array(angle):
-        return np.cos(np.radians(angle))
-    return math.cos(math.radians(angle))
-
-
-def _sin_deg(angle: Num) -> Num:
-    """sin of an angle in degrees (float or array)."""
-    if is_array(angle):
-        return np.sin(np.radians(angle))
-    return math.sin(math.radians(angle))
 
 
 # ---------------------------------------------------------------------------------------------
@@ -135,7 +102,7 @@ def table_factor(table: RatingTable, ratio: Num, field: str = "dw") -> Num:
     """
     low = table.lowest - _TABLE_END_TOLERANCE
     high = table.highest + _TABLE_END_TOLERANCE
-    if not _holds(ratio, lambda v: low <= v <= high, lambda a: (a >= low) & (a <= high)):
+    if not all_true((ratio >= low) & (ratio <= high)):
         raise InputError(
             field,
             f"{table.argument} lies outside {table.source} ({fmt(table.lowest)}–{fmt(table.highest)}); "
@@ -162,7 +129,7 @@ def _clamped_factor(table: RatingTable, ratio: float) -> tuple[float, str | None
 
 def _radial_ball_c(i: Num, z: Num, dw: Num, alpha_deg: Num, bm: Num, fc: Num) -> Num:
     """ISO 281:2007 §5.1.1: Cr, with the exponent switch at Dw = 25.4 mm."""
-    common = bm * fc * (i * _cos_deg(alpha_deg)) ** 0.7 * z ** (2 / 3)
+    common = bm * fc * (i * cosd(alpha_deg)) ** 0.7 * z ** (2 / 3)
     return where(
         dw <= tables.BALL_DIAMETER_SWITCH_MM,
         common * dw**1.8,
@@ -172,7 +139,7 @@ def _radial_ball_c(i: Num, z: Num, dw: Num, alpha_deg: Num, bm: Num, fc: Num) ->
 
 def _radial_roller_c(i: Num, z: Num, dwe: Num, lwe: Num, alpha_deg: Num, bm: Num, fc: Num) -> Num:
     """ISO 281:2007 §7.1.1: Cr = bm·fc·(i·Lwe·cos α)^(7/9)·Z^(3/4)·Dwe^(29/27)."""
-    return bm * fc * (i * lwe * _cos_deg(alpha_deg)) ** (7 / 9) * z**0.75 * dwe ** (29 / 27)
+    return bm * fc * (i * lwe * cosd(alpha_deg)) ** (7 / 9) * z**0.75 * dwe ** (29 / 27)
 
 
 def _thrust_ball_c(z: Num, dw: Num, bm: Num, fc: Num) -> Num:
@@ -192,22 +159,22 @@ def _thrust_roller_c(z: Num, dwe: Num, lwe: Num, bm: Num, fc: Num) -> Num:
 
 def _radial_ball_c0(i: Num, z: Num, dw: Num, alpha_deg: Num, f0: Num) -> Num:
     """ISO 76:2006 §5.1: C0r = f0·i·Z·Dw²·cos α."""
-    return f0 * i * z * dw**2 * _cos_deg(alpha_deg)
+    return f0 * i * z * dw**2 * cosd(alpha_deg)
 
 
 def _thrust_ball_c0(z: Num, dw: Num, alpha_deg: Num, f0: Num) -> Num:
     """ISO 76:2006 §7.1: C0a = f0·Z·Dw²·sin α."""
-    return f0 * z * dw**2 * _sin_deg(alpha_deg)
+    return f0 * z * dw**2 * sind(alpha_deg)
 
 
 def _radial_roller_c0(i: Num, z: Num, dwe: Num, lwe: Num, alpha_deg: Num, static_factor: Num) -> Num:
     """ISO 76:2006 §6.1: C0r = 44·(1 − γ)·i·Z·Lwe·Dwe·cos α, with the factor 44·(1 − γ) given."""
-    return static_factor * i * z * lwe * dwe * _cos_deg(alpha_deg)
+    return static_factor * i * z * lwe * dwe * cosd(alpha_deg)
 
 
 def _thrust_roller_c0(z: Num, dwe: Num, lwe: Num, alpha_deg: Num, static_factor: Num) -> Num:
     """ISO 76:2006 §8.1: C0a = 220·(1 − γ)·Z·Lwe·Dwe·sin α, with the factor 220·(1 − γ) given."""
-    return static_factor * z * lwe * dwe * _sin_deg(alpha_deg)
+    return static_factor * z * lwe * dwe * sind(alpha_deg)
 
 
 def _radial_roller_static_factor(gamma: Num) -> Num:
@@ -237,7 +204,7 @@ def dynamic_rating_radial_ball(
     dw, dpw = _positive("dw", dw, "the ball diameter Dw"), _positive("dpw", dpw, "the pitch diameter Dpw")
     alpha_deg, bm = _radial_angle(alpha_deg), _positive("bm", bm, "the rating factor bm")
     _within_pitch_circle(dw, dpw)
-    fc = table_factor(tables.FC_RADIAL_BALL, dw * _cos_deg(alpha_deg) / dpw)
+    fc = table_factor(tables.FC_RADIAL_BALL, dw * cosd(alpha_deg) / dpw)
     return _radial_ball_c(i, z, dw, alpha_deg, bm, fc)
 
 
@@ -254,7 +221,7 @@ def dynamic_rating_radial_roller(
     dpw = _positive("dpw", dpw, "the pitch diameter Dpw")
     alpha_deg, bm = _radial_angle(alpha_deg), _positive("bm", bm, "the rating factor bm")
     _within_pitch_circle(dwe, dpw)
-    fc = table_factor(tables.FC_RADIAL_ROLLER, dwe * _cos_deg(alpha_deg) / dpw, "dwe")
+    fc = table_factor(tables.FC_RADIAL_ROLLER, dwe * cosd(alpha_deg) / dpw, "dwe")
     return _radial_roller_c(i, z, dwe, lwe, alpha_deg, bm, fc)
 
 
@@ -306,7 +273,7 @@ def static_rating_radial_ball(
     alpha_deg = _radial_angle(alpha_deg)
     _within_pitch_circle(dw, dpw)
     if f0 is None:
-        f0 = table_factor(tables.F0_DEEP_GROOVE, dw * _cos_deg(alpha_deg) / dpw)
+        f0 = table_factor(tables.F0_DEEP_GROOVE, dw * cosd(alpha_deg) / dpw)
     else:
         f0 = _positive("f0", f0, "the static factor f0")
     return _radial_ball_c0(i, z, dw, alpha_deg, f0)
@@ -323,7 +290,7 @@ def static_rating_radial_roller(i: Num, z: Num, dwe: Num, lwe: Num, alpha_deg: N
     dpw = _positive("dpw", dpw, "the pitch diameter Dpw")
     alpha_deg = _radial_angle(alpha_deg)
     _within_pitch_circle(dwe, dpw)
-    static_factor = _radial_roller_static_factor(dwe * _cos_deg(alpha_deg) / dpw)
+    static_factor = _radial_roller_static_factor(dwe * cosd(alpha_deg) / dpw)
     return _radial_roller_c0(i, z, dwe, lwe, alpha_deg, static_factor)
 
 
@@ -352,7 +319,7 @@ def static_rating_thrust_roller(z: Num, dwe: Num, lwe: Num, alpha_deg: Num, dpw:
     dpw = _positive("dpw", dpw, "the pitch diameter Dpw")
     alpha_deg = _thrust_angle(alpha_deg)
     _within_pitch_circle(dwe, dpw)
-    static_factor = _thrust_roller_static_factor(dwe * _cos_deg(alpha_deg) / dpw)
+    static_factor = _thrust_roller_static_factor(dwe * cosd(alpha_deg) / dpw)
     return _thrust_roller_c0(z, dwe, lwe, alpha_deg, static_factor)
 
 
@@ -449,34 +416,39 @@ def _check_layout(g: BearingGeometry) -> None:
 def _add_gamma(record: Derivation, g: BearingGeometry, table: RatingTable) -> float:
     """Step: the geometry ratio γ that the fc table is read at."""
     if g.kind in THRUST_KINDS:
-        return record.add("gamma", "γ", "geometry ratio", "γ = Dw/Dpw (α = 90°)", "γ = {0}/{1}",
-                          (g.dw, g.dpw), g.dw / g.dpw, "", table.source)
-    return record.add("gamma", "γ", "geometry ratio", "γ = Dw·cos α/Dpw", "γ = {0}·cos {1}°/{2}",
-                      (g.dw, g.alpha_deg, g.dpw), g.dw * _cos_deg(g.alpha_deg) / g.dpw, "", table.source)
+        return record.add("gamma", g.dw / g.dpw, symbol="γ", label="geometry ratio",
+                          formula="γ = Dw/Dpw (α = 90°)", template="γ = {0}/{1}",
+                          args=(g.dw, g.dpw), source=table.source)
+    return record.add("gamma", g.dw * cosd(g.alpha_deg) / g.dpw, symbol="γ",
+                      label="geometry ratio", formula="γ = Dw·cos α/Dpw",
+                      template="γ = {0}·cos {1}°/{2}", args=(g.dw, g.alpha_deg, g.dpw),
+                      source=table.source)
 
 
 def _add_table_step(record: Derivation, key: str, label: str, table: RatingTable, gamma: float) -> float:
     """Step: a factor read from a standard table at γ, held at the table end (with a warning) outside."""
     value, warning = _clamped_factor(table, gamma)
-    return record.add(key, table.symbol, f"{label} ({table.name})",
-                      f"{table.symbol} = table({table.argument}), linear interpolation",
-                      f"{table.symbol} read at γ = {{0}}", (gamma,), value, "", table.source, warning=warning)
+    return record.add(key, value, symbol=table.symbol, label=f"{label} ({table.name})",
+                      formula=f"{table.symbol} = table({table.argument}), linear interpolation",
+                      template=f"{table.symbol} read at γ = {{0}}", args=(gamma,),
+                      source=table.source, warning=warning)
 
 
 def _add_bm(record: Derivation, g: BearingGeometry) -> float:
     """Step: the rating factor bm, from ISO 281 Table 1 unless overridden."""
     label = "rating factor for material and manufacture"
     if g.bm is not None:
-        return record.add("bm", "bm", label, "bm (given)", "bm (given)", (), g.bm, "", "given",
-                          result=False)
+        return record.add("bm", g.bm, symbol="bm", label=label, formula="bm (given)",
+                          template="bm (given)", source="given", result=False)
     value = tables.BM_BY_KIND[g.kind]
-    return record.add("bm", "bm", label, f"bm ({g.kind})", f"bm ({g.kind})", (), value, "",
-                      tables.BM_SOURCE, result=False)
+    return record.add("bm", value, symbol="bm", label=label, formula=f"bm ({g.kind})",
+                      template=f"bm ({g.kind})", source=tables.BM_SOURCE, result=False)
 
 
 def _add_given_f0(record: Derivation, f0: float) -> float:
     """Step: a static factor f0 supplied with the geometry."""
-    return record.add("f0", "f0", "static factor", "f0 (given)", "f0 (given)", (), f0, "", "given")
+    return record.add("f0", f0, symbol="f0", label="static factor", formula="f0 (given)",
+                      template="f0 (given)", source="given")
 
 
 def _rate_radial_ball(record: Derivation, g: BearingGeometry, gamma: float, bm: float, fc: float) -> None:
@@ -487,31 +459,37 @@ def _rate_radial_ball(record: Derivation, g: BearingGeometry, gamma: float, bm: 
     else:
         formula = "Cr = 3.647·bm·fc·(i·cos α)^0.7·Z^(2/3)·Dw^1.4  (Dw > 25.4 mm)"
         template = "Cr = 3.647·{0}·{1}·({2}·cos {3}°)^0.7·{4}^(2/3)·{5}^1.4"
-    record.add("C", "Cr", "basic dynamic radial load rating", formula, template,
-               (bm, fc, g.i, g.alpha_deg, g.z, g.dw), _radial_ball_c(g.i, g.z, g.dw, g.alpha_deg, bm, fc),
-               "N", tables.FC_RADIAL_BALL.source)
+    record.add("C", _radial_ball_c(g.i, g.z, g.dw, g.alpha_deg, bm, fc), symbol="Cr",
+               label="basic dynamic radial load rating", formula=formula, template=template,
+               args=(bm, fc, g.i, g.alpha_deg, g.z, g.dw), unit="N",
+               source=tables.FC_RADIAL_BALL.source)
     if g.f0 is None:
         f0 = _add_table_step(record, "f0", "static factor", tables.F0_DEEP_GROOVE, gamma)
     else:
         f0 = _add_given_f0(record, g.f0)
-    record.add("C0", "C0r", "basic static radial load rating", "C0r = f0·i·Z·Dw²·cos α",
-               "C0r = {0}·{1}·{2}·{3}²·cos {4}°", (f0, g.i, g.z, g.dw, g.alpha_deg),
-               _radial_ball_c0(g.i, g.z, g.dw, g.alpha_deg, f0), "N", tables.STATIC_RADIAL_BALL_SOURCE)
+    record.add("C0", _radial_ball_c0(g.i, g.z, g.dw, g.alpha_deg, f0), symbol="C0r",
+               label="basic static radial load rating", formula="C0r = f0·i·Z·Dw²·cos α",
+               template="C0r = {0}·{1}·{2}·{3}²·cos {4}°", args=(f0, g.i, g.z, g.dw, g.alpha_deg),
+               unit="N", source=tables.STATIC_RADIAL_BALL_SOURCE)
 
 
 def _rate_radial_roller(record: Derivation, g: BearingGeometry, gamma: float, bm: float, fc: float) -> None:
     """Steps Cr, f0 (the ISO 76 factor 44·(1 − γ)), C0r of a radial roller bearing."""
     lwe = float(g.lwe)  # type: ignore[arg-type]  # present: checked by _check_layout
-    record.add("C", "Cr", "basic dynamic radial load rating",
-               "Cr = bm·fc·(i·Lwe·cos α)^(7/9)·Z^(3/4)·Dwe^(29/27)",
-               "Cr = {0}·{1}·({2}·{3}·cos {4}°)^(7/9)·{5}^(3/4)·{6}^(29/27)",
-               (bm, fc, g.i, lwe, g.alpha_deg, g.z, g.dw),
-               _radial_roller_c(g.i, g.z, g.dw, lwe, g.alpha_deg, bm, fc), "N", tables.FC_RADIAL_ROLLER.source)
-    f0 = record.add("f0", "f0", "static factor", "f0 = 44·(1 − γ)", "f0 = 44·(1 − {0})", (gamma,),
-                    _radial_roller_static_factor(gamma), "N/mm²", tables.STATIC_RADIAL_ROLLER_SOURCE)
-    record.add("C0", "C0r", "basic static radial load rating", "C0r = f0·i·Z·Lwe·Dwe·cos α",
-               "C0r = {0}·{1}·{2}·{3}·{4}·cos {5}°", (f0, g.i, g.z, lwe, g.dw, g.alpha_deg),
-               _radial_roller_c0(g.i, g.z, g.dw, lwe, g.alpha_deg, f0), "N", tables.STATIC_RADIAL_ROLLER_SOURCE)
+    record.add("C", _radial_roller_c(g.i, g.z, g.dw, lwe, g.alpha_deg, bm, fc), symbol="Cr",
+               label="basic dynamic radial load rating",
+               formula="Cr = bm·fc·(i·Lwe·cos α)^(7/9)·Z^(3/4)·Dwe^(29/27)",
+               template="Cr = {0}·{1}·({2}·{3}·cos {4}°)^(7/9)·{5}^(3/4)·{6}^(29/27)",
+               args=(bm, fc, g.i, lwe, g.alpha_deg, g.z, g.dw), unit="N",
+               source=tables.FC_RADIAL_ROLLER.source)
+    f0 = record.add("f0", _radial_roller_static_factor(gamma), symbol="f0", label="static factor",
+                    formula="f0 = 44·(1 − γ)", template="f0 = 44·(1 − {0})", args=(gamma,),
+                    unit="N/mm²", source=tables.STATIC_RADIAL_ROLLER_SOURCE)
+    record.add("C0", _radial_roller_c0(g.i, g.z, g.dw, lwe, g.alpha_deg, f0), symbol="C0r",
+               label="basic static radial load rating", formula="C0r = f0·i·Z·Lwe·Dwe·cos α",
+               template="C0r = {0}·{1}·{2}·{3}·{4}·cos {5}°",
+               args=(f0, g.i, g.z, lwe, g.dw, g.alpha_deg), unit="N",
+               source=tables.STATIC_RADIAL_ROLLER_SOURCE)
 
 
 def _rate_thrust_ball(record: Derivation, g: BearingGeometry, gamma: float, bm: float, fc: float) -> None:
@@ -523,30 +501,34 @@ def _rate_thrust_ball(record: Derivation, g: BearingGeometry, gamma: float, bm: 
     else:
         formula = "Ca = 3.647·bm·fc·Z^(2/3)·Dw^1.4  (α = 90°, Dw > 25.4 mm)"
         template = "Ca = 3.647·{0}·{1}·{2}^(2/3)·{3}^1.4"
-    record.add("C", "Ca", "basic dynamic axial load rating", formula, template, (bm, fc, g.z, g.dw),
-               _thrust_ball_c(g.z, g.dw, bm, fc), "N", tables.FC_THRUST_BALL_90.source,
+    record.add("C", _thrust_ball_c(g.z, g.dw, bm, fc), symbol="Ca",
+               label="basic dynamic axial load rating", formula=formula, template=template,
+               args=(bm, fc, g.z, g.dw), unit="N", source=tables.FC_THRUST_BALL_90.source,
                note="thrust formula from memory")
     _add_given_f0(record, f0)
-    record.add("C0", "C0a", "basic static axial load rating", "C0a = f0·Z·Dw²·sin α",
-               "C0a = {0}·{1}·{2}²·sin {3}°", (f0, g.z, g.dw, g.alpha_deg),
-               _thrust_ball_c0(g.z, g.dw, g.alpha_deg, f0), "N", tables.STATIC_THRUST_BALL_SOURCE)
+    record.add("C0", _thrust_ball_c0(g.z, g.dw, g.alpha_deg, f0), symbol="C0a",
+               label="basic static axial load rating", formula="C0a = f0·Z·Dw²·sin α",
+               template="C0a = {0}·{1}·{2}²·sin {3}°", args=(f0, g.z, g.dw, g.alpha_deg), unit="N",
+               source=tables.STATIC_THRUST_BALL_SOURCE)
 
 
 def _rate_thrust_roller(record: Derivation, g: BearingGeometry, gamma: float, bm: float, fc: float) -> None:
     """Steps Ca, f0 (the ISO 76 factor 220·(1 − Dwe·cos α/Dpw)), C0a of a thrust roller bearing."""
     lwe = float(g.lwe)  # type: ignore[arg-type]  # present: checked by _check_layout
-    record.add("C", "Ca", "basic dynamic axial load rating",
-               "Ca = bm·fc·Lwe^(7/9)·Z^(3/4)·Dwe^(29/27)  (α = 90°)",
-               "Ca = {0}·{1}·{2}^(7/9)·{3}^(3/4)·{4}^(29/27)", (bm, fc, lwe, g.z, g.dw),
-               _thrust_roller_c(g.z, g.dw, lwe, bm, fc), "N", tables.FC_THRUST_ROLLER_90.source,
+    record.add("C", _thrust_roller_c(g.z, g.dw, lwe, bm, fc), symbol="Ca",
+               label="basic dynamic axial load rating",
+               formula="Ca = bm·fc·Lwe^(7/9)·Z^(3/4)·Dwe^(29/27)  (α = 90°)",
+               template="Ca = {0}·{1}·{2}^(7/9)·{3}^(3/4)·{4}^(29/27)",
+               args=(bm, fc, lwe, g.z, g.dw), unit="N", source=tables.FC_THRUST_ROLLER_90.source,
                note="thrust formula and fc table from memory")
-    f0 = record.add("f0", "f0", "static factor", "f0 = 220·(1 − Dwe·cos α/Dpw)",
-                    "f0 = 220·(1 − {0}·cos {1}°/{2})", (g.dw, g.alpha_deg, g.dpw),
-                    _thrust_roller_static_factor(g.dw * _cos_deg(g.alpha_deg) / g.dpw), "N/mm²",
-                    tables.STATIC_THRUST_ROLLER_SOURCE)
-    record.add("C0", "C0a", "basic static axial load rating", "C0a = f0·Z·Lwe·Dwe·sin α",
-               "C0a = {0}·{1}·{2}·{3}·sin {4}°", (f0, g.z, lwe, g.dw, g.alpha_deg),
-               _thrust_roller_c0(g.z, g.dw, lwe, g.alpha_deg, f0), "N", tables.STATIC_THRUST_ROLLER_SOURCE)
+    f0 = record.add("f0", _thrust_roller_static_factor(g.dw * cosd(g.alpha_deg) / g.dpw),
+                    symbol="f0", label="static factor", formula="f0 = 220·(1 − Dwe·cos α/Dpw)",
+                    template="f0 = 220·(1 − {0}·cos {1}°/{2})", args=(g.dw, g.alpha_deg, g.dpw),
+                    unit="N/mm²", source=tables.STATIC_THRUST_ROLLER_SOURCE)
+    record.add("C0", _thrust_roller_c0(g.z, g.dw, lwe, g.alpha_deg, f0), symbol="C0a",
+               label="basic static axial load rating", formula="C0a = f0·Z·Lwe·Dwe·sin α",
+               template="C0a = {0}·{1}·{2}·{3}·sin {4}°", args=(f0, g.z, lwe, g.dw, g.alpha_deg),
+               unit="N", source=tables.STATIC_THRUST_ROLLER_SOURCE)
 
 
 def rate_bearing(geometry: BearingGeometry) -> Derivation:

@@ -10,7 +10,7 @@ from __future__ import annotations
 
 from collections.abc import Callable
 from dataclasses import dataclass
-from typing import Any, TypeAlias
+from typing import Any
 
 
 class InputError(ValueError):
@@ -85,20 +85,32 @@ class Step:
         }
 
 
-StepWords: TypeAlias = tuple[str, str, str, str, tuple[float, ...], str, str, str | None]
-"""The words and raw numbers of one step, as :meth:`Derivation.add` takes them besides the key,
-value and warning: (symbol, label, formula, template, args, unit, source, note).  A plain tuple:
-:meth:`Derivation.derived` has it composed only when the steps are kept."""
+@dataclass(frozen=True, slots=True, kw_only=True)
+class StepWords:
+    """The words and raw numbers of one step, besides its key, value and warning.
+
+    :meth:`Derivation.add` takes them as its keyword arguments; :meth:`Derivation.derived` takes a
+    function that makes them, called only when the steps are kept.
+    """
+
+    symbol: str
+    label: str
+    formula: str
+    template: str
+    args: tuple[float, ...] = ()
+    unit: str = ""
+    source: str
+    note: str | None = None
 
 
 class Derivation:
     """Steps in order, the named results, and every warning raised while deriving.
 
-    ``add`` stores each step as a plain tuple; :attr:`steps` turns them into :class:`Step`
-    objects the first time something reads them.  The solver and the sensitivity sweep read only
-    ``results`` (``keep_steps`` false): a producer that records with :meth:`derived` hands over
-    its step's words as a function, called only when the steps are kept, so those callers never
-    pay for composing them.
+    ``add`` stores each step's key, value, warning and :class:`StepWords`; :attr:`steps` turns
+    them into :class:`Step` objects the first time something reads them.  The solver and the
+    sensitivity sweep read only ``results`` (``keep_steps`` false): a producer that records with
+    :meth:`derived` hands over its step's words as a function, called only when the steps are
+    kept, so those callers never pay for composing them.
     """
 
     __slots__ = ("_raw", "_steps", "keep_steps", "results", "warnings", "notes")
@@ -112,25 +124,14 @@ class Derivation:
         self.warnings: list[str] = []
         self.notes: list[str] = []
 
-    def add(
-        self,
-        key: str,
-        symbol: str,
-        label: str,
-        formula: str,
-        template: str,
-        args: tuple[float, ...],
-        value: float,
-        unit: str,
-        source: str,
-        warning: str | None = None,
-        note: str | None = None,
-        result: bool = True,
-    ) -> float:
+    def add(self, key: str, value: float, *, symbol: str, label: str, formula: str,
+            template: str, args: tuple[float, ...] = (), unit: str = "", source: str,
+            note: str | None = None, warning: str | None = None, result: bool = True) -> float:
         """Append a step (and, unless ``result`` is false, record it under ``key``); return value."""
         if self.keep_steps:
-            self._raw.append((key, value, warning,
-                              (symbol, label, formula, template, args, unit, source, note)))
+            words = StepWords(symbol=symbol, label=label, formula=formula, template=template,
+                              args=args, unit=unit, source=source, note=note)
+            self._raw.append((key, value, warning, words))
             self._steps = None
         if result:
             self.results[key] = value
@@ -138,7 +139,7 @@ class Derivation:
             self.warnings.append(warning)
         return value
 
-    def derived(self, key: str, value: float, explain: Callable[[], StepWords],
+    def derived(self, key: str, value: float, explain: Callable[[], StepWords], *,
                 warning: str | None = None) -> float:
         """Record ``value`` under ``key`` with its warning, and its step from ``explain()``, which
         is called only when the steps are kept; return value."""
@@ -149,6 +150,15 @@ class Derivation:
         if warning is not None:
             self.warnings.append(warning)
         return value
+
+    def extend(self, other: Derivation) -> None:
+        """Append ``other``'s steps, results, warnings and notes after this record's own."""
+        if self.keep_steps:
+            self._raw.extend(other._raw)
+            self._steps = None
+        self.results.update(other.results)
+        self.warnings.extend(other.warnings)
+        self.notes.extend(other.notes)
 
     @property
     def steps(self) -> list[Step]:
@@ -174,7 +184,7 @@ class Derivation:
     @property
     def sources(self) -> list[str]:
         """Every distinct source cited, in order of first use."""
-        return list(dict.fromkeys(raw[3][6] for raw in self._raw))
+        return list(dict.fromkeys(words.source for _, _, _, words in self._raw))
 
     def as_dict(self) -> dict[str, Any]:
         """Plain data: ``results``, ``steps``, ``warnings``, ``notes``, ``sources``."""
@@ -189,5 +199,7 @@ class Derivation:
 
 def _step_of(raw: tuple[str, float, str | None, StepWords]) -> Step:
     """The :class:`Step` of one stored (key, value, warning, words)."""
-    key, value, warning, (symbol, label, formula, template, args, unit, source, note) = raw
-    return Step(key, symbol, label, formula, template, args, value, unit, source, warning, note)
+    key, value, warning, words = raw
+    return Step(key=key, symbol=words.symbol, label=words.label, formula=words.formula,
+                template=words.template, args=words.args, value=value, unit=words.unit,
+                source=words.source, warning=warning, note=words.note)

@@ -20,7 +20,7 @@ import statistics
 import time
 from bisect import bisect_right
 from dataclasses import dataclass, fields
-from typing import Any, NamedTuple
+from typing import Any
 
 from . import tables as T
 from .derive import CaseInputs, derive, validate
@@ -91,7 +91,8 @@ _SLOT: dict[str, int] = {name: i for i, name in enumerate(_FIELD_NAMES)}
 _UNSEEN = object()  # memo marker: None already means "outside the valid range"
 
 
-class _Point(NamedTuple):
+@dataclass(frozen=True, slots=True)
+class _Point:
     """One derive() run, reduced to what the differences need (a tuple: built ~40 times a call)."""
 
     life: float

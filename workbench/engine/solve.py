@@ -10,7 +10,7 @@ from __future__ import annotations
 
 import math
 from dataclasses import dataclass, replace
-from typing import Callable, NamedTuple
+from typing import Callable
 
 from .derive import CaseInputs, derive
 from .record import Derivation, InputError, fmt
@@ -21,7 +21,8 @@ GRID_POINTS = 25  # scan for sign changes before brentq: catches a second root o
 SWITCH_BISECTIONS = 24  # locate an e switch between grid points to about 1e-6 of the span
 
 
-class Unknown(NamedTuple):
+@dataclass(frozen=True, slots=True)
+class Unknown:
     """An input the solver can vary: its label, unit, the range it may take, and how it scales."""
 
     name: str
@@ -211,8 +212,9 @@ def solve(case: CaseInputs, unknown: str, target: str, target_value: float) -> S
                                   f"({fmt(achieved)} instead of {fmt(target_value)}): no exact root")
     bracket = (math.exp(a), math.exp(b)) if spec.log else (a, b)
     label, unit = TARGETS[target]
-    forward.add("solved", unknown, f"Solved {spec.label}", f"{target} = {fmt(target_value)} {unit}",
-                "brentq on [{0}, {1}]", bracket, x, spec.unit, "root finding (Brent's method)",
+    forward.add("solved", x, symbol=unknown, label=f"Solved {spec.label}",
+                formula=f"{target} = {fmt(target_value)} {unit}", template="brentq on [{0}, {1}]",
+                args=bracket, unit=spec.unit, source="root finding (Brent's method)",
                 note=f"{counter[0]} evaluations, relative residual {rel:.1e}", result=False)
     return Solution(unknown, x, spec.unit, target, target_value, achieved, rel, counter[0],
                     bracket, _branch(forward), forward, solved_case)

@@ -19,7 +19,7 @@ from functools import lru_cache
 
 import math
 
-from workbench.engine.num import Num, interp, is_array
+from workbench.engine.num import Num, all_true, interp, isfinite, log10, power
 from workbench.engine.record import InputError
 
 ISO_3448 = "ISO 3448 (ISO viscosity classification)"
@@ -186,23 +186,12 @@ def viscosity_at_temperature(nu40: float, nu100: float, temp_c: Num) -> Num:
     """Kinematic viscosity (mm²/s) at ``temp_c`` (°C, float or array) of an oil with ν40 and ν100,
     by the ASTM D341 Walther line through the two points: ν = 10^(10^(A − B·log10 T)) − 0.7."""
     a, b = walther_constants(nu40, nu100)
-    if is_array(temp_c):
-        import numpy as np
-
-        temps = np.asarray(temp_c, dtype=float)
-        if not np.all(np.isfinite(temps)) or np.any(temps <= ABSOLUTE_ZERO_C):
-            raise InputError("temp", "temperatures must be finite and above −273.15 °C")
-        with np.errstate(over="ignore"):
-            nu = 10.0 ** (10.0 ** (a - b * np.log10(temps + KELVIN_OFFSET))) - WALTHER_SHIFT
-        if not np.all(np.isfinite(nu)):
-            raise InputError("temp", _TOO_COLD)
-        return nu
-    if not math.isfinite(temp_c) or temp_c <= ABSOLUTE_ZERO_C:
-        raise InputError("temp", f"{temp_c!r} °C is not a finite temperature above −273.15 °C")
-    try:
-        return 10.0 ** (10.0 ** (a - b * math.log10(temp_c + KELVIN_OFFSET))) - WALTHER_SHIFT
-    except OverflowError:
-        raise InputError("temp", f"{temp_c} °C: {_TOO_COLD}") from None
+    if not all_true(isfinite(temp_c) & (temp_c > ABSOLUTE_ZERO_C)):
+        raise InputError("temp", "a temperature must be finite and above −273.15 °C")
+    nu = power(10.0, power(10.0, a - b * log10(temp_c + KELVIN_OFFSET))) - WALTHER_SHIFT
+    if not all_true(isfinite(nu)):
+        raise InputError("temp", _TOO_COLD)
+    return nu
 
 
 # ---- ASTM D2270 -----------------------------------------------------------------------------

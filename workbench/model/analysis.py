@@ -18,7 +18,8 @@ file has had its tables checked already; one built in memory may not have.
 from __future__ import annotations
 
 from collections.abc import Callable, Mapping
-from typing import Any, NamedTuple, TypeVar
+from dataclasses import dataclass
+from typing import Any, TypeVar
 
 from ..engine.record import InputError
 from .duty_cycles import (
@@ -36,7 +37,8 @@ from .shafts import (
 T = TypeVar("T")
 
 
-class StateOutcome(NamedTuple):
+@dataclass(frozen=True, slots=True)
+class StateOutcome:
     """One operating state of a shaft: its free body solved, or why not (``key: message``)."""
 
     state: OperatingState
@@ -45,7 +47,8 @@ class StateOutcome(NamedTuple):
     error: str | None
 
 
-class ShaftOutcome(NamedTuple):
+@dataclass(frozen=True, slots=True)
+class ShaftOutcome:
     """A ``[[shafts]]`` table worked out.
 
     ``shaft`` is None when the table cannot be read; ``error`` says why, or why its cases could
@@ -61,7 +64,8 @@ class ShaftOutcome(NamedTuple):
     system_error: str | None
 
 
-class DutyOutcome(NamedTuple):
+@dataclass(frozen=True, slots=True)
+class DutyOutcome:
     """A duty cycle worked out, or why not.
 
     ``shaft`` names the shaft whose states make the cycle (one per bearing position), and is None
@@ -76,7 +80,8 @@ class DutyOutcome(NamedTuple):
     error: str | None
 
 
-class SessionAnalysis(NamedTuple):
+@dataclass(frozen=True, slots=True)
+class SessionAnalysis:
     """Every case (the session's, then the generated ones), every shaft, every duty cycle."""
 
     cases: list[CaseResult]

@@ -37,7 +37,7 @@ from __future__ import annotations
 import math
 from collections.abc import Callable, Mapping, Sequence
 from dataclasses import dataclass, field
-from typing import Any, NamedTuple
+from typing import Any
 
 from ..engine import duty
 from ..engine.derive import MODIFIED_LIFE_SOURCE
@@ -69,7 +69,8 @@ class DutyCycle:
     basis: str = "time"
 
 
-class DutyResult(NamedTuple):
+@dataclass(frozen=True, slots=True)
+class DutyResult:
     """A duty cycle worked out: Miner life, hours at the mean speed, each state's damage share.
 
     ``bearing`` and ``kind`` are the session bearing the states load and its kind.
@@ -89,7 +90,8 @@ class DutyResult(NamedTuple):
     derivation: Derivation
 
 
-class SystemResult(NamedTuple):
+@dataclass(frozen=True, slots=True)
+class SystemResult:
     """A shaft's bearings as a series system: each duty life and the combined life."""
 
     shaft: Shaft
@@ -218,9 +220,9 @@ def duty_life(session: Session, cycle: DutyCycle, cases: Sequence[LoadCase] = ()
     d = Derivation()
     _miner_steps(d, cycle, results, shares, speeds, lives, u, miner, n_mean)
     life_h = life_hours(miner.life, n_mean) if n_mean > 0.0 else math.nan
-    d.add("L_h", "Lh", "Duty-cycle life in hours at the mean speed", "L·10⁶/(60·nm)",
-          "{0} × 10⁶ / (60 × {1})", (miner.life, n_mean), life_h, "h",
-          _life_source(results[0]))
+    d.add("L_h", life_h, symbol="Lh", label="Duty-cycle life in hours at the mean speed",
+          formula="L·10⁶/(60·nm)", template="{0} × 10⁶ / (60 × {1})", args=(miner.life, n_mean),
+          unit="h", source=_life_source(results[0]))
     return DutyResult(cycle, results[0].case.bearing, kind, tuple(results), lives, u,
                       miner.damage_shares, miner.life, n_mean, life_h, reliability, d)
 
@@ -238,35 +240,36 @@ def _miner_steps(d: Derivation, cycle: DutyCycle, results: Sequence[CaseResult],
     """Steps of the Palmgren–Miner summation: Li, ui, L, damage shares, mean speed."""
     for i, result in enumerate(results, start=1):
         name = result.case.name
-        d.add(f"L[{i}]", f"L{i}", f"Life of state {i} ({name})", "Lnm of the case",
-              "{0}", (lives[i - 1],), lives[i - 1], "10⁶ rev",
-              MODIFIED_LIFE_SOURCE)
+        d.add(f"L[{i}]", lives[i - 1], symbol=f"L{i}", label=f"Life of state {i} ({name})",
+              formula="Lnm of the case", template="{0}", args=(lives[i - 1],), unit="10⁶ rev",
+              source=MODIFIED_LIFE_SOURCE)
     total = math.fsum(weights)
     revolutions = math.fsum(w * n for w, n in zip(weights, speeds))
     for i in range(1, len(results) + 1):
         if cycle.basis == "time":
-            d.add(f"u[{i}]", f"u{i}", f"Revolution share of state {i}", "ui = ti·ni/Σ tj·nj",
-                  "{0} × {1} / {2}", (weights[i - 1] / total, speeds[i - 1],
-                                      revolutions / total),
-                  u[i - 1], "", MINER_SOURCE, note="time share × speed")
+            d.add(f"u[{i}]", u[i - 1], symbol=f"u{i}", label=f"Revolution share of state {i}",
+                  formula="ui = ti·ni/Σ tj·nj", template="{0} × {1} / {2}",
+                  args=(weights[i - 1] / total, speeds[i - 1], revolutions / total),
+                  source=MINER_SOURCE, note="time share × speed")
         else:
-            d.add(f"u[{i}]", f"u{i}", f"Revolution share of state {i}", "ui = si/Σ sj",
-                  "{0} / {1}", (weights[i - 1], total), u[i - 1], "", MINER_SOURCE)
+            d.add(f"u[{i}]", u[i - 1], symbol=f"u{i}", label=f"Revolution share of state {i}",
+                  formula="ui = si/Σ sj", template="{0} / {1}", args=(weights[i - 1], total),
+                  source=MINER_SOURCE)
     damage = math.fsum(share / life for share, life in zip(u, lives))
-    d.add("L", "L", "Duty-cycle life", "1/L = Σ ui/Li", "1 / {0}", (damage,), miner.life,
-          "10⁶ rev", MINER_SOURCE)
+    d.add("L", miner.life, symbol="L", label="Duty-cycle life", formula="1/L = Σ ui/Li",
+          template="1 / {0}", args=(damage,), unit="10⁶ rev", source=MINER_SOURCE)
     for i in range(1, len(results) + 1):
         share = miner.damage_shares[i - 1]
-        d.add(f"D[{i}]", f"D{i}", f"Share of the damage done in state {i}", "(ui/Li)/Σ(uj/Lj)",
-              "({0} / {1}) / {2}", (u[i - 1], lives[i - 1], damage), share, "",
-              MINER_SOURCE)
+        d.add(f"D[{i}]", share, symbol=f"D{i}", label=f"Share of the damage done in state {i}",
+              formula="(ui/Li)/Σ(uj/Lj)", template="({0} / {1}) / {2}",
+              args=(u[i - 1], lives[i - 1], damage), source=MINER_SOURCE)
     if cycle.basis == "time":
-        d.add("n_m", "nm", "Mean speed", "nm = Σ ti·ni", "{0} / {1}", (revolutions, total),
-              n_mean, "r/min", MINER_SOURCE)
+        d.add("n_m", n_mean, symbol="nm", label="Mean speed", formula="nm = Σ ti·ni",
+              template="{0} / {1}", args=(revolutions, total), unit="r/min", source=MINER_SOURCE)
     else:
-        d.add("n_m", "nm", "Mean speed", "nm = 1/Σ(ui/ni)", "1 / {0}",
-              (1.0 / n_mean if n_mean > 0.0 else math.inf,), n_mean, "r/min", MINER_SOURCE,
-              note="time shares ti ∝ ui/ni")
+        d.add("n_m", n_mean, symbol="nm", label="Mean speed", formula="nm = 1/Σ(ui/ni)",
+              template="1 / {0}", args=(1.0 / n_mean if n_mean > 0.0 else math.inf,), unit="r/min",
+              source=MINER_SOURCE, note="time shares ti ∝ ui/ni")
 
 
 # ---- series system -------------------------------------------------------------------------
@@ -296,18 +299,19 @@ def system_life(session: Session, shaft: Shaft, *, key: str = "shaft",
     n_mean = duties[0].mean_speed  # both bearings turn with the shaft
     d = Derivation()
     for side, result in zip(SIDES, duties):
-        d.add(f"L_{side}", f"L{side}", f"Duty-cycle life of bearing {side} ({result.bearing})",
-              "1/L = Σ ui/Li", "{0}", (result.life_mrev,), result.life_mrev, "10⁶ rev",
-              MINER_SOURCE)
+        d.add(f"L_{side}", result.life_mrev, symbol=f"L{side}",
+              label=f"Duty-cycle life of bearing {side} ({result.bearing})",
+              formula="1/L = Σ ui/Li", template="{0}", args=(result.life_mrev,), unit="10⁶ rev",
+              source=MINER_SOURCE)
     kind_words = " and ".join(sorted(set(kinds)))
-    d.add("e", "e", "Weibull slope", "9/8 all roller, else 10/9", "{0}", (slope,), slope, "",
-          SLOPE_SOURCE, note=f"bearings: {kind_words}; a mixed set takes the smaller slope "
-                             "(conservative)")
-    d.add("L_sys", "L_sys", f"System life at R = {reliability:g}", "(L_A^−e + L_B^−e)^(−1/e)",
-          "({0}^−{2} + {1}^−{2})^(−1/{2})", (lives[0], lives[1], slope), life, "10⁶ rev",
-          SERIES_SOURCE)
+    d.add("e", slope, symbol="e", label="Weibull slope", formula="9/8 all roller, else 10/9",
+          template="{0}", args=(slope,), source=SLOPE_SOURCE,
+          note=f"bearings: {kind_words}; a mixed set takes the smaller slope " "(conservative)")
+    d.add("L_sys", life, symbol="L_sys", label=f"System life at R = {reliability:g}",
+          formula="(L_A^−e + L_B^−e)^(−1/e)", template="({0}^−{2} + {1}^−{2})^(−1/{2})",
+          args=(lives[0], lives[1], slope), unit="10⁶ rev", source=SERIES_SOURCE)
     life_h = life_hours(life, n_mean) if n_mean > 0.0 else math.nan
-    d.add("L_sys_h", "L_sys,h", "System life in hours at the mean speed", "L_sys·10⁶/(60·nm)",
-          "{0} × 10⁶ / (60 × {1})", (life, n_mean), life_h, "h",
-          duties[0].derivation.step("L_h").source)
+    d.add("L_sys_h", life_h, symbol="L_sys,h", label="System life in hours at the mean speed",
+          formula="L_sys·10⁶/(60·nm)", template="{0} × 10⁶ / (60 × {1})", args=(life, n_mean),
+          unit="h", source=duties[0].derivation.step("L_h").source)
     return SystemResult(shaft, duties, slope, life, life_h, reliability, d)

@@ -8,8 +8,9 @@ files and the case editor all go through :func:`parse_field`, so "2 kN" means on
 from __future__ import annotations
 
 import math
+from dataclasses import dataclass
 from functools import lru_cache
-from typing import Mapping, NamedTuple
+from typing import Mapping
 
 from ..engine import tables as T
 from ..engine.derive import RELIABILITY_MODELS, CaseInputs
@@ -20,7 +21,8 @@ MAX_TEXT = 200
 PARSED_TEXTS_KEPT = 8192
 
 
-class FieldSpec(NamedTuple):
+@dataclass(frozen=True, slots=True)
+class FieldSpec:
     """One input: ``kind`` is quantity, number, fraction, choice or switch."""
 
     name: str

@@ -27,7 +27,8 @@ from __future__ import annotations
 import math
 import re
 import unicodedata
-from typing import TYPE_CHECKING, Literal, NamedTuple
+from dataclasses import dataclass
+from typing import TYPE_CHECKING, Literal
 
 from workbench.engine.record import fmt
 
@@ -49,7 +50,8 @@ class QuantityError(ValueError):
         self.message = message
 
 
-class QuantitySpec(NamedTuple):
+@dataclass(frozen=True, slots=True)
+class QuantitySpec:
     """One row of the quantity table: internal unit, display units and wording for messages.
 
     Units are written as labels that pint also reads (``mm²/s``, ``N·m``, ``°C``), so the label a

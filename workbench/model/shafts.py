@@ -5,10 +5,11 @@ larger) and carries gears and pulleys (:class:`Element`); each :class:`Operating
 torque (or power) and speed it runs at and its share of the time.  Like the rest of the session,
 every value is the text a person typed ("80 mm", "20°", "15 kW").
 
-:func:`solve_shaft` works the free body of one state: the mesh or belt force of each element by
-the gear-force relations, the bearing reactions by shaft statics (:mod:`workbench.engine.shaft`),
-and for a pair of angular-contact or tapered roller bearings adjusted against each other the axial
-loads by the two-bearing thrust-sharing rule (:mod:`workbench.engine.pairs`).
+:func:`solve_shaft` turns the texts into the engine's inputs and has the engine work the free
+body of one state: the mesh or belt force of each element by the gear-force relations and the
+bearing reactions by shaft statics (:mod:`workbench.engine.shaft`), and for a pair of
+angular-contact or tapered roller bearings adjusted against each other the axial loads by the
+two-bearing thrust-sharing rule (:mod:`workbench.engine.pairs`).
 :func:`generated_cases` turns each shaft × state × bearing into an ordinary :class:`LoadCase`, so
 ``evaluate_case``, the solver and the selection apply to it unchanged.
 
@@ -53,14 +54,9 @@ Table layout (TOML, an array of tables; every value is text)::
 Errors are :class:`~workbench.model.fields.FieldError` naming the key, counted from 1 like the
 session file: ``shafts[1].elements[2].helix_angle``.
 
-Y for the induced thrust: the induced axial component of a tapered roller bearing is taken in its
-ISO form Fi = Fr/(2Y), with Y the bearing's axial factor on the Fa/Fr > e branch as
-``engine.kinds.dynamic_factors`` gives it — the maker's Y when the bearing has one, else
-0.4·cot α from its contact angle (or from the maker's e through e = 1.5·tan α) — that is, the very
-Y the bearing's own derivation shows on that branch.  An angular-contact ball bearing takes
-Fi = e·Fr with its ISO 281 Table 3 e (common practice); where e depends on the bearing's own axial
-load (the 15° rows, by f0·Fa/C0) the loads are found by fixed-point iteration, which rises
-monotonically from Fa = 0 because e grows with Fa.
+Y for the induced thrust: a pair's bearings are read from the session as
+:class:`~workbench.engine.pairs.PairBearing`; :func:`~workbench.engine.pairs.induced_thrust` takes
+the very Y (or e) the bearing's own derivation shows on the Fa/Fr > e branch.
 """
 
 from __future__ import annotations
@@ -69,17 +65,16 @@ import math
 from collections.abc import Iterator, Mapping, Sequence
 from contextlib import contextmanager
 from dataclasses import dataclass, field, fields
-from typing import Any, NamedTuple
+from typing import Any
 
-from ..engine.derive import CaseInputs, validate
-from ..engine.gears import (
-    BELT_PULL_FACTORS, V_BELT_PULL_FACTOR, belt_pull, helical_forces, spur_forces,
-    straight_bevel_forces, torque_from_power,
-)
-from ..engine.kinds import Arrangement, DynamicFactors, Kind, dynamic_factors
-from ..engine.pairs import induced_thrust_angular_contact, induced_thrust_tapered, share_thrust
+from ..engine.derive import validate
+from ..engine.kinds import Arrangement, Kind
+from ..engine.pairs import SIDES, PairBearing, paired_axial_loads
 from ..engine.record import Derivation, InputError
-from ..engine.shaft import PointLoad, ShaftLayout, ShaftReactions, derivation_steps, solve_reactions
+from ..engine.shaft import (
+    PointLoad, ShaftElement, ShaftLayout, ShaftReactions, derivation_steps, element_load,
+    shaft_torque, solve_reactions,
+)
 from .fields import BEARING_FIELDS, CASE_FIELDS, FieldError, inputs_from_values, parse_field
 from .quantities import QuantityError, parse
 from .session import LoadCase, Session
@@ -90,7 +85,6 @@ LOCATING = ("A", "B", "pair")
 MOUNTINGS = ("O", "X")
 ROTATIONS = {"+": 1, "-": -1, "−": -1}
 HANDS = ("left", "right")
-SIDES = ("A", "B")
 YES = ("yes", "true", "on", "1")
 NO = ("no", "false", "off", "0")
 #: case inputs a shaft fills in itself; the rest may be given in ``case_fields``
@@ -99,18 +93,7 @@ CASE_FIELD_KEYS = tuple(name for name in CASE_FIELDS if name not in SOLVED_FIELD
 SEPARATOR = " · "
 GENERATED_NOTE = "generated from shaft "
 
-SPUR_SOURCE = "spur gear force relations: Wt = 2T/d, Wr = Wt·tan φ"
-HELICAL_SOURCE = "helical gear force relations: Wt = 2T/d, Wr = Wt·tan φn/cos ψ, Wa = Wt·tan ψ"
-BEVEL_SOURCE = ("straight bevel gear force relations: Wt = 2T/dm, Wr = Wt·tan φ·cos γ, "
-                "Wa = Wt·tan φ·sin γ")
-PULLEY_SOURCE = "belt or chain shaft load F = f·2T/D (factor f: common practice)"
-RESOLVE_SOURCE = "gear-force relations resolved in the shaft frame (x from A toward B)"
-TORQUE_SOURCE = "T = P/ω, ω = 2π·n/60"
-TAPERED_SOURCE = "induced axial component of a tapered roller bearing, Fi = Fr/(2Y) (ISO form)"
-ANGULAR_SOURCE = "induced axial component of an angular-contact ball bearing, Fi = e·Fr (common practice)"
-SHARING_SOURCE = "two-bearing thrust-sharing rule: shaft axial equilibrium with each Fa ≥ its Fi"
 PAIR_KINDS = (Kind.ANGULAR_CONTACT, Kind.TAPERED)
-PAIR_ITERATIONS = 100
 
 
 # ---- the typed text ------------------------------------------------------------------------
@@ -285,17 +268,25 @@ _ELEMENT_PARSERS = {
 }
 
 
-class _ParsedShaft(NamedTuple):
+#: the engine's name of each element text (the others keep theirs)
+_ENGINE_NAMES = {"position": "position_mm", "diameter": "diameter_mm",
+                 "pressure_angle": "pressure_angle_deg", "helix_angle": "helix_angle_deg",
+                 "pitch_cone_angle": "pitch_cone_angle_deg", "mesh_angle": "mesh_angle_deg"}
+
+
+@dataclass(frozen=True, slots=True)
+class _ParsedShaft:
     position_a: float
     position_b: float
     locating: str
     mounting: str
     rotation: int
-    elements: tuple[dict[str, Any], ...]
+    elements: tuple[ShaftElement, ...]
 
 
-def _parsed_element(element: Element, key: str) -> dict[str, Any]:
-    """The element's texts as values, after checking each kind has what it needs and no more."""
+def _parsed_element(element: Element, key: str) -> ShaftElement:
+    """The element's texts as engine inputs, after checking each kind has what it needs and no
+    more."""
     kind = _choice(f"{key}.kind", element.kind, ELEMENT_KINDS)
     required, optional = REQUIRED_TEXTS[kind], OPTIONAL_TEXTS[kind]
     values: dict[str, Any] = {"name": element.name, "kind": kind}
@@ -311,7 +302,7 @@ def _parsed_element(element: Element, key: str) -> dict[str, Any]:
         values[name] = _ELEMENT_PARSERS[name](f"{key}.{name}", text)
     if values["share"] is None:
         values["share"] = 1.0
-    return values
+    return ShaftElement(**{_ENGINE_NAMES.get(name, name): value for name, value in values.items()})
 
 
 def _parsed_shaft(shaft: Shaft, key: str) -> _ParsedShaft:
@@ -383,7 +374,8 @@ _LAYOUT_ENGINE_KEYS = {"bearing_a_position": "position_a", "bearing_b_position":
 
 
 # ---- the free body -------------------------------------------------------------------------
-class ShaftSolution(NamedTuple):
+@dataclass(frozen=True, slots=True)
+class ShaftSolution:
     """One state of a shaft solved: the loads on it, the reactions and per bearing (Fr, Fa) in N."""
 
     shaft: Shaft
@@ -396,108 +388,7 @@ class ShaftSolution(NamedTuple):
     derivation: Derivation
 
 
-def _torque(d: Derivation, power: float | None, torque: float | None, speed: float,
-            key: str) -> float:
-    """The state's torque: as given, or T = P/ω."""
-    if torque is not None:
-        return d.add("T", "T", "Torque through the shaft", "given", "{0}", (torque,), torque,
-                     "N·m", "input")
-    assert power is not None
-    with _engine_keys(key, {"power": "power", "speed": "speed"}):
-        value = torque_from_power(power, speed)
-    return d.add("T", "T", "Torque through the shaft", "T = P/(2π·n/60)",
-                 "{0} / (2π × {1} / 60)", (power, speed), value, "N·m", TORQUE_SOURCE)
-
-
-def _element_load(d: Derivation, values: Mapping[str, Any], torque: float, rotation: int,
-                  key: str) -> PointLoad:
-    """The element's force on the shaft as a point load, with its steps."""
-    name, kind = values["name"], values["kind"]
-    share = values["share"]
-    if share != 1.0:
-        torque = d.add(f"T[{name}]", f"T,{name}", f"Torque carried by {name}", "share·T",
-                       "{0} × {1}", (share, torque), share * torque, "N·m", "input",
-                       result=False)
-    theta = values["mesh_angle"]
-    cos_t, sin_t = math.cos(math.radians(theta)), math.sin(math.radians(theta))
-    with _engine_keys(key, _ELEMENT_ENGINE_KEYS):
-        if kind == "pulley":
-            factor = V_BELT_PULL_FACTOR if values["pull_factor"] is None else values["pull_factor"]
-            pull = belt_pull(torque, values["diameter"], factor, theta)
-            note = None if values["pull_factor"] is not None else (
-                f"no pull factor given: the V-belt value {V_BELT_PULL_FACTOR:g} "
-                f"(spread {BELT_PULL_FACTORS['v_belt'][1][0]:g}–{BELT_PULL_FACTORS['v_belt'][1][1]:g})")
-            d.add(f"F[{name}]", f"F,{name}", f"Belt pull of {name}", "F = f·2T/D",
-                  "{0} × 2 × {1} / {2}", (factor, torque, values["diameter"]), pull.force, "N",
-                  PULLEY_SOURCE, note=note, result=False)
-            d.add(f"Fy[{name}]", f"Fy,{name}", f"Pull of {name}, y", "F·cos θ",
-                  "{0} × cos {1}°", (pull.force, theta), pull.fy, "N", RESOLVE_SOURCE, result=False)
-            d.add(f"Fz[{name}]", f"Fz,{name}", f"Pull of {name}, z", "F·sin θ",
-                  "{0} × sin {1}°", (pull.force, theta), pull.fz, "N", RESOLVE_SOURCE, result=False)
-            return PointLoad(values["position"], pull.fy, pull.fz, 0.0, 0.0, theta, name)
-        if kind == "spur":
-            forces = spur_forces(torque, values["diameter"], values["pressure_angle"])
-            source, fx = SPUR_SOURCE, 0.0
-            radial_formula, radial_template = "Wt·tan φ", "{0} × tan {1}°"
-            angles: tuple[float, ...] = (values["pressure_angle"],)
-        elif kind == "helical":
-            forces = helical_forces(torque, values["diameter"], values["pressure_angle"],
-                                    values["helix_angle"], values["hand"], values["driving"],
-                                    rotation=rotation)
-            source, fx = HELICAL_SOURCE, forces.axial
-            radial_formula, radial_template = "Wt·tan φn/cos ψ", "{0} × tan {1}° / cos {2}°"
-            angles = (values["pressure_angle"], values["helix_angle"])
-        else:
-            forces = straight_bevel_forces(torque, values["diameter"], values["pressure_angle"],
-                                           values["pitch_cone_angle"])
-            source = BEVEL_SOURCE
-            fx = -forces.axial if values["apex"] == "B" else forces.axial
-            radial_formula, radial_template = "Wt·tan φ·cos γ", "{0} × tan {1}° × cos {2}°"
-            angles = (values["pressure_angle"], values["pitch_cone_angle"])
-    d.add(f"Wt[{name}]", f"Wt,{name}", f"Tangential load of {name}", "Wt = 2T/d",
-          "2 × {0} / {1}", (torque, values["diameter"]), forces.tangential, "N", source,
-          result=False)
-    d.add(f"Wr[{name}]", f"Wr,{name}", f"Radial load of {name}", radial_formula, radial_template,
-          (forces.tangential, *angles), forces.radial, "N", source, note="toward the axis",
-          result=False)
-    if kind == "helical":
-        role = "driving" if values["driving"] else "driven"
-        d.add(f"Wa[{name}]", f"Wa,{name}", f"Axial load of {name}, + toward B", "±Wt·tan ψ",
-              "({2}) × {0} × tan {1}°", (forces.tangential, values["helix_angle"],
-                                         math.copysign(1.0, fx)), fx, "N", source,
-              note=f"{values['hand']} hand, {role}, rotation {'+' if rotation > 0 else '−'}: "
-                   f"thrust toward {'B' if fx >= 0 else 'A'}", result=False)
-    elif kind == "bevel":
-        d.add(f"Wa[{name}]", f"Wa,{name}", f"Axial load of {name}, + toward B", "±Wt·tan φ·sin γ",
-              "({3}) × {0} × tan {1}° × sin {2}°", (forces.tangential, *angles,
-                                                   math.copysign(1.0, fx)), fx, "N", source,
-              note=f"apex on the {values['apex']} side: thrust away from it", result=False)
-    # radial load toward the axis, tangential load against (driving) or with (driven) the motion
-    # of the mesh point, which moves along rotation·(−sin θ, cos θ) in (y, z)
-    along = -rotation if values["driving"] else rotation
-    fy = -forces.radial * cos_t - along * forces.tangential * sin_t
-    fz = -forces.radial * sin_t + along * forces.tangential * cos_t
-    role_words = "against the mesh-point motion (driving)" if values["driving"] else \
-        "with the mesh-point motion (driven)"
-    d.add(f"Fy[{name}]", f"Fy,{name}", f"Force of {name}, y", "−Wr·cos θ ∓ Wt·sin θ",
-          "−{0} × cos {2}° − ({3}) × {1} × sin {2}°", (forces.radial, forces.tangential, theta,
-                                                       float(along)),
-          fy, "N", RESOLVE_SOURCE, note=f"Wr toward the axis; Wt {role_words}", result=False)
-    d.add(f"Fz[{name}]", f"Fz,{name}", f"Force of {name}, z", "−Wr·sin θ ± Wt·cos θ",
-          "−{0} × sin {2}° + ({3}) × {1} × cos {2}°", (forces.radial, forces.tangential, theta,
-                                                       float(along)),
-          fz, "N", RESOLVE_SOURCE, result=False)
-    return PointLoad(values["position"], fy, fz, fx, values["diameter"] / 2.0, theta, name)
-
-
-class _PairBearing(NamedTuple):
-    inputs: CaseInputs
-    kind: Kind
-    arrangement: Arrangement
-    alpha: float
-
-
-def _bearing_inputs(session: Session, name: str, key: str) -> _PairBearing:
+def _bearing_inputs(session: Session, name: str, key: str) -> PairBearing:
     """The session bearing ``name`` as engine inputs; errors name ``bearings[n].<field>``."""
     for number, bearing in enumerate(session.bearings, start=1):
         if bearing.name == name:
@@ -516,60 +407,15 @@ def _bearing_inputs(session: Session, name: str, key: str) -> _PairBearing:
         kind, arrangement, alpha = validate(inputs)
     except InputError as exc:
         raise FieldError(f"{where}.{exc.field}", exc.message) from None
-    return _PairBearing(inputs, kind, arrangement, alpha)
+    return PairBearing(kind=kind, arrangement=arrangement, alpha_deg=alpha, c0=inputs.c0,
+                       f0=inputs.f0, e_given=inputs.e_given, y_given=inputs.y_given)
 
 
-def _induced(bearing: _PairBearing, fr: float, fa: float) -> tuple[float, float, DynamicFactors]:
-    """(factor, Fi, factors): Y for a tapered bearing (Fi = Fr/(2Y)), e for angular contact."""
-    inputs = bearing.inputs
-    factors = dynamic_factors(bearing.kind, bearing.arrangement, bearing.alpha, fa, inputs.c0,
-                              inputs.f0, inputs.e_given, inputs.y_given)
-    if bearing.kind is Kind.TAPERED:
-        return factors.y_high, induced_thrust_tapered(fr, factors.y_high), factors
-    return factors.e, induced_thrust_angular_contact(fr, factors.e), factors
-
-
-def _pair_steps(d: Derivation, pair: dict[str, _PairBearing], reactions: ShaftReactions,
-                mounting: str) -> dict[str, float]:
-    """Induced thrusts and the thrust-sharing rule; returns Fa per side (fixed point, see notes)."""
-    fr = {"A": reactions.radial_a, "B": reactions.radial_b}
-    fa = {"A": 0.0, "B": 0.0}
-    for _ in range(PAIR_ITERATIONS):
-        induced = {side: _induced(pair[side], fr[side], fa[side]) for side in SIDES}
-        fa_a, fa_b, explanation = share_thrust(fr["A"], fr["B"], induced["A"][1], induced["B"][1],
-                                               reactions.thrust, mounting)  # type: ignore[arg-type]
-        settled = max(abs(fa_a - fa["A"]), abs(fa_b - fa["B"])) <= 1e-9 * max(fa_a, fa_b, 1.0)
-        fa = {"A": fa_a, "B": fa_b}
-        if settled:
-            break
-    warning = None if settled else (
-        f"the axial loads of the pair did not settle in {PAIR_ITERATIONS} rounds (e depends on Fa)")
-    for side in SIDES:
-        factor, fi, factors = induced[side]
-        if pair[side].kind is Kind.TAPERED:
-            d.add(f"Y_{side}", f"Y,{side}", f"Axial factor of bearing {side} (Fa/Fr > e)",
-                  factors.basis, "{0}", (factor,), factor, "", factors.source,
-                  note="the Y of the bearing's own derivation on the Fa/Fr > e branch")
-            d.add(f"Fi_{side}", f"Fi,{side}", f"Induced thrust of bearing {side}", "Fr/(2Y)",
-                  "{0} / (2 × {1})", (fr[side], factor), fi, "N", TAPERED_SOURCE)
-        else:
-            d.add(f"e_{side}", f"e,{side}", f"Limit ratio e of bearing {side}", factors.basis,
-                  "{0}", (factor,), factor, "", factors.source,
-                  note="at the bearing's own Fa" if factors.index_formula else None)
-            d.add(f"Fi_{side}", f"Fi,{side}", f"Induced thrust of bearing {side}", "e·Fr",
-                  "{0} × {1}", (factor, fr[side]), fi, "N", ANGULAR_SOURCE)
-    for side in SIDES:
-        d.add(f"Fa_{side}", f"Fa,{side}", f"Axial load on bearing {side}",
-              "thrust-sharing rule", "{0}", (fa[side],), fa[side], "N", SHARING_SOURCE,
-              note=explanation, warning=warning if side == "B" else None)
-    return fa
-
-
-def _merge(target: Derivation, more: Derivation) -> None:
-    target.steps.extend(more.steps)
-    target.results.update(more.results)
-    target.warnings.extend(more.warnings)
-    target.notes.extend(more.notes)
+def _element_load(d: Derivation, element: ShaftElement, torque: float, rotation: int,
+                  key: str) -> PointLoad:
+    """The element's load on the shaft (engine), its errors named under the element's ``key``."""
+    with _engine_keys(key, _ELEMENT_ENGINE_KEYS):
+        return element_load(d, element, torque, rotation=rotation)
 
 
 def _state_key(shaft: Shaft, state: OperatingState, key: str) -> str:
@@ -605,17 +451,20 @@ def solve_shaft(shaft: Shaft, state: OperatingState, session: Session, *,
                 raise FieldError(f"{key}.{side}",
                                  f"no bearing called {getattr(shaft, side)!r} in this session")
     d = Derivation()
-    total_torque = _torque(d, power, torque, speed, state_key)
-    loads = tuple(_element_load(d, values, total_torque, parsed.rotation,
+    with _engine_keys(state_key, {"power": "power", "speed": "speed"}):
+        total_torque = shaft_torque(d, power_W=power, torque_Nm=torque, speed_rpm=speed)
+    loads = tuple(_element_load(d, element, total_torque, parsed.rotation,
                                 f"{key}.elements[{number}]")
-                  for number, values in enumerate(parsed.elements, start=1))
+                  for number, element in enumerate(parsed.elements, start=1))
     layout = ShaftLayout(parsed.position_a, parsed.position_b,
-                         "both" if pair is not None else parsed.locating, loads)  # type: ignore[arg-type]
+                         "both" if pair is not None else parsed.locating,  # type: ignore[arg-type]
+                         loads)
     with _engine_keys(key, _LAYOUT_ENGINE_KEYS):
         reactions = solve_reactions(layout)
-        _merge(d, derivation_steps(layout, reactions))
+        d.extend(derivation_steps(layout, reactions))
     if pair is not None:
-        fa = _pair_steps(d, pair, reactions, parsed.mounting)
+        fa = paired_axial_loads(d, pair, {"A": reactions.radial_a, "B": reactions.radial_b},
+                                reactions.thrust, parsed.mounting)  # type: ignore[arg-type]
     else:
         fa = {"A": reactions.axial_a, "B": reactions.axial_b}
     bearing_loads = {"A": (reactions.radial_a, fa["A"]), "B": (reactions.radial_b, fa["B"])}

@@ -3,7 +3,7 @@
 The screen runs :func:`workbench.engine.select.select` (ISO 281:2007 life on Lnm against the
 session's life target, ISO 76:2006 static safety) over the demo catalog or a catalog file whose
 path is typed, for all the cases (the session's and the generated ones) that use the selected
-case's bearing, with the inputs built by :func:`workbench.model.select_cli.selection_inputs`.
+case's bearing, with the inputs built by :func:`workbench.model.selection.selection_inputs`.
 The qualifying bearings are listed smallest first.  Enter on a row closes the screen with that
 row's bearing texts (:func:`~workbench.model.catalog.catalog_bearing_texts`); the workbench
 screen writes them into the session bearing as one undo step.  A bearing no catalog holds is
@@ -27,7 +27,7 @@ from textual.widgets import DataTable, Input, Label, Static
 from ..engine.record import InputError, fmt
 from ..engine.select import Selection, select
 from ..model.catalog import Catalog, CatalogError, catalog_bearing_texts, demo_catalog_path, load_catalog
-from ..model.select_cli import candidate_rows, selection_inputs
+from ..model.selection import candidate_rows, selection_inputs
 from ..model.session import CaseResult
 from .dialogs import OnceModal
 

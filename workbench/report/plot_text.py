@@ -8,8 +8,8 @@ from __future__ import annotations
 
 import math
 
-from .engine.curves import Curve
-from .engine.record import fmt
+from ..engine.curves import Curve
+from ..engine.record import fmt
 
 _BRAILLE_BASE = 0x2800
 _DOT_BITS = ((0x01, 0x08), (0x02, 0x10), (0x04, 0x20), (0x40, 0x80))  # [row][column]

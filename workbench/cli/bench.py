@@ -1,20 +1,27 @@
-"""``workbench bench``: speed figures measured on this machine, in one run.
+"""``workbench bench [--json] [--quick]``: speed figures measured on this machine, in one run.
 
-Each figure is a median over repeated runs.  ``pint_ratio`` compares the engine with the same
+Each figure is a median over repeated runs, but for the typing figures, 90th percentiles over
+keys (:mod:`workbench.tui.bench`).  ``pint_ratio`` compares the engine with the same
 chain of ISO 281 / ISO 76 relations evaluated on pint quantities throughout
 (:func:`pint_chain`), which doubles as a unit cross-check in the tests.
 """
 
 from __future__ import annotations
 
+import argparse
 import statistics
 import time
 from dataclasses import replace
 from typing import Any, Callable
 
-from .engine.derive import CaseInputs, derive
-from .engine.kinds import Arrangement, Kind, dynamic_factors
-from .engine.life import a1_iso281
+from ..engine.derive import CaseInputs, derive
+from ..engine.kinds import Arrangement, Kind, dynamic_factors
+from ..engine.life import a1_iso281
+from .common import print_json
+
+SUMMARY = "measure the speed figures on this machine"
+DESCRIPTION = "Measure speed figures."
+EPILOG = None
 
 REFERENCE_CASE = CaseInputs(
     kind="deep-groove", fr=5200.0, fa=2500.0, c=33000.0, c0=19000.0, f0=14.0, speed=1450.0,
@@ -39,7 +46,7 @@ def pint_chain(case: CaseInputs) -> dict[str, float]:
     The same relations as the engine (ISO 281:2007 §5.2–§5.3, Table 12; ISO 76:2006 §5.2), with
     every force, speed and life a pint Quantity; only the table lookup reads magnitudes.
     """
-    from .model.quantities import unit_registry
+    from ..model.quantities import unit_registry
 
     u = unit_registry()
     fr, fa = case.fr * u.newton, case.fa * u.newton
@@ -62,7 +69,7 @@ def pint_chain(case: CaseInputs) -> dict[str, float]:
 
 
 def _engine_figures(repeats: int) -> dict[str, Any]:
-    from .engine.solve import solve
+    from ..engine.solve import solve
 
     case_eval = _median_seconds(lambda: derive(REFERENCE_CASE), repeats, 200)
     cases = [replace(REFERENCE_CASE, fr=3000.0 + 40.0 * i, fa=500.0 + 30.0 * i) for i in range(100)]
@@ -90,14 +97,39 @@ def run_benchmarks(quick: bool = False) -> dict[str, Any]:
     """Every figure of the project, as one mapping (see the README for the goals)."""
     repeats = 8 if quick else 40
     figures: dict[str, Any] = _engine_figures(repeats)
-    from .engine.sensitivity import benchmark_sensitivity
+    from ..engine.sensitivity import benchmark_sensitivity
 
     figures.update(benchmark_sensitivity(repeats=20 if quick else 200))
-    from .engine.select import benchmark_select
+    from ..engine.select import benchmark_select
 
     figures.update(benchmark_select(n_bearings=1000 if quick else 10000))
-    from .tui.bench import measure_keystroke_ms, measure_startup_ratio
+    from ..tui import bench as screen
 
-    figures["keystroke_ms"] = measure_keystroke_ms(cases=20)
-    figures["startup_ratio"] = measure_startup_ratio()
+    figures.update(screen.measure_typing(
+        screen.QUICK_TYPING_KEYS if quick else screen.TYPING_KEYS))
+    figures["startup_ratio"] = screen.measure_startup_ratio(
+        screen.QUICK_STARTUP_ROUNDS if quick else screen.STARTUP_ROUNDS)
     return figures
+
+
+def add_arguments(parser: argparse.ArgumentParser) -> None:
+    parser.add_argument("--json", action="store_true", help="print one JSON object")
+    parser.add_argument("--quick", action="store_true", help="fewer repetitions (a smoke run)")
+
+
+def run(args: argparse.Namespace) -> int:
+    """Measure every figure and print them."""
+    figures = run_benchmarks(quick=args.quick)
+    if args.json:
+        print_json(figures)
+    else:
+        for key, value in figures.items():
+            if isinstance(value, dict):  # a figure's parts (echo_settle: one line a combination)
+                print(f"{key:>16}")
+                for part, numbers in value.items():
+                    print(f"{part:>16}  " + "  ".join(f"{name} {number:.4g}"
+                                                      for name, number in numbers.items()))
+            else:
+                print(f"{key:>16}  {value:.4g}" if isinstance(value, float)
+                      else f"{key:>16}  {value}")
+    return 0

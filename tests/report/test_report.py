@@ -23,7 +23,8 @@ from workbench.model.fields import FieldError
 from workbench.model.session import Bearing, LoadCase, Session, SolverSetup, Targets
 from workbench.model.sessionfile import dumps_session, load_session
 from workbench.model.targets import parse_target_text
-from workbench.report import FORMATS, render_report, run_report
+from workbench.cli.report import run_report
+from workbench.report import FORMATS, render_report
 
 SESSIONS = Path(__file__).resolve().parents[2] / "sessions"
 EXAMPLES = sorted(SESSIONS.glob("*.toml"))

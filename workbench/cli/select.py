@@ -10,33 +10,28 @@ rows go to standard error with their row number.  Exit codes: 0 done (also when 
 from __future__ import annotations
 
 import argparse
-import json
-import math
 import sys
-from typing import Any, Sequence
+from typing import TYPE_CHECKING, Any
 
-from ..engine.derive import CaseInputs
 from ..engine.kinds import Kind
-from ..engine.record import InputError, fmt
-from ..engine.select import Filters, Selection, select
-from .catalog import Catalog, CatalogError, demo_catalog_path, load_catalog
-from .quantities import QuantityError, parse
-from .session import CaseResult, Session, evaluate_case
-from .sessionfile import SessionFileError, load_session
+from ..model.quantities import QuantityError, parse
+from .common import fail, print_json
 
-EXIT_BAD_INPUT = 2
+if TYPE_CHECKING:
+    from ..engine.select import Selection
+    from ..model.catalog import Catalog
+    from ..model.session import Session
+
 DEFAULT_TOP = 10
+SUMMARY = "list the catalog bearings that meet a session's cases"
+DESCRIPTION = ("List the catalog bearings that meet every load case of a session: Lnm at the "
+               "session's reliability against its life target, and its static safety "
+               "(ISO 281:2007, ISO 76:2006). Smallest first: outer diameter, width, mass.")
+EPILOG = ("Lengths take units (\"35 mm\", \"1.5 in\"); a bare number is mm. "
+          "Exit codes: 2 a bad session, catalog or option.")
 
 
-def _parser() -> argparse.ArgumentParser:
-    parser = argparse.ArgumentParser(
-        prog="workbench select",
-        description="List the catalog bearings that meet every load case of a session: Lnm at the "
-                    "session's reliability against its life target, and its static safety "
-                    "(ISO 281:2007, ISO 76:2006). Smallest first: outer diameter, width, mass.",
-        epilog="Lengths take units (\"35 mm\", \"1.5 in\"); a bare number is mm. "
-               "Exit codes: 2 a bad session, catalog or option.",
-    )
+def add_arguments(parser: argparse.ArgumentParser) -> None:
     parser.add_argument("session", help="session file (.toml)")
     parser.add_argument("--catalog", metavar="FILE",
                         help="catalog file, .csv or .toml (default: the invented demo catalog)")
@@ -50,12 +45,6 @@ def _parser() -> argparse.ArgumentParser:
     parser.add_argument("--top", metavar="N", type=int, default=DEFAULT_TOP,
                         help=f"show the best N (default {DEFAULT_TOP}; 0 for all)")
     parser.add_argument("--json", action="store_true", help="print one JSON object")
-    return parser
-
-
-def _fail(message: str) -> int:
-    print(f"workbench: {message}", file=sys.stderr)
-    return EXIT_BAD_INPUT
 
 
 def _length(flag: str, text: str | None) -> float | None:
@@ -68,77 +57,42 @@ def _length(flag: str, text: str | None) -> float | None:
         raise QuantityError(f"{flag}: {exc.message}") from None
 
 
-def _number(value: float) -> float | None:
-    """NaN and infinities as JSON null."""
-    return float(value) if math.isfinite(value) else None
-
-
-def selection_inputs(results: Sequence[CaseResult]) -> tuple[list[CaseInputs], float]:
-    """The engine inputs of the evaluated cases to select for, and the session's life target.
-
-    InputError names the first case that cannot be read (field ``case``) or the missing life
-    target (field ``targets.life``); the message says which.
-    """
-    for result in results:
-        if result.inputs is None:
-            raise InputError("case", f"case {result.case.name!r}, {result.error_field}: "
-                                     f"{result.error}")
-    life_target = results[0].life_target_h if results else None
-    if life_target is None:
-        raise InputError("targets.life", "the session has no life target ([targets] life)")
-    return [result.inputs for result in results if result.inputs is not None], life_target
-
-
-def candidate_rows(catalog: Catalog, selection: Selection, case_names: list[str],
-                   top: int) -> list[dict[str, Any]]:
-    """The best ``top`` candidates (0: all) as plain rows: designation, kind, d, D, B, mass,
-    life margin, governing case name and smallest s0 (NaN as None)."""
-    chosen = selection.candidates if top <= 0 else selection.candidates[:top]
-    return [{
-        "designation": catalog.designations[c.index],
-        "kind": str(catalog.kind[c.index]),
-        "d_mm": float(catalog.d_mm[c.index]),
-        "D_mm": float(catalog.D_mm[c.index]),
-        "B_mm": float(catalog.B_mm[c.index]),
-        "mass_kg": _number(catalog.mass_kg[c.index]),
-        "life_margin": _number(c.life_margin),
-        "governing_case": case_names[c.governing_case] if c.governing_case >= 0 else None,
-        "min_s0": _number(c.min_s0),
-    } for c in chosen]
-
-
 def _table(rows: list[dict[str, Any]]) -> str:
     """The candidates as a plain table."""
-    head = ("#", "designation", "kind", "d × D × B mm", "mass kg", "life margin", "min s0",
-            "governing case")
-    body = [(str(n), r["designation"], r["kind"], f"{r['d_mm']:g} × {r['D_mm']:g} × {r['B_mm']:g}",
-             "—" if r["mass_kg"] is None else f"{r['mass_kg']:.3f}",
-             "—" if r["life_margin"] is None else fmt(r["life_margin"], 3),
-             "—" if r["min_s0"] is None else fmt(r["min_s0"], 3),
-             r["governing_case"] or "—") for n, r in enumerate(rows, 1)]
-    widths = [max(len(row[k]) for row in (head, *body)) for k in range(len(head))]
-    right = {0, 4, 5, 6}
-    lines = []
-    for row in (head, *body):
-        cells = [cell.rjust(w) if k in right else cell.ljust(w)
-                 for k, (cell, w) in enumerate(zip(row, widths))]
-        lines.append("  ".join(cells).rstrip())
-    lines.insert(1, "  ".join("-" * w for w in widths))
-    return "\n".join(lines)
+    from ..engine.record import fmt
+    from ..report.contents import Table
+    from ..report.text import table_lines
+
+    body = tuple((str(n), r["designation"], r["kind"],
+                  f"{r['d_mm']:g} × {r['D_mm']:g} × {r['B_mm']:g}",
+                  "—" if r["mass_kg"] is None else f"{r['mass_kg']:.3f}",
+                  "—" if r["life_margin"] is None else fmt(r["life_margin"], 3),
+                  "—" if r["min_s0"] is None else fmt(r["min_s0"], 3),
+                  r["governing_case"] or "—") for n, r in enumerate(rows, 1))
+    table = Table(("#", "designation", "kind", "d × D × B mm", "mass kg", "life margin", "min s0",
+                   "governing case"), body,
+                  numeric=(True, False, False, False, True, True, True, False))
+    return "\n".join(table_lines(table, indent="", rule=True))
 
 
-def run_select(argv: Sequence[str]) -> int:
-    """``workbench select SESSION [--catalog FILE] [--json] [--top N] [filters]``."""
-    args = _parser().parse_args(argv)
+def run(args: argparse.Namespace) -> int:
+    """Select from the catalog for the session's cases and print the candidates."""
+    from ..engine.record import InputError
+    from ..engine.select import Filters, select
+    from ..model.catalog import CatalogError, demo_catalog_path, load_catalog
+    from ..model.selection import candidate_rows, selection_inputs
+    from ..model.session import evaluate_case
+    from ..model.sessionfile import SessionFileError, load_session
+
     try:
         session = load_session(args.session)
     except SessionFileError as exc:
-        return _fail(str(exc))
+        return fail(str(exc))
     catalog_path = args.catalog if args.catalog is not None else demo_catalog_path()
     try:
         catalog = load_catalog(catalog_path)
     except CatalogError as exc:
-        return _fail(str(exc))
+        return fail(str(exc))
     for problem in catalog.problems:
         print(f"workbench: {catalog.source}: rejected row {problem.row}, {problem.column}: "
               f"{problem.message}", file=sys.stderr)
@@ -147,25 +101,25 @@ def run_select(argv: Sequence[str]) -> int:
                           _length("--bore-max", args.bore_max), _length("--od-max", args.od_max),
                           _length("--width-max", args.width_max))
     except QuantityError as exc:
-        return _fail(exc.message)
+        return fail(exc.message)
     cases = [case for case in session.cases if args.bearing is None or case.bearing == args.bearing]
     if not cases:
         where = f" on bearing {args.bearing!r}" if args.bearing else ""
-        return _fail(f"{args.session}: no load cases{where} to select for")
+        return fail(f"{args.session}: no load cases{where} to select for")
     results = [evaluate_case(session, case) for case in cases]
     try:
         inputs, life_target = selection_inputs(results)
     except InputError as exc:
-        return _fail(f"{args.session}: {exc.message}")
+        return fail(f"{args.session}: {exc.message}")
     try:
         selection = select(catalog, inputs, life_target, None, filters)
     except InputError as exc:
-        return _fail(f"{args.session}: {exc.field}: {exc.message}")
+        return fail(f"{args.session}: {exc.field}: {exc.message}")
     case_names = [case.name for case in cases]
     rows = candidate_rows(catalog, selection, case_names, args.top)
     if args.json:
-        print(json.dumps(_report(args, session, catalog, selection, rows, case_names, life_target,
-                                 results[0].s0_target), ensure_ascii=False, indent=2))
+        print_json(_report(args, session, catalog, selection, rows, case_names, life_target,
+                           results[0].s0_target))
         return 0
     print(_text(args, session, catalog, selection, rows, case_names, life_target,
                 results[0].s0_target))

@@ -1,0 +1,103 @@
+"""``workbench select``: the catalog bearings that meet a session's cases."""
+
+from __future__ import annotations
+
+import json
+from pathlib import Path
+
+import pytest
+
+from workbench.cli import main
+
+# Row 4 (counting the comment and the header) has a non-numeric outer diameter.
+ONE_BAD_ROW_CSV = """# a comment line
+designation,kind,d_mm,D_mm,B_mm,C_kN,C0_kN,f0,contact_angle_deg,speed_limit_rpm,mass_kg
+T-1,deep-groove,40,80,18,31.5,20.2,14,,8000,0.35
+T-2,deep-groove,40,x,18,31.5,20.2,14,,8000,0.35
+"""
+
+SESSION = """schema = 1
+
+[session]
+title = "Select test"
+
+[targets]
+life = "20000 h"
+reliability = "0.95"
+s0 = "1.5"
+
+[[bearings]]
+name = "position A"
+kind = "deep-groove"
+c = "30 kN"
+c0 = "20 kN"
+
+[[cases]]
+name = "running"
+bearing = "position A"
+fr = "2 kN"
+fa = "0.4 kN"
+speed = "1500 rpm"
+vg = "68"
+temp = "60 °C"
+cleanliness = "normal"
+
+[[cases]]
+name = "peak"
+bearing = "position A"
+fr = "6 kN"
+fa = "1 kN"
+speed = "0 rpm"
+"""
+
+
+@pytest.fixture
+def session_file(tmp_path: Path) -> Path:
+    path = tmp_path / "select.toml"
+    path.write_text(SESSION, encoding="utf-8")
+    return path
+
+
+def test_select_cli_json(session_file: Path, capsys: pytest.CaptureFixture[str]) -> None:
+    assert main(["select", str(session_file), "--json", "--top", "3"]) == 0
+    out = json.loads(capsys.readouterr().out)
+    assert {"candidates", "rejected_rows", "session", "targets"} <= set(out)
+    assert 1 <= len(out["candidates"]) <= 3
+    first = out["candidates"][0]
+    assert set(first) == {"designation", "kind", "d_mm", "D_mm", "B_mm", "mass_kg", "life_margin",
+                          "governing_case", "min_s0"}
+    assert first["life_margin"] >= 1.0 and first["min_s0"] >= 1.5
+    assert first["governing_case"] == "running"  # the speed-0 case is a static check only
+    outer = [(c["D_mm"], c["B_mm"]) for c in out["candidates"]]
+    assert outer == sorted(outer)
+    assert out["targets"]["life_h"] == 20000.0
+
+
+def test_select_cli_filters_and_text(session_file: Path, capsys: pytest.CaptureFixture[str]) -> None:
+    assert main(["select", str(session_file), "--kind", "cylindrical", "--od-max", "90 mm"]) == 0
+    text = capsys.readouterr().out
+    assert "designation" in text and "WB-CR" in text and "WB-DG" not in text
+
+
+def test_select_cli_reports_rejected_rows_on_stderr(session_file: Path, tmp_path: Path,
+                                                    capsys: pytest.CaptureFixture[str]) -> None:
+    catalog = tmp_path / "mine.csv"
+    catalog.write_text(ONE_BAD_ROW_CSV, encoding="utf-8")
+    assert main(["select", str(session_file), "--catalog", str(catalog), "--json"]) == 0
+    captured = capsys.readouterr()
+    assert "row 4, D_mm" in captured.err
+    assert {"row": 4, "column": "D_mm"}.items() <= json.loads(captured.out)["rejected_rows"][0].items()
+
+
+def test_select_cli_exit_codes(session_file: Path, tmp_path: Path,
+                               capsys: pytest.CaptureFixture[str]) -> None:
+    assert main(["select", str(tmp_path / "absent.toml")]) == 2
+    bad_session = tmp_path / "bad.toml"
+    bad_session.write_text("schema = 1\n[session]\ntitel = 'x'\n", encoding="utf-8")
+    assert main(["select", str(bad_session)]) == 2
+    bad_catalog = tmp_path / "bad.csv"
+    bad_catalog.write_text("designation,kind\nA,deep-groove\n", encoding="utf-8")
+    assert main(["select", str(session_file), "--catalog", str(bad_catalog)]) == 2
+    assert main(["select", str(session_file), "--bore-min", "5 kg"]) == 2
+    assert main(["select", str(session_file), "--bearing", "nowhere"]) == 2
+    assert "workbench:" in capsys.readouterr().err

@@ -1,0 +1,56 @@
+"""What catalog selection needs from a session, and its candidates as plain rows.
+
+Shared by ``workbench select`` and the screen's selection: the engine inputs of a session's cases
+with its life target (:func:`selection_inputs`), and the best candidates of
+:func:`workbench.engine.select.select` as rows of plain values (:func:`candidate_rows`).
+"""
+
+from __future__ import annotations
+
+import math
+from typing import Any, Sequence
+
+from ..engine.derive import CaseInputs
+from ..engine.record import InputError
+from ..engine.select import Selection
+from .catalog import Catalog
+from .session import CaseResult
+
+
+def _number(value: float) -> float | None:
+    """NaN and infinities as JSON null."""
+    return float(value) if math.isfinite(value) else None
+
+
+def selection_inputs(results: Sequence[CaseResult]) -> tuple[list[CaseInputs], float]:
+    """The engine inputs of the evaluated cases to select for, and the session's life target.
+
+    InputError names the first case that cannot be read (field ``case``) or the missing life
+    target (field ``targets.life``); the message says which.
+    """
+    for result in results:
+        if result.inputs is None:
+            raise InputError("case", f"case {result.case.name!r}, {result.error_field}: "
+                                     f"{result.error}")
+    life_target = results[0].life_target_h if results else None
+    if life_target is None:
+        raise InputError("targets.life", "the session has no life target ([targets] life)")
+    return [result.inputs for result in results if result.inputs is not None], life_target
+
+
+def candidate_rows(catalog: Catalog, selection: Selection, case_names: list[str],
+                   top: int) -> list[dict[str, Any]]:
+    """The best ``top`` candidates (0: all) as plain rows: designation, kind, d, D, B, mass,
+    life margin, governing case name and smallest s0 (NaN as None)."""
+    chosen = selection.candidates if top <= 0 else selection.candidates[:top]
+    return [{
+        "designation": catalog.designations[c.index],
+        "kind": str(catalog.kind[c.index]),
+        "d_mm": float(catalog.d_mm[c.index]),
+        "D_mm": float(catalog.D_mm[c.index]),
+        "B_mm": float(catalog.B_mm[c.index]),
+        "mass_kg": _number(catalog.mass_kg[c.index]),
+        "life_margin": _number(c.life_margin),
+        "governing_case": case_names[c.governing_case] if c.governing_case >= 0 else None,
+        "min_s0": _number(c.min_s0),
+    } for c in chosen]

@@ -1,0 +1,558 @@
+"""The one report document of a session, which every writer (text, Markdown, JSON) renders.
+
+Every number comes from a derivation record: :func:`workbench.model.analysis.analyse` for the
+cases, the session's and those generated from its shafts (ISO 281:2007 dynamic rating and life,
+ISO 76:2006 static safety), the shafts' free bodies (gear-force relations, shaft statics, the
+two-bearing thrust-sharing rule) and system lives (series system of Weibull lives), and the duty
+cycles (Palmgren–Miner rule); :func:`workbench.engine.solve.solve` for the solver question.
+Nothing is computed here: :func:`build_report` arranges the steps, results, warnings and verdicts
+those records hold into a tree of typed records, with the sentences and tables that every writer
+shows composed once, and ends with the sources cited and the safety caution. A writer only lays
+that tree out; a new format (HTML) is one more module beside ``text.py``.
+"""
+
+from __future__ import annotations
+
+import math
+from dataclasses import dataclass
+from typing import Sequence
+
+from ..engine.record import Derivation, InputError
+from ..engine.record import fmt as number_text
+from ..engine.sensitivity import SensitivityItem, sensitivity_of
+from ..engine.solve import TARGETS, UNKNOWNS, Solution, solve
+from ..model.analysis import DutyOutcome, ShaftOutcome, SessionAnalysis, analyse, time_shares
+from ..model.caution import SAFETY_CAUTION
+from ..model.fields import FIELD_BY_NAME, FieldError
+from ..model.session import CaseResult, Session, case_texts
+from ..model.shafts import SIDES, is_generated
+from ..model.targets import parse_target_text
+
+UNITS_NOTE = "Values are in the engine's units: N, mm, r/min, h, 10⁶ rev, mm²/s, °C."
+SUMMARY_RESULTS = ("P", "L10h", "Lnm", "s0")
+GENERATED_MARK = " *"
+GENERATED_LEGEND = "* generated from a shaft: its loads come from the Shafts section"
+SENSITIVITY_HEADERS = ("input", "value", "ε life", "ε s0", "−10 %", "+10 %", "method")
+
+
+# ---- the records ---------------------------------------------------------------------------------
+@dataclass(frozen=True)
+class Table:
+    """Cells of display text; ``header`` may be empty; ``numeric`` marks right-aligned columns."""
+
+    header: tuple[str, ...]
+    rows: tuple[tuple[str, ...], ...]
+    numeric: tuple[bool, ...] = ()
+
+
+@dataclass(frozen=True)
+class SessionMeta:
+    """What the session is and the targets it sets, as typed."""
+
+    title: str
+    engineer: str
+    notes: str
+    units: str
+    source: str
+    life_target: str
+    reliability: str
+    s0_target: str
+    facts: tuple[tuple[str, str], ...]  # (label, value) lines of the report's head
+
+
+@dataclass(frozen=True)
+class BearingInfo:
+    """A session bearing: its name, kind and notes."""
+
+    name: str
+    kind: str
+    notes: str
+
+
+@dataclass(frozen=True)
+class InputText:
+    """One input a case gives: field name, its label, and the text as typed."""
+
+    name: str
+    label: str
+    text: str
+
+
+@dataclass(frozen=True)
+class ResultRow:
+    """One named result with the symbol, label and unit of the step that recorded it."""
+
+    key: str
+    symbol: str
+    label: str
+    value: float
+    unit: str
+
+
+@dataclass(frozen=True)
+class SensitivitySection:
+    """The elasticity of a case's life to each input, with its one-line heading and notes."""
+
+    items: tuple[SensitivityItem, ...]
+    heading: str
+    table: Table
+    notes: tuple[tuple[str, str], ...]  # (input label, note)
+
+
+@dataclass(frozen=True)
+class CaseSection:
+    """One load case: its bearing, inputs, derivation, verdicts and sensitivity (or its error)."""
+
+    number: int
+    name: str
+    bearing: BearingInfo
+    notes: str
+    generated_note: str | None  # "Generated from shaft …: …" for a case made from a shaft
+    inputs: tuple[InputText, ...]
+    derivation: Derivation | None
+    results: tuple[ResultRow, ...]
+    verdicts: tuple[str, ...]  # the life and the static-safety verdict in words
+    meets_life: bool | None
+    meets_s0: bool | None
+    life_target_h: float | None
+    error: str | None
+    field_errors: dict[str, str]
+    sensitivity: SensitivitySection | None
+
+    @property
+    def generated(self) -> bool:
+        return self.generated_note is not None
+
+
+@dataclass(frozen=True)
+class BearingLoad:
+    """The load on one bearing of a shaft in one state, in N."""
+
+    side: str
+    bearing: str
+    fr: float
+    fa: float
+
+
+@dataclass(frozen=True)
+class ShaftStateSection:
+    """One operating state of a shaft: typed texts, then torque, speed, free body and loads."""
+
+    heading: str
+    name: str
+    key: str
+    error: str | None
+    typed: dict[str, str]  # power, torque, speed, share as typed
+    torque: float | None
+    speed: float | None
+    loads: tuple[BearingLoad, ...]
+    load_table: Table | None
+    derivation: Derivation | None
+
+
+@dataclass(frozen=True)
+class SystemLife:
+    """The system life of a shaft's two bearings (series system of Weibull lives)."""
+
+    life_mrev: float
+    life_h: float
+    weibull_slope: float
+    reliability: float
+    derivation: Derivation
+
+
+@dataclass(frozen=True)
+class ShaftSection:
+    """A shaft: its bearings, each state's free body and bearing loads, then its system life."""
+
+    number: int
+    title: str
+    name: str
+    key: str
+    description: str
+    bearing_a: str | None
+    bearing_b: str | None
+    locating: str | None
+    error: str | None
+    states: tuple[ShaftStateSection, ...]
+    system_line: str | None  # None when the shaft's table cannot be read
+    system: SystemLife | None
+    system_error: str | None
+
+
+@dataclass(frozen=True)
+class DutyState:
+    """One state of a duty cycle; the numbers are None when the cycle has no life."""
+
+    case: str
+    share: str
+    time_share: float | None = None
+    revolution_share: float | None = None
+    life_mrev: float | None = None
+    damage_share: float | None = None
+
+
+@dataclass(frozen=True)
+class DutySection:
+    """A duty cycle: its states' shares, lives and damage, then the Miner life (or its error)."""
+
+    number: int
+    title: str
+    name: str
+    key: str
+    shaft: str | None
+    basis: str | None
+    error: str | None
+    description: str
+    bearing: str | None
+    kind: str | None
+    states: tuple[DutyState, ...]
+    table: Table | None
+    life_line: str
+    life_mrev: float | None
+    mean_speed: float | None
+    life_h: float | None
+    reliability: float | None
+    derivation: Derivation | None
+
+
+@dataclass(frozen=True)
+class SolverSection:
+    """The session's solver question and its answer (or why there is none)."""
+
+    case: str
+    unknown: str
+    target: str
+    solution: Solution | None
+    error: str | None
+    lines: tuple[str, ...]  # question and answer in plain words
+    step_line: str | None  # how the answer was found, from the solver's step
+
+
+@dataclass(frozen=True)
+class Report:
+    """The whole design review of a session, in reading order."""
+
+    meta: SessionMeta
+    bearings: tuple[BearingInfo, ...]
+    units_note: str
+    summary: Table
+    generated_legend: str | None
+    cases: tuple[CaseSection, ...]
+    shafts: tuple[ShaftSection, ...]
+    duties: tuple[DutySection, ...]
+    solver: SolverSection | None
+    sources: tuple[str, ...]
+    caution: str
+
+
+# ---- cell texts shared by the writers and the screen ---------------------------------------------
+def signed(value: float | None) -> str:
+    """An elasticity with its sign, three decimals ("n/a" when there is none)."""
+    return "n/a" if value is None else f"{value + 0.0:+.3f}"
+
+
+def percent(value: float | None) -> str:
+    """A relative change as a signed percentage ("n/a" when there is none)."""
+    return "n/a" if value is None else f"{100.0 * value + 0.0:+.1f} %"
+
+
+def _with_unit(value: float, unit: str) -> str:
+    return f"{number_text(value)} {unit}" if unit else number_text(value)
+
+
+def _verdict(ok: bool | None) -> str:
+    return "no verdict" if ok is None else ("met" if ok else "missed")
+
+
+def sensitivity_section(items: Sequence[SensitivityItem]) -> SensitivitySection:
+    """The elasticities as a table of display text, with what they are of and the notes."""
+    lives = ", ".join(sorted({item.life for item in items}))
+    return SensitivitySection(
+        items=tuple(items),
+        heading=f"Sensitivity of {lives}: ε = d ln L / d ln x; ±10 % = life change for x·0.9 "
+                "and x·1.1",
+        table=Table(SENSITIVITY_HEADERS, tuple(
+            (item.label, _with_unit(item.value, item.unit), signed(item.elasticity),
+             signed(item.elasticity_s0), percent(item.minus10), percent(item.plus10), item.method)
+            for item in items), numeric=(False, True, True, True, True, True, False)),
+        notes=tuple((item.label, item.note) for item in items if item.note),
+    )
+
+
+# ---- building the document ------------------------------------------------------------------
+def _result_rows(derivation: Derivation) -> tuple[ResultRow, ...]:
+    """Every entry of ``derivation.results``, labelled from its step when it has one."""
+    rows = []
+    for key, value in derivation.results.items():
+        try:
+            step = derivation.step(key)
+        except KeyError:
+            rows.append(ResultRow(key, key, "", value, ""))
+            continue
+        rows.append(ResultRow(key, step.symbol, step.label, value, step.unit))
+    return tuple(rows)
+
+
+def _sensitivity(result: CaseResult) -> list[SensitivityItem]:
+    """The elasticity of the case's life to each input (empty when the case cannot be derived)."""
+    if result.inputs is None or result.derivation is None:
+        return []
+    try:
+        return sensitivity_of(result.inputs)
+    except InputError:
+        return []
+
+
+def _error_text(result: CaseResult) -> str | None:
+    """The case's error as "field: message", or None."""
+    if result.error is None:
+        return None
+    return f"{result.error_field}: {result.error}" if result.error_field else result.error
+
+
+def _verdict_lines(result: CaseResult) -> tuple[str, ...]:
+    """The life verdict (Lnm against the session's life target) and the static-safety verdict
+    (ISO 76:2006 s0 against the minimum in force), in words."""
+    assert result.derivation is not None
+    res = result.derivation.results
+    if result.life_target_h is None:
+        life = "Life: no life target set"
+    else:
+        life = (f"Life: Lnm = {number_text(res.get('Lnm', math.nan))} h against the target "
+                f"{number_text(result.life_target_h)} h: {_verdict(result.meets_life)}")
+    static = (f"Static safety: s0 = {number_text(res['s0'])} against the minimum "
+              f"{number_text(res['s0_min'])}: {_verdict(result.meets_s0)}")
+    return life, static
+
+
+def _bearing_info(session: Session, name: str) -> BearingInfo:
+    bearing = session.bearing(name)
+    if bearing is None:
+        return BearingInfo(name, "", "")
+    return BearingInfo(name, bearing.texts.get("kind", ""), bearing.notes)
+
+
+def _case_section(session: Session, number: int, result: CaseResult) -> CaseSection:
+    case, derivation = result.case, result.derivation
+    texts = case_texts(session, case)
+    items = _sensitivity(result)
+    return CaseSection(
+        number=number, name=case.name, bearing=_bearing_info(session, case.bearing),
+        notes=case.notes,
+        generated_note=(f"{case.notes[:1].upper()}{case.notes[1:]}: its Fr, Fa and speed are those "
+                        "of the Shafts section") if is_generated(case) else None,
+        inputs=tuple(InputText(name, FIELD_BY_NAME[name].label, text)
+                     for name, text in texts.items() if text.strip()),
+        derivation=derivation,
+        results=_result_rows(derivation) if derivation is not None else (),
+        verdicts=_verdict_lines(result) if derivation is not None else (),
+        meets_life=result.meets_life, meets_s0=result.meets_s0,
+        life_target_h=result.life_target_h, error=_error_text(result),
+        field_errors=dict(result.field_errors),
+        sensitivity=sensitivity_section(items) if items else None,
+    )
+
+
+def _summary(results: list[CaseResult]) -> Table:
+    """One row per case: its bearing, key results and the two verdicts."""
+    rows: list[tuple[str, ...]] = []
+    for r in results:
+        name = r.case.name + (GENERATED_MARK if is_generated(r.case) else "")
+        if r.derivation is None:
+            rows.append((name, r.case.bearing, "error", "", "", "", "", ""))
+            continue
+        res = r.derivation.results
+        rows.append((name, r.case.bearing, *(number_text(res[k]) for k in SUMMARY_RESULTS),
+                     _verdict(r.meets_life), _verdict(r.meets_s0)))
+    return Table(("Case", "Bearing", "P (N)", "L10h (h)", "Lnm (h)", "s0", "Life", "Static"),
+                 tuple(rows))
+
+
+def _meta(session: Session, source_name: str) -> SessionMeta:
+    targets = session.targets
+    return SessionMeta(
+        title=session.title, engineer=session.engineer, notes=session.notes, units=session.units,
+        source=source_name, life_target=targets.life, reliability=targets.reliability,
+        s0_target=targets.s0,
+        facts=(
+            ("Session file", source_name),
+            ("Engineer", session.engineer or "—"),
+            ("Unit system", session.units),
+            ("Life target", f"Lnm ≥ {targets.life}" if targets.life.strip() else "none"),
+            ("Reliability", targets.reliability or "—"),
+            ("Static safety", f"s0 ≥ {targets.s0}" if targets.s0.strip() else "the duty's minimum"),
+        ),
+    )
+
+
+def _shaft_section(number: int, outcome: ShaftOutcome) -> ShaftSection:
+    """A shaft's states (free body, bearing loads) and its system life, with their words."""
+    shaft = outcome.shaft
+    if shaft is None:
+        description = "(its table cannot be read)"
+    else:
+        description = (f"bearing A = {shaft.bearing_a} at {shaft.position_a}, bearing B = "
+                       f"{shaft.bearing_b} at {shaft.position_b}; locating: {shaft.locating}"
+                       + (f" ({shaft.mounting} mounting)" if shaft.mounting else ""))
+    states = []
+    for state_number, state in enumerate(outcome.states, start=1):
+        typed, solution = state.state, state.solution
+        loads: tuple[BearingLoad, ...] = ()
+        if solution is not None and shaft is not None:
+            loads = tuple(BearingLoad(side, getattr(shaft, f"bearing_{side.lower()}"),
+                                      *solution.bearing_loads[side]) for side in SIDES)
+        states.append(ShaftStateSection(
+            heading=f"State {state_number}: {typed.name} ({typed.power or typed.torque}, "
+                    f"{typed.speed}, time share {typed.share})",
+            name=typed.name, key=state.key, error=state.error,
+            typed={"power": typed.power, "torque": typed.torque, "speed": typed.speed,
+                   "share": typed.share},
+            torque=solution.torque if solution is not None else None,
+            speed=solution.speed if solution is not None else None,
+            loads=loads,
+            load_table=Table(("Side", "Bearing", "Fr (N)", "Fa (N)"), tuple(
+                (load.side, load.bearing, number_text(load.fr), number_text(load.fa))
+                for load in loads)) if loads else None,
+            derivation=solution.derivation if solution is not None else None,
+        ))
+    system = outcome.system
+    if shaft is None:
+        system_line = None
+    elif system is None:
+        system_line = f"System life: none ({outcome.system_error})"
+    else:
+        system_line = (f"System life of the shaft's bearings: L_sys = "
+                       f"{number_text(system.life_mrev)} 10⁶ rev = {number_text(system.life_h)} h "
+                       f"at the mean speed, R = {system.reliability:g} "
+                       f"(Weibull slope {number_text(system.weibull_slope)})")
+    return ShaftSection(
+        number=number, title=outcome.name or outcome.key, name=outcome.name, key=outcome.key,
+        description=description,
+        bearing_a=shaft.bearing_a if shaft else None, bearing_b=shaft.bearing_b if shaft else None,
+        locating=shaft.locating if shaft else None, error=outcome.error, states=tuple(states),
+        system_line=system_line,
+        system=None if system is None else SystemLife(
+            system.life_mrev, system.life_h, system.weibull_slope, system.reliability,
+            system.derivation),
+        system_error=outcome.system_error,
+    )
+
+
+DUTY_HEADER = ("#", "Case", "Share typed", "Time share", "Revolution share ui",
+               "Life Li (10⁶ rev)", "Damage share")
+
+
+def _duty_section(number: int, duty: DutyOutcome) -> DutySection:
+    """A duty cycle's states and its Miner life in 10⁶ rev and in hours at the mean speed."""
+    result = duty.result
+    origin = f"automatic, from shaft {duty.shaft}" if duty.shaft is not None else "from the file"
+    basis = duty.cycle.basis if duty.cycle else None
+    if result is None:
+        return DutySection(
+            number=number, title=duty.name or duty.key, name=duty.name, key=duty.key,
+            shaft=duty.shaft, basis=basis, error=duty.error, description=origin, bearing=None,
+            kind=None, states=tuple(DutyState(case, share) for case, share in duty.cycle.states)
+            if duty.cycle else (),
+            table=None, life_line=f"No duty life: {duty.error}", life_mrev=None, mean_speed=None,
+            life_h=None, reliability=None, derivation=None)
+    numbers = tuple(zip(time_shares(result), result.revolution_shares, result.lives_mrev,
+                        result.damage_shares))
+    states = tuple(DutyState(case, share, *figures)
+                   for (case, share), figures in zip(result.cycle.states, numbers))
+    table = Table(DUTY_HEADER, tuple(
+        (str(i), case_result.case.name, share, *(number_text(value) for value in figures))
+        for i, (case_result, (_, share), figures) in enumerate(
+            zip(result.case_results, result.cycle.states, numbers), start=1)))
+    return DutySection(
+        number=number, title=duty.name or duty.key, name=duty.name, key=duty.key,
+        shaft=duty.shaft, basis=basis, error=duty.error,
+        description=f"{origin}; bearing {result.bearing} ({result.kind}); shares typed on a "
+                    f"{result.cycle.basis} basis",
+        bearing=result.bearing, kind=result.kind, states=states, table=table,
+        life_line=(f"Duty life: L = {number_text(result.life_mrev)} 10⁶ rev = "
+                   f"{number_text(result.life_h)} h at the mean speed nm = "
+                   f"{number_text(result.mean_speed)} r/min, R = {result.reliability:g}"),
+        life_mrev=result.life_mrev, mean_speed=result.mean_speed, life_h=result.life_h,
+        reliability=result.reliability, derivation=result.derivation,
+    )
+
+
+def _solver_section(session: Session, results: list[CaseResult]) -> SolverSection | None:
+    """Run the session's solver question when it names one of its cases."""
+    setup = session.solver
+    if not setup.case:
+        return None
+    solution, error = None, None
+    match = next((r for r in results if r.case.name == setup.case), None)
+    if match is None:
+        error = f"no case called {setup.case!r} in this session"
+    elif match.inputs is None or match.derivation is None:
+        error = f"the case cannot be derived ({_error_text(match)})"
+    else:
+        try:
+            name, value = parse_target_text(setup.target)
+            solution = solve(match.inputs, setup.unknown, name, value)
+        except (InputError, FieldError) as exc:
+            error = f"{exc.field}: {exc.message}"
+    label = UNKNOWNS[setup.unknown].label if setup.unknown in UNKNOWNS else setup.unknown
+    lines = [f"Question: which {label} gives {setup.target} on case {setup.case!r}?"]
+    step_line = None
+    if solution is None:
+        lines.append(f"No answer: {error}")
+    else:
+        s = solution
+        unit = f" {s.unit}" if s.unit else ""
+        target_unit = f" {TARGETS[s.target][1]}" if TARGETS[s.target][1] else ""
+        lines += [
+            f"Answer: {s.unknown} = {number_text(s.value)}{unit}",
+            f"Achieved: {s.target} = {number_text(s.achieved)}{target_unit} "
+            f"(relative residual {s.residual:.1e})",
+            f"Found by Brent's method on [{number_text(s.bracket[0])}, "
+            f"{number_text(s.bracket[1])}]{unit} in {s.evaluations} evaluations; branch: {s.branch}",
+        ]
+        step = s.derivation.step("solved")
+        step_line = f"Solver step: {step.formula} by {step.substituted} ({step.note})."
+    return SolverSection(setup.case, setup.unknown, setup.target, solution, error, tuple(lines),
+                         step_line)
+
+
+def _sources(analysis: SessionAnalysis, solver: SolverSection | None) -> tuple[str, ...]:
+    """Every source cited by the derivations shown, in order of first use."""
+    derivations = [r.derivation for r in analysis.cases if r.derivation is not None]
+    for shaft in analysis.shafts:
+        derivations += [s.solution.derivation for s in shaft.states if s.solution is not None]
+        if shaft.system is not None:
+            derivations.append(shaft.system.derivation)
+    derivations += [duty.result.derivation for duty in analysis.duties if duty.result is not None]
+    if solver is not None and solver.solution is not None:
+        derivations.append(solver.solution.derivation)
+    return tuple(dict.fromkeys(s for d in derivations for s in d.sources))
+
+
+def build_report(session: Session, source_name: str) -> Report:
+    """The design review of ``session``, read from ``source_name``, as one document.
+
+    Built only from the derivation records of :func:`~workbench.model.analysis.analyse` (cases,
+    shafts, duty cycles) and, when the session's solver names a case, of
+    :func:`~workbench.engine.solve.solve`.
+    """
+    analysis = analyse(session)
+    solver = _solver_section(session, analysis.cases)
+    return Report(
+        meta=_meta(session, source_name),
+        bearings=tuple(_bearing_info(session, bearing.name) for bearing in session.bearings),
+        units_note=UNITS_NOTE,
+        summary=_summary(analysis.cases),
+        generated_legend=GENERATED_LEGEND if any(is_generated(r.case) for r in analysis.cases)
+        else None,
+        cases=tuple(_case_section(session, number, result)
+                    for number, result in enumerate(analysis.cases, start=1)),
+        shafts=tuple(_shaft_section(number, outcome)
+                     for number, outcome in enumerate(analysis.shafts, start=1)),
+        duties=tuple(_duty_section(number, duty)
+                     for number, duty in enumerate(analysis.duties, start=1)),
+        solver=solver,
+        sources=_sources(analysis, solver),
+        caution=SAFETY_CAUTION,
+    )

@@ -1,0 +1,124 @@
+"""Markdown: the report document as headings, tables and lists."""
+
+from __future__ import annotations
+
+from typing import Sequence
+
+from ..engine.record import Derivation
+from ..engine.record import fmt as number_text
+from .contents import CaseSection, DutySection, Report, ShaftSection, Table
+
+
+def _cell(text: str) -> str:
+    """Text safe inside a Markdown table cell."""
+    return " ".join(text.split()).replace("|", "\\|") or " "
+
+
+def _table(header: Sequence[str], rows: Sequence[Sequence[str]]) -> list[str]:
+    lines = ["| " + " | ".join(header) + " |", "|" + "|".join("---" for _ in header) + "|"]
+    lines += ["| " + " | ".join(_cell(c) for c in row) + " |" for row in rows]
+    return lines + [""]
+
+
+def _of(table: Table) -> list[str]:
+    return _table(table.header, table.rows)
+
+
+def _steps(d: Derivation) -> list[str]:
+    """The steps of a derivation as one Markdown table."""
+    return _table(
+        ["#", "Symbol", "Step", "Formula", "With numbers", "Result", "Unit", "Source", "Note"],
+        [[str(i), s.symbol, s.label, s.formula, s.substituted, s.value_text, s.unit, s.source,
+          "; ".join(x for x in (s.note, f"⚠ {s.warning}" if s.warning else None) if x)]
+         for i, s in enumerate(d.steps, start=1)])
+
+
+def _case(case: CaseSection) -> list[str]:
+    bearing = case.bearing
+    lines = [f"## Case {case.number}: {case.name}", "",
+             f"**Bearing:** {bearing.name}" + (f" ({bearing.kind})" if bearing.kind else "")
+             + (f" — {bearing.notes}" if bearing.notes else ""), ""]
+    if case.generated_note is not None:
+        lines += [f"*{case.generated_note}.*", ""]
+    elif case.notes.strip():
+        lines += [" ".join(case.notes.split()), ""]
+    if case.inputs:
+        lines += ["### Inputs as typed", ""]
+        lines += _table(["Input", "Field", "Value"],
+                        [[i.label, f"`{i.name}`", i.text] for i in case.inputs])
+    if case.derivation is None:
+        return lines + [f"**Error:** {case.error}", ""]
+    d = case.derivation
+    lines += ["### Results", ""]
+    lines += _table(["Symbol", "Result", "Value", "Unit"],
+                    [[r.symbol, r.label or f"`{r.key}`", number_text(r.value), r.unit]
+                     for r in case.results])
+    lines += ["### Derivation", "", *_steps(d), "### Warnings", ""]
+    lines += [f"- {w}" for w in d.warnings] if d.warnings else ["None."]
+    lines += ["", "### Targets", "", *(f"- {verdict}" for verdict in case.verdicts), ""]
+    if case.sensitivity is not None:
+        section = case.sensitivity
+        lines += ["### Sensitivity", "", section.heading, "", *_of(section.table)]
+        lines += [f"- {label}: {note}" for label, note in section.notes]
+        lines.append("")
+    return lines
+
+
+def _shaft(shaft: ShaftSection) -> list[str]:
+    """Per state the free body and the bearing loads, then the system life of its bearings."""
+    lines = [f"### Shaft {shaft.number}: {shaft.title}", "", shaft.description, ""]
+    if shaft.error is not None:
+        lines += [f"**Error:** {shaft.error}", ""]
+    for state in shaft.states:
+        lines += [f"#### {state.heading}", ""]
+        if state.derivation is None:
+            lines += [f"**Error:** {state.error}", ""]
+            continue
+        lines += ["Free body: mesh and belt forces, reactions, thrust.", ""]
+        lines += _steps(state.derivation)
+        if state.load_table is not None:
+            lines += _of(state.load_table)
+    if shaft.system_line is not None:
+        lines += [f"#### {shaft.system_line}", ""]
+    if shaft.system is not None:
+        lines += _steps(shaft.system.derivation)
+    return lines
+
+
+def _duty(duty: DutySection) -> list[str]:
+    """The states' shares, lives and damage, then the Miner life."""
+    lines = [f"### Cycle {duty.number}: {duty.title}", "", duty.description, ""]
+    if duty.table is not None and duty.derivation is not None:
+        lines += _of(duty.table)
+        lines += ["Palmgren–Miner summation:", "", *_steps(duty.derivation)]
+    return lines + [f"**{duty.life_line}**", ""]
+
+
+def render(report: Report) -> str:
+    """The report as Markdown."""
+    meta = report.meta
+    lines = [f"# Design review: {meta.title}", ""]
+    lines += _table(["Item", "Value"], meta.facts)
+    if meta.notes.strip():
+        lines += [" ".join(meta.notes.split()), ""]
+    lines += [f"*{report.units_note}*", "", "## Summary", ""]
+    lines += _of(report.summary) if report.cases else ["No load cases.", ""]
+    if report.generated_legend:
+        lines += [f"\\{report.generated_legend}", ""]
+    for case in report.cases:
+        lines += _case(case)
+    if report.shafts:
+        lines += ["## Shafts", ""]
+        for shaft in report.shafts:
+            lines += _shaft(shaft)
+    if report.duties:
+        lines += ["## Duty cycles", ""]
+        for duty in report.duties:
+            lines += _duty(duty)
+    if report.solver is not None:
+        lines += ["## Solver", "", *(f"- {line}" for line in report.solver.lines), ""]
+        if report.solver.step_line is not None:
+            lines += [report.solver.step_line, ""]
+    lines += ["## Sources", "", *(f"- {s}" for s in report.sources), ""]
+    lines += ["## Caution", "", f"> {report.caution}", ""]
+    return "\n".join(lines)
