@@ -25,7 +25,7 @@ from __future__ import annotations
 import copy
 import math
 import unicodedata
-from dataclasses import dataclass, field
+from dataclasses import dataclass, field, replace
 from pathlib import Path
 from typing import Any, NamedTuple
 
@@ -260,7 +260,7 @@ class Document:
             self._extras = None
         elif self._extras is not None:
             own = len(self._own)
-            self._extras = self._extras._replace(cases=self._own + self._extras.cases[own:])
+            self._extras = replace(self._extras, cases=self._own + self._extras.cases[own:])
 
     def _extras_reach(self, touch: Touch) -> bool:
         """Whether shafts, generated cases or duty cycles can depend on what ``touch`` names."""
