@@ -93,11 +93,14 @@ def test_no_root_kinds_have_plain_messages(case: CaseInputs, unknown: str, targe
 
 
 def test_unreachable_target_states_the_range() -> None:
-    """s0 ≤ C0/Fr whatever Fa: a larger s0 target reports the range the axial load allows."""
+    """s0 ≤ C0/Fr whatever Fa: a larger s0 target reports the range the axial load allows.
+    ISO 76:2006 §5.2 (deep groove, from memory): P0 = max(0.6·Fr + 0.5·Fa, Fr), so s0 runs from
+    C0/(0.6·Fr + 0.5·10⁹ N) at the top of the searched Fa to C0/Fr while Fa ≤ 0.8·Fr."""
     with pytest.raises(NoSolution) as info:
         solve(BASE, "fa", "s0", 100.0)
     low, high = info.value.reachable
-    assert high <= 19000.0 / 5200.0 * (1 + 1e-9)
+    assert high == pytest.approx(19000.0 / 5200.0, rel=1e-12)
+    assert low == pytest.approx(19000.0 / (0.6 * 5200.0 + 0.5 * 1e9), rel=1e-9)
     assert "runs from" in info.value.message
 
 
@@ -277,17 +280,19 @@ def test_result_that_does_not_move_is_not_several_answers() -> None:
 
 # ---- round trips on random cases ---------------------------------------------------------------
 
-RANDOM_BEARINGS = [
-    dict(kind="deep-groove"), dict(kind="deep-groove", f0=14.0),
-    dict(kind="angular-contact", contact_angle=15.0), dict(kind="angular-contact"),
-    dict(kind="angular-contact", contact_angle=25.0, arrangement="back-to-back"),
-    dict(kind="tapered", contact_angle=14.0), dict(kind="spherical", contact_angle=10.0),
-    dict(kind="self-aligning", contact_angle=12.0), dict(kind="cylindrical"),
-    dict(kind="thrust-ball", contact_angle=60.0), dict(kind="thrust-roller", contact_angle=70.0),
-    dict(kind="thrust-ball"),
+RANDOM_BEARINGS: list[dict[str, object]] = [
+    {"kind": "deep-groove"}, {"kind": "deep-groove", "f0": 14.0},
+    {"kind": "angular-contact", "contact_angle": 15.0}, {"kind": "angular-contact"},
+    {"kind": "angular-contact", "contact_angle": 25.0, "arrangement": "back-to-back"},
+    {"kind": "tapered", "contact_angle": 14.0}, {"kind": "spherical", "contact_angle": 10.0},
+    {"kind": "self-aligning", "contact_angle": 12.0}, {"kind": "cylindrical"},
+    {"kind": "thrust-ball", "contact_angle": 60.0},
+    {"kind": "thrust-roller", "contact_angle": 70.0}, {"kind": "thrust-ball"},
 ]
-LUBRICATION = [dict(), dict(nu=20.0, dm=60.0, cleanliness="normal"),
-               dict(vg=68.0, temp=70.0, dm=140.0, ec=0.3)]
+LUBRICATION: list[dict[str, object]] = [
+    {}, {"nu": 20.0, "dm": 60.0, "cleanliness": "normal"},
+    {"vg": 68.0, "temp": 70.0, "dm": 140.0, "ec": 0.3},
+]
 
 
 @settings(max_examples=150, deadline=None, derandomize=True,

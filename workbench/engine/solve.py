@@ -31,7 +31,8 @@ from __future__ import annotations
 import math
 from bisect import bisect_right
 from dataclasses import dataclass, replace
-from typing import NamedTuple
+from itertools import pairwise
+from typing import Any, NamedTuple
 
 from .derive import CaseInputs, derive
 from .life import AISO_CAP, KAPPA_MAX, KAPPA_MIN, KAPPA_PIECE_LIMITS, NU1_SPEED_SWITCH
@@ -149,7 +150,7 @@ class Solution:
     def several_roots_message(self) -> str:
         """Why one answer cannot be given: the roots, and how to narrow the question."""
         spec = UNKNOWNS[self.unknown]
-        label, unit = TARGETS[self.target]
+        unit = TARGETS[self.target][1]
         return (f"{len(self.roots)} values of {spec.label} meet {self.target} = "
                 f"{_amount(self.target_value, unit)}: {self.roots_text()}; narrow the search "
                 "range to choose one")
@@ -159,7 +160,8 @@ def apply_unknown(case: CaseInputs, unknown: str, value: float) -> CaseInputs:
     """The case with the unknown set to ``value`` (``load_scale`` scales Fr and Fa together)."""
     if unknown == "load_scale":
         return replace(case, fr=case.fr * value, fa=case.fa * value)
-    return replace(case, **{unknown: value})
+    changes: dict[str, Any] = {unknown: value}
+    return replace(case, **changes)
 
 
 def _bounds(case: CaseInputs, unknown: Unknown) -> tuple[float, float]:
@@ -317,9 +319,9 @@ class _Search:
             return None
         offset = 0.0
         if self.parts[index] == "kappa":
-            levels = a.state[index], b.state[index]
-            assert isinstance(levels[0], int) and isinstance(levels[1], int)
-            offset = math.log(KAPPA_LIMITS[min(levels)])
+            low_level, high_level = a.state[index], b.state[index]
+            assert isinstance(low_level, int) and isinstance(high_level, int)
+            offset = math.log(KAPPA_LIMITS[min(low_level, high_level)])
         fa_, fb_ = sa - offset, sb - offset
         if fa_ == 0.0 or fb_ == 0.0 or (fa_ < 0) == (fb_ < 0):
             return None
@@ -387,7 +389,7 @@ class _Search:
         """Every root with its bracket: sign changes within a piece, and across a boundary
         where the result is continuous (a kink); a jump across the target is recorded instead."""
         found: list[tuple[float, tuple[float, float]]] = []
-        for a, b in zip(points, points[1:]):
+        for a, b in pairwise(points):
             if math.isnan(a.residual) or math.isnan(b.residual):
                 continue
             if a.residual == 0.0:
@@ -419,7 +421,7 @@ class _Search:
         does not move with the unknown there), or None."""
         runs: list[tuple[float, float]] = []
         start: float | None = None
-        for a, b in zip(points, points[1:]):
+        for a, b in pairwise(points):
             if a.residual == 0.0 and b.residual == 0.0:
                 start = a.u if start is None else start
                 runs.append((start, b.u))
@@ -463,7 +465,7 @@ def solve(case: CaseInputs, unknown: str, target: str, target_value: float,
     points = search.split(search.refine_extrema(points, every=False))
     flat = search.flat_at_target(points)
     if flat is not None:
-        label, unit = TARGETS[target]
+        unit = TARGETS[target][1]
         raise NoSolution(unknown, f"{target} stays at {_amount(target_value, unit)} for every "
                                   f"{spec.label} from {fmt(flat[0])} to "
                                   f"{_amount(flat[1], spec.unit)}: no single answer",
@@ -476,14 +478,14 @@ def solve(case: CaseInputs, unknown: str, target: str, target_value: float,
         raise _no_root(search, points, target_value, between is not None, low, high)
     found.sort()
     roots = tuple(search.x(u) for u, _ in found)
-    first, (a, b) = found[0]
+    a, b = found[0][1]
     x = roots[0]
     solved_case = apply_unknown(case, unknown, x)
     forward = derive(solved_case)
     achieved = forward.results[target]
     rel = (achieved - target_value) / target_value
     bracket = (search.x(a), search.x(b))
-    label, unit = TARGETS[target]
+    unit = TARGETS[target][1]
     note = f"{len(search.cache)} evaluations, relative residual {rel:.1e}"
     warning = None
     if len(roots) > 1:
