@@ -239,3 +239,18 @@ def test_caution_names_the_standards_and_defers_to_codes() -> None:
     for phrase in ("ISO 281:2007", "ISO 76:2006", "maker", "local codes",
                    "licensed engineering practice", "safety-critical"):
         assert phrase in SAFETY_CAUTION
+
+
+def test_solver_summary_lists_every_root() -> None:
+    """Several roots (issue 15, finding 3; the case of tests/engine/test_solve.py::SPEED_CASE):
+    the report gives the smallest as the answer and lists all four."""
+    from workbench.engine.derive import CaseInputs
+    from workbench.engine.solve import solve
+    from workbench.report import SolverOutcome, _solver_summary
+
+    case = CaseInputs(kind="deep-groove", fr=5000.0, c=30000.0, c0=18000.0, speed=1000.0,
+                      nu=21.908, dm=50.0, ec=0.5, cu=1515.54)
+    solution = solve(case, "speed", "Lnm", 16854.0)
+    lines = _solver_summary(SolverOutcome("slow", "speed", "Lnm=16854 h", solution, None))
+    several = next(line for line in lines if line.startswith("More than one answer"))
+    assert several.count(",") == 3

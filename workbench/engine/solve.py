@@ -129,8 +129,8 @@ class Solution:
     branch: str
     derivation: Derivation
     inputs: CaseInputs
-    roots: tuple[float, ...] = ()
-    searched: tuple[float, float] = (math.nan, math.nan)
+    roots: tuple[float, ...]
+    searched: tuple[float, float]  # the range of the unknown that was searched
 
     def as_dict(self) -> dict[str, object]:
         """The ``solved`` object of ``calc --json``."""
