@@ -241,16 +241,20 @@ def test_caution_names_the_standards_and_defers_to_codes() -> None:
         assert phrase in SAFETY_CAUTION
 
 
-def test_solver_summary_lists_every_root() -> None:
-    """Several roots (issue 15, finding 3; the case of tests/engine/test_solve.py::SPEED_CASE):
-    the report gives the smallest as the answer and lists all four."""
-    from workbench.engine.derive import CaseInputs
-    from workbench.engine.solve import solve
-    from workbench.report import SolverOutcome, _solver_summary
-
-    case = CaseInputs(kind="deep-groove", fr=5000.0, c=30000.0, c0=18000.0, speed=1000.0,
-                      nu=21.908, dm=50.0, ec=0.5, cu=1515.54)
-    solution = solve(case, "speed", "Lnm", 16854.0)
-    lines = _solver_summary(SolverOutcome("slow", "speed", "Lnm=16854 h", solution, None))
-    several = next(line for line in lines if line.startswith("More than one answer"))
+def test_solver_section_lists_every_root() -> None:
+    """Several roots (issue 15, finding 3; the inputs of tests/engine/test_solve.py::SPEED_CASE):
+    the report answers with the smallest and lists all four, in text and in JSON."""
+    session = Session(
+        title="several roots",
+        targets=Targets(life="", reliability="0.90", s0=""),
+        bearings=[Bearing("B", {"kind": "deep-groove", "c": "30 kN", "c0": "18 kN",
+                                "cu": "1515.54 N", "dm": "50 mm"})],
+        cases=[LoadCase("slow", "B", {"fr": "5 kN", "speed": "1000 rpm", "nu": "21.908",
+                                      "cleanliness": "0.5"})],
+        solver=SolverSetup("speed", "Lnm=16854 h", "slow"),
+    )
+    text = render_report(session, "text", "several")
+    several = next(line for line in text.splitlines() if "More than one answer" in line)
     assert several.count(",") == 3
+    roots = strict_json(render_report(session, "json", "several"))["solver"]["solution"]["roots"]
+    assert roots == pytest.approx([21.4, 925.9, 941.8, 1021.6], rel=2e-4)
