@@ -36,7 +36,7 @@ def unknown_value_text(name: str, value: float, system: str) -> str:
 def solution_content(case_name: str, solution: Solution, system: str) -> Content:
     """What the solver found, line by line."""
     spec = UNKNOWNS[solution.unknown]
-    label, unit = TARGETS[solution.target]
+    unit = TARGETS[solution.target][1]
     low, high = solution.bracket
     lines = [
         Content.styled(f"Solved for case {case_name}", "bold"),
