@@ -80,14 +80,12 @@ TARGETS: dict[str, tuple[str, str]] = {
     "s0": ("static safety factor", ""),
 }
 
-# What each part of the chain's state is, in words (for "the result jumps across the target at …").
-_BOUNDARY_WORDS = {
-    "valid": "the edge of the loads the bearing accepts",
+# The boundaries where the result can jump, in words ("the result jumps across the target at …");
+# the others (the κ clamps, the aISO cap, P0 = Fr) are kinks of a continuous result.
+_JUMP_WORDS = {
     "branch": "the e switch (Fa/Fr = e)",
-    "kappa": "a κ limit of aISO (0.1, 0.4, 1 or 4)",
+    "kappa": "a joint of the aISO pieces (κ = 0.4 or 1)",
     "nu1": f"the ν1 switch at n = {NU1_SPEED_SWITCH:g} r/min",
-    "cap": f"the aISO cap of {AISO_CAP:g}",
-    "floor": "the P0 = Fr rule",
 }
 # The parts of the state that can change the result, per target (P0 plays no part in a life,
 # lubrication none in s0 or the basic life).
@@ -511,7 +509,7 @@ def _no_root(search: _Search, points: list[_Point], target_value: float, limited
     label, unit = TARGETS[target]
     if search.jumps:
         at, part = search.jumps[0]
-        where = _BOUNDARY_WORDS.get(part, "a step of the chain")
+        where = _JUMP_WORDS.get(part, "a step of the chain")
         return NoSolution(spec.name, f"the result jumps across the target at {where}, near "
                                      f"{spec.label} = {fmt(search.x(at))}: no exact root")
     finite = [p.residual for p in points if not math.isnan(p.residual)]
