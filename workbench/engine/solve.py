@@ -230,6 +230,7 @@ class _Search:
         return math.exp(u) if self.spec.log else u
 
     def point(self, u: float) -> _Point:
+        """The evaluation at position ``u`` (cached: the scan, the boundaries and Brent share it)."""
         cached = self.cache.get(u)
         if cached is not None:
             return cached
@@ -370,6 +371,7 @@ class _Search:
         return sorted({p.u: p for p in points + extra}.values())
 
     def _extremum(self, a: float, c: float, peak: bool) -> _Point:
+        """The highest (``peak``) or lowest point between ``a`` and ``c``, by bounded Brent."""
         from scipy.optimize import minimize_scalar
 
         sign = -1.0 if peak else 1.0
@@ -408,7 +410,8 @@ class _Search:
         return found
 
     def _brent(self, a: float, b: float) -> float:
-        """brentq to 1e-12 on ln(result/target) scale positions (1e-9 relative on the target)."""
+        """The root between ``a`` and ``b`` by brentq, to 1e-12 in ln x (relative on x for a linear
+        unknown): with the residual ln(result/target) that meets the target within 1e-9."""
         from scipy.optimize import brentq
 
         xtol = 1e-3 * REL_TOL * (1.0 if self.spec.log else max(abs(a), abs(b)))
