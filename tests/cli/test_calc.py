@@ -105,6 +105,72 @@ def test_no_root_exits_nonzero_with_message(extra: list[str],
     assert err.strip()
 
 
+# Issue 15, finding 3: invented inputs with the four speed roots the issue reports for an Lnm
+# target (21.4, 925.9, 941.8, 1021.6 r/min; see tests/engine/test_solve.py::SPEED_CASE).
+SEVERAL = ["calc", "--kind", "deep-groove", "--fr", "5 kN", "--c", "30 kN", "--c0", "18 kN",
+           "--speed", "1000 rpm", "--nu", "21.908", "--dm", "50 mm", "--cleanliness", "0.5",
+           "--cu", "1515.54 N", "--solve", "speed", "--target", "Lnm=16854 h"]
+
+
+def test_several_roots_exit_3_listing_them(capsys: pytest.CaptureFixture[str]) -> None:
+    """More than one speed meets the target: exit 3, one line listing every root (the issue's
+    independent values), not grid ends."""
+    code, out, err = run(SEVERAL, capsys)
+    assert code == 3 and out == ""
+    assert len(err.strip().splitlines()) == 1
+    listed = err.split(" h: ")[1].split(" rpm")[0]
+    roots = [float(text) for text in listed.split(", ")]
+    assert roots == pytest.approx([21.4, 925.9, 941.8, 1021.6], rel=2e-4)
+    assert "--between" in err
+
+
+def test_several_roots_json_lists_them(capsys: pytest.CaptureFixture[str]) -> None:
+    """--json: ``solved.roots`` holds every root, smallest first, ``value`` the smallest, the
+    derivation is at it, and ``error`` says why the exit code is 3."""
+    code, out, _ = run(SEVERAL + ["--json"], capsys)
+    assert code == 3
+    data = json.loads(out)
+    roots = data["solved"]["roots"]
+    assert roots == pytest.approx([21.4, 925.9, 941.8, 1021.6], rel=2e-4)
+    assert roots == sorted(roots) and data["solved"]["value"] == roots[0]
+    assert data["results"]["Lnm"] == pytest.approx(16854.0, rel=1e-9)
+    assert "4 values" in data["error"]
+
+
+def test_between_takes_units_and_narrows_to_one_root(capsys: pytest.CaptureFixture[str]) -> None:
+    """--between LOW HIGH reads like --speed (here r/s): 15 to 15.6 r/s is 900 to 936 r/min."""
+    code, out, _ = run(SEVERAL + ["--between", "15 r/s", "15.6 r/s", "--json"], capsys)
+    assert code == 0
+    solved = json.loads(out)["solved"]
+    assert solved["roots"] == [solved["value"]]
+    assert solved["value"] == pytest.approx(925.9, rel=2e-4)
+    assert solved["searched"] == pytest.approx([900.0, 936.0])
+
+
+@pytest.mark.parametrize("extra", [["--between", "9 kN", "2000 rpm"],
+                                   ["--between", "2000 rpm", "900 rpm"],
+                                   ["--between", "fast", "2000 rpm"]])
+def test_bad_search_range_exits_2(extra: list[str], capsys: pytest.CaptureFixture[str]) -> None:
+    code, _, err = run(SEVERAL + extra, capsys)
+    assert code == 2
+    assert "--between" in err and len(err.strip().splitlines()) == 1
+
+
+def test_between_needs_a_question(capsys: pytest.CaptureFixture[str]) -> None:
+    code, _, err = run(EXAMPLE + ["--between", "1 kN", "2 kN"], capsys)
+    assert code == 2 and "--between" in err
+
+
+def test_thrust_root_next_to_refused_loads(capsys: pytest.CaptureFixture[str]) -> None:
+    """Issue 15, finding 2 (an independent implementation): Fr = 130.5 kN gives L10h = 40 h."""
+    code, out, _ = run(["calc", "--kind", "thrust-ball", "--contact-angle", "60", "--fa",
+                        "362.7 kN", "--fr", "100 kN", "--c", "300 kN", "--c0", "257.5 kN",
+                        "--speed", "100 rpm", "--solve", "fr", "--target", "L10h=40 h", "--json"],
+                       capsys)
+    assert code == 0
+    assert json.loads(out)["solved"]["value"] == pytest.approx(130.5e3, rel=5e-4)
+
+
 def test_module_entry_point_runs() -> None:
     """``python -m workbench calc`` is the same command."""
     out = subprocess.run([sys.executable, "-m", "workbench", *EXAMPLE, "--json"],

@@ -239,3 +239,22 @@ def test_caution_names_the_standards_and_defers_to_codes() -> None:
     for phrase in ("ISO 281:2007", "ISO 76:2006", "maker", "local codes",
                    "licensed engineering practice", "safety-critical"):
         assert phrase in SAFETY_CAUTION
+
+
+def test_solver_section_lists_every_root() -> None:
+    """Several roots (issue 15, finding 3; the inputs of tests/engine/test_solve.py::SPEED_CASE):
+    the report answers with the smallest and lists all four, in text and in JSON."""
+    session = Session(
+        title="several roots",
+        targets=Targets(life="", reliability="0.90", s0=""),
+        bearings=[Bearing("B", {"kind": "deep-groove", "c": "30 kN", "c0": "18 kN",
+                                "cu": "1515.54 N", "dm": "50 mm"})],
+        cases=[LoadCase("slow", "B", {"fr": "5 kN", "speed": "1000 rpm", "nu": "21.908",
+                                      "cleanliness": "0.5"})],
+        solver=SolverSetup("speed", "Lnm=16854 h", "slow"),
+    )
+    text = render_report(session, "text", "several")
+    several = next(line for line in text.splitlines() if "More than one answer" in line)
+    assert several.count(",") == 3
+    roots = strict_json(render_report(session, "json", "several"))["solver"]["solution"]["roots"]
+    assert roots == pytest.approx([21.4, 925.9, 941.8, 1021.6], rel=2e-4)

@@ -83,3 +83,17 @@ async def test_unreadable_target_is_reported_not_raised(make_app) -> None:
         shown = app.workbench_screen.query_one("#solver").text.plain
         assert "✘" in shown and "time" in shown
         assert app.is_running
+
+
+def test_pane_names_every_root() -> None:
+    """With several roots the pane shows the smallest and lists the others (issue 15, finding 3:
+    the speeds 21.4, 925.9, 941.8 and 1021.6 r/min of tests/engine/test_solve.py::SPEED_CASE)."""
+    from workbench.engine.derive import CaseInputs
+    from workbench.tui.solver_pane import solution_content
+
+    case = CaseInputs(kind="deep-groove", fr=5000.0, c=30000.0, c0=18000.0, speed=1000.0,
+                      nu=21.908, dm=50.0, ec=0.5, cu=1515.54)
+    shown = solution_content("slow", solve(case, "speed", "Lnm", 16854.0), "SI").plain
+    assert "also meets the target at" in shown
+    listed = shown.split("also meets the target at ")[1].splitlines()[0]
+    assert len(listed.split(", ")) == 3

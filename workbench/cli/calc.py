@@ -3,9 +3,14 @@
 from __future__ import annotations
 
 import argparse
+from collections.abc import Sequence
+from typing import TYPE_CHECKING
 
 from ..model.fields import FIELDS, FieldError, inputs_from_texts
 from .common import EXIT_NO_SOLUTION, fail, print_json
+
+if TYPE_CHECKING:
+    from ..engine.solve import Solution
 
 SUMMARY = "derive one load case (and back-solve one input)"
 DESCRIPTION = ("Derive one load case: equivalent loads, rating life, reliability, lubrication and "
@@ -31,6 +36,9 @@ def add_arguments(parser: argparse.ArgumentParser) -> None:
                         help="back-solve this input (c, c0, fr, fa, load_scale, speed, reliability, af)")
     parser.add_argument("--target", metavar="RESULT=VALUE",
                         help="the result the solved input must meet, e.g. \"Lnm=20000 h\"")
+    parser.add_argument("--between", nargs=2, metavar=("LOW", "HIGH"),
+                        help="search the solved input only from LOW to HIGH, with units like its "
+                             "own flag, e.g. --between \"500 rpm\" \"2000 rpm\"")
     parser.add_argument("--sensitivity", action="store_true",
                         help="add the elasticity of life to each numeric input")
 
@@ -52,6 +60,38 @@ def _flag(name: str) -> str:
         if spec.name == name:
             return spec.flag
     return name if name.startswith("--") else f"--{name.replace('_', '-')}"
+
+
+def _between(unknown: str, texts: Sequence[str] | None) -> tuple[float, float] | None:
+    """The --between pair in engine units, read like the unknown's own flag (FieldError if not)."""
+    from ..engine.solve import UNKNOWNS
+    from ..model.fields import FIELD_BY_NAME, parse_field
+
+    if texts is None or unknown not in UNKNOWNS:
+        return None
+    values = []
+    for text in texts:
+        if unknown in FIELD_BY_NAME:
+            try:
+                value = parse_field(unknown, text)
+            except FieldError as exc:
+                raise FieldError("between", exc.message) from None
+        else:  # load_scale: a plain number
+            from ..model.quantities import QuantityError, parse
+
+            try:
+                value = parse(text, "dimensionless", default_unit="")
+            except QuantityError as exc:
+                raise FieldError("between", exc.message) from None
+        if not isinstance(value, float):
+            raise FieldError("between", f"{text!r} is not a value of {unknown}")
+        values.append(value)
+    return values[0], values[1]
+
+
+def _several_roots(solved: Solution) -> str:
+    """More than one value meets the target: list them and say how to choose."""
+    return solved.several_roots_message() + " (--between LOW HIGH)"
 
 
 def run(args: argparse.Namespace) -> int:
@@ -77,8 +117,14 @@ def run(args: argparse.Namespace) -> int:
                 target_name, target_value = parse_target_text(args.target)
             except FieldError as exc:
                 return fail(f"--target: {exc.message}")
-            solved = solve(case, args.solve, target_name, target_value)
+            try:
+                between = _between(args.solve, args.between)
+            except FieldError as exc:
+                return fail(f"--between: {exc.message}")
+            solved = solve(case, args.solve, target_name, target_value, between)
             derivation = solved.derivation
+        elif args.between:
+            return fail("--between goes with --solve and --target")
         else:
             derivation = derive(case)
     except NoSolution as exc:
@@ -93,14 +139,19 @@ def run(args: argparse.Namespace) -> int:
         from ..engine.sensitivity import sensitivity_of
 
         sensitivity = sensitivity_of(solved.inputs if solved else case)
+    several = solved is not None and len(solved.roots) > 1
     if args.json:
         out = derivation.as_dict()
         if solved is not None:
             out["solved"] = solved.as_dict()
         if sensitivity is not None:
             out["sensitivity"] = [item.as_dict() for item in sensitivity]
+        if solved is not None and several:
+            out["error"] = _several_roots(solved)
         print_json(out)
-        return 0
+        return fail(f"--solve {args.solve}: {out['error']}", EXIT_NO_SOLUTION) if several else 0
+    if solved is not None and several:
+        return fail(f"--solve {args.solve}: {_several_roots(solved)}", EXIT_NO_SOLUTION)
     from ..report.text import derivation_text, sensitivity_text
 
     print(derivation_text(derivation))

@@ -13,6 +13,8 @@ from .num import Num, log, maximum, minimum, power, take, where
 
 AISO_CAP = 50.0
 KAPPA_MIN, KAPPA_MAX = 0.1, 4.0
+KAPPA_PIECE_LIMITS = (0.4, 1.0)  # where the aISO relation changes coefficients (§9.3.2)
+NU1_SPEED_SWITCH = 1000.0  # r/min: ν1 changes formula here (§9.3.3)
 
 
 def basic_rating_life(c: Num, p_eff: Num, exponent: float) -> Num:
@@ -60,7 +62,7 @@ def reference_viscosity(speed_rpm: Num, dm_mm: Num) -> Num:
     """
     slow = 45000.0 * speed_rpm ** -0.83 * dm_mm ** -0.5
     fast = 4500.0 * speed_rpm ** -0.5 * dm_mm ** -0.5
-    return where(speed_rpm < 1000.0, slow, fast)
+    return where(speed_rpm < NU1_SPEED_SWITCH, slow, fast)
 
 
 def fatigue_load_limit_estimate(c0: Num, dpw_mm: Num, roller: bool) -> Num:
@@ -102,7 +104,8 @@ _AISO_ROLLER = (1.5859, (1.3993, 1.2348, 1.2348), (0.054381, 0.19087, 0.071739),
 
 def _kappa_piece(kappa: Num) -> Num:
     """Which piece of the aISO relation applies: 0 for κ < 0.4, 1 for 0.4 ≤ κ < 1, 2 above."""
-    return 2 - (kappa < 0.4) - (kappa < 1.0)
+    middle, upper = KAPPA_PIECE_LIMITS
+    return 2 - (kappa < middle) - (kappa < upper)
 
 
 def _capped(inner: Num, final: float) -> Num:

@@ -511,6 +511,10 @@ def _solver_section(session: Session, results: list[CaseResult]) -> SolverSectio
             f"Found by Brent's method on [{number_text(s.bracket[0])}, "
             f"{number_text(s.bracket[1])}]{unit} in {s.evaluations} evaluations; branch: {s.branch}",
         ]
+        if len(s.roots) > 1:
+            lines.append(f"More than one answer: {s.unknown} = "
+                         f"{', '.join(number_text(root) for root in s.roots)}{unit} all meet the "
+                         "target; the answer above is the smallest")
         step = s.derivation.step("solved")
         step_line = f"Solver step: {step.formula} by {step.substituted} ({step.note})."
     return SolverSection(setup.case, setup.unknown, setup.target, solution, error, tuple(lines),

@@ -40,9 +40,9 @@ def unknown_value_text(name: str, value: float, system: str) -> str:
 def solution_content(case_name: str, solution: Solution, system: str) -> Content:
     """What the solver found, line by line."""
     spec = UNKNOWNS[solution.unknown]
-    label, unit = TARGETS[solution.target]
+    unit = TARGETS[solution.target][1]
     low, high = solution.bracket
-    return Content("\n").join([
+    lines = [
         Content.styled(f"Solved for case {case_name}", "bold"),
         Content.assemble(f"{spec.label} = ",
                          (unknown_value_text(solution.unknown, solution.value, system),
@@ -53,9 +53,15 @@ def solution_content(case_name: str, solution: Solution, system: str) -> Content
         Content(f"bracket: {unknown_value_text(solution.unknown, low, system)} … "
                 f"{unknown_value_text(solution.unknown, high, system)}"),
         Content(f"branch: {solution.branch}"),
-        Content.styled("f10 (or Apply) writes the value into the case; ctrl+z undoes it.",
-                       "italic"),
-    ])
+    ]
+    if len(solution.roots) > 1:  # the smallest is shown; say where else the target is met
+        others = ", ".join(unknown_value_text(solution.unknown, root, system)
+                           for root in solution.roots[1:])
+        lines.append(Content.styled(f"also meets the target at {others}",
+                                    "bold $text-warning on $warning-muted"))
+    lines.append(Content.styled("f10 (or Apply) writes the value into the case; ctrl+z undoes it.",
+                                "italic"))
+    return Content("\n").join(lines)
 
 
 def failure_content(message: str, reachable: tuple[float, float] | None, target: str) -> Content:
