@@ -3,7 +3,6 @@
 from __future__ import annotations
 
 import argparse
-from collections.abc import Sequence
 from typing import TYPE_CHECKING
 
 from ..model.fields import FIELDS, FieldError, inputs_from_texts
@@ -62,33 +61,6 @@ def _flag(name: str) -> str:
     return name if name.startswith("--") else f"--{name.replace('_', '-')}"
 
 
-def _between(unknown: str, texts: Sequence[str] | None) -> tuple[float, float] | None:
-    """The --between pair in engine units, read like the unknown's own flag (FieldError if not)."""
-    from ..engine.solve import UNKNOWNS
-    from ..model.fields import FIELD_BY_NAME, parse_field
-
-    if texts is None or unknown not in UNKNOWNS:
-        return None
-    values = []
-    for text in texts:
-        if unknown in FIELD_BY_NAME:
-            try:
-                value = parse_field(unknown, text)
-            except FieldError as exc:
-                raise FieldError("between", exc.message) from None
-        else:  # load_scale: a plain number
-            from ..model.quantities import QuantityError, parse
-
-            try:
-                value = parse(text, "dimensionless", default_unit="")
-            except QuantityError as exc:
-                raise FieldError("between", exc.message) from None
-        if not isinstance(value, float):
-            raise FieldError("between", f"{text!r} is not a value of {unknown}")
-        values.append(value)
-    return values[0], values[1]
-
-
 def _several_roots(solved: Solution) -> str:
     """More than one value meets the target: list them and say how to choose."""
     return solved.several_roots_message() + " (--between LOW HIGH)"
@@ -111,14 +83,14 @@ def run(args: argparse.Namespace) -> int:
         if args.solve or args.target:
             if not (args.solve and args.target):
                 return fail("--solve and --target go together")
-            from ..model.targets import parse_target_text
+            from ..model.targets import parse_between, parse_target_text
 
             try:
                 target_name, target_value = parse_target_text(args.target)
             except FieldError as exc:
                 return fail(f"--target: {exc.message}")
             try:
-                between = _between(args.solve, args.between)
+                between = parse_between(args.solve, args.between)
             except FieldError as exc:
                 return fail(f"--between: {exc.message}")
             solved = solve(case, args.solve, target_name, target_value, between)

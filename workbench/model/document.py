@@ -109,10 +109,12 @@ class Question:
     unknown: str
     target: str
     value: float
+    between: tuple[float, float] | None = None
 
     def solve(self) -> Solution:
-        """The engine's answer (:func:`workbench.engine.solve.solve`); raises NoSolution."""
-        return solve(self.inputs, self.unknown, self.target, self.value)
+        """The engine's answer (:func:`workbench.engine.solve.solve`), every root in the range;
+        raises NoSolution."""
+        return solve(self.inputs, self.unknown, self.target, self.value, self.between)
 
 
 @dataclass(frozen=True)
@@ -619,15 +621,17 @@ class Document:
         return self.units
 
     # ---- solver -------------------------------------------------------------------------
-    def question(self, index: int, unknown: str, target_text: str) -> Question:
+    def question(self, index: int, unknown: str, target_text: str,
+                 between: tuple[str, str] = ("", "")) -> Question:
         """The reverse question for case ``index``: back-solve ``unknown`` for a target like
-        "Lnm=20000 h"; kept in the session as its solver setup.
+        "Lnm=20000 h", searching the unknown's whole range or ``between`` two typed values;
+        kept in the session as its solver setup.
 
         Raises FieldError for a target that cannot be read and InputError when the case cannot
         be derived.  Solve it with :meth:`Question.solve` (on any thread) and hand the answer
         to :meth:`answer`.
         """
-        from .targets import parse_target_text
+        from .targets import parse_between, parse_target_text
 
         result = self.result(index)
         if result is None:
@@ -635,9 +639,11 @@ class Document:
         if result.inputs is None:
             raise InputError(result.error_field or "case", result.error or "the case has errors")
         target, value = parse_target_text(target_text)
+        search = parse_between(unknown, between)
         solver = self.session.solver
         solver.unknown, solver.target, solver.case = unknown, target_text.strip(), result.case.name
-        return Question(result.case.name, self.revision, result.inputs, unknown, target, value)
+        return Question(result.case.name, self.revision, result.inputs, unknown, target, value,
+                        search)
 
     def answer(self, question: Question, solution: Solution) -> bool:
         """Keep ``solution`` as the answer to ``question``; False (and nothing kept) when the

@@ -9,6 +9,7 @@ for the static safety factor s0 (ISO 76:2006 §9).
 from __future__ import annotations
 
 import math
+from collections.abc import Sequence
 
 from ..engine.solve import TARGETS
 from .fields import FieldError
@@ -51,3 +52,29 @@ def parse_target_text(text: str) -> tuple[str, float]:
     if not (math.isfinite(value) and value > 0):
         raise FieldError("target", "the target value must be above zero")
     return name, value
+
+
+def parse_between(unknown: str, texts: Sequence[str] | None) -> tuple[float, float] | None:
+    """A search range for ``unknown`` in engine units, each end read like the unknown's own field
+    ("15 r/s" for the speed; a plain number for the load scale); None for no range (both ends
+    blank, or none given).  Raises FieldError on the field ``between``."""
+    from ..engine.solve import UNKNOWNS
+    from .fields import FIELD_BY_NAME, parse_field
+
+    if texts is None or unknown not in UNKNOWNS or not any(text.strip() for text in texts):
+        return None
+    if len(texts) != 2 or not all(text.strip() for text in texts):
+        raise FieldError("between", "give both ends of the range, or neither")
+    values = []
+    for text in texts:
+        try:
+            value = (parse_field(unknown, text) if unknown in FIELD_BY_NAME
+                     else parse(text, "dimensionless", default_unit=""))
+        except FieldError as exc:
+            raise FieldError("between", exc.message) from None
+        except QuantityError as exc:
+            raise FieldError("between", exc.message) from None
+        if not isinstance(value, float):
+            raise FieldError("between", f"{text!r} is not a value of {unknown}")
+        values.append(value)
+    return values[0], values[1]

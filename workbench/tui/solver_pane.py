@@ -96,12 +96,14 @@ class SolverPane(VerticalScroll):
     """The document's revision and the selected case (bound to the screen's)."""
 
     class SolveRequested(Message):
-        """Solve ``unknown`` so that the target text ("Lnm=20000 h") is met."""
+        """Solve ``unknown`` so that the target text ("Lnm=20000 h") is met, searching
+        ``between`` two typed values (blank: the unknown's whole range)."""
 
-        def __init__(self, unknown: str, target_text: str) -> None:
+        def __init__(self, unknown: str, target_text: str, between: tuple[str, str]) -> None:
             super().__init__()
             self.unknown = unknown
             self.target_text = target_text
+            self.between = between
 
     class ApplyRequested(Message):
         """Write the last solved value into its case."""
@@ -130,6 +132,10 @@ class SolverPane(VerticalScroll):
         with FieldRow():
             yield Label("reaches", classes="field-label")
             yield Input(placeholder="e.g. 20000 h", compact=True, id="solver-value")
+        with FieldRow():
+            yield Label("searching", classes="field-label")
+            yield Input(placeholder="from (blank: all)", compact=True, id="solver-low")
+            yield Input(placeholder="to", compact=True, id="solver-high")
         with Horizontal(id="solver-buttons"):
             yield Button("Solve (f9)", id="solver-solve", compact=True)
             yield Button("Apply (f10)", id="solver-apply", compact=True, disabled=True)
@@ -149,12 +155,14 @@ class SolverPane(VerticalScroll):
             self.query_one("#solver-target", ChoiceBox).value = name.strip()
         self.query_one("#solver-value", Input).value = value_text.strip()
 
-    def request(self) -> tuple[str, str]:
-        """The question as asked now: (unknown, "target=value text")."""
+    def request(self) -> tuple[str, str, tuple[str, str]]:
+        """The question as asked now: (unknown, "target=value text", (from, to) as typed)."""
         unknown = self.query_one("#solver-unknown", ChoiceBox).value
         target = self.query_one("#solver-target", ChoiceBox).value
         value_text = self.query_one("#solver-value", Input).value
-        return str(unknown), f"{target}={value_text}"
+        between = (self.query_one("#solver-low", Input).value,
+                   self.query_one("#solver-high", Input).value)
+        return str(unknown), f"{target}={value_text}", between
 
     def watch_view(self, view: View) -> None:
         """An answer solved on another revision is out of date: say so, and no applying it."""
@@ -202,6 +210,8 @@ class SolverPane(VerticalScroll):
         event.stop()
 
     @on(Input.Submitted, "#solver-value")
+    @on(Input.Submitted, "#solver-low")
+    @on(Input.Submitted, "#solver-high")
     @on(Button.Pressed, "#solver-solve")
     def _solve_asked(self, event: Message) -> None:
         event.stop()

@@ -173,7 +173,7 @@ class WorkbenchScreen(Screen[None]):
 
     @on(SolverPane.SolveRequested)
     def _solve_requested(self, event: SolverPane.SolveRequested) -> None:
-        self._solve(event.unknown, event.target_text)
+        self._solve(event.unknown, event.target_text, event.between)
 
     @on(SolverPane.ApplyRequested)
     def _apply_requested(self) -> None:
@@ -276,13 +276,14 @@ class WorkbenchScreen(Screen[None]):
         found = self.query(SolverPane)
         return found.first() if found else None
 
-    def _solve(self, unknown: str, target_text: str) -> None:
+    def _solve(self, unknown: str, target_text: str,
+               between: tuple[str, str] = ("", "")) -> None:
         self._show_pane("solver", focus=False)
         pane = self._solver()
         if pane is None:
             return
         try:
-            question = self.document.question(self.selected, unknown, target_text)
+            question = self.document.question(self.selected, unknown, target_text, between)
         except (FieldError, InputError) as exc:
             pane.show_failure(exc.message)
             return
