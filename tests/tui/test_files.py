@@ -9,7 +9,7 @@ from tui_sessions import rig_session
 from tui_helpers import retype
 
 from workbench.model.analysis import analyse
-from workbench.tui import files
+from workbench.model import files
 from workbench.tui.case_list import CaseList
 from workbench.tui.app import WorkbenchApp
 from workbench.tui.dialogs import ChoiceDialog

@@ -15,7 +15,7 @@ from textual.screen import Screen
 
 from tui_helpers import mounted_text_box
 
-from workbench.tui import files
+from workbench.model import files
 from workbench.tui.app import WorkbenchApp
 
 SCROLLBAR_GLYPHS = str.maketrans({glyph: " " for glyph in "▁▂▃▄▅▆▇█▔"})

@@ -12,7 +12,7 @@ from workbench.model.analysis import analyse
 from workbench.model.quantities import format_quantity
 from workbench.model.session import Session
 from workbench.model.shafts import is_generated
-from workbench.tui import files
+from workbench.model import files
 from workbench.tui.app import WorkbenchApp
 from workbench.tui.case_list import CaseList
 from workbench.tui.shafts_screen import ShaftsScreen

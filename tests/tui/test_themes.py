@@ -9,7 +9,7 @@ from pathlib import Path
 import pytest
 from textual.color import Color
 
-from workbench.tui import settings
+from workbench.model import settings
 from workbench.tui.theme_files import (
     DEFAULT_THEME, MONOCHROME_THEME, ThemeFileError, load_theme_files, theme_from_data,
 )

@@ -8,7 +8,7 @@ from tui_helpers import retype, selected_case, selected_result
 
 from workbench.engine.sensitivity import sensitivity_of
 from workbench.model.analysis import analyse
-from workbench.tui import files
+from workbench.model import files
 from workbench.tui.app import WorkbenchApp
 from workbench.tui.whatif_pane import WhatIfPane, share_bar
 
