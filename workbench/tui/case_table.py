@@ -14,6 +14,7 @@ from __future__ import annotations
 import math
 
 from rich.text import Text
+from textual.binding import Binding
 from textual.events import Resize
 from textual.message import Message
 from textual.reactive import var
@@ -64,7 +65,14 @@ def row_cells(result: CaseResult, system: str) -> tuple[str, ...]:
 
 
 class CaseTable(DataTable[Text]):
-    """Every load case with its equivalent load, life, static safety and verdicts."""
+    """Every load case with its equivalent load, life, static safety and verdicts; home and
+    end go to the first and last case (the table's own home/end scroll sideways, and this
+    table fits its width)."""
+
+    BINDINGS = [
+        Binding("home", "scroll_top", "First case", show=False),
+        Binding("end", "scroll_bottom", "Last case", show=False),
+    ]
 
     DEFAULT_CSS = """
     CaseTable { scrollbar-size-vertical: 1; }
