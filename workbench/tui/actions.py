@@ -85,7 +85,7 @@ ACTIONS: tuple[Action, ...] = (
            "List the catalog bearings that meet every case on the selected case's bearing; "
            "adopt one (undoable). There, ctrl+g rates a special bearing from its geometry "
            "(ISO 281 C, ISO 76 C0) to adopt instead"),
-    Action("bearing.manage", "alt+b", "manage_bearings", "Bearings of the session",
+    Action("bearing.manage", "alt+e", "manage_bearings", "Bearings of the session",
            "Add, duplicate, rename or delete the session's bearings; enter uses one for the "
            "selected case"),
     Action("session.details", "alt+i", "edit_session", "Session details and targets",

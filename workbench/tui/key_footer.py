@@ -144,8 +144,10 @@ class KeyFooter(Widget, can_focus=False):
         parts: list[tuple[str, Style]] = []
         self._hits = []
         x = -self.scroll_offset_x
+        starts: dict[int, int] = {}
         ends: dict[int, int] = {}
         for text, _, _, group in self._pieces():
+            starts.setdefault(group, x)
             x += len(text)
             ends[group] = x
         x = -self.scroll_offset_x
@@ -153,7 +155,7 @@ class KeyFooter(Widget, can_focus=False):
             start, x = x, x + len(text)
             if ends[group] > room:
                 break  # a key is shown whole or not at all
-            if x <= 0:
+            if starts[group] < 0:
                 continue
             visible = text[max(0, -start):max(0, room - start)]
             parts.append((visible, styles[component]))
