@@ -9,6 +9,7 @@ from textual.content import Content
 from textual.widgets import Label, Static
 
 from ..model.caution import SAFETY_CAUTION
+from ..report.meta import tool_version
 from .dialogs import OnceModal
 
 STANDARDS = (
@@ -22,16 +23,6 @@ STANDARDS = (
 )
 
 
-def _version() -> str:
-    # importlib.metadata (and the email package under it) loads only when the screen is shown
-    from importlib.metadata import PackageNotFoundError, version
-
-    try:
-        return version("bearing-workbench")
-    except PackageNotFoundError:
-        return "development copy"
-
-
 class AboutScreen(OnceModal[None]):
     """The standards and the caution; escape closes it."""
 
@@ -40,7 +31,7 @@ class AboutScreen(OnceModal[None]):
     def compose(self) -> ComposeResult:
         """Title, standards, caution."""
         with VerticalScroll(classes="dialog-box info-box"):
-            yield Label(f"Bearing workbench {_version()}", classes="dialog-title")
+            yield Label(f"Bearing workbench {tool_version()}", classes="dialog-title")
             yield Static("The numbers follow:")
             yield Static(Content("\n".join("• " + line for line in STANDARDS)),
                          id="about-standards")
