@@ -143,8 +143,8 @@ def static_start_up(monkeypatch: pytest.MonkeyPatch) -> None:
     """Mark the case as a static check, as CaseResult.static_only does (issue 14, item 4)."""
     evaluate = analysis.evaluate_case
 
-    def marked(session: Session, case: LoadCase):  # type: ignore[no-untyped-def]
-        result = evaluate(session, case)
+    def marked(session: Session, case: LoadCase, **options: object):  # type: ignore[no-untyped-def]
+        result = evaluate(session, case, **options)
         object.__setattr__(result, "static_only", True)
         return result
 

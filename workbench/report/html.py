@@ -41,7 +41,7 @@ th, td { border: 1px solid var(--rule); padding: .15rem .45rem; text-align: left
          vertical-align: top; }
 th { background: var(--soft); font-weight: 600; }
 td.num { text-align: right; font-variant-numeric: tabular-nums; white-space: nowrap; }
-table.facts th { width: 11rem; }
+table.facts td:first-child { width: 11rem; font-weight: 600; }
 table.steps td:nth-child(4), table.steps td:nth-child(5) { font-family: "DejaVu Sans Mono",
     Menlo, Consolas, monospace; font-size: 8.5pt; }
 .caution { border: 2px solid var(--ink); padding: .6rem .8rem; margin: .8rem 0 1rem;
