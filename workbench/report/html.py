@@ -22,6 +22,7 @@ from .contents import (
     CaseSection, DutySection, Report, ShaftSection, Table, input_table, result_table, step_table,
 )
 from .escape import html_text as _e
+from .plot_svg import aiso_svg, life_svg, shaft_loads_svg, shares_svg  # matplotlib: when drawn
 
 PLOTTED_CASES = 40  # cases past this many get no figures: a large session's page stays usable
 
@@ -100,8 +101,6 @@ def _figure(svg: str, caption: str) -> str:
 
 def _case_figures(case: CaseSection) -> str:
     """Lnm against the load scale (e switch marked) and aISO against κ, when the case has them."""
-    from .plot_svg import aiso_svg, life_svg
-
     inputs = case.engine_inputs
     if inputs is None or case.derivation is None:
         return ""
@@ -160,8 +159,6 @@ def _case(case: CaseSection, with_figures: bool) -> str:
 
 def _shaft_figure(shaft: ShaftSection) -> str:
     """The bearing loads of each solved state, grouped by state."""
-    from .plot_svg import shaft_loads_svg
-
     solved = [state for state in shaft.states if state.loads]
     if not solved:
         return ""
@@ -197,8 +194,6 @@ def _shaft(shaft: ShaftSection) -> str:
 
 
 def _duty_figure(duty: DutySection) -> str:
-    from .plot_svg import shares_svg
-
     states = [s for s in duty.states if s.time_share is not None and s.damage_share is not None
               and math.isfinite(s.damage_share)]
     if not states:
