@@ -40,6 +40,7 @@ from ..model.quantities import QuantityError, parse
 from ..model.selection import candidate_rows, selection_inputs
 from ..model.session import CaseResult
 from .dialogs import Check, OnceModal
+from .table_fit import plain
 
 SIZE_FILTERS = (("bore_min", "Bore d from"), ("bore_max", "to"), ("outer_max", "Outer D up to"),
                 ("width_max", "Width B up to"))
@@ -328,7 +329,7 @@ class SelectionScreen(OnceModal[Adoption | None]):
         for key, heading in columns:
             table.add_column(heading, key=key)
         for row in self._rows:
-            table.add_row(*(row[key] for key, _ in columns), key=row["key"])
+            table.add_row(*plain([row[key] for key, _ in columns]), key=row["key"])
         self._columns = columns
         self._describe_row()
 
