@@ -13,6 +13,7 @@ from typing import Any
 from rich.cells import cell_len
 from rich.text import Text
 from textual.app import App, ComposeResult
+from textual.pilot import Pilot
 from textual.screen import Screen
 from textual.widgets import Button, DataTable, Input, Label, Select, Static
 
@@ -102,3 +103,26 @@ def cut_widgets(screen: Screen[Any]) -> list[str]:
 def screen_lines(screen: Screen[Any]) -> list[str]:
     """What the terminal shows, line by line, as plain text."""
     return ["".join(segment.text for segment in strip) for strip in screen._compositor.render_strips()]
+
+
+async def settled(pilot: Pilot[None]) -> None:
+    """Wait for the screen's workers (the catalog ranking), then for their answers to be shown."""
+    await pilot.pause()
+    await pilot.app.workers.wait_for_complete()
+    await pilot.pause()
+
+
+async def tab_to(pilot: Pilot[None], widget_id: str) -> None:
+    """Press tab until the widget with ``widget_id`` has the focus."""
+    for _ in range(16):
+        if pilot.app.focused is not None and pilot.app.focused.id == widget_id:
+            return
+        await pilot.press("tab")
+    raise AssertionError(f"tab never reached #{widget_id}")
+
+
+async def type_into(pilot: Pilot[None], widget_id: str, text: str) -> None:
+    """Tab to the input ``widget_id``, clear it and type ``text`` key by key."""
+    await tab_to(pilot, widget_id)
+    await pilot.press("end", "ctrl+u", *text)
+    await pilot.pause()

@@ -6,7 +6,7 @@ from __future__ import annotations
 import pytest
 from textual.widgets import Input, Select
 
-from screen_host import ScreenHost, cut_widgets
+from screen_host import ScreenHost, cut_widgets, type_into
 from tui_sessions import DRIVE_BEARING
 
 from workbench.tui.rating_screen import RATING_SOURCE, RatingScreen
@@ -21,14 +21,13 @@ def host() -> ScreenHost:
     return ScreenHost(lambda: RatingScreen("Drive", DRIVE_BEARING, "SI"))
 
 
-async def type_into(pilot, widget_id: str, text: str) -> None:
-    """Tab to the input, clear it and type ``text``."""
-    for _ in range(12):
-        if pilot.app.focused is not None and pilot.app.focused.id == widget_id:
-            break
-        await pilot.press("tab")
-    await pilot.press("end", "ctrl+u", *text)
+async def ball_bearing_typed(pilot) -> RatingScreen:
+    """The form with Z = 9 balls of 12.7 mm on a 65 mm pitch circle typed in."""
     await pilot.pause()
+    await type_into(pilot, "rating-elements", "9")
+    await type_into(pilot, "rating-dw", "12.7 mm")
+    await type_into(pilot, "rating-dpw", "65 mm")
+    return pilot.app.screen
 
 
 @pytest.mark.parametrize("size", [(80, 24), (120, 40)])
@@ -49,11 +48,7 @@ async def test_starts_at_the_first_input_needed_and_fits(size) -> None:
 async def test_typed_geometry_is_rated_and_adopted() -> None:
     app = host()
     async with app.run_test(size=(80, 24)) as pilot:
-        await pilot.pause()
-        screen = app.screen
-        await type_into(pilot, "rating-elements", "9")
-        await type_into(pilot, "rating-dw", "12.7 mm")
-        await type_into(pilot, "rating-dpw", "65 mm")
+        screen = await ball_bearing_typed(pilot)
         assert screen.adoption is not None
         assert "C = 32.69 kN" in str(screen.query_one("#rating-message").render())
         assert "fc" in str(screen.query_one("#rating-steps").render())
@@ -109,10 +104,7 @@ async def test_rated_bearing_is_adopted_through_the_main_screen_and_undone(make_
         assert isinstance(app.screen, SelectionScreen)
         await pilot.press("ctrl+g")
         await pilot.pause()
-        assert isinstance(app.screen, RatingScreen)
-        await type_into(pilot, "rating-elements", "9")
-        await type_into(pilot, "rating-dw", "12.7 mm")
-        await type_into(pilot, "rating-dpw", "65 mm")
+        assert isinstance(await ball_bearing_typed(pilot), RatingScreen)
         await pilot.press("f10")
         await app.workers.wait_for_complete()
         await pilot.pause()

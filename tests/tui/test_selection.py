@@ -11,7 +11,7 @@ import threading
 import pytest
 from textual.widgets import DataTable, Input, Select
 
-from screen_host import ScreenHost, column_texts, cut_widgets, users
+from screen_host import ScreenHost, column_texts, cut_widgets, settled, tab_to, users
 from tui_sessions import rig_session
 
 from workbench.engine.select import Filters, select
@@ -42,22 +42,6 @@ def expected(filters: Filters = Filters()) -> list[int]:
 
 def row_indices(table: DataTable) -> list[int]:
     return [int(table.coordinate_to_cell_key((k, 0)).row_key.value) for k in range(table.row_count)]
-
-
-async def settled(pilot) -> None:
-    """Wait for the ranking worker, then for its answer to be shown."""
-    await pilot.pause()
-    await pilot.app.workers.wait_for_complete()
-    await pilot.pause()
-
-
-async def tab_to(pilot, widget_id: str) -> None:
-    """Press tab until the widget with ``widget_id`` has the focus."""
-    for _ in range(12):
-        if pilot.app.focused is not None and pilot.app.focused.id == widget_id:
-            return
-        await pilot.press("tab")
-    raise AssertionError(f"tab never reached #{widget_id}")
 
 
 @pytest.mark.parametrize("size", [(80, 24), (120, 40)])
