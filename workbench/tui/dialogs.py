@@ -70,11 +70,11 @@ class OnceModal(ModalScreen[ResultType], Generic[ResultType]):
         .dialog-buttons Button {
             margin-right: 2;
         }
-        .field-row {
+        .form-row {
             height: 1;
             width: 100%;
         }
-        .field-label {
+        .form-label {
             width: auto;
             padding-right: 1;
         }

@@ -45,7 +45,7 @@ class RatingScreen(OnceModal[Adoption | None]):
 
     DEFAULT_CSS = """
     RatingScreen {
-        .field-label { width: 20; }
+        .form-label { width: 20; }
         Select { width: 34; }
         #rating-message { width: 100%; margin-top: 1; }
         #rating-steps-scroll { height: 1fr; scrollbar-size-vertical: 1; }
@@ -72,8 +72,8 @@ class RatingScreen(OnceModal[Adoption | None]):
             yield Label(Content(f"Rate bearing {self.bearing} from its geometry"),
                         classes="dialog-title")
             for spec in RATING_INPUTS:
-                with Horizontal(classes="field-row"):
-                    yield Label(spec.label, classes="field-label")
+                with Horizontal(classes="form-row"):
+                    yield Label(spec.label, classes="form-label")
                     start = self._start.get(spec.name, "")
                     if spec.kind == "choice":
                         yield Select([(KIND_WORDS[Kind(kind)], kind) for kind in KINDS],

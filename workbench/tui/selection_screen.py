@@ -168,17 +168,17 @@ class SelectionScreen(OnceModal[Adoption | None]):
         with Vertical(classes="dialog-box screen-box"):
             yield Label(Content(f"Catalog bearings for bearing {self.bearing}"),
                         classes="dialog-title")
-            with Horizontal(classes="field-row"):
-                yield Label("Catalog file", classes="field-label")
+            with Horizontal(classes="form-row"):
+                yield Label("Catalog file", classes="form-label")
                 yield Input(str(self._catalog_path), compact=True, id="catalog-path",
                             select_on_focus=False)
-            with Horizontal(classes="field-row"):
-                yield Label("Kind", classes="field-label")
+            with Horizontal(classes="form-row"):
+                yield Label("Kind", classes="form-label")
                 yield Select([(words, kind.value) for kind, words in KIND_WORDS.items()],
                              prompt="any kind", compact=True, id=FILTER_PREFIX + "kind")
-            with Horizontal(classes="field-row"):
+            with Horizontal(classes="form-row"):
                 for name, label in SIZE_FILTERS:
-                    yield Label(label, classes="field-label")
+                    yield Label(label, classes="form-label")
                     yield Input(placeholder="any", compact=True, classes="size-limit",
                                 id=FILTER_PREFIX + name.replace("_", "-"),
                                 validators=[Check(_length_problem)])
