@@ -105,6 +105,22 @@ def screen_lines(screen: Screen[Any]) -> list[str]:
     return ["".join(segment.text for segment in strip) for strip in screen._compositor.render_strips()]
 
 
+def hues(screen: Screen[Any]) -> set[tuple[int, int, int]]:
+    """Every foreground and background colour on the screen that is not a grey."""
+    found = set()
+    for strip in screen._compositor.render_strips():
+        for segment in strip:
+            style = segment.style
+            if style is None:
+                continue
+            for colour in (style.color, style.bgcolor):
+                if colour is not None and colour.triplet is not None:
+                    r, g, b = colour.triplet
+                    if not r == g == b:
+                        found.add((r, g, b))
+    return found
+
+
 async def settled(pilot: Pilot[None]) -> None:
     """Wait for the screen's workers (the catalog ranking), then for their answers to be shown."""
     await pilot.pause()

@@ -1,13 +1,13 @@
 """Every secondary screen and dialog takes its colours from the theme: under the monochrome
-theme (the one NO_COLOR selects) nothing on them shows a hue, and under each theme the frame is
-drawn in the theme's primary colour."""
+theme (the one the workbench takes under NO_COLOR) nothing on them shows a hue, so no colour is
+written into them, and under each theme the frame is drawn in the theme's primary colour."""
 
 from __future__ import annotations
 
 import pytest
 from textual.color import Color
 
-from screen_host import THEMES, ScreenHost, demo_session, screen_lines, users
+from screen_host import THEMES, ScreenHost, demo_session, hues, screen_lines, users
 
 from workbench.model.analysis import analyse
 from workbench.tui.about_screen import AboutScreen
@@ -32,22 +32,6 @@ SCREENS = {
 }
 
 
-def hues(app: ScreenHost) -> set[tuple[int, int, int]]:
-    """Every foreground and background colour on the screen that is not a grey."""
-    found = set()
-    for strip in app.screen._compositor.render_strips():
-        for segment in strip:
-            style = segment.style
-            if style is None:
-                continue
-            for colour in (style.color, style.bgcolor):
-                if colour is not None and colour.triplet is not None:
-                    r, g, b = colour.triplet
-                    if not r == g == b:
-                        found.add((r, g, b))
-    return found
-
-
 @pytest.mark.parametrize("name", sorted(SCREENS))
 async def test_monochrome_theme_shows_no_hue(name: str) -> None:
     app = ScreenHost(SCREENS[name], theme=MONOCHROME_THEME)
@@ -56,7 +40,7 @@ async def test_monochrome_theme_shows_no_hue(name: str) -> None:
         await app.workers.wait_for_complete()
         await pilot.pause()
         assert any(line.strip() for line in screen_lines(app.screen))
-        assert hues(app) == set()
+        assert hues(app.screen) == set()
 
 
 @pytest.mark.parametrize("theme", THEMES)

@@ -40,3 +40,4 @@ async def test_keys_open_the_screen_with_the_focus_in_it(make_app, screen_class,
             await pilot.press("escape")
             await pilot.pause()
         assert app.screen is main
+

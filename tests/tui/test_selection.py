@@ -14,7 +14,7 @@ from textual.widgets import DataTable, Input, Select
 from screen_host import ScreenHost, column_texts, cut_widgets, settled, tab_to, users
 from tui_sessions import rig_session
 
-from workbench.engine.select import Filters, select
+from workbench.engine.select import Candidate, Filters, select
 from workbench.model.catalog import catalog_bearing_texts, demo_catalog_path, load_catalog
 from workbench.model.session import Session, evaluate_case
 from workbench.tui import selection_screen
@@ -31,13 +31,22 @@ def host(session: Session | None = None, bearing: str = "Drive") -> ScreenHost:
                                               bearing_texts=held.texts if held else None))
 
 
-def expected(filters: Filters = Filters()) -> list[int]:
-    """The catalog rows the engine ranks for the rig's Drive cases, best first."""
+def ranked(filters: Filters = Filters()) -> list[Candidate]:
+    """The engine's ranking of the demo catalog for the rig's Drive cases, best first."""
     session = rig_session()
     inputs = [evaluate_case(session, case).inputs for case in session.cases
               if case.bearing == "Drive"]
-    return [c.index for c in select(load_catalog(demo_catalog_path()), inputs, LIFE_TARGET_H,
-                                     None, filters).candidates]
+    return select(load_catalog(demo_catalog_path()), inputs, LIFE_TARGET_H, None,
+                  filters).candidates
+
+
+def expected(filters: Filters = Filters()) -> list[int]:
+    """The catalog rows the engine ranks, best first."""
+    return [candidate.index for candidate in ranked(filters)]
+
+
+def first_candidate() -> Candidate:
+    return ranked()[0]
 
 
 def row_indices(table: DataTable) -> list[int]:
@@ -59,8 +68,9 @@ async def test_opens_on_the_ranking_with_the_focus_in_it(size) -> None:
         headings = [column.label.plain for column in table.columns.values()]
         # the governing case is a column only where it fits; the detail line always names it
         assert ("Governing case" in headings) == (size[0] >= 120)
-        assert "case Steady run" in str(screen.query_one("#candidate-detail").render()) or \
-            "case Peak torque" in str(screen.query_one("#candidate-detail").render())
+        governing = ("Steady run", "Peak torque")[first_candidate().governing_case]
+        detail = str(screen.query_one("#candidate-detail").render())
+        assert detail.startswith(catalog.designations[expected()[0]]) and f"(case {governing})" in detail
         assert cut_widgets(screen) == []
 
 

@@ -362,11 +362,14 @@ class SelectionScreen(OnceModal[Adoption | None]):
         self._describe_row()
 
     def _describe_row(self) -> None:
-        """The highlighted candidate in full words under the list."""
+        """The highlighted candidate in full words under the list; with none, why bearings
+        the engine could not rate were refused."""
         table = self.query_one("#candidates", DataTable)
         detail = self.query_one("#candidate-detail", Static)
         if not self._rows or not 0 <= table.cursor_row < len(self._rows):
-            detail.update("")
+            examples = self.selection.examples if self.selection is not None else {}
+            detail.update(Content("\n").join(Content(f"{reason}: {message}")
+                                             for reason, message in examples.items()))
             return
         row = self._rows[table.cursor_row]
         detail.update(Content(
