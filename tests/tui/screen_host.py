@@ -18,7 +18,7 @@ from textual.screen import Screen
 from textual.widgets import Button, DataTable, Input, Label, Select, Static
 
 from workbench.model.analysis import analyse
-from workbench.model.session import CaseResult, Session, evaluate_case
+from workbench.model.session import CaseResult, Session
 from workbench.model.sessionfile import demo_session_path, load_session
 from workbench.tui.theme_files import DEFAULT_THEME, load_theme_files
 

@@ -23,7 +23,6 @@ from dataclasses import dataclass
 from pathlib import Path
 from typing import Any, NamedTuple
 
-from rich.cells import cell_len
 from textual import on, work
 from textual.app import ComposeResult
 from textual.binding import Binding
@@ -40,7 +39,7 @@ from ..model.quantities import QuantityError, parse
 from ..model.selection import candidate_rows, selection_inputs
 from ..model.session import CaseResult
 from .dialogs import Check, OnceModal
-from .table_fit import plain
+from .table_fit import CELL_PADDING, natural_width, plain
 
 SIZE_FILTERS = (("bore_min", "Bore d from"), ("bore_max", "to"), ("outer_max", "Outer D up to"),
                 ("width_max", "Width B up to"))
@@ -112,7 +111,7 @@ def columns_that_fit(rows: Sequence[Mapping[str, str]], width: int) -> tuple[tup
     """The columns to show in ``width`` cells: the narrow set, and the governing case when every
     cell of it fits too (a cell is its text and one space each side)."""
     def needed(key: str, heading: str) -> int:
-        return max([cell_len(heading)] + [cell_len(row[key]) for row in rows]) + 2
+        return natural_width(heading, [row[key] for row in rows]) + CELL_PADDING
 
     narrow = sum(needed(key, heading) for key, heading in NARROW_COLUMNS)
     if narrow + needed(*GOVERNING_COLUMN) <= width:
