@@ -23,7 +23,8 @@ from textual.widgets import DataTable, Label, Static
 from ..engine.record import fmt
 from ..model.analysis import DutyOutcome, SessionAnalysis, ShaftOutcome, StateOutcome
 from ..model.quantities import format_quantity
-from ..model.shafts import KIND_WORDS, SIDES, Element
+from ..engine.pairs import SIDES
+from ..model.shafts import KIND_WORDS, Element
 from .derivation_pane import step_content
 from .dialogs import OnceModal
 from .table_fit import fill_fitted, plain
