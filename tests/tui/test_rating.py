@@ -21,13 +21,17 @@ def host() -> ScreenHost:
     return ScreenHost(lambda: RatingScreen("Drive", DRIVE_BEARING, "SI"))
 
 
+async def typed(pilot, **texts: str) -> RatingScreen:
+    """The form once each input named (without its ``rating-`` prefix) has its text typed."""
+    await pilot.pause()
+    for name, text in texts.items():
+        await type_into(pilot, f"rating-{name}", text)
+    return pilot.app.screen
+
+
 async def ball_bearing_typed(pilot) -> RatingScreen:
     """The form with Z = 9 balls of 12.7 mm on a 65 mm pitch circle typed in."""
-    await pilot.pause()
-    await type_into(pilot, "rating-elements", "9")
-    await type_into(pilot, "rating-dw", "12.7 mm")
-    await type_into(pilot, "rating-dpw", "65 mm")
-    return pilot.app.screen
+    return await typed(pilot, elements="9", dw="12.7 mm", dpw="65 mm")
 
 
 @pytest.mark.parametrize("size", [(80, 24), (120, 40)])
@@ -63,10 +67,7 @@ async def test_typed_geometry_is_rated_and_adopted() -> None:
 async def test_unreadable_input_is_marked_and_nothing_is_adopted() -> None:
     app = host()
     async with app.run_test(size=(80, 24)) as pilot:
-        await pilot.pause()
-        screen = app.screen
-        await type_into(pilot, "rating-elements", "9")
-        await type_into(pilot, "rating-dw", "12.7 kg")
+        screen = await typed(pilot, elements="9", dw="12.7 kg")
         assert screen.query_one("#rating-dw", Input).has_class("-invalid")
         assert screen.adoption is None
         assert "mass" in str(screen.query_one("#rating-message").render())
@@ -81,10 +82,7 @@ async def test_unreadable_input_is_marked_and_nothing_is_adopted() -> None:
 async def test_choosing_a_roller_kind_asks_for_the_roller_length() -> None:
     app = host()
     async with app.run_test(size=(80, 24)) as pilot:
-        await pilot.pause()
-        screen = app.screen
-        await type_into(pilot, "rating-elements", "14")
-        await type_into(pilot, "rating-dw", "10 mm")
+        screen = await typed(pilot, elements="14", dw="10 mm")
         assert screen.adoption is not None
         await pilot.press("shift+tab", "shift+tab", "shift+tab")  # back to the kind
         assert app.focused is screen.query_one("#rating-kind")

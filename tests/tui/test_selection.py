@@ -49,6 +49,14 @@ def first_candidate() -> Candidate:
     return ranked()[0]
 
 
+async def ranked_then_tab_to(pilot, widget_id: str) -> tuple[SelectionScreen, DataTable]:
+    """Once the first ranking is shown, tab to ``widget_id``; the screen and its list."""
+    await settled(pilot)
+    screen = pilot.app.screen
+    await tab_to(pilot, widget_id)
+    return screen, screen.query_one("#candidates", DataTable)
+
+
 def row_indices(table: DataTable) -> list[int]:
     return [int(table.coordinate_to_cell_key((k, 0)).row_key.value) for k in range(table.row_count)]
 
@@ -77,10 +85,7 @@ async def test_opens_on_the_ranking_with_the_focus_in_it(size) -> None:
 async def test_filters_narrow_the_ranking_as_typed() -> None:
     app = host()
     async with app.run_test(size=(80, 24)) as pilot:
-        await settled(pilot)
-        screen = app.screen
-        table = screen.query_one("#candidates", DataTable)
-        await tab_to(pilot, "filter-bore-min")
+        screen, table = await ranked_then_tab_to(pilot, "filter-bore-min")
         await pilot.press(*"40")
         await settled(pilot)
         assert row_indices(table) == expected(Filters(bore_min_mm=40.0))
@@ -133,10 +138,7 @@ async def test_typing_goes_on_while_ranking_and_an_older_ranking_is_dropped(monk
     monkeypatch.setattr(selection_screen, "select", slow_first)
     app = host()
     async with app.run_test(size=(80, 24)) as pilot:
-        await settled(pilot)
-        screen = app.screen
-        table = screen.query_one("#candidates", DataTable)
-        await tab_to(pilot, "filter-bore-min")
+        screen, table = await ranked_then_tab_to(pilot, "filter-bore-min")
         await pilot.press("4")  # bore ≥ 4 mm: its ranking hangs
         await pilot.pause()
         assert table.has_class("-busy")

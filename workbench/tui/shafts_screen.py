@@ -20,10 +20,10 @@ from textual.containers import VerticalScroll
 from textual.content import Content
 from textual.widgets import DataTable, Label, Static
 
+from ..engine.pairs import SIDES
 from ..engine.record import fmt
 from ..model.analysis import DutyOutcome, SessionAnalysis, ShaftOutcome, StateOutcome
 from ..model.quantities import format_quantity
-from ..engine.pairs import SIDES
 from ..model.shafts import KIND_WORDS, Element
 from .derivation_pane import step_content
 from .dialogs import OnceModal
