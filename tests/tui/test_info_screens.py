@@ -48,3 +48,17 @@ async def test_about_shows_the_whole_caution_at_80_by_24() -> None:
         await pilot.press("escape")
         await pilot.pause()
         assert app.answers == [None]
+
+
+async def test_help_keeps_its_row_when_the_terminal_is_resized() -> None:
+    app = ScreenHost(HelpScreen)
+    async with app.run_test(size=(80, 24)) as pilot:
+        await pilot.pause()
+        table = app.screen.query_one("#help-keys", DataTable)
+        await pilot.press("down", "down", "down")
+        await pilot.resize_terminal(120, 40)
+        await pilot.pause()
+        await pilot.pause()
+        assert table.cursor_row == 3
+        assert "\n" not in column_texts(table, 2)[0]  # at 120 columns the first help is one line
+        assert cut_widgets(app.screen) == []

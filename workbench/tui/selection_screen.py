@@ -195,11 +195,10 @@ class SelectionScreen(OnceModal[Adoption | None]):
 
     # ---- asking -----------------------------------------------------------------------------
     def rank(self) -> None:
-        """Rank the catalog whose path is typed (blank: the demo catalog) with the filters in
+        """Rank the catalog last given (the path box takes effect on enter) with the filters in
         force, in a worker; the list is marked busy until the answer arrives."""
         self._serial += 1
-        text = self.query_one("#catalog-path", Input).value.strip()
-        path = Path(text).expanduser() if text else demo_catalog_path()
+        path = self._catalog_path
         self.query_one("#candidates", DataTable).add_class(BUSY_CLASS)
         self.query_one("#selection-summary", Static).update(
             Content.styled(f"Ranking {path.name} …", "italic"))
@@ -232,8 +231,11 @@ class SelectionScreen(OnceModal[Adoption | None]):
 
     @on(Input.Submitted, "#catalog-path")
     def _path_given(self, event: Input.Submitted) -> None:
-        """Rank the catalog file whose path was typed, and go to the list."""
+        """Rank the catalog file whose path was typed (blank: the demo catalog), and go to the
+        list."""
         event.stop()
+        text = event.value.strip()
+        self._catalog_path = Path(text).expanduser() if text else demo_catalog_path()
         self.rank()
         self.query_one("#candidates", DataTable).focus()
 

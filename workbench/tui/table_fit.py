@@ -36,7 +36,9 @@ def plain(texts: Sequence[str]) -> list[Text]:
 def fill_fitted(table: DataTable[Text], headings: Sequence[str], rows: Sequence[Sequence[str]],
                 width: int, keys: Sequence[str] | None = None) -> None:
     """Replace the table's columns and rows: every column but the last at its natural width,
-    the last wrapped between words to what remains of ``width`` (cells, padding included)."""
+    the last wrapped between words to what remains of ``width`` (cells, padding included).
+    The cursor stays on the row it was on."""
+    cursor_row = table.cursor_row
     table.clear(columns=True)
     widths = [natural_width(heading, [row[k] for row in rows])
               for k, heading in enumerate(headings[:-1])]
@@ -48,3 +50,5 @@ def fill_fitted(table: DataTable[Text], headings: Sequence[str], rows: Sequence[
         lines = textwrap.wrap(row[-1], last, break_on_hyphens=False) or [""]
         table.add_row(*plain([*row[:-1], "\n".join(lines)]), height=len(lines),
                       key=keys[n] if keys is not None else None)
+    if rows:
+        table.move_cursor(row=min(cursor_row, len(rows) - 1))
