@@ -13,7 +13,7 @@ from workbench.model.fields import FIELD_BY_NAME
 from workbench.model.quantities import format_quantity
 from workbench.tui.case_editor import LABEL_WIDTH
 from workbench.tui.case_list import CaseList
-from workbench.tui.dialogs import ChoiceList
+from workbench.tui.choice_field import ChoiceList
 
 
 async def test_typed_radial_load_changes_the_derivation(make_app) -> None:

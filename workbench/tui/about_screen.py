@@ -19,6 +19,7 @@ STANDARDS = (
     "ASTM D341 — viscosity–temperature relation of petroleum oils",
     "ASTM D2270 — viscosity index",
     "Three-parameter Weibull life distribution — reliability beyond the ISO 281 a1 table",
+    "Palmgren–Miner rule — the life of a duty cycle",
     "Brent's method — the back-solver's root finding",
 )
 
@@ -26,15 +27,32 @@ STANDARDS = (
 class AboutScreen(OnceModal[None]):
     """The standards and the caution; escape closes it."""
 
+    DEFAULT_CSS = """
+    AboutScreen {
+        #about-box { width: 100; }
+        #about-caution {
+            width: 100%;
+            border: round $warning;
+            padding: 0 1;
+        }
+        Static { width: 100%; }
+    }
+    """
+
     BINDINGS = [Binding("escape,q", "dismiss_none", "Close", id="about.close")]
 
     def compose(self) -> ComposeResult:
         """Title, standards, caution."""
-        with VerticalScroll(classes="dialog-box info-box"):
+        with VerticalScroll(classes="dialog-box", id="about-box"):
             yield Label(f"Bearing workbench {tool_version()}", classes="dialog-title")
             yield Static("The numbers follow:")
             yield Static(Content("\n".join("• " + line for line in STANDARDS)),
                          id="about-standards")
-            yield Label("Caution", classes="dialog-title")
-            yield Static(Content(SAFETY_CAUTION), id="about-caution")
-            yield Static("escape: close", classes="dialog-hint")
+            caution = Static(Content(SAFETY_CAUTION), id="about-caution")
+            caution.border_title = "Caution"
+            yield caution
+            yield Static("↑/↓: scroll · escape: close", classes="dialog-hint")
+
+    def on_mount(self) -> None:
+        """Let the arrow keys scroll at once."""
+        self.query_one("#about-box").focus()
