@@ -9,6 +9,7 @@ from textual import events
 from textual._xterm_parser import XTermParser
 from textual.widgets import Input, TabbedContent
 
+from screen_host import column_texts
 from tui_helpers import editor, retype, selected, text_box
 
 from workbench.tui.about_screen import AboutScreen
@@ -49,7 +50,7 @@ async def press(pilot, action_id: str) -> None:
 async def check_help(pilot, app: WorkbenchApp) -> None:
     await press(pilot, "app.help")
     assert isinstance(app.screen, HelpScreen)
-    shown = app.screen.query_one("#help-keys").render().plain  # type: ignore[union-attr]
+    shown = column_texts(app.screen.query_one("#help-keys"), 1)
     assert all(action.title in shown for action in ACTIONS)
 
 
@@ -383,7 +384,7 @@ async def test_key_table_moves_an_action_to_the_persons_key(make_app, private_co
         await pilot.press("f1")
         await pilot.pause()
         assert isinstance(app.screen, HelpScreen)
-        assert "ctrl+k" in str(app.screen.query_one("#help-keys").render())
+        assert "ctrl+k" in column_texts(app.screen.query_one("#help-keys"), 0)
 
 
 async def test_unreadable_key_table_is_reported_and_the_keys_stay(make_app, private_config) -> None:

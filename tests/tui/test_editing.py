@@ -11,7 +11,6 @@ from workbench.engine.record import fmt
 from workbench.model.fields import FIELD_BY_NAME
 from workbench.model.quantities import format_quantity
 from workbench.tui.case_table import CaseTable
-from workbench.tui.dialogs import ChoiceList
 
 
 async def test_typed_radial_load_changes_the_derivation(make_app) -> None:

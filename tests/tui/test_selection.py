@@ -1,85 +1,226 @@
-"""The catalog selection screen: the engine's candidates, adopting one, undoing it."""
+"""The catalog selection screen: the engine's ranking, the CLI's filters, the worker, adopting.
+
+The screen is shown by itself (``screen_host``) with the evaluated cases the main screen gives
+it; the last test goes through the main screen to adopt and undo.  Keyboard only.
+"""
 
 from __future__ import annotations
 
+import threading
+
 import pytest
-from textual.widgets import DataTable, Input
+from textual.widgets import DataTable, Input, Select
 
-from workbench.engine.select import select
-from workbench.model.catalog import demo_catalog_path, load_catalog
+from screen_host import ScreenHost, column_texts, cut_widgets, settled, tab_to, users
+from tui_sessions import rig_session
+
+from workbench.engine.select import Candidate, Filters, select
+from workbench.model.catalog import catalog_bearing_texts, demo_catalog_path, load_catalog
+from workbench.model.session import Session, evaluate_case
+from workbench.tui import selection_screen
 from workbench.tui.app import WorkbenchApp
-from workbench.tui.selection_screen import SelectionScreen
-from tui_helpers import selected_result
+from workbench.tui.selection_screen import Adoption, SelectionScreen
+
+LIFE_TARGET_H = 20000.0  # the rig session's [targets] life
 
 
-def drive_inputs(app: WorkbenchApp) -> list:
-    return [r.inputs for r in app.document.results if r.case.bearing == "Drive"]
+def host(session: Session | None = None, bearing: str = "Drive") -> ScreenHost:
+    chosen = session or rig_session()
+    held = chosen.bearing(bearing)
+    return ScreenHost(lambda: SelectionScreen(bearing, users(chosen, bearing),
+                                              bearing_texts=held.texts if held else None))
 
 
-async def test_first_candidate_is_selects_first_and_adopting_sets_c(make_app) -> None:
-    app = make_app()
-    async with app.run_test(size=(80, 24)) as pilot:
-        await pilot.pause()
-        await pilot.press("ctrl+l")
-        await pilot.pause()
+def ranked(filters: Filters = Filters()) -> list[Candidate]:
+    """The engine's ranking of the demo catalog for the rig's Drive cases, best first."""
+    session = rig_session()
+    inputs = [evaluate_case(session, case).inputs for case in session.cases
+              if case.bearing == "Drive"]
+    return select(load_catalog(demo_catalog_path()), inputs, LIFE_TARGET_H, None,
+                  filters).candidates
+
+
+def expected(filters: Filters = Filters()) -> list[int]:
+    """The catalog rows the engine ranks, best first."""
+    return [candidate.index for candidate in ranked(filters)]
+
+
+def first_candidate() -> Candidate:
+    return ranked()[0]
+
+
+async def ranked_then_tab_to(pilot, widget_id: str) -> tuple[SelectionScreen, DataTable]:
+    """Once the first ranking is shown, tab to ``widget_id``; the screen and its list."""
+    await settled(pilot)
+    screen = pilot.app.screen
+    await tab_to(pilot, widget_id)
+    return screen, screen.query_one("#candidates", DataTable)
+
+
+def row_indices(table: DataTable) -> list[int]:
+    return [int(table.coordinate_to_cell_key((k, 0)).row_key.value) for k in range(table.row_count)]
+
+
+@pytest.mark.parametrize("size", [(80, 24), (120, 40)])
+async def test_opens_on_the_ranking_with_the_focus_in_it(size) -> None:
+    app = host()
+    async with app.run_test(size=size) as pilot:
+        await settled(pilot)
         screen = app.screen
         assert isinstance(screen, SelectionScreen)
-        catalog = load_catalog(demo_catalog_path())
-        expected = select(catalog, drive_inputs(app), 20000.0).candidates  # targets.life
-        assert expected
         table = screen.query_one("#candidates", DataTable)
-        assert table.row_count == len(expected)
-        first = table.coordinate_to_cell_key((0, 0)).row_key.value
-        assert int(first) == expected[0].index
-        assert table.get_row_at(0)[0] == catalog.designations[expected[0].index]
+        assert app.focused is table
+        assert row_indices(table) == expected() and table.row_count > 0
+        catalog = load_catalog(demo_catalog_path())
+        assert column_texts(table, 0) == [catalog.designations[i] for i in expected()]
+        headings = [column.label.plain for column in table.columns.values()]
+        # the governing case is a column only where it fits; the detail line always names it
+        assert ("Governing case" in headings) == (size[0] >= 120)
+        governing = ("Steady run", "Peak torque")[first_candidate().governing_case]
+        detail = str(screen.query_one("#candidate-detail").render())
+        assert detail.startswith(catalog.designations[expected()[0]]) and f"(case {governing})" in detail
+        assert cut_widgets(screen) == []
 
+
+async def test_filters_narrow_the_ranking_as_typed() -> None:
+    app = host()
+    async with app.run_test(size=(80, 24)) as pilot:
+        screen, table = await ranked_then_tab_to(pilot, "filter-bore-min")
+        await pilot.press(*"40")
+        await settled(pilot)
+        assert row_indices(table) == expected(Filters(bore_min_mm=40.0))
+        await tab_to(pilot, "filter-width-max")
+        await pilot.press(*"0.8 in")  # a length with its unit: 20.32 mm
+        await settled(pilot)
+        assert row_indices(table) == expected(Filters(bore_min_mm=40.0, width_max_mm=20.32))
+        catalog = load_catalog(demo_catalog_path())
+        assert all(catalog.d_mm[i] >= 40 and catalog.B_mm[i] <= 20.32 for i in row_indices(table))
+        await tab_to(pilot, "filter-kind")
+        await pilot.press("enter", *"deep", "enter")  # open the list, type to search, take it
+        await settled(pilot)
+        assert screen.query_one("#filter-kind", Select).value == "deep-groove"
+        wanted = Filters("deep-groove", bore_min_mm=40.0, width_max_mm=20.32)
+        assert row_indices(table) == expected(wanted)
+        assert {catalog.kinds[i] for i in row_indices(table)} <= {"deep-groove"}
+
+
+async def test_an_unreadable_limit_is_marked_and_the_last_readable_one_holds() -> None:
+    app = host()
+    async with app.run_test(size=(80, 24)) as pilot:
+        await settled(pilot)
+        screen = app.screen
+        await tab_to(pilot, "filter-outer-max")
+        await pilot.press(*"90")
+        await settled(pilot)
+        await pilot.press(*"x")  # "90x"
+        await settled(pilot)
+        box = screen.query_one("#filter-outer-max", Input)
+        assert box.has_class("-invalid")
+        message = screen.query_one("#filter-message")
+        assert message.display and "Outer D up to" in str(message.render())
+        assert row_indices(screen.query_one("#candidates", DataTable)) == \
+            expected(Filters(outer_max_mm=90.0))
+        await pilot.press("backspace")
+        await settled(pilot)
+        assert not box.has_class("-invalid") and not message.display
+
+
+async def test_typing_goes_on_while_ranking_and_an_older_ranking_is_dropped(monkeypatch) -> None:
+    release = threading.Event()
+    calls: list[Filters] = []
+
+    def slow_first(catalog, cases, life, s0, filters):
+        calls.append(filters)
+        if len(calls) == 2:  # the ranking for the first limit typed waits
+            release.wait(timeout=30)
+        return select(catalog, cases, life, s0, filters)
+
+    monkeypatch.setattr(selection_screen, "select", slow_first)
+    app = host()
+    async with app.run_test(size=(80, 24)) as pilot:
+        screen, table = await ranked_then_tab_to(pilot, "filter-bore-min")
+        await pilot.press("4")  # bore ≥ 4 mm: its ranking hangs
+        await pilot.pause()
+        assert table.has_class("-busy")
+        assert "Ranking" in str(screen.query_one("#selection-summary").render())
+        await pilot.press("5")  # bore ≥ 45 mm, typed while the first ranking still runs
+        await pilot.pause()
+        assert screen.query_one("#filter-bore-min", Input).value == "45"
+        release.set()
+        await settled(pilot)
+        assert [f.bore_min_mm for f in calls[1:]] == [4.0, 45.0]
+        assert row_indices(table) == expected(Filters(bore_min_mm=45.0))
+        assert not table.has_class("-busy")
+
+
+async def test_enter_adopts_the_highlighted_row() -> None:
+    app = host()
+    async with app.run_test(size=(80, 24)) as pilot:
+        await settled(pilot)
+        await pilot.press("down", "enter")
+        await pilot.pause()
+        catalog = load_catalog(demo_catalog_path())
+        index = expected()[1]
+        assert app.answers == [Adoption(catalog.designations[index],
+                                        catalog_bearing_texts(catalog, index),
+                                        f"{catalog.source}, row {catalog.rows[index]}")]
+        assert not isinstance(app.screen, SelectionScreen)
+
+
+async def test_escape_closes_once() -> None:
+    app = host()
+    async with app.run_test(size=(80, 24)) as pilot:
+        await settled(pilot)
+        await pilot.press("escape", "escape")
+        await pilot.pause()
+        assert app.answers == [None] and app.screen.query_one("#host")
+
+
+async def test_a_catalog_path_that_cannot_be_read_is_reported(tmp_path) -> None:
+    app = host()
+    async with app.run_test(size=(80, 24)) as pilot:
+        await settled(pilot)
+        screen = app.screen
+        await tab_to(pilot, "catalog-path")
+        await pilot.press("end", "ctrl+u", *str(tmp_path / "missing.csv"), "enter")
+        await settled(pilot)
+        assert screen.catalog is None
+        assert "✘" in str(screen.query_one("#selection-summary").render())
+        assert "no such file" in str(screen.query_one("#selection-summary").render())
+        assert screen.query_one("#candidates", DataTable).row_count == 0
+        assert app.focused is screen.query_one("#candidates")
+
+
+async def test_no_life_target_is_reported() -> None:
+    session = rig_session()
+    session.targets.life = ""
+    app = host(session)
+    async with app.run_test(size=(80, 24)) as pilot:
+        await settled(pilot)
+        assert "no life target" in str(app.screen.query_one("#selection-summary").render())
+
+
+async def test_adopting_through_the_main_screen_sets_c_and_undo_restores_it(make_app) -> None:
+    app: WorkbenchApp = make_app()
+    async with app.run_test(size=(80, 24)) as pilot:
+        await pilot.pause()
+        await pilot.press("alt+c")
+        await settled(pilot)
+        assert isinstance(app.screen, SelectionScreen)
         await pilot.press("enter")  # adopt the highlighted (first) row
         await pilot.pause()
         assert not isinstance(app.screen, SelectionScreen)
-        c_catalog = float(catalog.c_n[expected[0].index])
+        catalog = load_catalog(demo_catalog_path())
+        first = expected()[0]
+        c_catalog = float(catalog.c_n[first])
         result = selected_result(app)
         assert result is not None and result.derivation is not None
         assert result.inputs.c == pytest.approx(c_catalog)
         # ISO 281:2007 §7.1 closed form: L10 = (C/P)^p, p = 10/3 for a roller bearing, 3 for a ball
-        p = 10 / 3 if catalog.kind[expected[0].index] != "deep-groove" else 3.0
+        p = 3.0 if catalog.kind[first] in ("deep-groove", "angular-contact", "self-aligning") \
+            else 10 / 3
         assert result.derivation.results["L10"] == pytest.approx(
             (c_catalog / result.derivation.results["P"]) ** p)
-        assert f"{c_catalog / 1000:g} kN" == app.document.session.bearing("Drive").texts["c"]
-
         await pilot.press("ctrl+z")
         await pilot.pause()
-        again = selected_result(app)
-        assert again is not None and again.inputs.c == 30000.0  # the rig's Drive: "30 kN"
         assert app.document.session.bearing("Drive").texts["c"] == "30 kN"
-
-
-async def test_a_catalog_path_that_cannot_be_read_is_reported(make_app, tmp_path) -> None:
-    app = make_app()
-    async with app.run_test(size=(80, 24)) as pilot:
-        await pilot.pause()
-        await pilot.press("ctrl+l")
-        await pilot.pause()
-        screen = app.screen
-        assert isinstance(screen, SelectionScreen)
-        box = screen.query_one("#catalog-path", Input)
-        box.value = str(tmp_path / "missing.csv")
-        box.focus()
-        await pilot.press("enter")
-        await pilot.pause()
-        assert screen.catalog is None
-        assert "✘" in str(screen.query_one("#selection-summary").render())
-        assert screen.query_one("#candidates", DataTable).row_count == 0
-        await pilot.press("escape")
-        await pilot.pause()
-        assert not isinstance(app.screen, SelectionScreen) and not app.document.dirty
-
-
-async def test_no_life_target_is_reported(make_app) -> None:
-    app = make_app()
-    app.document.session.targets.life = ""
-    app.workbench.reevaluate()
-    async with app.run_test(size=(80, 24)) as pilot:
-        await pilot.pause()
-        await pilot.press("ctrl+l")
-        await pilot.pause()
-        assert "no life target" in str(app.screen.query_one("#selection-summary").render())

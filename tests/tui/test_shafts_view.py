@@ -6,12 +6,15 @@ import math
 
 import pytest
 
+from textual.widgets import DataTable
+
+from screen_host import ScreenHost, column_texts, cut_widgets
 from tui_helpers import retype
 
 from workbench.model.analysis import analyse
 from workbench.model.quantities import format_quantity
 from workbench.model.session import Session
-from workbench.model.shafts import is_generated
+from workbench.model.shafts import KIND_WORDS, is_generated
 from workbench.model import files
 from workbench.tui.app import WorkbenchApp
 from workbench.tui.case_list import CaseList
@@ -28,29 +31,48 @@ def demo_app() -> WorkbenchApp:
     return WorkbenchApp(demo_session(), None, offer_recovery=False, autosave_delay=None)
 
 
-async def test_shafts_view_shows_the_bearing_loads_of_analyse() -> None:
-    app = demo_app()
+@pytest.mark.parametrize("size", [(80, 24), (120, 40)])
+async def test_shafts_view_tables_show_what_analyse_gives(size) -> None:
     analysis = analyse(demo_session())
-    async with app.run_test(size=(80, 24)) as pilot:
-        await pilot.pause()
-        await pilot.press("ctrl+f")
+    app = ScreenHost(lambda: ShaftsScreen(analysis, "SI"))
+    async with app.run_test(size=size) as pilot:
         await pilot.pause()
         screen = app.screen
         assert isinstance(screen, ShaftsScreen)
-        text = screen.text
-        assert "edit [[shafts]]" in text
+        assert app.focused is screen.query_one("#shaft-0-elements")  # the first table
+        assert cut_widgets(screen) == []
         shaft = analysis.shafts[0]
-        for state in shaft.states:
-            assert state.solution is not None
-            for side in ("A", "B"):
-                fr, fa = state.solution.bearing_loads[side]
-                assert (f"Fr = {format_quantity(fr, 'force', 'SI')}  "
-                        f"Fa = {format_quantity(fa, 'force', 'SI')}") in text
-        for duty in analysis.duties:
-            assert duty.name in text
+        assert column_texts(screen.query_one("#shaft-0-elements", DataTable), 1) == \
+            [KIND_WORDS[element.kind] for element in shaft.shaft.elements]
+        states = screen.query_one("#shaft-0-states", DataTable)
+        assert column_texts(states, 0) == [state.state.name for state in shaft.states]
+        for column, (side, load) in enumerate([("A", 0), ("A", 1), ("B", 0), ("B", 1)], 1):
+            assert column_texts(states, column) == [
+                format_quantity(state.solution.bearing_loads[side][load], "force", "SI")
+                for state in shaft.states]
+        for n, duty in enumerate(analysis.duties):
+            damage = [float(text) for text in column_texts(screen.query_one(f"#duty-{n}"), 2)]
+            assert sum(damage) == pytest.approx(100.0, abs=0.1 * len(damage))  # Miner: Σ shares = 1
         await pilot.press("escape")
         await pilot.pause()
-        assert not isinstance(app.screen, ShaftsScreen)
+        assert app.answers == [None]
+
+
+async def test_moving_through_the_states_shows_each_free_body() -> None:
+    analysis = analyse(demo_session())
+    app = ScreenHost(lambda: ShaftsScreen(analysis, "SI"))
+    async with app.run_test(size=(80, 24)) as pilot:
+        await pilot.pause()
+        screen = app.screen
+        free_body = screen.query_one("#shaft-0-free-body")
+        first, second = (state.state.name for state in analysis.shafts[0].states[:2])
+        assert f"State {first}:" in str(free_body.render())
+        await pilot.press("tab")
+        assert app.focused is screen.query_one("#shaft-0-states")
+        await pilot.press("down")
+        await pilot.pause()
+        assert f"State {second}:" in str(free_body.render())
+        assert "Wt = 2T/d" in str(free_body.render())
 
 
 def test_locating_bearing_takes_the_helix_thrust() -> None:

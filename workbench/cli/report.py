@@ -1,10 +1,9 @@
-"""``workbench report FILE [--format text|markdown|json] [-o OUT]``: a session's design review."""
+"""``workbench report FILE [--format text|markdown|json|html] [-o OUT]``: a session's design review."""
 
 from __future__ import annotations
 
 import argparse
 import sys
-from pathlib import Path
 
 from ..report import FORMATS
 from .common import EXIT_BAD_INPUT
@@ -25,12 +24,12 @@ def run(args: argparse.Namespace) -> int:
 
 
 def run_report(path: str, fmt: str, out: str | None) -> int:
-    """Load ``path``, render it in ``fmt``, write ``out`` or stdout; 0, or 2 on error.
+    """Load ``path``, render it in ``fmt``, write ``out`` (atomically) or stdout; 0, or 2 on error.
 
     A case that cannot be derived shows its error in the report and does not fail the run.
     """
     from ..model.sessionfile import SessionFileError, load_session
-    from ..report import render_report
+    from ..report import report_text, write_report
 
     if fmt not in FORMATS:
         print(f"workbench report: unknown format {fmt!r}; use one of {', '.join(FORMATS)}",
@@ -41,13 +40,11 @@ def run_report(path: str, fmt: str, out: str | None) -> int:
     except SessionFileError as exc:
         print(str(exc), file=sys.stderr)
         return EXIT_BAD_INPUT
-    report = render_report(session, fmt, path)
     if out is None:
-        sys.stdout.write(report)
+        sys.stdout.write(report_text(session, fmt=fmt, session_path=path))
         return 0
-    try:
-        Path(out).write_text(report, encoding="utf-8")
-    except OSError as exc:
-        print(f"{out}: cannot write the report: {exc.strerror or exc}", file=sys.stderr)
+    written = write_report(session, session_path=path, fmt=fmt, out_path=out)
+    if written.error is not None:
+        print(written.error, file=sys.stderr)
         return EXIT_BAD_INPUT
     return 0

@@ -79,6 +79,19 @@ def _read(spec: RatingInput, text: str) -> float | int:
         raise FieldError(spec.name, exc.message) from None
 
 
+def input_problem(name: str, text: str) -> str | None:
+    """Why the text typed for input ``name`` cannot be read (None: it can, or it is blank; a
+    blank required input is named when the whole form is read)."""
+    spec = RATING_INPUT_BY_NAME[name]
+    if spec.kind == "choice" or not text.strip():
+        return None
+    try:
+        _read(spec, text.strip())
+    except FieldError as exc:
+        return exc.message
+    return None
+
+
 def geometry_from_texts(texts: Mapping[str, str]) -> BearingGeometry:
     """The geometry the texts describe; :class:`FieldError` naming the input that is missing or
     unreadable.  Blank rows means one row, a blank contact angle 0° (radial) or 90° (thrust)."""

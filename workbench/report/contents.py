@@ -17,6 +17,7 @@ import math
 from dataclasses import dataclass
 from typing import Sequence
 
+from ..engine.derive import CaseInputs
 from ..engine.record import Derivation, InputError
 from ..engine.record import fmt as number_text
 from ..engine.sensitivity import SensitivityItem, sensitivity_of
@@ -27,12 +28,15 @@ from ..model.fields import FIELD_BY_NAME, FieldError
 from ..model.session import CaseResult, Session, case_texts
 from ..model.shafts import SIDES, is_generated
 from ..model.targets import parse_target_text
+from .meta import Provenance, provenance
 
 UNITS_NOTE = "Values are in the engine's units: N, mm, r/min, h, 10⁶ rev, mm²/s, °C."
 SUMMARY_RESULTS = ("P", "L10h", "Lnm", "s0")
 GENERATED_MARK = " *"
 GENERATED_LEGEND = "* generated from a shaft: its loads come from the Shafts section"
 SENSITIVITY_HEADERS = ("input", "value", "ε life", "ε s0", "−10 %", "+10 %", "method")
+STATIC_ONLY = "static check only"
+BEARING_HEADERS = ("Bearing", "Kind", "Designation", "Source")
 
 
 # ---- the records ---------------------------------------------------------------------------------
@@ -47,26 +51,42 @@ class Table:
 
 @dataclass(frozen=True)
 class SessionMeta:
-    """What the session is and the targets it sets, as typed."""
+    """What the session is, the targets it sets (as typed), and where the report comes from:
+    when it was generated, by which tool version, from which saved file (its SHA-256)."""
 
     title: str
+    project: str
     engineer: str
+    revision: str
     notes: str
     units: str
     source: str
     life_target: str
     reliability: str
     s0_target: str
+    generated_at: str  # ISO 8601 in UTC
+    tool_version: str
+    session_sha256: str | None  # None: never saved, or changed since (``hash_note`` says)
+    hash_note: str
     facts: tuple[tuple[str, str], ...]  # (label, value) lines of the report's head
 
 
 @dataclass(frozen=True)
 class BearingInfo:
-    """A session bearing: its name, kind and notes."""
+    """A session bearing: its name, kind, notes, designation and where its data came from."""
 
     name: str
     kind: str
     notes: str
+    designation: str = ""
+    source: str = ""
+
+    @property
+    def line(self) -> str:
+        """"NAME (kind), designation D, from S": what a case says of its bearing."""
+        return (self.name + (f" ({self.kind})" if self.kind else "")
+                + (f", designation {self.designation}" if self.designation else "")
+                + (f", from {self.source}" if self.source else ""))
 
 
 @dataclass(frozen=True)
@@ -109,9 +129,11 @@ class CaseSection:
     notes: str
     generated_note: str | None  # "Generated from shaft …: …" for a case made from a shaft
     inputs: tuple[InputText, ...]
+    engine_inputs: CaseInputs | None  # what the derivation ran on, for the html plots
     derivation: Derivation | None
     results: tuple[ResultRow, ...]
     verdicts: tuple[str, ...]  # the life and the static-safety verdict in words
+    static_only: bool  # a static check: s0 verdict only, life shown for completeness
     meets_life: bool | None
     meets_s0: bool | None
     life_target_h: float | None
@@ -235,6 +257,7 @@ class Report:
 
     meta: SessionMeta
     bearings: tuple[BearingInfo, ...]
+    bearing_table: Table
     units_note: str
     summary: Table
     generated_legend: str | None
@@ -265,6 +288,16 @@ def _verdict(ok: bool | None) -> str:
     return "no verdict" if ok is None else ("met" if ok else "missed")
 
 
+def _static_only(result: CaseResult) -> bool:
+    # CaseResult.static_only comes with the session details on the screen (issue 14, item 4)
+    return bool(getattr(result, "static_only", False))
+
+
+def _meets_life(result: CaseResult) -> bool | None:
+    """The life verdict, none for a static check."""
+    return None if _static_only(result) else result.meets_life
+
+
 def sensitivity_section(items: Sequence[SensitivityItem]) -> SensitivitySection:
     """The elasticities as a table of display text, with what they are of and the notes."""
     lives = ", ".join(sorted({item.life for item in items}))
@@ -278,6 +311,29 @@ def sensitivity_section(items: Sequence[SensitivityItem]) -> SensitivitySection:
             for item in items), numeric=(False, True, True, True, True, True, False)),
         notes=tuple((item.label, item.note) for item in items if item.note),
     )
+
+
+def step_table(derivation: Derivation) -> Table:
+    """The steps of a derivation, one row each: symbol, label, formula, numbers, result, unit,
+    source, then its note and warning."""
+    return Table(
+        ("#", "Symbol", "Step", "Formula", "With numbers", "Result", "Unit", "Source", "Note"),
+        tuple((str(i), s.symbol, s.label, s.formula, s.substituted, s.value_text, s.unit,
+               s.source, "; ".join(x for x in (s.note, f"⚠ {s.warning}" if s.warning else None)
+                                   if x))
+              for i, s in enumerate(derivation.steps, start=1)))
+
+
+def input_table(case: CaseSection) -> Table:
+    """The case's inputs as typed: label, field name, text."""
+    return Table(("Input", "Field", "Value"), tuple((i.label, i.name, i.text) for i in case.inputs))
+
+
+def result_table(case: CaseSection) -> Table:
+    """The case's results: symbol, label (or key), value, unit."""
+    return Table(("Symbol", "Result", "Value", "Unit"),
+                 tuple((r.symbol, r.label or r.key, number_text(r.value), r.unit)
+                       for r in case.results), numeric=(False, False, True, False))
 
 
 # ---- building the document ------------------------------------------------------------------
@@ -316,7 +372,10 @@ def _verdict_lines(result: CaseResult) -> tuple[str, ...]:
     (ISO 76:2006 s0 against the minimum in force), in words."""
     assert result.derivation is not None
     res = result.derivation.results
-    if result.life_target_h is None:
+    if _static_only(result):
+        life = (f"Life: {STATIC_ONLY}; Lnm = {number_text(res.get('Lnm', math.nan))} h is shown "
+                "for completeness, with no life verdict")
+    elif result.life_target_h is None:
         life = "Life: no life target set"
     else:
         life = (f"Life: Lnm = {number_text(res.get('Lnm', math.nan))} h against the target "
@@ -330,7 +389,14 @@ def _bearing_info(session: Session, name: str) -> BearingInfo:
     bearing = session.bearing(name)
     if bearing is None:
         return BearingInfo(name, "", "")
-    return BearingInfo(name, bearing.texts.get("kind", ""), bearing.notes)
+    # Bearing.designation and .source come with adopting from a catalog (issue 14, item 2)
+    return BearingInfo(name, bearing.texts.get("kind", ""), bearing.notes,
+                       getattr(bearing, "designation", ""), getattr(bearing, "source", ""))
+
+
+def _bearing_table(bearings: Sequence[BearingInfo]) -> Table:
+    return Table(BEARING_HEADERS, tuple(
+        (b.name, b.kind or "—", b.designation or "—", b.source or "—") for b in bearings))
 
 
 def _case_section(session: Session, number: int, result: CaseResult) -> CaseSection:
@@ -344,10 +410,12 @@ def _case_section(session: Session, number: int, result: CaseResult) -> CaseSect
                         "of the Shafts section") if is_generated(case) else None,
         inputs=tuple(InputText(name, FIELD_BY_NAME[name].label, text)
                      for name, text in texts.items() if text.strip()),
+        engine_inputs=result.inputs,
         derivation=derivation,
         results=_result_rows(derivation) if derivation is not None else (),
         verdicts=_verdict_lines(result) if derivation is not None else (),
-        meets_life=result.meets_life, meets_s0=result.meets_s0,
+        static_only=_static_only(result),
+        meets_life=_meets_life(result), meets_s0=result.meets_s0,
         life_target_h=result.life_target_h, error=_error_text(result),
         field_errors=dict(result.field_errors),
         sensitivity=sensitivity_section(items) if items else None,
@@ -363,21 +431,31 @@ def _summary(results: list[CaseResult]) -> Table:
             rows.append((name, r.case.bearing, "error", "", "", "", "", ""))
             continue
         res = r.derivation.results
+        life = STATIC_ONLY if _static_only(r) else _verdict(r.meets_life)
         rows.append((name, r.case.bearing, *(number_text(res[k]) for k in SUMMARY_RESULTS),
-                     _verdict(r.meets_life), _verdict(r.meets_s0)))
+                     life, _verdict(r.meets_s0)))
     return Table(("Case", "Bearing", "P (N)", "L10h (h)", "Lnm (h)", "s0", "Life", "Static"),
                  tuple(rows))
 
 
-def _meta(session: Session, source_name: str) -> SessionMeta:
+def _meta(session: Session, source_name: str, made: Provenance) -> SessionMeta:
     targets = session.targets
+    # Session.project and .revision come with the session details on the screen (issue 14, item 1)
+    project, revision = getattr(session, "project", ""), getattr(session, "revision", "")
     return SessionMeta(
-        title=session.title, engineer=session.engineer, notes=session.notes, units=session.units,
+        title=session.title, project=project, engineer=session.engineer, revision=revision,
+        notes=session.notes, units=session.units,
         source=source_name, life_target=targets.life, reliability=targets.reliability,
-        s0_target=targets.s0,
+        s0_target=targets.s0, generated_at=made.generated_at, tool_version=made.tool_version,
+        session_sha256=made.session_sha256, hash_note=made.hash_note,
         facts=(
             ("Session file", source_name),
+            ("Session SHA-256", made.session_sha256 or made.hash_note),
+            ("Project", project or "—"),
+            ("Revision", revision or "—"),
             ("Engineer", session.engineer or "—"),
+            ("Generated (UTC)", made.generated_at),
+            ("Tool version", f"bearing-workbench {made.tool_version}"),
             ("Unit system", session.units),
             ("Life target", f"Lnm ≥ {targets.life}" if targets.life.strip() else "none"),
             ("Reliability", targets.reliability or "—"),
@@ -534,18 +612,25 @@ def _sources(analysis: SessionAnalysis, solver: SolverSection | None) -> tuple[s
     return tuple(dict.fromkeys(s for d in derivations for s in d.sources))
 
 
-def build_report(session: Session, source_name: str) -> Report:
+def build_report(session: Session, source_name: str,
+                 made: Provenance | None = None) -> Report:
     """The design review of ``session``, read from ``source_name``, as one document.
 
     Built only from the derivation records of :func:`~workbench.model.analysis.analyse` (cases,
     shafts, duty cycles) and, when the session's solver names a case, of
-    :func:`~workbench.engine.solve.solve`.
+    :func:`~workbench.engine.solve.solve`. ``made`` is its provenance
+    (:func:`~workbench.report.meta.provenance`); without one, the report is of a session never
+    saved, generated now.
     """
     analysis = analyse(session)
     solver = _solver_section(session, analysis.cases)
+    if made is None:
+        made = provenance(None)
+    bearings = tuple(_bearing_info(session, bearing.name) for bearing in session.bearings)
     return Report(
-        meta=_meta(session, source_name),
-        bearings=tuple(_bearing_info(session, bearing.name) for bearing in session.bearings),
+        meta=_meta(session, source_name, made),
+        bearings=bearings,
+        bearing_table=_bearing_table(bearings),
         units_note=UNITS_NOTE,
         summary=_summary(analysis.cases),
         generated_legend=GENERATED_LEGEND if any(is_generated(r.case) for r in analysis.cases)

@@ -34,6 +34,7 @@ def _case(case: CaseSection) -> dict[str, Any]:
         "notes": case.notes,
         "inputs": {i.name: i.text for i in case.inputs},
         **_record(case.derivation),
+        "static_only": case.static_only,
         "meets_life": case.meets_life,
         "meets_s0": case.meets_s0,
         "life_target_h": case.life_target_h,
@@ -91,13 +92,22 @@ def render(report: Report) -> str:
     meta, solver = report.meta, report.solver
     solution = solver.solution if solver is not None else None
     data = {
+        "meta": {
+            "generated_at": meta.generated_at, "tool_version": meta.tool_version,
+            "session_sha256": meta.session_sha256, "session_sha256_note": meta.hash_note,
+            "session_file": meta.source,
+            "title": meta.title, "project": meta.project, "engineer": meta.engineer,
+            "revision": meta.revision,
+        },
         "session": {
             "title": meta.title, "engineer": meta.engineer, "notes": meta.notes,
             "units": meta.units, "source": meta.source,
             "targets": {"life": meta.life_target, "reliability": meta.reliability,
                         "s0": meta.s0_target},
         },
-        "bearings": [{"name": b.name, "kind": b.kind, "notes": b.notes} for b in report.bearings],
+        "bearings": [{"name": b.name, "kind": b.kind, "notes": b.notes,
+                      "designation": b.designation, "source": b.source}
+                     for b in report.bearings],
         "cases": [_case(case) for case in report.cases],
         "shafts": [_shaft(shaft) for shaft in report.shafts],
         "duty_cycles": [_duty(duty) for duty in report.duties],

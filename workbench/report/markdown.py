@@ -5,8 +5,9 @@ from __future__ import annotations
 from typing import Sequence
 
 from ..engine.record import Derivation
-from ..engine.record import fmt as number_text
-from .contents import CaseSection, DutySection, Report, ShaftSection, Table
+from .contents import (
+    CaseSection, DutySection, Report, ShaftSection, Table, input_table, result_table, step_table,
+)
 
 
 def _cell(text: str) -> str:
@@ -26,33 +27,27 @@ def _of(table: Table) -> list[str]:
 
 def _steps(d: Derivation) -> list[str]:
     """The steps of a derivation as one Markdown table."""
-    return _table(
-        ["#", "Symbol", "Step", "Formula", "With numbers", "Result", "Unit", "Source", "Note"],
-        [[str(i), s.symbol, s.label, s.formula, s.substituted, s.value_text, s.unit, s.source,
-          "; ".join(x for x in (s.note, f"⚠ {s.warning}" if s.warning else None) if x)]
-         for i, s in enumerate(d.steps, start=1)])
+    return _of(step_table(d))
 
 
 def _case(case: CaseSection) -> list[str]:
     bearing = case.bearing
     lines = [f"## Case {case.number}: {case.name}", "",
-             f"**Bearing:** {bearing.name}" + (f" ({bearing.kind})" if bearing.kind else "")
-             + (f" — {bearing.notes}" if bearing.notes else ""), ""]
+             f"**Bearing:** {bearing.line}" + (f" — {bearing.notes}" if bearing.notes else ""), ""]
+    if case.static_only:
+        lines += ["**Static check only:** judged on s0; its life is shown for completeness.", ""]
     if case.generated_note is not None:
         lines += [f"*{case.generated_note}.*", ""]
     elif case.notes.strip():
         lines += [" ".join(case.notes.split()), ""]
     if case.inputs:
         lines += ["### Inputs as typed", ""]
-        lines += _table(["Input", "Field", "Value"],
-                        [[i.label, f"`{i.name}`", i.text] for i in case.inputs])
+        lines += _of(input_table(case))
     if case.derivation is None:
         return lines + [f"**Error:** {case.error}", ""]
     d = case.derivation
     lines += ["### Results", ""]
-    lines += _table(["Symbol", "Result", "Value", "Unit"],
-                    [[r.symbol, r.label or f"`{r.key}`", number_text(r.value), r.unit]
-                     for r in case.results])
+    lines += _of(result_table(case))
     lines += ["### Derivation", "", *_steps(d), "### Warnings", ""]
     lines += [f"- {w}" for w in d.warnings] if d.warnings else ["None."]
     lines += ["", "### Targets", "", *(f"- {verdict}" for verdict in case.verdicts), ""]
@@ -101,7 +96,9 @@ def render(report: Report) -> str:
     lines += _table(["Item", "Value"], meta.facts)
     if meta.notes.strip():
         lines += [" ".join(meta.notes.split()), ""]
-    lines += [f"*{report.units_note}*", "", "## Summary", ""]
+    lines += [f"*{report.units_note}*", "", "## Bearings", ""]
+    lines += _of(report.bearing_table) if report.bearings else ["No bearings.", ""]
+    lines += ["## Summary", ""]
     lines += _of(report.summary) if report.cases else ["No load cases.", ""]
     if report.generated_legend:
         lines += [f"\\{report.generated_legend}", ""]

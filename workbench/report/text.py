@@ -73,8 +73,9 @@ def _underlined(heading: str, mark: str) -> list[str]:
 
 def _case(case: CaseSection) -> list[str]:
     bearing = case.bearing
-    lines = [*_underlined(f"Case {case.number}: {case.name}", "-"),
-             f"Bearing: {bearing.name}" + (f" ({bearing.kind})" if bearing.kind else "")]
+    lines = [*_underlined(f"Case {case.number}: {case.name}", "-"), f"Bearing: {bearing.line}"]
+    if case.static_only:
+        lines.append("Static check only: judged on s0; its life is shown for completeness.")
     if bearing.notes:
         lines.append(f"  {bearing.notes}")
     if case.generated_note is not None:
@@ -136,7 +137,9 @@ def render(report: Report) -> str:
                          indent="")
     if meta.notes.strip():
         lines += ["", *meta.notes.strip().splitlines()]
-    lines += ["", report.units_note, "", *_underlined("Summary", "-")]
+    lines += ["", report.units_note, "", *_underlined("Bearings", "-")]
+    lines += table_lines(report.bearing_table) if report.bearings else ["  (no bearings)"]
+    lines += ["", *_underlined("Summary", "-")]
     lines += table_lines(report.summary) if report.cases else ["  (no load cases)"]
     if report.generated_legend:
         lines.append(f"  {report.generated_legend}")

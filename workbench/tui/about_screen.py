@@ -9,6 +9,7 @@ from textual.content import Content
 from textual.widgets import Label, Static
 
 from ..model.caution import SAFETY_CAUTION
+from ..report.meta import tool_version
 from .dialogs import OnceModal
 
 STANDARDS = (
@@ -18,32 +19,40 @@ STANDARDS = (
     "ASTM D341 — viscosity–temperature relation of petroleum oils",
     "ASTM D2270 — viscosity index",
     "Three-parameter Weibull life distribution — reliability beyond the ISO 281 a1 table",
+    "Palmgren–Miner rule — the life of a duty cycle",
     "Brent's method — the back-solver's root finding",
 )
-
-
-def _version() -> str:
-    # importlib.metadata (and the email package under it) loads only when the screen is shown
-    from importlib.metadata import PackageNotFoundError, version
-
-    try:
-        return version("bearing-workbench")
-    except PackageNotFoundError:
-        return "development copy"
 
 
 class AboutScreen(OnceModal[None]):
     """The standards and the caution; escape closes it."""
 
+    DEFAULT_CSS = """
+    AboutScreen {
+        #about-box { width: 100; }
+        #about-caution {
+            width: 100%;
+            border: round $warning;
+            padding: 0 1;
+        }
+        Static { width: 100%; }
+    }
+    """
+
     BINDINGS = [Binding("escape,q", "dismiss_none", "Close", id="about.close")]
 
     def compose(self) -> ComposeResult:
         """Title, standards, caution."""
-        with VerticalScroll(classes="dialog-box info-box"):
-            yield Label(f"Bearing workbench {_version()}", classes="dialog-title")
+        with VerticalScroll(classes="dialog-box", id="about-box"):
+            yield Label(f"Bearing workbench {tool_version()}", classes="dialog-title")
             yield Static("The numbers follow:")
             yield Static(Content("\n".join("• " + line for line in STANDARDS)),
                          id="about-standards")
-            yield Label("Caution", classes="dialog-title")
-            yield Static(Content(SAFETY_CAUTION), id="about-caution")
-            yield Static("escape: close", classes="dialog-hint")
+            caution = Static(Content(SAFETY_CAUTION), id="about-caution")
+            caution.border_title = "Caution"
+            yield caution
+            yield Static("↑/↓: scroll · escape: close", classes="dialog-hint")
+
+    def on_mount(self) -> None:
+        """Let the arrow keys scroll at once."""
+        self.query_one("#about-box").focus()

@@ -1,5 +1,9 @@
 """A fixed choice on one line: the value in force and a mark; the list opens in a dialog.
 
+Left over from before the screens were rebuilt on Textual's own widgets: only the case editor
+and the solver pane still use it, and this file (with its :class:`ChoiceList`) goes when they
+take ``Select``.  The secondary screens and dialogs use ``Select``.
+
 Textual's ``Select`` carries its drop-down list with it (five widgets, the list built up front).
 This field is one widget: left and right step through the choices in place, enter (or a click)
 opens them as a list in a small dialog.  The solver pane and the rating form use it; the case
@@ -11,12 +15,64 @@ from __future__ import annotations
 
 from collections.abc import Callable, Mapping, Sequence
 
-from textual.app import App
+from textual import on
+from textual.app import App, ComposeResult
 from textual.binding import Binding
+from textual.containers import Vertical
 from textual.content import Content
 from textual.message import Message
 from textual.reactive import reactive
 from textual.widget import Widget
+from textual.widgets import Label, OptionList, Static
+from textual.widgets.option_list import Option
+
+from .dialogs import OnceModal
+
+BLANK_KEY = ""
+"""The list's key for "no choice" (the prompt's line)."""
+
+
+class ChoiceList(OnceModal[str | None]):
+    """The choices of a field as a list; enter takes the highlighted one, escape keeps the value.
+
+    Answers the chosen value, ``BLANK_KEY`` for the blank line, or None when cancelled."""
+
+    BINDINGS = [Binding("escape", "dismiss_none", "Cancel", id="dialog.cancel")]
+
+    def __init__(self, title: str, choices: Sequence[str], current: str | None,
+                 blank_prompt: str | None, labels: Mapping[str, str] | None = None) -> None:
+        super().__init__()
+        self._title = title
+        self._choices = tuple(choices)
+        self._labels = dict(labels or {})
+        self._current = current
+        self._blank_prompt = blank_prompt
+
+    def compose(self) -> ComposeResult:
+        """Title, the list, and the hint."""
+        options = [Option(Content(self._blank_prompt), id=BLANK_KEY)] if self._blank_prompt else []
+        options += [Option(Content(self._labels.get(choice, choice)), id=choice)
+                    for choice in self._choices]
+        with Vertical(classes="dialog-box"):
+            yield Label(Content(self._title), classes="dialog-title")
+            yield OptionList(*options, id="choice-options")
+            yield Static("enter: choose   escape: keep as is", classes="dialog-hint")
+
+    def on_mount(self) -> None:
+        """Highlight the value in force."""
+        options = self.query_one(OptionList)
+        wanted = self._current if self._current is not None else BLANK_KEY
+        try:
+            options.highlighted = options.get_option_index(wanted)
+        except LookupError:
+            options.highlighted = 0
+        options.focus()
+
+    @on(OptionList.OptionSelected)
+    def _chosen(self, event: OptionList.OptionSelected) -> None:
+        event.stop()
+        self.close(event.option.id)
+
 
 def step_choice(offered: Sequence[str | None], value: str | None, delta: int) -> str | None:
     """The choice ``delta`` places from ``value`` in ``offered`` (not empty), wrapping round;
@@ -30,8 +86,6 @@ def open_choice_list(app: App[object], title: str, choices: Sequence[str], curre
                      labels: Mapping[str, str] | None = None) -> None:
     """Open ``choices`` as a :class:`ChoiceList`; ``take`` gets the value chosen (None for the
     blank line) and is not called when the list is cancelled."""
-    from .dialogs import BLANK_KEY, ChoiceList  # the dialogs load when the first one opens
-
     def answered(answer: str | None) -> None:
         if answer is not None:
             take(None if answer == BLANK_KEY else answer)

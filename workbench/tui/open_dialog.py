@@ -1,7 +1,8 @@
 """Opening a session file, or starting a new one: a path typed with completion.
 
-Tab (or → at the end of the line) completes the path as far as the folder allows; the lines
-under the box list what matches.  Enter opens an existing file; a name that does not exist yet
+→ at the end of the line takes the suggested name (:class:`~.dialogs.PathSuggester`); tab
+completes the path as far as every match agrees, as a shell does; the lines under the box list
+what matches.  Enter opens an existing file; a name that does not exist yet
 asks once, and a second enter starts a new session there (written on the first save).
 """
 
@@ -16,8 +17,9 @@ from textual.app import ComposeResult
 from textual.binding import Binding
 from textual.containers import Vertical
 from textual.screen import ModalScreen
-from textual.suggester import Suggester
 from textual.widgets import Input, Static
+
+from .dialogs import PathSuggester
 
 SHOWN = 8
 """How many matching names the list under the box shows."""
@@ -56,17 +58,6 @@ def completion(text: str) -> str | None:
     common = os.path.commonprefix(found)
     typed = os.path.expanduser(text)
     return common if len(common) > len(typed) else None
-
-
-class PathSuggester(Suggester):
-    """Suggests the completion of a typed path (shown greyed after the cursor)."""
-
-    def __init__(self) -> None:
-        super().__init__(use_cache=False, case_sensitive=True)
-
-    async def get_suggestion(self, value: str) -> str | None:
-        """The completion of ``value``, or None."""
-        return completion(value) if value else None
 
 
 class Opened(NamedTuple):

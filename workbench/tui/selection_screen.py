@@ -2,8 +2,12 @@
 
 The screen runs :func:`workbench.engine.select.select` (ISO 281:2007 life on Lnm against the
 session's life target, ISO 76:2006 static safety) over the demo catalog or a catalog file whose
-path is typed, for all the cases (the session's and the generated ones) that use the selected
-case's bearing, with the inputs built by :func:`workbench.model.selection.selection_inputs`.
+path is typed, for all the cases (the session's and the generated ones) that use one session
+bearing, with the inputs built by :func:`workbench.model.selection.selection_inputs` and the
+same filters as ``workbench select`` (kind, bore, outer diameter, width).  The ranking runs in a
+worker thread: typing in the filters never waits for it, the list is dimmed and the summary says
+so while it runs, and a ranking that finishes after a newer one was asked for is dropped.
+
 The qualifying bearings are listed smallest first.  Enter on a row closes the screen with that
 row's bearing texts (:func:`~workbench.model.catalog.catalog_bearing_texts`); the workbench
 screen writes them into the session bearing as one undo step.  A bearing no catalog holds is
@@ -13,44 +17,124 @@ same way.
 
 from __future__ import annotations
 
+import os
 from collections.abc import Mapping, Sequence
 from dataclasses import dataclass
 from pathlib import Path
+from typing import Any, NamedTuple
 
-from textual import on
+from textual import on, work
 from textual.app import ComposeResult
 from textual.binding import Binding
 from textual.containers import Horizontal, Vertical
 from textual.content import Content
-from textual.widgets import DataTable, Input, Label, Static
+from textual.widgets import DataTable, Input, Label, Select, Static
+from textual.worker import Worker, WorkerState
 
+from ..engine.kinds import KIND_WORDS, Kind
 from ..engine.record import InputError, fmt
-from ..engine.select import Selection, select
+from ..engine.select import Filters, Selection, select
 from ..model.catalog import Catalog, CatalogError, catalog_bearing_texts, demo_catalog_path, load_catalog
+from ..model.quantities import QuantityError, parse
 from ..model.selection import candidate_rows, selection_inputs
 from ..model.session import CaseResult
-from .dialogs import OnceModal
+from .dialogs import Check, OnceModal
+from .table_fit import CELL_PADDING, natural_width, plain
 
-COLUMNS = ("Designation", "Kind", "d × D × B mm", "Life margin", "Governing case", "min s0")
-SELECTION_HINT = ("enter on a row: adopt that bearing's data into the session bearing "
-                  "(ctrl+z undoes it) · tab: catalog file · ctrl+g: rate a special bearing "
-                  "from its geometry instead · escape: close")
+SIZE_FILTERS = (("bore_min", "Bore d from"), ("bore_max", "to"), ("outer_max", "Outer D up to"),
+                ("width_max", "Width B up to"))
+"""The size limits on the bearing (``Filters`` field without ``_mm`` → label), in screen order."""
+FILTER_PREFIX = "filter-"
+NARROW_COLUMNS = (("designation", "Designation"), ("kind", "Kind"), ("size", "d × D × B mm"),
+                  ("life_margin", "Life margin"), ("min_s0", "Least s0"))
+GOVERNING_COLUMN = ("governing_case", "Governing case")
+"""Shown when the table is wide enough for every case name in it; the detail line always names it."""
+SELECTION_HINT = ("enter on a row: adopt it (ctrl+z undoes) · tab: the filters and the catalog "
+                  "file · ctrl+g: rate a special bearing from its geometry · escape: close")
+BUSY_CLASS = "-busy"
 
 
 @dataclass(frozen=True, slots=True)
 class Adoption:
-    """A catalog bearing chosen: its designation and the session bearing texts it gives."""
+    """A bearing chosen: its designation, the session bearing texts it gives, and where it came
+    from (catalog file and row, or rated from geometry)."""
 
     designation: str
     texts: dict[str, str]
+    source: str = ""
+
+
+class Ranking(NamedTuple):
+    """One ranking's outcome: ``serial`` says which request it answers; ``problem`` why there
+    is none (the catalog cannot be read, a case cannot be evaluated, no life target)."""
+
+    serial: int
+    catalog: Catalog | None = None
+    selection: Selection | None = None
+    life_target: float | None = None
+    problem: str | None = None
+
+
+def length_limit(text: str) -> float | None:
+    """A typed size limit in mm (a bare number is mm); None when blank; QuantityError if unreadable."""
+    return parse(text, "length", default_unit="mm") if text.strip() else None
+
+
+def _length_problem(text: str) -> str | None:
+    try:
+        length_limit(text)
+    except QuantityError as exc:
+        return exc.message
+    return None
 
 
 def _number_text(value: float | None) -> str:
     return "—" if value is None else fmt(value, 3)
 
 
+def _cells(row: Mapping[str, Any]) -> dict[str, str]:
+    """One candidate row's texts by column."""
+    return {"designation": row["designation"], "kind": row["kind"],
+            "size": f"{row['d_mm']:g} × {row['D_mm']:g} × {row['B_mm']:g}",
+            "life_margin": _number_text(row["life_margin"]), "min_s0": _number_text(row["min_s0"]),
+            "governing_case": row["governing_case"] or "—"}
+
+
+def _kind_words(kind: str) -> str:
+    try:
+        return KIND_WORDS[Kind(kind)]
+    except ValueError:
+        return kind
+
+
+def columns_that_fit(rows: Sequence[Mapping[str, str]], width: int) -> tuple[tuple[str, str], ...]:
+    """The columns to show in ``width`` cells: the narrow set, and the governing case when every
+    cell of it fits too (a cell is its text and one space each side)."""
+    def needed(key: str, heading: str) -> int:
+        return natural_width(heading, [row[key] for row in rows]) + CELL_PADDING
+
+    narrow = sum(needed(key, heading) for key, heading in NARROW_COLUMNS)
+    if narrow + needed(*GOVERNING_COLUMN) <= width:
+        return NARROW_COLUMNS + (GOVERNING_COLUMN,)
+    return NARROW_COLUMNS
+
+
 class SelectionScreen(OnceModal[Adoption | None]):
     """The catalog bearings that meet every case on one session bearing, smallest first."""
+
+    DEFAULT_CSS = """
+    SelectionScreen {
+        #filter-kind { width: 36; }
+        .size-limit { width: 9; margin-right: 1; }
+        #catalog-path { width: 1fr; }
+        #selection-summary, #filter-message { width: 100%; }
+        #candidates {
+            height: 1fr;
+            &.-busy { text-opacity: 50%; }
+        }
+        #candidate-detail { width: 100%; color: $text-secondary; }
+    }
+    """
 
     BINDINGS = [
         Binding("escape", "dismiss_none", "Close", id="selection.close"),
@@ -58,77 +142,206 @@ class SelectionScreen(OnceModal[Adoption | None]):
     ]
 
     catalog: Catalog | None = None
-    """The catalog searched last (None before, or when it could not be read)."""
+    """The catalog of the ranking on show (None before, or when it could not be read)."""
 
     selection: Selection | None = None
-    """The outcome of the last search."""
+    """The ranking on show."""
 
-    def __init__(self, bearing: str, results: Sequence[CaseResult],
-                 catalog_path: Path | None = None, *,
-                 bearing_texts: Mapping[str, str] | None = None, system: str = "SI") -> None:
+    def __init__(self, bearing: str, results: Sequence[CaseResult], *,
+                 bearing_texts: Mapping[str, str] | None = None, system: str = "SI",
+                 catalog_path: Path | None = None) -> None:
         super().__init__()
         self.bearing = bearing
         self.results = list(results)
         self._catalog_path = catalog_path or demo_catalog_path()
         self._bearing_texts = dict(bearing_texts or {})
         self._system = system
+        self._filters = Filters()
+        self._serial = 0
+        self._rows: list[dict[str, str]] = []
+        self._columns: tuple[tuple[str, str], ...] = ()
+        self._catalogs: dict[tuple[str, int], Catalog] = {}
 
     def compose(self) -> ComposeResult:
-        """Title, catalog file, what was asked, the candidates and the keys."""
-        with Vertical(classes="dialog-box selection-box"):
-            yield Label(f"Select bearing from catalog: for bearing {self.bearing}",
+        """Title, catalog file, filters, what was asked, the candidates, the row in full, keys."""
+        with Vertical(classes="dialog-box screen-box"):
+            yield Label(Content(f"Catalog bearings for bearing {self.bearing}"),
                         classes="dialog-title")
-            with Horizontal(classes="field-row"):
-                yield Label("Catalog file", classes="field-label")
-                yield Input(str(self._catalog_path), compact=True, id="catalog-path")
+            with Horizontal(classes="form-row"):
+                yield Label("Catalog file", classes="form-label")
+                yield Input(str(self._catalog_path), compact=True, id="catalog-path",
+                            select_on_focus=False)
+            with Horizontal(classes="form-row"):
+                yield Label("Kind", classes="form-label")
+                yield Select([(words, kind.value) for kind, words in KIND_WORDS.items()],
+                             prompt="any kind", compact=True, id=FILTER_PREFIX + "kind")
+            with Horizontal(classes="form-row"):
+                for name, label in SIZE_FILTERS:
+                    yield Label(label, classes="form-label")
+                    yield Input(placeholder="any", compact=True, classes="size-limit",
+                                id=FILTER_PREFIX + name.replace("_", "-"),
+                                validators=[Check(_length_problem)])
+            yield Static(id="filter-message", classes="dialog-problem")
             yield Static(id="selection-summary")
             yield DataTable(id="candidates", cursor_type="row", zebra_stripes=True)
+            yield Static(id="candidate-detail")
             yield Static(Content(SELECTION_HINT), classes="dialog-hint")
 
     def on_mount(self) -> None:
-        """Search the starting catalog and put the cursor in the list."""
-        table = self.query_one("#candidates", DataTable)
-        table.add_columns(*COLUMNS)
-        self.search(self._catalog_path)
-        table.focus()
+        """Rank the starting catalog and put the focus in the list."""
+        self.query_one("#filter-message").display = False
+        self.query_one("#candidates", DataTable).focus()
+        self.rank()
 
-    @on(Input.Submitted, "#catalog-path")
-    def _path_given(self, event: Input.Submitted) -> None:
-        """Search the catalog file whose path was typed (blank: the demo catalog)."""
-        event.stop()
-        text = event.value.strip()
-        self.search(Path(text).expanduser() if text else demo_catalog_path())
+    # ---- asking -----------------------------------------------------------------------------
+    def rank(self) -> None:
+        """Rank the catalog last given (the path box takes effect on enter) with the filters in
+        force, in a worker; the list is marked busy until the answer arrives."""
+        self._serial += 1
+        path = self._catalog_path
+        self.query_one("#candidates", DataTable).add_class(BUSY_CLASS)
+        self.query_one("#selection-summary", Static).update(
+            Content.styled(f"Ranking {path.name} …", "italic"))
+        self._rank(self._serial, path, self._filters)
 
-    def _say(self, content: Content) -> None:
-        self.query_one("#selection-summary", Static).update(content)
-
-    def search(self, path: Path) -> None:
-        """Run the selection over the catalog at ``path`` and list the qualifying bearings."""
-        table = self.query_one("#candidates", DataTable)
-        table.clear()
-        self.catalog = self.selection = None
+    @work(thread=True, exclusive=True, group="ranking", exit_on_error=False)
+    def _rank(self, serial: int, path: Path, filters: Filters) -> Ranking:
+        """Read the catalog (once per file version) and rank it: runs in a worker thread."""
         try:
-            catalog = load_catalog(path)
+            catalog = self._catalog(path)
         except CatalogError as exc:
-            self._say(Content.styled(f"✘ {exc}", "bold $text-error"))
-            return
+            return Ranking(serial, problem=str(exc))
         try:
             inputs, life_target = selection_inputs(self.results)
             if not inputs:
                 raise InputError("case", f"no load case uses bearing {self.bearing!r}")
-            selection = select(catalog, inputs, life_target)
+            selection = select(catalog, inputs, life_target, None, filters)
         except InputError as exc:
-            self._say(Content.styled(f"✘ {exc.message}", "bold $text-error"))
+            return Ranking(serial, catalog, problem=exc.message)
+        return Ranking(serial, catalog, selection, life_target)
+
+    def _catalog(self, path: Path) -> Catalog:
+        try:
+            key = (str(path.resolve()), os.stat(path).st_mtime_ns)
+        except OSError:
+            return load_catalog(path)  # names what is wrong with the path
+        if key not in self._catalogs:
+            self._catalogs[key] = load_catalog(path)
+        return self._catalogs[key]
+
+    @on(Input.Submitted, "#catalog-path")
+    def _path_given(self, event: Input.Submitted) -> None:
+        """Rank the catalog file whose path was typed (blank: the demo catalog), and go to the
+        list."""
+        event.stop()
+        text = event.value.strip()
+        self._catalog_path = Path(text).expanduser() if text else demo_catalog_path()
+        self.rank()
+        self.query_one("#candidates", DataTable).focus()
+
+    @on(Select.Changed, f"#{FILTER_PREFIX}kind")
+    def _kind_changed(self, event: Select.Changed) -> None:
+        event.stop()
+        kind = None if event.value is Select.NULL else str(event.value)
+        if kind != self._filters.kind:
+            self._filters = Filters(kind, *self._size_limits())
+            self.rank()
+
+    @on(Input.Changed, ".size-limit")
+    def _limit_changed(self, event: Input.Changed) -> None:
+        """Take a readable limit at once; an unreadable one is marked and the last readable one
+        stays in force."""
+        event.stop()
+        self._show_filter_problems()
+        limits = self._size_limits()
+        if limits != self._size_limits_in_force():
+            self._filters = Filters(self._filters.kind, *limits)
+            self.rank()
+
+    @on(Input.Submitted, ".size-limit")
+    def _limit_submitted(self, event: Input.Submitted) -> None:
+        event.stop()
+        self.query_one("#candidates", DataTable).focus()
+
+    def _size_limits_in_force(self) -> tuple[float | None, ...]:
+        filters = self._filters
+        return (filters.bore_min_mm, filters.bore_max_mm, filters.outer_max_mm,
+                filters.width_max_mm)
+
+    def _size_limits(self) -> tuple[float | None, ...]:
+        """The typed limits in mm; an unreadable one keeps the value in force."""
+        limits = []
+        for (name, _), in_force in zip(SIZE_FILTERS, self._size_limits_in_force()):
+            text = self.query_one(f"#{FILTER_PREFIX}{name.replace('_', '-')}", Input).value
+            try:
+                limits.append(length_limit(text))
+            except QuantityError:
+                limits.append(in_force)
+        return tuple(limits)
+
+    def _show_filter_problems(self) -> None:
+        problems = []
+        for name, label in SIZE_FILTERS:
+            box = self.query_one(f"#{FILTER_PREFIX}{name.replace('_', '-')}", Input)
+            problem = _length_problem(box.value)
+            if problem is not None:
+                problems.append(f"{'Bore d up to' if name == 'bore_max' else label}: {problem}")
+        message = self.query_one("#filter-message", Static)
+        message.update(Content("✘ " + "; ".join(problems) + " (the last readable limit holds)")
+                       if problems else Content(""))
+        message.display = bool(problems)
+
+    # ---- showing ----------------------------------------------------------------------------
+    def on_worker_state_changed(self, event: Worker.StateChanged) -> None:
+        """Show a ranking when it is the answer to the latest request; drop older ones."""
+        worker = event.worker
+        if worker.group != "ranking" or event.state not in (WorkerState.SUCCESS, WorkerState.ERROR):
             return
-        self.catalog, self.selection = catalog, selection
+        if event.state == WorkerState.ERROR:
+            self._show(Ranking(self._serial, problem=f"the ranking failed: {worker.error}"))
+            return
+        ranking = worker.result
+        if isinstance(ranking, Ranking) and ranking.serial == self._serial:
+            self._show(ranking)
+
+    def _show(self, ranking: Ranking) -> None:
+        table = self.query_one("#candidates", DataTable)
+        table.remove_class(BUSY_CLASS)
+        self.catalog, self.selection = ranking.catalog, ranking.selection
+        summary = self.query_one("#selection-summary", Static)
+        if ranking.selection is None or ranking.catalog is None or ranking.life_target is None:
+            self._rows = []
+            self._fill_table()
+            summary.update(Content.styled(f"✘ {ranking.problem}", "bold $text-error"))
+            return
         names = [result.case.name for result in self.results]
-        rows = candidate_rows(catalog, selection, names, 0)
-        for candidate, row in zip(selection.candidates, rows):
-            table.add_row(row["designation"], row["kind"],
-                          f"{row['d_mm']:g} × {row['D_mm']:g} × {row['B_mm']:g}",
-                          _number_text(row["life_margin"]), row["governing_case"] or "—",
-                          _number_text(row["min_s0"]), key=str(candidate.index))
-        self._say(self._summary(catalog, selection, life_target))
+        self._rows = [dict(_cells(row), key=str(candidate.index)) for candidate, row in zip(
+            ranking.selection.candidates,
+            candidate_rows(ranking.catalog, ranking.selection, names, 0))]
+        self._fill_table()
+        summary.update(self._summary(ranking.catalog, ranking.selection, ranking.life_target))
+
+    def _fill_table(self) -> None:
+        """The rows, with the governing case as a column when it fits."""
+        table = self.query_one("#candidates", DataTable)
+        width = table.scrollable_content_region.width or self.app.size.width - 4
+        columns = columns_that_fit(self._rows, width - 1)  # the scroll bar
+        table.clear(columns=True)
+        for key, heading in columns:
+            table.add_column(heading, key=key)
+        for row in self._rows:
+            table.add_row(*plain([row[key] for key, _ in columns]), key=row["key"])
+        self._columns = columns
+        self._describe_row()
+
+    def on_resize(self) -> None:
+        """Offer the governing-case column again once the new width is laid out."""
+        self.call_after_refresh(self._refit)
+
+    def _refit(self) -> None:
+        width = self.query_one("#candidates", DataTable).scrollable_content_region.width
+        if self._rows and columns_that_fit(self._rows, width - 1) != self._columns:
+            self._fill_table()
 
     def _summary(self, catalog: Catalog, selection: Selection, life_target: float) -> Content:
         s0 = self.results[0].s0_target
@@ -136,28 +349,57 @@ class SelectionScreen(OnceModal[Adoption | None]):
         others = ", ".join(f"{count} {reason}" for reason, count in
                            sorted(selection.rejections.items(), key=lambda item: -item[1]))
         return Content("\n").join([
-            Content(f"{catalog.source}: {len(catalog)} bearings{rejected}"),
-            Content(f"Lnm ≥ {fmt(life_target)} h" + (f", s0 ≥ {fmt(s0, 3)}" if s0 else "")
-                    + f" over {len(self.results)} case(s) on bearing {self.bearing}"),
+            Content(f"{Path(catalog.source).name}: {len(catalog)} bearings{rejected}. "
+                    f"Lnm ≥ {fmt(life_target)} h" + (f", s0 ≥ {fmt(s0, 3)}" if s0 else "")
+                    + f" in each of {len(self.results)} case(s)."),
             Content.assemble((f"{len(selection.order)} qualify", "bold"),
-                             ", smallest first; life margin = smallest Lnm / target"
-                             + (f". Not qualifying: {others}" if others else "")),
+                             ", smallest first; life margin = least Lnm / target"
+                             + (f". Not qualifying: {others}." if others else ".")),
         ])
 
+    @on(DataTable.RowHighlighted, "#candidates")
+    def _highlighted(self, event: DataTable.RowHighlighted) -> None:
+        event.stop()
+        self._describe_row()
+
+    def _describe_row(self) -> None:
+        """The highlighted candidate in full words under the list; with none, why bearings
+        the engine could not rate were refused."""
+        table = self.query_one("#candidates", DataTable)
+        detail = self.query_one("#candidate-detail", Static)
+        if not self._rows or not 0 <= table.cursor_row < len(self._rows):
+            examples = self.selection.examples if self.selection is not None else {}
+            detail.update(Content("\n").join(Content(f"{reason}: {message}")
+                                             for reason, message in examples.items()))
+            return
+        row = self._rows[table.cursor_row]
+        detail.update(Content(
+            f"{row['designation']}: {_kind_words(row['kind'])}, {row['size']}; least life margin "
+            f"{row['life_margin']} (case {row['governing_case']}), least s0 {row['min_s0']}"))
+
+    # ---- adopting ---------------------------------------------------------------------------
     @on(DataTable.RowSelected, "#candidates")
     def _adopt(self, event: DataTable.RowSelected) -> None:
         """Close with the chosen catalog bearing's texts."""
         event.stop()
-        if self.catalog is None or event.row_key.value is None:
+        catalog = self.catalog
+        if catalog is None or event.row_key.value is None:
+            return
+        if event.data_table.has_class(BUSY_CLASS):
+            self.notify("Still ranking with the new filters: choose again when the list is back",
+                        severity="warning")
             return
         index = int(event.row_key.value)
-        self.close(Adoption(self.catalog.designations[index],
-                            catalog_bearing_texts(self.catalog, index)))
+        self.close(Adoption(catalog.designations[index], catalog_bearing_texts(catalog, index),
+                            f"{catalog.source}, row {catalog.rows[index]}"))
 
     def action_rate_from_geometry(self) -> None:
         """Rate a bearing no catalog holds from its internal geometry; adopting its ratings
         closes this screen too."""
         from .rating_screen import RatingScreen  # it imports Adoption from here
+
+        if not self.on_top:
+            return
 
         def rated(adoption: Adoption | None) -> None:
             if adoption is not None:

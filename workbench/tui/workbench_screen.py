@@ -513,7 +513,7 @@ class WorkbenchScreen(Screen[None]):
 
     def save_as(self, then: Callable[[], object] | None = None) -> None:
         """Ask for a file name and save there."""
-        from .dialogs import TextPrompt
+        from .dialogs import PathSuggester, TextPrompt
 
         current = self.document.path
 
@@ -523,7 +523,8 @@ class WorkbenchScreen(Screen[None]):
 
         self.app.push_screen(
             TextPrompt("Save session as", str(current) if current else DEFAULT_SAVE_NAME,
-                       lambda text: None if text.strip() else "a file name is needed"),
+                       lambda text: None if text.strip() else "a file name is needed",
+                       suggester=PathSuggester()),
             chosen)
 
     def save(self, then: Callable[[], object] | None = None) -> None:
