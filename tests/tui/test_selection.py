@@ -12,6 +12,7 @@ import pytest
 from textual.widgets import DataTable, Input, Select
 
 from screen_host import ScreenHost, column_texts, cut_widgets, settled, tab_to, users
+from tui_helpers import selected_result
 from tui_sessions import rig_session
 
 from workbench.engine.select import Candidate, Filters, select

@@ -138,7 +138,7 @@ async def test_starting_theme_styles_the_screen_and_a_switch_restyles_it(make_ap
         screen = app.workbench_screen
         paper = Color.parse(app.get_css_variables()["background"])
         assert screen.styles.background == paper
-        await pilot.press("ctrl+t")
+        await pilot.press("alt+t")
         await pilot.pause()
         assert app.theme != "bench-paper"
         switched = Color.parse(app.get_css_variables()["background"])

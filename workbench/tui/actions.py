@@ -80,15 +80,14 @@ ACTIONS: tuple[Action, ...] = (
     Action("view.whatif", "f7", "show_pane('whatif')", "What-if",
            "Show how strongly the life answers to each input, the life and aISO plots and the "
            "duty cycles' damage shares", group=PANE_GROUP),
-    Action("bearing.catalog", "alt+c", "select_from_catalog",
-           "Choose the case's bearing from a catalog",
+    Action("bearing.catalog", "alt+c", "select_from_catalog", "Bearing from a catalog",
            "List the catalog bearings that meet every case on the selected case's bearing; "
            "adopt one (undoable). There, ctrl+g rates a special bearing from its geometry "
            "(ISO 281 C, ISO 76 C0) to adopt instead"),
-    Action("bearing.manage", "alt+e", "manage_bearings", "Bearings of the session",
+    Action("bearing.manage", "alt+e", "manage_bearings", "Bearings",
            "Add, duplicate, rename or delete the session's bearings; enter uses one for the "
            "selected case"),
-    Action("session.details", "alt+i", "edit_session", "Session details and targets",
+    Action("session.details", "alt+i", "edit_session", "Details and targets",
            "Title, project, engineer, revision and notes; the life, reliability and s0 "
            "targets every case must meet"),
     Action("shaft.edit", "alt+h", "edit_shaft", "Edit the shaft",
@@ -103,7 +102,7 @@ ACTIONS: tuple[Action, ...] = (
            "A duty cycle over the selected case, to which states are added"),
     Action("bearing.add", "", "add_bearing", "Add a new bearing",
            "A new bearing of the session (deep-groove, no ratings yet), in the bearings list"),
-    Action("view.shafts", "alt+s", "show_shafts", "Shafts and duty cycles",
+    Action("view.shafts", "alt+s", "show_shafts", "Shafts at a glance",
            "Show each shaft's bearing loads and free body, system lives and duty cycles"),
     Action("focus.cases", "f3", "focus_cases", "Cases", "Go to the load-case list"),
     Action("focus.editor", "f4", "focus_editor", "Editor", "Go to the case editor"),
