@@ -10,7 +10,7 @@ from tui_helpers import retype
 
 from workbench.model.analysis import analyse
 from workbench.model import files
-from workbench.tui.case_list import CaseList
+from workbench.tui.case_table import CaseTable
 from workbench.tui.app import WorkbenchApp
 from workbench.tui.dialogs import ChoiceDialog
 
@@ -133,7 +133,7 @@ async def test_real_recovery_round_trip(tmp_path: Path) -> None:
         assert isinstance(second.screen, ChoiceDialog)
         second.screen.query_one("#answer-recover").press()
         await pilot.pause()
-        assert second.workbench.session.cases[0].texts["fr"] == "4.5 kN"
+        assert second.document.session.cases[0].texts["fr"] == "4.5 kN"
         await pilot.press("ctrl+s")
         await pilot.pause()
     assert find_recovery(path) is None  # saved: the recovery copy is gone
@@ -156,7 +156,7 @@ async def test_demo_session_shows_on_the_screen() -> None:
     app = WorkbenchApp(outcome.session, None, offer_recovery=False, autosave_delay=None)
     async with app.run_test(size=(80, 24)) as pilot:
         await pilot.pause()
-        table = app.workbench_screen.query_one(CaseList)
+        table = app.workbench_screen.query_one(CaseTable)
         # the session's own cases, then those its shaft generates
         assert table.row_count == len(analyse(outcome.session).cases) > len(outcome.session.cases)
-        assert app.workbench_screen.query_one("#derivation").text.plain.startswith("Load case")
+        assert app.workbench_screen.query_one("#derivation-view").text.plain.startswith("Load case")

@@ -17,7 +17,7 @@ from workbench.model.session import Session
 from workbench.model.shafts import KIND_WORDS, is_generated
 from workbench.model import files
 from workbench.tui.app import WorkbenchApp
-from workbench.tui.case_list import CaseList
+from workbench.tui.case_table import CaseTable
 from workbench.tui.shafts_screen import ShaftsScreen
 
 
@@ -91,22 +91,25 @@ async def test_generated_cases_are_listed_and_read_only() -> None:
     own = len(demo_session().cases)
     async with app.run_test(size=(80, 24)) as pilot:
         await pilot.pause()
-        state = app.workbench
-        assert app.workbench_screen.query_one(CaseList).row_count == len(analyse(state.session).cases)
-        app.workbench_screen.query_one(CaseList).move_cursor(row=own)
+        document = app.document
+        table = app.workbench_screen.query_one(CaseTable)
+        assert table.row_count == len(analyse(document.session).cases)
+        table.move_cursor(row=own)
         await pilot.pause()
-        case = state.case
-        assert case is not None and is_generated(case) and state.selected == own
+        case = document.case(own)
+        assert case is not None and is_generated(case) and app.workbench_screen.selected == own
         typed_before = dict(case.texts)
-        await retype(pilot, app, "fr", "1 kN")
-        assert case.texts == typed_before and not state.dirty
-        assert "generated from shaft RM-2 input shaft" in (
-            app.workbench_screen.query_one("#editor").message_for("fr") or "")
+        assert app.workbench_screen.query_one("#field-fr").disabled  # read-only here
+        assert "generated from shaft RM-2 input shaft" in str(
+            app.workbench_screen.query_one("#case-note").render())
+        assert document.set_field(own, "fr", "1 kN") is not None  # refused, with the reason
+        assert case.texts == typed_before and not document.dirty
         await pilot.press("f8")  # delete: refused
         await pilot.pause()
-        assert len(state.results) == len(analyse(state.session).cases) and not state.dirty
-        await pilot.press("ctrl+b")  # duplicate: an ordinary, editable copy
+        assert len(document.results) == len(analyse(document.session).cases)
+        assert not document.dirty
+        await pilot.press("ctrl+d")  # duplicate: an ordinary, editable copy
         await pilot.pause()
-        assert len(state.session.cases) == own + 1
-        copy = state.session.cases[own]
+        assert len(document.session.cases) == own + 1
+        copy = document.session.cases[own]
         assert not is_generated(copy) and copy.texts["fr"] == typed_before["fr"]

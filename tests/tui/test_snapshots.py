@@ -26,6 +26,7 @@ def test_main_screen(snap_compare, make_app, theme: str, size: tuple[int, int]) 
 
 def test_derivation_with_a_warning(snap_compare, make_app) -> None:
     async def slow_the_shaft(pilot) -> None:
+        await pilot.pause()
         await retype(pilot, pilot.app, "speed", "0")
         await pilot.press("f3")  # the cursor leaves the editor
         await pilot.pause()

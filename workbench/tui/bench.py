@@ -174,32 +174,14 @@ def show_pane(app: App[object], name: str) -> None:
 
 
 async def focus_field(app: App[object], name: str) -> Input:
-    """Give the focus to the editor field ``name`` and return the text box taking its keys:
-    the field's own ``Input`` (``#field-<name>``) where the screen has one, else the painted
-    sheet's text box put on that field."""
+    """Give the focus to the form's field ``name`` (its ``Input``, ``#field-<name>``) and
+    return it."""
     from textual.widgets import Input
 
-    if not app.screen.query(f"#field-{name}"):
-        return await _focus_field_on_sheet(app, name)
     field = app.screen.query_one(f"#field-{name}", Input)
     field.focus()
     await _until_quiet(app)
     return field
-
-
-async def _focus_field_on_sheet(app: App[object], name: str) -> Input:
-    """The painted ``FieldSheet``'s text box, on field ``name`` (the screen before Textual's
-    own widgets: delete this once no screen paints its fields)."""
-    from textual.widgets import Input
-
-    from .case_editor import TEXT_BOX_ID, CaseEditor
-
-    app.screen.query_one(CaseEditor).focus_field(name)
-    await _until_quiet(app)
-    box = app.screen.query_one(f"#{TEXT_BOX_ID}", Input)
-    if not box.has_focus:
-        raise RuntimeError(f"the field {name} did not take the focus")
-    return box
 
 
 def _number_end(text: str) -> int:
@@ -211,7 +193,8 @@ async def _type_in(app: App[object], field: str, pane: str, keys: int) -> list[K
     """Type ``keys`` keys in ``field`` with ``pane`` on show; each key's timing."""
     from textual.widgets import Input
 
-    show_pane(app, pane)  # first: on the new screen showing a pane moves the focus into it
+    show_pane(app, pane)  # first: showing a pane moves the focus into it (after a refresh)
+    await _until_quiet(app)
     box = await focus_field(app, field)
     for text_box in app.screen.query(Input):
         text_box.cursor_blink = False

@@ -15,7 +15,7 @@ from textual import on
 from textual.app import ComposeResult
 from textual.binding import Binding
 from textual.containers import Horizontal, VerticalScroll
-from textual.events import DescendantFocus, Resize
+from textual.events import DescendantFocus
 from textual.message import Message
 from textual.reactive import var
 from textual.suggester import SuggestFromList
@@ -209,25 +209,11 @@ class CaseForm(VerticalScroll):
                              compact=True, allow_blank=not spec.required,
                              prompt=BLANK_CHOICE, tooltip=tooltip)
         suggester = SuggestFromList(spec.choices) if spec.choices else None
-        return FieldBox(placeholder="", id=control_id, compact=True, tooltip=tooltip,
+        example = _example(spec)
+        return FieldBox(placeholder=f"e.g. {example}" if example else "", id=control_id,
+                        compact=True, tooltip=tooltip,
                         validators=[FieldValidator(name)], suggester=suggester,
                         validate_on=["changed", "submitted"])
-
-    def on_resize(self, event: Resize) -> None:
-        """A placeholder only where it fits whole (the long and short labels follow the
-        screen's width class, ``-wide`` from :data:`WIDE` columns)."""
-        self.call_after_refresh(self._fit_placeholders)
-
-    def _fit_placeholders(self) -> None:
-        for name in FIELD_ORDER:
-            if not takes_text(name):
-                continue
-            box = self.query_one(f"#field-{name}", FieldBox)
-            spec = FIELD_BY_NAME[name]
-            room = box.content_region.width - 1
-            fitting = [text for text in (spec.hint, _example(spec) and "e.g. " + _example(spec))
-                       if text and len(text) <= room]
-            box.placeholder = fitting[0] if fitting else ""  # the help line has it in full
 
     # ---- showing the document ----------------------------------------------------------------
     def watch_view(self, view: View) -> None:

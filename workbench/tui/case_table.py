@@ -95,9 +95,8 @@ class CaseTable(DataTable[Text]):
         self._name_width = MIN_NAME
 
     def on_mount(self) -> None:
-        """The columns, sized to the table once it is laid out."""
-        self._columns_for(self.size.width)
-        self.call_after_refresh(lambda: self._columns_for(self.size.width))
+        """The columns, sized to the screen's width (the list spans it) until laid out."""
+        self._columns_for(self.size.width or self.app.size.width)
 
     def _columns_for(self, width: int) -> None:
         if width <= 0:
@@ -124,7 +123,7 @@ class CaseTable(DataTable[Text]):
 
     def _show(self, view: View) -> None:
         if not self.columns:
-            self._columns_for(self.size.width)
+            self._columns_for(self.size.width or self.app.size.width)
             return
         document = self.document
         system = document.units

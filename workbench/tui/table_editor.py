@@ -119,8 +119,14 @@ class TableEditor(Screen[None]):
     # ---- the form -----------------------------------------------------------------------
     @property
     def table(self) -> dict[str, Any]:
-        """The table as typed now."""
-        return self.document.tables(self.TABLES)[self.index]
+        """The table as typed now ({} once an undo has taken it away)."""
+        tables = self.document.tables(self.TABLES)
+        return tables[self.index] if self.index < len(tables) else {}
+
+    @property
+    def gone(self) -> bool:
+        """Whether the table is no longer in the session (an undo took its adding back)."""
+        return self.index >= len(self.document.tables(self.TABLES))
 
     def compose(self) -> ComposeResult:
         """The title, the form and the results side by side."""
@@ -195,6 +201,9 @@ class TableEditor(Screen[None]):
             first.first().focus()
 
     def _edited(self, widget_id: str, text: str) -> None:
+        if self.gone:
+            self.action_close()
+            return
         where, key = parse_control_id(widget_id)
         self.document.set_table_text(self.TABLES, self.index, where, key, text)
         self._show()
@@ -216,6 +225,9 @@ class TableEditor(Screen[None]):
             return
         value = "" if event.value is Select.NULL else str(event.value)
         where, key = parse_control_id(widget_id)
+        if self.gone:
+            self.action_close()
+            return
         current = self.table
         for step in where:
             current = current.get(step, {}) if isinstance(step, str) else current[step]
@@ -232,6 +244,9 @@ class TableEditor(Screen[None]):
 
     async def add_row(self, rows: Rows) -> None:
         """Add a row to ``rows`` and put the focus on its first field."""
+        if self.gone:
+            self.action_close()
+            return
         number = self.document.add_row(self.TABLES, self.index, rows.key, dict(rows.new))
         await self._rebuild(focus=control_id((rows.key, number), rows.fields[0].key))
         self._show()
@@ -242,6 +257,9 @@ class TableEditor(Screen[None]):
         if focused is None or not (focused.id or "").startswith("t" + SEP):
             return
         where, _ = parse_control_id(focused.id or "")
+        if self.gone:
+            self.action_close()
+            return
         if len(where) != 2 or not isinstance(where[1], int):
             self.notify("Put the focus in a row to delete it", severity="warning")
             return
@@ -250,16 +268,22 @@ class TableEditor(Screen[None]):
         self._show()
 
     async def action_undo(self) -> None:
-        """Undo the last change (the form shows the table as it is then)."""
-        if self.document.undo() is not None and self.index < len(self.document.tables(self.TABLES)):
-            await self._rebuild()
-            self._show()
+        """Undo the last change (the form shows the table as it is then; an undo that takes
+        the table away closes the editor)."""
+        await self._after(self.document.undo())
 
     async def action_redo(self) -> None:
         """Redo what was undone."""
-        if self.document.redo() is not None and self.index < len(self.document.tables(self.TABLES)):
-            await self._rebuild()
-            self._show()
+        await self._after(self.document.redo())
+
+    async def _after(self, done: object) -> None:
+        if done is None:
+            return
+        if self.gone:
+            self.action_close()
+            return
+        await self._rebuild()
+        self._show()
 
     def action_close(self) -> None:
         """Back to the main screen."""
@@ -269,6 +293,8 @@ class TableEditor(Screen[None]):
 
     # ---- results ------------------------------------------------------------------------
     def _show(self) -> None:
+        if self.gone:
+            return
         self.query_one("#editor-title", Static).update(
             f"{self.TITLE_WORD.capitalize()}: {self.table.get('name', '')}   "
             f"(results follow as you type; esc goes back)")

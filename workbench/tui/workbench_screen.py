@@ -95,7 +95,12 @@ class WorkbenchScreen(Screen[None]):
         yield KeyFooter()
 
     def on_mount(self) -> None:
-        """Show the first case, with the focus in the list."""
+        """Show the first case, with the focus in the list.  The width class is set now from
+        the terminal's size, so the first frame already has the labels it keeps (Textual
+        sets it on the first resize, a frame later)."""
+        wide = self.app.size.width >= WIDE
+        self.set_class(wide, "-wide")
+        self.set_class(not wide, "-narrow")
         self.view = View(self.document.revision, 0 if self.document.results else -1)
         self.query_one(CaseTable).focus()
 
