@@ -172,6 +172,8 @@ class CaseForm(VerticalScroll):
         self._shown_case: object = None
         self._loaded: dict[str, str] = {}
         """What each choice and switch was last loaded with (its text in the document)."""
+        self._controls: dict[str, Widget] = {}
+        self._case_note = ""
 
     # ---- building --------------------------------------------------------------------------
     def compose(self) -> ComposeResult:
@@ -215,6 +217,11 @@ class CaseForm(VerticalScroll):
                         validators=[FieldValidator(name)], suggester=suggester,
                         validate_on=["changed", "submitted"])
 
+    def on_mount(self) -> None:
+        """Keep each field's control at hand (a form is loaded on every keystroke)."""
+        self._controls = {name: self.query_one(f"#field-{name}") for name in FIELD_ORDER}
+        self.load()
+
     # ---- showing the document ----------------------------------------------------------------
     def watch_view(self, view: View) -> None:
         """Show the selected case as the document holds it now."""
@@ -223,6 +230,8 @@ class CaseForm(VerticalScroll):
     def load(self) -> None:
         """Put the document's texts for the selected case into the fields (a field whose text
         was refused keeps it while its case stays selected)."""
+        if not self._controls:
+            return  # not mounted yet: on_mount loads
         document, index = self.document, self.view.selected
         case = document.case(index)
         if case is not self._shown_case:
@@ -241,12 +250,16 @@ class CaseForm(VerticalScroll):
             result = document.result(index)
             problem = None if result is None or result.derivation is not None else result.error
             text = f"⚠ {problem}" if problem else ""
-        note = self.query_one("#case-note", Static)
-        note.update(text)
-        note.set_class(bool(text), "-shown")
+        if text != self._case_note:  # an update lays the screen out again: only on a change
+            self._case_note = text
+            note = self.query_one("#case-note", Static)
+            note.update(text)
+            note.set_class(bool(text), "-shown")
+        disabled = case is None or read_only is not None
         for name in FIELD_ORDER:
-            control = self.query_one(f"#field-{name}")
-            control.disabled = case is None or read_only is not None
+            control = self._controls[name]
+            if control.disabled != disabled:
+                control.disabled = disabled
             if name in self._notes:
                 continue
             with control.prevent(Input.Changed, Select.Changed, Checkbox.Changed):
@@ -276,6 +289,8 @@ class CaseForm(VerticalScroll):
 
     def show_note(self, name: str, message: str | None) -> None:
         """Show ``message`` under field ``name`` (None: clear it)."""
+        if message is None and name not in self._notes:
+            return  # nothing shown: nothing to lay out again
         note = self.query_one(f"#note-{name}", Static)
         if message:
             self._notes[name] = message

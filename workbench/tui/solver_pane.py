@@ -168,9 +168,10 @@ class SolverPane(VerticalScroll):
         """An answer solved on another revision is out of date: say so, and no applying it."""
         stale = self._answered_at is not None and self._answered_at != view.revision
         note = self.query_one("#solver-stale", Static)
-        note.update("⚠ The session has changed since this was solved: solve again (f9)."
-                    if stale else "")
-        note.set_class(stale, "-shown")
+        if note.has_class("-shown") != stale:  # an update lays the screen out: only on a change
+            note.update("⚠ The session has changed since this was solved: solve again (f9)."
+                        if stale else "")
+            note.set_class(stale, "-shown")
         if stale:
             self.query_one("#solver-apply", Button).disabled = True
 
