@@ -10,6 +10,7 @@ from __future__ import annotations
 import math
 from dataclasses import dataclass
 from enum import StrEnum
+from typing import NamedTuple
 
 from . import tables as T
 from .num import Num, interp, safe_ratio, tand, where
@@ -161,6 +162,8 @@ class DynamicFactors:
     index: Num = math.nan
     index_formula: str = ""
     clamped: Num = 0
+    columns: tuple[tuple[float, ...], tuple[float, ...], tuple[float, ...]] | None = None
+    """(index, e, Y) columns of the Table 3 block read, for showing the bracketing rows."""
 
 
 def _clamp_flag(index: Num, lo: float, hi: float) -> Num:
@@ -185,13 +188,15 @@ def dynamic_factors(
 ) -> DynamicFactors:
     """e, X and Y for the kind (ISO 281:2007 Table 3 family).
 
-    Deep-groove and 15° angular-contact bearings read e and Y from the table by f0·Fa/C0r (or by
-    Fa/C0 with f0 ≈ 12.3 folded in when f0 is not known), interpolated linearly.  Bearings with a
-    contact angle take e = 1.5·tan α and Y ∝ cot α, unless the maker's e and Y are given.
+    Deep-groove and 15° angular-contact bearings read e and Y from the table by f0·Fa/C0r, or,
+    when f0 is not known, by the table's printed Fa/C0r column; linear interpolation between
+    rows.  Bearings with a contact angle take e = 1.5·tan α and Y ∝ cot α, unless the maker's e
+    and Y are given.
     """
     if kind is Kind.DEEP_GROOVE:
         return _table_factors(
-            fa, c0, f0, T.DEEP_GROOVE_INDEX_F0, T.DEEP_GROOVE_E, T.DEEP_GROOVE_Y,
+            fa, c0, f0, TableBlock(T.DEEP_GROOVE_INDEX_F0, T.DEEP_GROOVE_INDEX_PLAIN,
+                                   T.DEEP_GROOVE_E, T.DEEP_GROOVE_Y),
             x_high=T.DEEP_GROOVE_X, rows=1.0, x_low=1.0, y_low=0.0,
             what="deep-groove", source="ISO 281:2007 Table 3 (deep-groove ball)",
         )
@@ -207,14 +212,18 @@ def dynamic_factors(
         source = "ISO 281:2007 Table 3 (angular-contact ball)"
         if angle == 15:
             if paired:
-                y_low = _interp_index(fa, c0, f0, T.ANGULAR_15_INDEX, T.ANGULAR_15_PAIR_Y_LOW, 2.0)
+                y_low = _interp_index(fa, c0, f0, TableBlock(
+                    T.ANGULAR_15_INDEX, T.ANGULAR_15_INDEX_PLAIN, T.ANGULAR_15_E,
+                    T.ANGULAR_15_PAIR_Y_LOW), rows=2.0)
                 return _table_factors(
-                    fa, c0, f0, T.ANGULAR_15_INDEX, T.ANGULAR_15_E, T.ANGULAR_15_PAIR_Y_HIGH,
+                    fa, c0, f0, TableBlock(T.ANGULAR_15_INDEX, T.ANGULAR_15_INDEX_PLAIN,
+                                           T.ANGULAR_15_E, T.ANGULAR_15_PAIR_Y_HIGH),
                     x_high=T.ANGULAR_15_PAIR_X_HIGH, rows=2.0, x_low=1.0, y_low=y_low,
                     what="15° angular-contact pair", source=source,
                 )
             return _table_factors(
-                fa, c0, f0, T.ANGULAR_15_INDEX, T.ANGULAR_15_E, T.ANGULAR_15_Y,
+                fa, c0, f0, TableBlock(T.ANGULAR_15_INDEX, T.ANGULAR_15_INDEX_PLAIN,
+                                       T.ANGULAR_15_E, T.ANGULAR_15_Y),
                 x_high=T.ANGULAR_15_X, rows=1.0, x_low=1.0, y_low=0.0,
                 what="15° angular-contact", source=source,
             )
@@ -230,29 +239,40 @@ def dynamic_factors(
     return _angle_factors(kind, arrangement, alpha_deg, e_given, y_given)
 
 
-def _index(fa: Num, c0: Num, f0: Num | None, rows: float) -> tuple[Num, str]:
-    """The table index: i·f0·Fa/C0r when f0 is known, else i·12.3·Fa/C0 (the folded form)."""
+class TableBlock(NamedTuple):
+    """One block of ISO 281:2007 Table 3: the two printed index columns and the e and Y columns."""
+
+    index_f0: tuple[float, ...]     # f0·Fa/C0r (i·f0·Fa/C0r for pairs)
+    index_plain: tuple[float, ...]  # Fa/C0r (i·Fa/C0r), read when f0 is not known
+    e: tuple[float, ...]
+    y: tuple[float, ...]
+
+
+def _index(fa: Num, c0: Num, f0: Num | None, block: TableBlock,
+           rows: float) -> tuple[Num, str, tuple[float, ...]]:
+    """The table index, its formula and the index column it is read in: i·f0·Fa/C0r in the f0
+    column when f0 is known, else i·Fa/C0r in the printed Fa/C0r column."""
+    pair = rows != 1.0
     if f0 is None:
-        return rows * T.DEEP_GROOVE_FOLDED_F0 * fa / c0, "Fa/C0 (f0 ≈ 12.3 folded in)"
-    return rows * f0 * fa / c0, "f0·Fa/C0r" if rows == 1.0 else "i·f0·Fa/C0r"
+        return rows * fa / c0, "i·Fa/C0r" if pair else "Fa/C0r", block.index_plain
+    return rows * f0 * fa / c0, "i·f0·Fa/C0r" if pair else "f0·Fa/C0r", block.index_f0
 
 
-def _interp_index(fa: Num, c0: Num, f0: Num | None, xp: tuple[float, ...],
-                  fp: tuple[float, ...], rows: float) -> Num:
-    index, _ = _index(fa, c0, f0, rows)
-    return interp(index, xp, fp)
+def _interp_index(fa: Num, c0: Num, f0: Num | None, block: TableBlock, *, rows: float) -> Num:
+    """Column ``block.y`` at the case's index (linear, clamped at the ends)."""
+    index, _, xp = _index(fa, c0, f0, block, rows)
+    return interp(index, xp, block.y)
 
 
-def _table_factors(fa: Num, c0: Num, f0: Num | None, xp: tuple[float, ...],
-                   e_col: tuple[float, ...], y_col: tuple[float, ...], *, x_high: float,
+def _table_factors(fa: Num, c0: Num, f0: Num | None, block: TableBlock, *, x_high: float,
                    rows: float, x_low: float, y_low: Num, what: str, source: str) -> DynamicFactors:
     """Linear interpolation of e and Y in a Table 3 block, clamped (and flagged) at its ends."""
-    index, formula = _index(fa, c0, f0, rows)
-    e = interp(index, xp, e_col)
-    y = interp(index, xp, y_col)
+    index, formula, xp = _index(fa, c0, f0, block, rows)
+    e = interp(index, xp, block.e)
+    y = interp(index, xp, block.y)
     basis = f"{what} table by {formula}"
     return DynamicFactors(e, x_low, y_low, x_high, y, basis, source, index, formula,
-                          _clamp_flag(index, xp[0], xp[-1]))
+                          _clamp_flag(index, xp[0], xp[-1]), (xp, block.e, block.y))
 
 
 def _angle_factors(kind: Kind, arrangement: Arrangement, alpha_deg: float,
@@ -302,6 +322,24 @@ def _thrust_factors(kind: Kind, alpha_deg: float) -> DynamicFactors:
                           f"α = {angle}°: e = 1.25·tan α", "ISO 281:2007 §6.2 (thrust ball, α ≠ 90°)")
 
 
+def rotation_factor(kind: Kind, outer_ring_rotates: bool) -> float:
+    """V (common practice, older practice; ISO 281:2007 no longer carries it): 1.2 for a radial
+    bearing whose outer ring rotates relative to the load, cylindrical roller bearings included
+    (P = V·Fr); 1 otherwise, and always 1 for self-aligning ball and thrust bearings."""
+    if outer_ring_rotates and rotation_factor_refusal(kind) is None:
+        return T.ROTATION_FACTOR_OUTER_RING
+    return 1.0
+
+
+def rotation_factor_refusal(kind: Kind) -> str | None:
+    """Why a rotating outer ring changes nothing for ``kind`` (V = 1), or None where V applies."""
+    if kind in THRUST_KINDS:
+        return "thrust bearings have no rotation factor"
+    if kind is Kind.SELF_ALIGNING:
+        return "the older tables take V = 1 for self-aligning ball bearings (from memory)"
+    return None
+
+
 def equivalent_dynamic_load(factors: DynamicFactors, fr: Num, fa: Num,
                             v: Num = 1.0) -> tuple[Num, Num, Num]:
     """P = X·V·Fr + Y·Fa with X, Y from the side of e that Fa/(V·Fr) falls on (ISO 281:2007 §6).
@@ -318,7 +356,7 @@ def equivalent_dynamic_load(factors: DynamicFactors, fr: Num, fa: Num,
 
 def dynamic_load(kind: Kind, factors: DynamicFactors, fr: Num, fa: Num,
                  v: Num = 1.0) -> tuple[Num, Num, Num, Num]:
-    """P for ``kind``: Fr for a cylindrical roller bearing (α = 0, ISO 281:2007 §7.2), else
+    """P for ``kind``: V·Fr for a cylindrical roller bearing (α = 0, ISO 281:2007 §7.2), else
     :func:`equivalent_dynamic_load` (ISO 281:2007 §5.2–§8.2).
 
     Returns ``(P, ratio, high, possible)``; ``possible`` is false where a single-direction thrust
@@ -326,7 +364,7 @@ def dynamic_load(kind: Kind, factors: DynamicFactors, fr: Num, fa: Num,
     """
     p, ratio, high = equivalent_dynamic_load(factors, fr, fa, v)
     if kind is Kind.CYLINDRICAL:
-        return fr, ratio, high, True
+        return v * fr, ratio, high, True
     return p, ratio, high, (high if kind in THRUST_KINDS else True)
 
 
