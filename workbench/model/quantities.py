@@ -271,7 +271,13 @@ def format_quantity(value: float, quantity: str, system: System, digits: int = 4
     if system == "SI" and spec.si_large is not None:
         if abs(_to_unit(value, quantity, label)) >= KILO_FROM_N:
             label = spec.si_large
-    number = fmt(_to_unit(value, quantity, label), digits)
+    shown = _to_unit(value, quantity, label)
+    number = fmt(shown, digits)
+    if quantity == "temperature" and _from_unit(float(number), quantity, label) < ABSOLUTE_ZERO_C:
+        # rounding took a temperature at absolute zero below it ("-459.67 °F" to "-459.7 °F"),
+        # which would not read back: round toward warmer at the last printed digit instead
+        step = 10.0 ** (math.floor(math.log10(abs(shown))) - digits + 1)
+        number = fmt(math.ceil(shown / step) * step, digits)
     if not label:
         return number
     if label == "°":
