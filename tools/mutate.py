@@ -166,49 +166,62 @@ def _prepare_worker(base: str) -> None:
     import scipy.stats  # noqa: F401
 
 
-def _test_args(module: str, quick: bool) -> list[str]:
+def _test_files(module: str) -> tuple[list[str], list[str]]:
+    """The module's own engine test files, then the other engine test files."""
     assert _WORK is not None
     own = [f"tests/engine/{name}" for name in _OWN_TESTS.get(module, ())]
-    rest = [] if quick else sorted(
-        f"tests/engine/{p.name}" for p in (_WORK / "tests" / "engine").glob("test_*.py")
-        if f"tests/engine/{p.name}" not in own)
-    return [*own, *rest, "-x", "-q", "-p", "no:cacheprovider", "-p", "no:randomly",
-            "--no-header", "-W", "ignore"]
+    rest = sorted(f"tests/engine/{p.name}" for p in (_WORK / "tests" / "engine").glob("test_*.py")
+                  if f"tests/engine/{p.name}" not in own)
+    return own, rest
+
+
+_PYTEST_OPTIONS = ["-x", "-q", "-p", "no:cacheprovider", "--no-header", "-W", "ignore"]
+
+
+def _pytest_in_child(files: list[str], deadline: float) -> str:
+    """Run pytest on ``files`` in a forked child: "failed", "error", "survived" or "timeout"."""
+    assert _WORK is not None
+    pid = os.fork()
+    if pid == 0:  # the child: a fresh import of the changed engine, then the tests
+        code = 3
+        try:
+            os.chdir(_WORK)
+            sys.path.insert(0, str(_WORK))
+            devnull = os.open(os.devnull, os.O_WRONLY)
+            os.dup2(devnull, 1)
+            os.dup2(devnull, 2)
+            import pytest
+
+            code = int(pytest.main([*files, *_PYTEST_OPTIONS]))
+        finally:
+            os._exit(code)
+    while time.monotonic() < deadline:
+        done, status = os.waitpid(pid, os.WNOHANG)
+        if done:
+            return {0: "survived", 1: "failed"}.get(os.waitstatus_to_exitcode(status), "error")
+        time.sleep(0.02)
+    os.kill(pid, signal.SIGKILL)
+    os.waitpid(pid, 0)
+    return "timeout"
 
 
 def _run_one(task: tuple[Mutant, bool]) -> Outcome:
+    """Change one constant in the worker's copy, run the own tests, then (unless ``quick``) the
+    rest, stopping at the first failure; put the constant back."""
     mutant, quick = task
     assert _WORK is not None
     target = _WORK / "workbench" / "engine" / f"{mutant.module}.py"
     original = target.read_bytes()
     target.write_bytes(_apply(original, mutant))
     start = time.monotonic()
+    how = "survived"
     try:
-        pid = os.fork()
-        if pid == 0:  # the child: a fresh import of the changed engine, then its tests
-            code = 3
-            try:
-                os.chdir(_WORK)
-                sys.path.insert(0, str(_WORK))
-                devnull = os.open(os.devnull, os.O_WRONLY)
-                os.dup2(devnull, 1)
-                os.dup2(devnull, 2)
-                import pytest
-
-                code = int(pytest.main(_test_args(mutant.module, quick)))
-            finally:
-                os._exit(code)
-        how = "timeout"
-        while time.monotonic() - start < TIMEOUT_S:
-            done, status = os.waitpid(pid, os.WNOHANG)
-            if done:
-                code = os.waitstatus_to_exitcode(status)
-                how = {0: "survived", 1: "failed"}.get(code, "error")
-                break
-            time.sleep(0.02)
-        else:
-            os.kill(pid, signal.SIGKILL)
-            os.waitpid(pid, 0)
+        own, rest = _test_files(mutant.module)
+        for files in (own, [] if quick else rest):
+            if files:
+                how = _pytest_in_child(files, start + TIMEOUT_S)
+                if how != "survived":
+                    break
     finally:
         target.write_bytes(original)
     return Outcome(mutant, how != "survived", how, time.monotonic() - start)
@@ -259,6 +272,7 @@ def main(argv: list[str] | None = None) -> int:
     unknown = [m for m in modules if not (ENGINE / f"{m}.py").exists()]
     if unknown:
         parser.error(f"no engine module {', '.join(unknown)}")
+    signal.signal(signal.SIGTERM, lambda *_: sys.exit(1))  # so the pool and its folder go too
     started = time.monotonic()
     outcomes = run(modules, args.delta, args.workers, args.limit, args.quick)
     killed = sum(o.killed for o in outcomes)

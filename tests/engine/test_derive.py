@@ -65,6 +65,33 @@ def test_outer_ring_rotation_factor() -> None:
     assert d.step("V").value == 1.2
 
 
+def test_rotation_factor_on_a_cylindrical_bearing() -> None:
+    """P = V·Fr = 1.2 × 10 kN for a cylindrical roller bearing with the outer ring rotating (older
+    practice): the V reported is the V used, and life follows P (issue: life was overstated)."""
+    case = CaseInputs(kind="cylindrical", fr=10000.0, c=100000.0, c0=120000.0, speed=1000.0,
+                      outer_ring_rotates=True)
+    d = derive(case)
+    assert d.results["V"] == 1.2
+    assert d.results["P"] == pytest.approx(12000.0)
+    assert d.results["L10"] == pytest.approx((100000 / 12000) ** (10 / 3), rel=1e-12)
+
+
+@pytest.mark.parametrize("case", [
+    CaseInputs(kind="self-aligning", fr=5000.0, fa=400.0, c=30000.0, c0=9000.0, contact_angle=12.0,
+               speed=1000.0, outer_ring_rotates=True),
+    CaseInputs(kind="thrust-ball", fa=4000.0, c=30000.0, c0=60000.0, speed=1000.0,
+               outer_ring_rotates=True),
+])
+def test_rotation_factor_where_it_does_not_apply(case: CaseInputs) -> None:
+    """Self-aligning ball (older tables: V = 1, from memory) and thrust bearings: V = 1 is used,
+    reported as 1, and a warning says the rotating outer ring was not applied."""
+    d = derive(case)
+    plain = derive(replace(case, outer_ring_rotates=False))
+    assert d.results["V"] == 1.0
+    assert d.results["P"] == plain.results["P"]
+    assert any("outer ring rotation ignored" in w for w in d.warnings)
+
+
 def test_lubrication_chain_by_hand() -> None:
     """aISO chain (ISO 281:2007 §9.3, from memory) with ν given: κ = ν/ν1, eC midpoint of 'normal'
     (0.5–0.6 → 0.55), Cu = C0/22 for dpw ≤ 100 mm, ball relation for 1 ≤ κ ≤ 4."""
@@ -262,3 +289,106 @@ def test_engine_imports_neither_textual_nor_pint() -> None:
             "print(any(m.split('.')[0] in ('textual', 'pint') for m in sys.modules))")
     out = subprocess.run([sys.executable, "-c", code], capture_output=True, text=True, check=True)
     assert out.stdout.strip() == "False"
+
+
+# ---- the limits and the words each branch of the derivation shows -----------------------------
+@pytest.mark.parametrize(("changes", "field"), [
+    ({"temp": -61.0, "vg": 68.0, "dm": 50.0, "ec": 0.5}, "temp"),   # −60 °C … 250 °C (workbench's range)
+    ({"temp": 251.0, "vg": 68.0, "dm": 50.0, "ec": 0.5}, "temp"),
+    ({"ec": 1.01}, "ec"),                                             # ISO 281 §9.3.4: 0 ≤ eC ≤ 1
+    ({"reliability_model": "weibull", "reliability": 1.0}, "reliability"),
+    ({"reliability": 0.8999}, "reliability"),                        # Table 12: 90 % … 99.95 %
+    ({"reliability": 0.99951}, "reliability"),
+])
+def test_limits_at_the_door(changes: dict, field: str) -> None:
+    """Just past each limit the engine refuses, naming the input."""
+    with pytest.raises(InputError) as info:
+        derive(replace(BASE, **changes))
+    assert info.value.field == field
+
+
+def test_limits_are_inclusive() -> None:
+    """At each limit the engine still derives: −60 °C, 250 °C, eC = 1, R = 90 % and 99.95 %."""
+    for changes in ({"temp": -60.0, "vg": 68.0, "dm": 50.0, "ec": 1.0},
+                    {"temp": 250.0, "vg": 68.0, "dm": 50.0, "ec": 0.5},
+                    {"reliability": 0.90}, {"reliability": 0.9995}):
+        derive(replace(BASE, **changes))
+
+
+@pytest.mark.parametrize(("kind", "alpha", "field"), [("tapered", 90.5, "contact_angle"),
+                                                       ("thrust-ball", 91.0, "contact_angle"),
+                                                       ("thrust-roller", 91.0, "contact_angle")])
+def test_contact_angle_past_ninety_is_refused(kind: str, alpha: float, field: str) -> None:
+    """A radial bearing with α ≥ 90° or a thrust bearing with α > 90° is not a bearing of its kind."""
+    case = CaseInputs(kind=kind, fr=1000.0 if kind == "tapered" else 0.0, fa=2000.0, c=50000.0,
+                      c0=60000.0, contact_angle=alpha, speed=500.0)
+    with pytest.raises(InputError) as info:
+        derive(case)
+    assert info.value.field == field
+
+
+def test_factor_results_of_the_fixed_forms() -> None:
+    """Cylindrical: X = 1, Y = 0, no e (P = Fr, ISO 281 §7.2); thrust at 90°: X = 0, Y = 1 (P = Fa)."""
+    cyl = derive(CaseInputs(kind="cylindrical", fr=5000.0, c=50000.0, c0=60000.0, speed=500.0))
+    assert (cyl.results["X"], cyl.results["Y"], math.isnan(cyl.results["e"])) == (1.0, 0.0, True)
+    thrust = derive(CaseInputs(kind="thrust-ball", fa=5000.0, c=50000.0, c0=90000.0, speed=500.0))
+    assert (thrust.results["X"], thrust.results["Y"], math.isnan(thrust.results["e"])) == (0.0, 1.0, True)
+    assert thrust.step("P").formula == "P = Fa (α = 90°)"
+
+
+def test_steps_show_only_the_factors_in_play() -> None:
+    """af = 1 and LR = 1 add no step or factor; af ≠ 1 and LR ≠ 1 do, with their formula."""
+    plain = derive(BASE)
+    assert plain.peek("P_eff") is None and plain.step("L10").formula == "(C/P)^p"
+    assert plain.step("P").formula == "X·Fr + Y·Fa"
+    shocked = derive(replace(BASE, af=1.02))
+    assert shocked.step("P_eff").formula == "af·P"
+    weibull = derive(replace(BASE, reliability_model="weibull", rating_life_mrev=1.02))
+    assert weibull.step("L10").formula == "LR·(C/P)^p"
+    weibull_one = derive(replace(BASE, reliability_model="weibull"))
+    assert weibull_one.step("L10").formula == "(C/P)^p"
+    assert CaseInputs().rating_life_mrev == 1.0 and CaseInputs().af == 1.0
+
+
+def test_index_step_names_its_column() -> None:
+    """The Table 3 index step says what it holds: f0·Fa/C0r, or the printed Fa/C0r column when
+    f0 is not given; a 15° pair indexes with i = 2 rows."""
+    with_f0 = derive(BASE).step("index")
+    assert with_f0.symbol == "f0·Fa/C0r" and with_f0.substituted == "14 × 2500 / 19000"
+    plain = derive(replace(BASE, f0=None)).step("index")
+    assert plain.symbol == "Fa/C0r" and plain.substituted == "2500 / 19000"
+    pair = CaseInputs(kind="angular-contact", arrangement="back-to-back", contact_angle=15.0,
+                      fr=5000.0, fa=1000.0, c=40000.0, c0=30000.0, speed=1000.0)
+    assert derive(pair).step("index").substituted == "2 × 1000 / 30000"
+    assert derive(replace(pair, f0=14.0)).step("index").substituted == "2 × 14 × 1000 / 30000"
+
+
+def test_viscosity_index_defaults_to_100() -> None:
+    """ISO VG without VI or ν100 assumes VI 100 (the workbench's stated default) and says so."""
+    lubricated = replace(BASE, vg=68.0, temp=70.0, dm=60.0, cleanliness="normal")
+    assumed = derive(lubricated)
+    assert assumed.results["nu"] == derive(replace(lubricated, vi=100.0)).results["nu"]
+    assert "VI 100 assumed" in assumed.step("nu100").note
+
+
+def test_lubrication_words_follow_the_branch_used() -> None:
+    """ν1 shows the piece used (n < 1000 r/min or not); eC and Cu name the dpw column used
+    (ISO 281:2007 §9.3, from memory); a thrust ball bearing shows eC·Cu/(3·P)."""
+    lubricated = replace(BASE, nu=30.0, dm=100.0, cleanliness="normal")
+    slow, fast = derive(replace(lubricated, speed=999.0)), derive(replace(lubricated, speed=1000.0))
+    assert slow.step("nu1").formula == "45000·n^−0.83·dm^−0.5"
+    assert fast.step("nu1").formula == "4500·n^−0.5·dm^−0.5"
+    assert derive(lubricated).step("eC").note == "dpw ≥ 100 mm column"
+    assert derive(replace(lubricated, dm=99.0)).step("eC").note == "dpw < 100 mm column"
+    assert derive(replace(lubricated, dm=101.0)).step("Cu").formula == "C0/22·(100/dpw)^0.5"
+    assert derive(lubricated).step("Cu").formula == "C0/22"
+    thrust = CaseInputs(kind="thrust-ball", fa=5000.0, c=50000.0, c0=90000.0, speed=500.0,
+                        nu=30.0, dm=60.0, ec=0.5)
+    assert derive(thrust).step("load_ratio").formula == "eC·Cu/(3·P)"
+    assert derive(lubricated).step("load_ratio").formula == "eC·Cu/P"
+
+
+def test_a1_step_shows_r_in_per_cent() -> None:
+    """The a1 step substitutes R in per cent into the ISO 281:2007 closed form."""
+    step = derive(replace(BASE, reliability=0.95)).step("a1")
+    assert step.substituted.startswith("0.95 × (ln(100/95) / ln(100/90))")

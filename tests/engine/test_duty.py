@@ -72,6 +72,12 @@ def test_state_without_damage() -> None:
     assert miner_life([math.inf], [1.0]).life == math.inf
 
 
+def test_weibull_slopes_for_system_life() -> None:
+    # Weibull slopes of rolling-bearing fatigue life (from memory): 10/9 ball, 9/8 roller.
+    assert WEIBULL_SLOPE_BALL == pytest.approx(10 / 9, rel=1e-15)
+    assert WEIBULL_SLOPE_ROLLER == pytest.approx(9 / 8, rel=1e-15)
+
+
 def test_system_life_closed_form() -> None:
     # L10,sys = (Σ L10,i^(−e))^(−1/e); n equal lives give L·n^(−1/e).
     lives = [12000.0, 8000.0, 30000.0]
@@ -111,7 +117,7 @@ def test_system_life_against_scipy_weibull() -> None:
     (lambda: miner_life([], []), "lives"),
     (lambda: system_life([100.0, math.nan], 1.1), "lives"),
     (lambda: system_life([100.0], 0.0), "weibull_slope"),
-    (lambda: system_reliability([0.9, 1.2]), "reliabilities"),
+    (lambda: system_reliability([0.9, 1.01]), "reliabilities"),
 ])
 def test_bad_input(call, field: str) -> None:
     with pytest.raises(InputError) as caught:
