@@ -392,3 +392,52 @@ def test_a1_step_shows_r_in_per_cent() -> None:
     """The a1 step substitutes R in per cent into the ISO 281:2007 closed form."""
     step = derive(replace(BASE, reliability=0.95)).step("a1")
     assert step.substituted.startswith("0.95 × (ln(100/95) / ln(100/90))")
+
+
+# ---- the maker's e and Y ------------------------------------------------------------------------
+TAPERED_PAIR = CaseInputs(kind="tapered", arrangement="back-to-back", fr=8000.0, fa=6000.0,
+                          c=90000.0, c0=110000.0, speed=800.0)
+
+
+def test_makers_y_of_a_tapered_pair_is_per_row() -> None:
+    """Catalogues print e and Y for one tapered bearing: Y = 0.4·cot α, e = 1.5·tan α (ISO 281
+    Table 3, from memory).  Given so, the pair derives the same P as when given by the angle."""
+    alpha = 14.0
+    t = math.tan(math.radians(alpha))
+    by_angle = derive(replace(TAPERED_PAIR, contact_angle=alpha))
+    by_maker = derive(replace(TAPERED_PAIR, e_given=1.5 * t, y_given=0.4 / t))
+    assert by_maker.results["P"] == pytest.approx(by_angle.results["P"], rel=1e-12)
+    assert by_angle.results["Y"] == pytest.approx(0.67 / t, rel=1e-12)  # Fa/Fr = 0.75 > e
+    assert "per row" in by_maker.step("Y").note
+    assert not by_maker.warnings
+
+
+def test_makers_y_of_a_spherical_bearing_is_the_bearings() -> None:
+    """A spherical roller bearing is one double-row unit: its maker's Y is the bearing's Y for
+    Fa/Fr > e (0.67·cot α form), Y≤e = (0.45/0.67)·Y."""
+    case = CaseInputs(kind="spherical", fr=10000.0, fa=1500.0, c=200000.0, c0=250000.0,
+                      speed=800.0, e_given=0.24, y_given=2.8)
+    d = derive(case)
+    assert d.results["Y"] == pytest.approx(2.8 * 0.45 / 0.67, rel=1e-12)  # Fa/Fr = 0.15 ≤ e
+    assert "whole bearing" in d.step("Y").note
+
+
+def test_makers_e_and_y_that_disagree_are_flagged() -> None:
+    """Table 3 keeps P continuous at Fa/Fr = e, so a single-row e·Y is 1 − 0.4 = 0.6; e = 0.43
+    with Y = 2.0 (e·Y = 0.86) makes P jump, and the derivation says so."""
+    case = CaseInputs(kind="tapered", fr=8000.0, fa=2000.0, c=90000.0, c0=110000.0, speed=800.0,
+                      e_given=0.43, y_given=2.0)
+    d = derive(case)
+    assert any("disagree" in w for w in d.warnings)
+    fitting = derive(replace(case, y_given=0.6 / 0.43))
+    assert not fitting.warnings
+
+
+def test_makers_factors_far_from_the_angle_are_flagged() -> None:
+    """With the contact angle given too, e more than 10 % from 1.5·tan α (or Y from 0.4·cot α
+    per row) is flagged."""
+    t = math.tan(math.radians(14.0))
+    case = replace(TAPERED_PAIR, contact_angle=14.0, e_given=1.5 * t * 1.2, y_given=0.6 / (1.5 * t * 1.2))
+    d = derive(case)
+    assert any("1.5·tan α" in w for w in d.warnings)
+    assert any("0.4·cot α" in w for w in d.warnings)

@@ -275,22 +275,46 @@ def _table_factors(fa: Num, c0: Num, f0: Num | None, block: TableBlock, *, x_hig
                           _clamp_flag(index, xp[0], xp[-1]), (xp, block.e, block.y))
 
 
+# ISO 281:2007 Table 3 for α ≠ 0 (from memory): X≤e = 1, and (Y≤e, X>e, Y>e) with each Y a
+# multiple of cot α; e = 1.5·tan α for all three.
+_SINGLE_ROW_ROLLER = (0.0, 0.4, 0.4)
+_DOUBLE_ROW_ROLLER = (0.45, 0.67, 0.67)
+_SELF_ALIGNING_BALL = (0.42, 0.65, 0.65)
+
+
+def _angle_form(kind: Kind, arrangement: Arrangement) -> tuple[tuple[float, float, float], str]:
+    """The Table 3 closed form (Y≤e, X>e, Y>e over cot α) of an angled radial bearing, and its source."""
+    if kind is Kind.SELF_ALIGNING:
+        return _SELF_ALIGNING_BALL, "ISO 281:2007 Table 3 (self-aligning ball)"
+    if arrangement is not Arrangement.SINGLE:
+        return _DOUBLE_ROW_ROLLER, "ISO 281:2007 §7.2 (radial roller, double row, α ≠ 0)"
+    return _SINGLE_ROW_ROLLER, "ISO 281:2007 §7.2 (radial roller, single row, α ≠ 0)"
+
+
+def makers_y_is_per_row(kind: Kind, arrangement: Arrangement) -> bool:
+    """True where the maker's Y is a single row's (a tapered bearing of a pair or double-row set,
+    as catalogues print Y for one bearing), false where it is the whole bearing's Y for Fa/Fr > e
+    (single-row bearings, and spherical and self-aligning bearings, which are double-row units)."""
+    return kind is Kind.TAPERED and arrangement is not Arrangement.SINGLE
+
+
 def _angle_factors(kind: Kind, arrangement: Arrangement, alpha_deg: float,
                    e_given: float | None, y_given: float | None) -> DynamicFactors:
-    """Self-aligning ball, tapered and spherical roller: e = 1.5·tan α, Y ∝ cot α (Table 3)."""
+    """Self-aligning ball, tapered and spherical roller: e = 1.5·tan α, Y ∝ cot α (Table 3).
+
+    The maker's e replaces 1.5·tan α; the maker's Y replaces Y>e — for a tapered pair or
+    double-row set it is the single row's Y, and the set's factors follow the closed forms'
+    ratios: Y>e = (0.67/0.4)·Y, Y≤e = (0.45/0.4)·Y.
+    """
     tan_a = tand(alpha_deg)
-    double = arrangement is not Arrangement.SINGLE
-    if kind is Kind.SELF_ALIGNING:
-        low, high_x, high = 0.42, 0.65, 0.65
-        source = "ISO 281:2007 Table 3 (self-aligning ball)"
-    elif double:
-        low, high_x, high = 0.45, 0.67, 0.67
-        source = "ISO 281:2007 §7.2 (radial roller, double row, α ≠ 0)"
-    else:
-        low, high_x, high = 0.0, 0.4, 0.4
-        source = "ISO 281:2007 §7.2 (radial roller, single row, α ≠ 0)"
+    (low, high_x, high), source = _angle_form(kind, arrangement)
     e = 1.5 * tan_a if e_given is None else e_given
-    y_high = high / tan_a if y_given is None else y_given
+    if y_given is None:
+        y_high = high / tan_a
+    elif makers_y_is_per_row(kind, arrangement):
+        y_high = y_given * high / _SINGLE_ROW_ROLLER[2]
+    else:
+        y_high = y_given
     y_low = y_high * low / high  # both rows scale with cot α
     if e_given is not None or y_given is not None:
         basis = "maker's e and Y" if (e_given is not None and y_given is not None) else (
@@ -299,6 +323,43 @@ def _angle_factors(kind: Kind, arrangement: Arrangement, alpha_deg: float,
         basis = f"α = {alpha_deg:g}°: e = 1.5·tan α, Y ∝ cot α"
     x_low = 1.0
     return DynamicFactors(e, x_low, y_low, high_x, y_high, basis, source)
+
+
+def makers_factor_warnings(factors: DynamicFactors, kind: Kind, arrangement: Arrangement,
+                           alpha_deg: float | None, e_given: float | None,
+                           y_given: float | None) -> list[str]:
+    """Where the maker's e and Y disagree with each other or with the contact angle.
+
+    With each other: ISO 281 Table 3 makes P continuous at Fa/Fr = e (X≤·Fr + Y≤·Fa =
+    X>·Fr + Y>·Fa there); a jump of more than 5 % says e and Y do not belong together.  With the
+    angle (when one is given as well): e = 1.5·tan α and Y = the closed form's multiple of cot α,
+    more than 10 % apart.
+    """
+    if e_given is None and y_given is None:
+        return []
+    warnings = []
+    low_side = factors.x_low + factors.y_low * factors.e
+    high_side = factors.x_high + factors.y_high * factors.e
+    jump = abs(high_side - low_side) / low_side
+    if jump > 0.05:
+        row = "per row " if makers_y_is_per_row(kind, arrangement) else ""
+        warnings.append(
+            f"maker's e = {factors.e:.3g} and Y {row}= {y_given if y_given is not None else factors.y_high:.3g} "
+            f"disagree: P jumps by {100 * jump:.0f} % at Fa/Fr = e (Table 3 keeps it continuous)")
+    if alpha_deg is not None:
+        tan_a = tand(alpha_deg)
+        (_, _, high), _ = _angle_form(kind, arrangement)
+        if e_given is not None and abs(e_given / (1.5 * tan_a) - 1.0) > 0.10:
+            warnings.append(f"maker's e = {e_given:.3g} differs from 1.5·tan α = {1.5 * tan_a:.3g} "
+                            f"at α = {alpha_deg:g}° by more than 10 %")
+        if y_given is not None:
+            per_row = makers_y_is_per_row(kind, arrangement)
+            closed = (_SINGLE_ROW_ROLLER[2] if per_row else high) / tan_a
+            form = "0.4·cot α" if per_row else f"{high:g}·cot α"
+            if abs(y_given / closed - 1.0) > 0.10:
+                warnings.append(f"maker's Y = {y_given:.3g} differs from {form} = {closed:.3g} "
+                                f"at α = {alpha_deg:g}° by more than 10 %")
+    return warnings
 
 
 def _thrust_factors(kind: Kind, alpha_deg: float) -> DynamicFactors:
