@@ -27,6 +27,7 @@ import ast
 import json
 import multiprocessing
 import os
+import random
 import shutil
 import signal
 import sys
@@ -146,11 +147,20 @@ def _apply(source: bytes, mutant: Mutant) -> bytes:
 
 # ---- workers ---------------------------------------------------------------------------------
 _WORK: Path | None = None
+_CHILD: int | None = None  # the worker's running pytest child, killed with the worker
+
+
+def _stop_worker(*_: object) -> None:
+    if _CHILD is not None:
+        os.kill(_CHILD, signal.SIGKILL)
+    os._exit(1)
 
 
 def _prepare_worker(base: str) -> None:
     """Copy the tree to a private folder under ``base`` and import the heavy dependencies once."""
     global _WORK
+    signal.signal(signal.SIGTERM, _stop_worker)
+    signal.signal(signal.SIGINT, signal.SIG_IGN)  # the parent stops the pool
     _WORK = Path(tempfile.mkdtemp(dir=base))
     for name in ("workbench", "tests"):
         shutil.copytree(ROOT / name, _WORK / name,
@@ -180,6 +190,7 @@ _PYTEST_OPTIONS = ["-x", "-q", "-p", "no:cacheprovider", "--no-header", "-W", "i
 
 def _pytest_in_child(files: list[str], deadline: float) -> str:
     """Run pytest on ``files`` in a forked child: "failed", "error", "survived" or "timeout"."""
+    global _CHILD
     assert _WORK is not None
     pid = os.fork()
     if pid == 0:  # the child: a fresh import of the changed engine, then the tests
@@ -195,13 +206,16 @@ def _pytest_in_child(files: list[str], deadline: float) -> str:
             code = int(pytest.main([*files, *_PYTEST_OPTIONS]))
         finally:
             os._exit(code)
+    _CHILD = pid
     while time.monotonic() < deadline:
         done, status = os.waitpid(pid, os.WNOHANG)
         if done:
+            _CHILD = None
             return {0: "survived", 1: "failed"}.get(os.waitstatus_to_exitcode(status), "error")
         time.sleep(0.02)
     os.kill(pid, signal.SIGKILL)
     os.waitpid(pid, 0)
+    _CHILD = None
     return "timeout"
 
 
@@ -228,13 +242,22 @@ def _run_one(task: tuple[Mutant, bool]) -> Outcome:
 
 
 def run(modules: list[str], delta: float, workers: int, limit: int | None,
-        quick: bool = False) -> list[Outcome]:
-    """Mutate, test and collect the outcomes (printing one line per survivor as it is found)."""
+        quick: bool = False, sample: int | None = None, seed: int = 15) -> list[Outcome]:
+    """Mutate, test and collect the outcomes (printing one line per survivor as it is found).
+
+    ``sample`` draws that many mutants at random (seeded) from all of them: an estimate of the
+    kill rate when a full run would take too long.
+    """
     mutants = [m for module in modules for m in mutants_of(module, delta)]
+    total = len(mutants)
+    if sample is not None and sample < total:
+        mutants = sorted(random.Random(seed).sample(mutants, sample),
+                         key=lambda m: (m.module, m.line, m.col))
     if limit is not None:
         mutants = mutants[:limit]
-    print(f"{len(mutants)} mutants in {', '.join(modules)} (×{1 + delta:g}), {workers} workers",
-          flush=True)
+    drawn = f" (a seeded sample of {total})" if len(mutants) < total and sample else ""
+    print(f"{len(mutants)} mutants{drawn} in {', '.join(modules)} (×{1 + delta:g}), "
+          f"{workers} workers", flush=True)
     outcomes: list[Outcome] = []
     context = multiprocessing.get_context("fork")
     base = tempfile.mkdtemp(prefix="workbench-mutate-")
@@ -266,6 +289,8 @@ def main(argv: list[str] | None = None) -> int:
     parser.add_argument("--limit", type=int, help="only the first N mutants")
     parser.add_argument("--quick", action="store_true",
                         help="run only the module's own test files (faster, may kill fewer)")
+    parser.add_argument("--sample", type=int, help="test only N mutants drawn at random (seeded)")
+    parser.add_argument("--seed", type=int, default=15, help="seed of --sample (default 15)")
     parser.add_argument("--json", type=Path, help="write every outcome to this file")
     args = parser.parse_args(argv)
     modules = args.modules or engine_modules()
@@ -274,7 +299,7 @@ def main(argv: list[str] | None = None) -> int:
         parser.error(f"no engine module {', '.join(unknown)}")
     signal.signal(signal.SIGTERM, lambda *_: sys.exit(1))  # so the pool and its folder go too
     started = time.monotonic()
-    outcomes = run(modules, args.delta, args.workers, args.limit, args.quick)
+    outcomes = run(modules, args.delta, args.workers, args.limit, args.quick, args.sample, args.seed)
     killed = sum(o.killed for o in outcomes)
     total = len(outcomes)
     print(f"\nkilled {killed} of {total} ({100.0 * killed / max(total, 1):.1f} %) "
