@@ -82,7 +82,7 @@ def test_system_life_closed_form() -> None:
     # L10,sys = (Σ L10,i^(−e))^(−1/e); n equal lives give L·n^(−1/e).
     lives = [12000.0, 8000.0, 30000.0]
     e = WEIBULL_SLOPE_BALL
-    assert system_life(lives, e) == pytest.approx(sum(l ** -e for l in lives) ** (-1.0 / e), rel=1e-12)
+    assert system_life(lives, e) == pytest.approx(sum(li ** -e for li in lives) ** (-1.0 / e), rel=1e-12)
     assert system_life([5000.0] * 4, WEIBULL_SLOPE_ROLLER) == \
         pytest.approx(5000.0 * 4 ** (-1.0 / WEIBULL_SLOPE_ROLLER), rel=1e-12)
     assert system_life([5000.0, math.inf], e) == pytest.approx(5000.0, rel=1e-12)
