@@ -441,3 +441,22 @@ def test_makers_factors_far_from_the_angle_are_flagged() -> None:
     d = derive(case)
     assert any("1.5·tan α" in w for w in d.warnings)
     assert any("0.4·cot α" in w for w in d.warnings)
+
+
+@pytest.mark.parametrize(("share", "flagged"), [(1.08, False), (1.12, True)])
+def test_makers_e_limit_against_the_angle(share: float, flagged: bool) -> None:
+    """The maker's e is flagged beyond 10 % from 1.5·tan α (workbench's tolerance)."""
+    t = math.tan(math.radians(14.0))
+    e = 1.5 * t * share
+    d = derive(replace(TAPERED_PAIR, contact_angle=14.0, e_given=e, y_given=0.6 / e))
+    assert any("1.5·tan α" in w for w in d.warnings) is flagged
+
+
+@pytest.mark.parametrize(("jump", "flagged"), [(0.049, False), (0.051, True)])
+def test_makers_e_and_y_jump_limit(jump: float, flagged: bool) -> None:
+    """P may jump by 5 % at Fa/Fr = e before the maker's e and Y are flagged: single row,
+    X>e + Y·e = 0.4 + Y·e against 1, so Y = (0.6 + jump)/e gives a jump of ``jump``."""
+    e = 0.4
+    case = CaseInputs(kind="tapered", fr=8000.0, fa=2000.0, c=90000.0, c0=110000.0, speed=800.0,
+                      e_given=e, y_given=(0.6 + jump) / e)
+    assert any("disagree" in w for w in derive(case).warnings) is flagged

@@ -348,3 +348,13 @@ def test_rotation_factor_is_one_where_it_does_not_apply(kind: Kind) -> None:
     """Older practice kept V = 1 for self-aligning ball bearings (from memory); thrust bearings
     have no rotation factor."""
     assert rotation_factor(kind, True) == 1.0
+
+
+@pytest.mark.parametrize(("alpha", "refused"), [(44.0, True), (46.0, False), (89.0, False)])
+def test_thrust_roller_angle_range(alpha: float, refused: bool) -> None:
+    """A thrust roller bearing with α ≠ 90° has 45° ≤ α < 90° (ISO 281:2007 §8, from memory)."""
+    if refused:
+        with pytest.raises(InputError):
+            dynamic_factors(Kind.THRUST_ROLLER, Arrangement.SINGLE, alpha)
+    else:
+        assert dynamic_factors(Kind.THRUST_ROLLER, Arrangement.SINGLE, alpha).y_high == 1.0

@@ -27,10 +27,11 @@ from __future__ import annotations
 import math
 import re
 import unicodedata
+from collections.abc import Callable
 from dataclasses import dataclass
 from typing import TYPE_CHECKING, Literal
 
-from workbench.engine.record import fmt
+from workbench.engine.record import engine_units, fmt
 
 if TYPE_CHECKING:  # pint is imported lazily, on the first cache miss
     import pint
@@ -260,6 +261,34 @@ def to_display(value: float, quantity: str, system: System) -> float:
 def from_display(value: float, quantity: str, system: System) -> float:
     """A number in ``unit_label(quantity, system)`` expressed in the internal unit."""
     return _from_unit(value, quantity, unit_label(quantity, system))
+
+
+# The engine's units as derivation steps name them (the unit spec of a step's placeholder, see
+# ``engine.record.Step``), and the quantity each is.
+ENGINE_UNIT_QUANTITY: dict[str, str] = {
+    "N": "force", "mm": "length", "rpm": "speed", "h": "time", "mm²/s": "viscosity",
+    "°C": "temperature", "N·m": "torque", "W": "power", "kg": "mass",
+}
+
+
+def step_number_writer(system: System) -> Callable[[float, str], str]:
+    """How a display in ``system`` writes the numbers of a derivation step: a number tagged with
+    an engine unit in the display's unit (with the unit after it where the tag ends in "+"), a
+    number whose relation is stated in the engine unit ("=mm") as it is, with that unit written
+    whenever the display's unit differs; an untagged number as it is."""
+
+    def write(value: float, spec: str) -> str:
+        unit = spec.strip("=+")
+        quantity = ENGINE_UNIT_QUANTITY.get(unit)
+        if quantity is None or not math.isfinite(value):
+            return engine_units(value, spec)
+        label = unit_label(quantity, system)
+        if spec.startswith("="):
+            return f"{fmt(value)} {unit}" if spec.endswith("+") or label != unit else fmt(value)
+        shown = fmt(to_display(value, quantity, system))
+        return f"{shown} {label}".rstrip() if spec.endswith("+") else shown
+
+    return write
 
 
 def format_quantity(value: float, quantity: str, system: System, digits: int = 4) -> str:
