@@ -67,10 +67,11 @@ def aiso_words(kappa: float, load_ratio: float, roller: bool, divisor: float, va
     outer_text = "" if outer == 1.0 else f"^{outer:g}"
     power_text = "1/3" if abs(load_power - 1.0 / 3.0) < 1e-12 else f"{load_power:g}"
     ratio = "eC·Cu/P" if divisor == 1.0 else f"eC·Cu/({divisor:g}·P)"
+    final_text = f"{final:g}".replace("-", "−")
     formula = (f"0.1·[1 − ({c1:g} − {c2:g}/κ^{k:g}){outer_text}·({ratio})^({power_text})]"
-               f"^({final:g})")
+               f"^({final_text})")
     template = (f"0.1 × [1 − ({c1:g} − {c2:g} / {{0}}^{k:g}){outer_text} × {{1}}^({power_text})]"
-                f"^({final:g})").replace("-", "−")
+                f"^({final_text})")
     family = "roller" if roller else "ball"
     note = f"{family} relation, piece {_PIECES[piece]}"
     if value >= AISO_CAP:
