@@ -333,7 +333,9 @@ def catalog_bearing_texts(catalog: Catalog, i: int) -> dict[str, str]:
     kind, arrangement, c and c0 in kN, f0, contact angle in degrees, dm = (d + D)/2 in mm, cu in
     kN; e and Y blank (a catalog row carries none), so adopting a row clears a maker's e and Y.
     """
-    optional = lambda value, text: "" if math.isnan(value) else text  # noqa: E731
+    def optional(value: float, text: str) -> str:
+        return "" if math.isnan(value) else text
+
     texts = {
         "kind": str(catalog.kind[i]),
         "arrangement": str(catalog.arrangement[i]),

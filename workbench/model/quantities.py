@@ -101,7 +101,7 @@ _SI_PREFIXES = {"k": 1e3, "M": 1e6}
 _PREFIXABLE_INTERNAL = ("N", "W")
 _SPAN = 1e6
 _conversions: dict[tuple[str, str], tuple[float, float]] = {}
-_registry: pint.UnitRegistry | None = None
+_registry: pint.UnitRegistry[float] | None = None
 
 
 def _spec(quantity: str) -> QuantitySpec:
@@ -117,12 +117,13 @@ def _shown(text: str) -> str:
     return text if len(text) <= 40 else text[:37] + "…"
 
 
-def unit_registry() -> pint.UnitRegistry:
+def unit_registry() -> pint.UnitRegistry[float]:
     """The pint registry, created on first use (with pint's on-disk cache when it can write one)."""
     global _registry
     if _registry is None:
         import pint
 
+        registry: pint.UnitRegistry[float]
         try:
             registry = pint.UnitRegistry(cache_folder=":auto:")
         except OSError:  # no writable cache folder: build the registry from its definitions
