@@ -16,7 +16,8 @@ hypothesis already, so a mutant costs the engine's own imports and its tests).
 
 Constants that are not physics are left alone, by rule (see :func:`_skipped`): zero (a few per
 cent of nothing is nothing), tolerances below 1e-6, subscripts, the arguments of ``range``,
-``round`` and ``lru_cache``, and the modules of numerical method and display (``SKIPPED_MODULES``):
+``round`` and ``lru_cache``, functions that make synthetic data or time things (``random_*``,
+``benchmark*``), and the modules of numerical method and display (``SKIPPED_MODULES``):
 a solver grid of 64 points or a difference step of 1e-4 may change without changing an answer.
 """
 
@@ -42,6 +43,9 @@ TESTS = ROOT / "tests" / "engine"
 
 # Numerical method and display, not physics (see the module docstring).
 SKIPPED_MODULES = frozenset({"__init__", "num", "record", "solve", "sensitivity"})
+# Functions that make synthetic data or time things (select.random_catalog, benchmark_select):
+# their numbers are sizes and seeds, not physics.
+_SKIPPED_FUNCTION_PREFIXES = ("benchmark", "random_")
 # Calls whose numeric arguments are counts, digits or cache sizes.
 _SKIPPED_CALLS = frozenset({"range", "round", "lru_cache", "fmt"})
 # Which engine test file checks a module first (the rest follow): a killed mutant stops early.
@@ -110,7 +114,9 @@ def _skipped(node: ast.Constant, parents: dict[ast.AST, ast.AST]) -> bool:
             return True
         if isinstance(parent, ast.Call) and _call_name(parent) in _SKIPPED_CALLS and child is not parent.func:
             return True
-        if isinstance(parent, (ast.FunctionDef, ast.ClassDef, ast.Module)):
+        if isinstance(parent, ast.FunctionDef) and parent.name.startswith(_SKIPPED_FUNCTION_PREFIXES):
+            return True
+        if isinstance(parent, ast.Module):
             return False
         child, parent = parent, parents.get(parent)
     return False
