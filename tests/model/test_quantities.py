@@ -20,9 +20,12 @@ from workbench.model.quantities import (
     format_quantity,
     from_display,
     parse,
+    step_number_writer,
     to_display,
     unit_label,
 )
+from workbench.engine.derive import CaseInputs, derive
+from workbench.engine.record import fmt
 
 # reference: pint's default definitions, plus "rev" as another name for pint's own "turn"
 REFERENCE = pint.UnitRegistry()
@@ -253,3 +256,25 @@ def test_absolute_zero_reads_back(digits: int, system: str) -> None:
     assert pint_value(-273.15, "degC", "degF") == pytest.approx(-459.67)
     text = format_quantity(-273.15, "temperature", system, digits)  # type: ignore[arg-type]
     assert parse(text, "temperature") >= -273.15 - 1e-9
+
+
+# ---- derivation numbers in the display's unit system ---------------------------------------------
+LUBRICATED = CaseInputs(kind="deep-groove", fr=5200.0, fa=2500.0, c=33000.0, c0=19000.0, f0=14.0,
+                        speed=700.0, vg=68.0, temp=70.0, dm=60.0, cleanliness="normal")
+
+
+def test_derivation_numbers_follow_the_us_display() -> None:
+    """Under a result in lbf the substituted forces are lbf too (pint: 1 N = 0.2248 lbf), a
+    temperature is °F, and a relation stated in mm keeps its mm and says so."""
+    d = derive(LUBRICATED)
+    us = step_number_writer("US")
+    lbf = pint_value(1.0, "N", "lbf")
+    y = d.results["Y"]
+    assert d.step("P").substituted_in(us) == f"0.56 × {fmt(5200 * lbf)} + {fmt(y)} × {fmt(2500 * lbf)}"
+    assert d.step("s0").substituted_in(us) == f"{fmt(19000 * lbf)} / {fmt(5200 * lbf)}"
+    assert d.step("T").substituted_in(us) == f"{fmt(pint_value(70.0, 'degC', 'degF'))} °F"
+    assert "(60 mm)^−0.5" in d.step("nu1").substituted_in(us)
+    si = step_number_writer("SI")
+    for step in d.steps:  # in SI the display writes what the engine writes
+        assert step.substituted_in(si) == step.substituted, step.key
+    assert d.step("T").substituted == "70 °C"

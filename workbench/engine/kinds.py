@@ -162,8 +162,9 @@ class DynamicFactors:
     index: Num = math.nan
     index_formula: str = ""
     clamped: Num = 0
-    columns: tuple[tuple[float, ...], tuple[float, ...], tuple[float, ...]] | None = None
-    """(index, e, Y) columns of the Table 3 block read, for showing the bracketing rows."""
+    columns: tuple[tuple[float, ...], tuple[float, ...], tuple[float, ...],
+                   tuple[float, ...] | None] | None = None
+    """(index, e, Y>e, Y≤e or None) columns of the Table 3 block read, for showing the rows."""
 
 
 def _clamp_flag(index: Num, lo: float, hi: float) -> Num:
@@ -212,13 +213,11 @@ def dynamic_factors(
         source = "ISO 281:2007 Table 3 (angular-contact ball)"
         if angle == 15:
             if paired:
-                y_low = _interp_index(fa, c0, f0, TableBlock(
-                    T.ANGULAR_15_INDEX, T.ANGULAR_15_INDEX_PLAIN, T.ANGULAR_15_E,
-                    T.ANGULAR_15_PAIR_Y_LOW), rows=2.0)
                 return _table_factors(
                     fa, c0, f0, TableBlock(T.ANGULAR_15_INDEX, T.ANGULAR_15_INDEX_PLAIN,
-                                           T.ANGULAR_15_E, T.ANGULAR_15_PAIR_Y_HIGH),
-                    x_high=T.ANGULAR_15_PAIR_X_HIGH, rows=2.0, x_low=1.0, y_low=y_low,
+                                           T.ANGULAR_15_E, T.ANGULAR_15_PAIR_Y_HIGH,
+                                           T.ANGULAR_15_PAIR_Y_LOW),
+                    x_high=T.ANGULAR_15_PAIR_X_HIGH, rows=2.0, x_low=1.0, y_low=0.0,
                     what="15° angular-contact pair", source=source,
                 )
             return _table_factors(
@@ -245,7 +244,8 @@ class TableBlock(NamedTuple):
     index_f0: tuple[float, ...]     # f0·Fa/C0r (i·f0·Fa/C0r for pairs)
     index_plain: tuple[float, ...]  # Fa/C0r (i·Fa/C0r), read when f0 is not known
     e: tuple[float, ...]
-    y: tuple[float, ...]
+    y: tuple[float, ...]            # Y for Fa/Fr > e
+    y_low: tuple[float, ...] | None = None  # Y for Fa/Fr ≤ e where it is tabulated (pairs)
 
 
 def _index(fa: Num, c0: Num, f0: Num | None, block: TableBlock,
@@ -258,21 +258,18 @@ def _index(fa: Num, c0: Num, f0: Num | None, block: TableBlock,
     return rows * f0 * fa / c0, "i·f0·Fa/C0r" if pair else "f0·Fa/C0r", block.index_f0
 
 
-def _interp_index(fa: Num, c0: Num, f0: Num | None, block: TableBlock, *, rows: float) -> Num:
-    """Column ``block.y`` at the case's index (linear, clamped at the ends)."""
-    index, _, xp = _index(fa, c0, f0, block, rows)
-    return interp(index, xp, block.y)
-
-
 def _table_factors(fa: Num, c0: Num, f0: Num | None, block: TableBlock, *, x_high: float,
                    rows: float, x_low: float, y_low: Num, what: str, source: str) -> DynamicFactors:
-    """Linear interpolation of e and Y in a Table 3 block, clamped (and flagged) at its ends."""
+    """Linear interpolation of e and Y in a Table 3 block, clamped (and flagged) at its ends;
+    Y≤e from its own column where the block has one, else ``y_low``."""
     index, formula, xp = _index(fa, c0, f0, block, rows)
     e = interp(index, xp, block.e)
     y = interp(index, xp, block.y)
+    if block.y_low is not None:
+        y_low = interp(index, xp, block.y_low)
     basis = f"{what} table by {formula}"
     return DynamicFactors(e, x_low, y_low, x_high, y, basis, source, index, formula,
-                          _clamp_flag(index, xp[0], xp[-1]), (xp, block.e, block.y))
+                          _clamp_flag(index, xp[0], xp[-1]), (xp, block.e, block.y, block.y_low))
 
 
 # ISO 281:2007 Table 3 for α ≠ 0 (from memory): X≤e = 1, and (Y≤e, X>e, Y>e) with each Y a
