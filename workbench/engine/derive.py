@@ -23,7 +23,7 @@ from .kinds import (
     static_factors,
 )
 from .life import (
-    AISO_CAP, KAPPA_MAX, KAPPA_MIN, a1_iso281, aiso, basic_rating_life, contamination_factor,
+    KAPPA_MAX, KAPPA_MIN, a1_iso281, aiso, basic_rating_life, contamination_factor,
     fatigue_load_limit_estimate, kappa_in_range, life_hours, reference_viscosity,
     weibull_life_factor,
 )

@@ -11,7 +11,7 @@ from __future__ import annotations
 import string
 from collections.abc import Callable
 from dataclasses import dataclass
-from typing import Any
+from typing import Any, TypeAlias
 
 
 class InputError(ValueError):

@@ -390,7 +390,7 @@ class ShaftSolution:
 
 def _bearing_inputs(session: Session, name: str, key: str) -> PairBearing:
     """The session bearing ``name`` as engine inputs; errors name ``bearings[n].<field>``."""
-    for number, bearing in enumerate(session.bearings, start=1):
+    for number, bearing in enumerate(session.bearings, start=1):  # noqa: B007 (read after the loop)
         if bearing.name == name:
             break
     else:
