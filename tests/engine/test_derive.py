@@ -460,3 +460,16 @@ def test_makers_e_and_y_jump_limit(jump: float, flagged: bool) -> None:
     case = CaseInputs(kind="tapered", fr=8000.0, fa=2000.0, c=90000.0, c0=110000.0, speed=800.0,
                       e_given=e, y_given=(0.6 + jump) / e)
     assert any("disagree" in w for w in derive(case).warnings) is flagged
+
+
+@pytest.mark.parametrize(("r_percent", "printed"), [
+    (90, "1"), (95, "0.64"), (96, "0.55"), (97, "0.47"), (98, "0.37"), (99, "0.25"), (99.2, "0.22"),
+    (99.4, "0.19"), (99.6, "0.16"), (99.8, "0.12"), (99.9, "0.093"), (99.92, "0.087"),
+    (99.94, "0.08"), (99.95, "0.077")])
+def test_a1_step_quotes_table_12(r_percent: float, printed: str) -> None:
+    """ISO 281:2007 Table 12 (from memory), typed here: at a tabulated R the a1 step says what the
+    table prints beside the unrounded closed form it uses."""
+    step = derive(replace(BASE, reliability=r_percent / 100)).step("a1")
+    assert step.note == f"the closed form, unrounded; Table 12 prints {printed} at {r_percent:g} %"
+    decimals = len(printed.partition(".")[2])
+    assert round(step.value, max(decimals, 2)) == float(printed)  # the closed form rounds to it
