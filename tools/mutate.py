@@ -42,7 +42,7 @@ ENGINE = ROOT / "workbench" / "engine"
 TESTS = ROOT / "tests" / "engine"
 
 # Numerical method and display, not physics (see the module docstring).
-SKIPPED_MODULES = frozenset({"__init__", "num", "record", "solve", "sensitivity"})
+SKIPPED_MODULES = frozenset({"__init__", "num", "record", "explain", "solve", "sensitivity"})
 # Functions that make synthetic data or time things (select.random_catalog, benchmark_select):
 # their numbers are sizes and seeds, not physics.
 _SKIPPED_FUNCTION_PREFIXES = ("benchmark", "random_")
