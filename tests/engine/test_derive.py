@@ -385,6 +385,12 @@ def test_lubrication_words_follow_the_branch_used() -> None:
     thrust = CaseInputs(kind="thrust-ball", fa=5000.0, c=50000.0, c0=90000.0, speed=500.0,
                         nu=30.0, dm=60.0, ec=0.5)
     assert derive(thrust).step("load_ratio").formula == "eC·Cu/(3·P)"
+    roller = replace(thrust, kind="thrust-roller", cu=2000.0)
+    d = derive(roller)  # ISO 281:2007 §9.3.2 (from memory): thrust roller eC·Cu/(2.5·P)
+    assert d.step("load_ratio").formula == "eC·Cu/(2.5·P)"
+    assert d.results["load_ratio"] == pytest.approx(0.5 * 2000.0 / (2.5 * 5000.0), rel=1e-12)
+    d = derive(replace(roller, kind="thrust-ball"))  # thrust ball eC·Cu/(3·P)
+    assert d.results["load_ratio"] == pytest.approx(0.5 * 2000.0 / (3 * 5000.0), rel=1e-12)
     assert derive(lubricated).step("load_ratio").formula == "eC·Cu/P"
 
 

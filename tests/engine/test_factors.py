@@ -173,6 +173,16 @@ def test_angular_contact_15_degree_rows(index: float, plain: float, e: float, ys
         assert (plain_pair.y_low, plain_pair.y_high) == pytest.approx((yl, yh), abs=1e-12)
 
 
+def test_table_ends_are_where_the_printed_columns_end() -> None:
+    """Just past the last printed row (6.89 / 0.56 deep groove, 7.14 / 0.58 at 15°) the index is
+    flagged as clamped; just inside it is not (Table 3, as typed above)."""
+    for kind, alpha, ends in ((Kind.DEEP_GROOVE, 0.0, (6.89, 0.56)), (Kind.ANGULAR_CONTACT, 15.0, (7.14, 0.58))):
+        for end, f0 in zip(ends, (1.0, None)):
+            inside = dynamic_factors(kind, Arrangement.SINGLE, alpha, fa=end * 0.999, c0=1.0, f0=f0)
+            past = dynamic_factors(kind, Arrangement.SINGLE, alpha, fa=end * 1.001, c0=1.0, f0=f0)
+            assert (inside.clamped, past.clamped) == (0, 1)
+
+
 @pytest.mark.parametrize(("index", "plain", "e", "ys", "yl", "yh"), ANGULAR_15_ROWS)
 def test_angular_contact_15_degree_closed_forms(index: float, plain: float, e: float, ys: float,
                                                 yl: float, yh: float) -> None:
