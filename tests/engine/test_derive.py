@@ -479,3 +479,15 @@ def test_a1_step_quotes_table_12(r_percent: float, printed: str) -> None:
     assert step.note == f"the closed form, unrounded; Table 12 prints {printed} at {r_percent:g} %"
     decimals = len(printed.partition(".")[2])
     assert round(step.value, max(decimals, 2)) == float(printed)  # the closed form rounds to it
+
+
+@pytest.mark.parametrize(("duty", "ball", "roller"), [("quiet", 2.0, 3.0), ("normal", 1.0, 1.5),
+                                                      ("shock", 1.5, 3.0)])
+def test_static_safety_minimums(duty: str, ball: float, roller: float) -> None:
+    """Common-practice s0 minimums, typed here: quiet 2 / 3, normal 1 / 1.5, shock 1.5 / 3
+    (ball / roller); a required s0 overrides them."""
+    assert derive(replace(BASE, static_duty=duty)).results["s0_min"] == ball
+    cylindrical = CaseInputs(kind="cylindrical", fr=5000.0, c=50000.0, c0=60000.0, speed=500.0,
+                             static_duty=duty)
+    assert derive(cylindrical).results["s0_min"] == roller
+    assert derive(replace(cylindrical, s0_min=4.0)).results["s0_min"] == 4.0
