@@ -19,7 +19,8 @@ from hypothesis import strategies as st
 
 from workbench.engine.kinds import (
     Arrangement, Kind, dynamic_factors, dynamic_load, equivalent_dynamic_load,
-    equivalent_static_load, rotation_factor, static_factors,
+    equivalent_static_load, life_clause, load_clause, rotation_factor, static_clause,
+    static_factors,
 )
 from workbench.engine.record import InputError
 
@@ -368,3 +369,14 @@ def test_thrust_roller_angle_range(alpha: float, refused: bool) -> None:
             dynamic_factors(Kind.THRUST_ROLLER, Arrangement.SINGLE, alpha)
     else:
         assert dynamic_factors(Kind.THRUST_ROLLER, Arrangement.SINGLE, alpha).y_high == 1.0
+
+
+@pytest.mark.parametrize(("kind", "clause"), [
+    (Kind.DEEP_GROOVE, 5), (Kind.ANGULAR_CONTACT, 5), (Kind.SELF_ALIGNING, 5), (Kind.THRUST_BALL, 6),
+    (Kind.CYLINDRICAL, 7), (Kind.TAPERED, 7), (Kind.SPHERICAL, 7), (Kind.THRUST_ROLLER, 8)])
+def test_clauses_cited(kind: Kind, clause: int) -> None:
+    """ISO 281:2007 clause per family (from memory): radial ball 5, thrust ball 6, radial roller 7,
+    thrust roller 8; §n.2 the equivalent load, §n.3 the life; ISO 76:2006 the same numbering."""
+    assert load_clause(kind) == f"ISO 281:2007 §{clause}.2"
+    assert life_clause(kind) == f"ISO 281:2007 §{clause}.3"
+    assert static_clause(kind) == f"ISO 76:2006 §{clause}.2"
