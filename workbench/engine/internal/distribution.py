@@ -488,14 +488,16 @@ def _refuse_impossible(inputs: InternalInputs) -> None:
                                       "geometry; pair it with an opposed bearing")
 
 
-def solve_equilibrium(inputs: InternalInputs, *, stiffness: float | None = None) -> Equilibrium:
+def solve_equilibrium(inputs: InternalInputs, *, stiffness: float | None = None,
+                      start: np.ndarray | None = None) -> Equilibrium:
     """Ring displacements balancing Fr, Fa and M (and a pair's preload), by scipy.optimize.root.
 
     The unknowns are δr, δa (not for a cylindrical bearing: α = 0 gives it no axial stiffness)
     and θ when a moment is given; otherwise θ is held at the given misalignment and the moment
     the rings carry is a result.  Unknowns are scaled by an element's approach under the mean
     load, forces by the largest load.  Powell's hybrid method with the analytic Jacobian first,
-    Levenberg–Marquardt if it stalls, both from Stribeck's estimate.  :class:`NoEquilibrium`
+    Levenberg–Marquardt if it stalls, both from ``start`` (a neighbouring solution, as a sweep
+    passes) or Stribeck's estimate.  :class:`NoEquilibrium`
     names the cause when no position balances the loads.
     """
     from scipy.optimize import root
@@ -527,11 +529,12 @@ def solve_equilibrium(inputs: InternalInputs, *, stiffness: float | None = None)
         error = (force - target) / denominators
         return error[active], (jacobian / denominators[:, None] * scale[None, :])[cross]
 
-    start = _first_guess(inputs, k, n) / scale
+    first = _first_guess(inputs, k, n) if start is None else np.asarray(start, dtype=float)
+    initial = first / scale
     evaluations = 0
     best: tuple[float, np.ndarray, str] | None = None
     for method in ("hybr", "lm"):
-        solution = root(residual, start[active], jac=True, method=method, options={"xtol": 1e-11})
+        solution = root(residual, initial[active], jac=True, method=method, options={"xtol": 1e-11})
         evaluations += int(solution.get("nfev", 0))
         error = float(np.max(np.abs(residual(solution.x)[0])))
         if best is None or error < best[0]:
