@@ -7,6 +7,7 @@ import math
 
 import numpy as np
 import pytest
+from internal_examples import BALL, ROLLER
 
 from workbench.engine.internal import hertz
 from workbench.engine.internal.distribution import (
@@ -21,8 +22,6 @@ from workbench.engine.internal.distribution import (
 )
 from workbench.engine.record import InputError
 
-BALL = InternalInputs("deep-groove", 9, 12.7, 65.0, fr=5000.0)
-ROLLER = InternalInputs("cylindrical", 14, 11.0, 70.0, lwe=11.0, fr=20000.0, profile="straight")
 
 
 def _cos_sum(z: int, n: float) -> float:

@@ -8,6 +8,7 @@ import math
 
 import numpy as np
 import pytest
+from internal_examples import BALL, ROLLER
 
 from workbench.engine.derive import CaseInputs, derive
 from workbench.engine.internal import reference_life
@@ -20,8 +21,6 @@ from workbench.engine.internal.analysis import (
 from workbench.engine.internal.distribution import InternalInputs, NoEquilibrium
 from workbench.engine.ratings import dynamic_rating_radial_ball, dynamic_rating_radial_roller
 
-BALL = InternalInputs("deep-groove", 9, 12.7, 65.0, fr=5000.0)
-ROLLER = InternalInputs("cylindrical", 14, 11.0, 70.0, lwe=11.0, fr=20000.0, profile="straight")
 
 
 def test_equivalent_load_power_means() -> None:

@@ -302,14 +302,24 @@ def _row_results(d: Derivation, inputs: InternalInputs, eq: Equilibrium,
                   value=p, unit="MPa", source=SOURCE_HERTZ,
                   note=f"reference at C0: {limit:.0f} MPa ({SOURCE_ISO76})", warning=warning)
         _row_life_steps(d, inputs, lives, suffix, tag)
-    paired = len(results) > 1
-    best = max(results, key=lambda row: row.q_max)
-    if paired:
-        for key, value in (("Q_max", best.q_max), ("epsilon", best.zone.epsilon),
-                           ("psi_l", best.zone.half_angle_deg), ("p_max_inner", max(r.p_max_inner for r in results)),
-                           ("p_max_outer", max(r.p_max_outer for r in results))):
-            d.results[key] = value
+    if len(results) > 1:
+        _pair_summary_steps(d, results)
     return results
+
+
+def _pair_summary_steps(d: Derivation, rows: list[RowResult]) -> None:
+    """Steps: the pair's headline numbers, from its most loaded row (pressures: the larger)."""
+    best = max(rows, key=lambda row: row.q_max)
+    inner = max(rows, key=lambda row: row.p_max_inner)
+    outer = max(rows, key=lambda row: row.p_max_outer)
+    for key, symbol, label, value, unit, row in (
+            ("Q_max", "Qmax", "largest element load of the pair", best.q_max, "N", best),
+            ("epsilon", "ε", "load zone parameter of the most loaded row", best.zone.epsilon, "", best),
+            ("psi_l", "ψl", "loaded arc of the most loaded row", best.zone.half_angle_deg, "°", best),
+            ("p_max_inner", "pmax,i", "largest contact pressure of the pair, inner", inner.p_max_inner, "MPa", inner),
+            ("p_max_outer", "pmax,o", "largest contact pressure of the pair, outer", outer.p_max_outer, "MPa", outer)):
+        d.add(key, symbol, label, formula="the larger of rows A and B", template=f"row {row.name}",
+              args=(), value=value, unit=unit, source=SOURCE_EQUILIBRIUM)
 
 
 def _row_life_steps(d: Derivation, inputs: InternalInputs, lives: reference_life.RaceLives,
@@ -339,7 +349,7 @@ def _row_life_steps(d: Derivation, inputs: InternalInputs, lives: reference_life
                   formula="[Σk (qck/qek)^(−9/2)]^(−8/9), qck = Qc·ns^(−7/9)",
                   template="Qc = {0}, ns = {1}", args=(capacity, float(inputs.slices)), value=life,
                   unit="10⁶ rev", source=SOURCE_LP)
-    d.add(f"L10r_row{suffix}", "L10r", f"reference rating life of the row{tag}",
+    d.add(f"L10r_row{suffix}" if suffix else "L10r", "L10r", f"reference rating life of the row{tag}",
           formula="(Li^(−e) + Le^(−e))^(−1/e), e = 10/9" if ball else
           "[Σ raceways, slices (qck/qek)^(−9/2)]^(−8/9)",
           template="Li = {0}, Le = {1}", args=(lives.inner, lives.outer), value=lives.row,
@@ -461,8 +471,7 @@ def _life_steps(d: Derivation, inputs: InternalInputs, rows: list[RowResult], c:
               formula="(LA^(−e) + LB^(−e))^(−1/e)", template="LA = {0}, LB = {1}, e = {2}",
               args=(rows[0].life, rows[1].life, slope), value=life, unit="10⁶ rev", source=SOURCE_TS16281)
     else:
-        life = rows[0].life
-        d.results["L10r"] = life
+        life = rows[0].life  # recorded with the row (L10r)
     if inputs.speed > 0.0:
         d.add("L10rh", "L10rh", "reference rating life in hours", formula="L10r·10⁶/(60·n)",
               template="{0} × 10⁶/(60 × {1})", args=(life, inputs.speed),
