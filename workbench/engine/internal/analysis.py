@@ -24,9 +24,10 @@ from ..ratings import (dynamic_rating_radial_ball, dynamic_rating_radial_roller,
 from ..rating_tables import BM_BY_KIND
 from ..record import Derivation, InputError
 from . import hertz, reference_life
-from .distribution import (BallContacts, Equilibrium, InternalInputs, LoadZone, RowState,
-                           ball_contacts, crown_drop, default_row_spacing, is_ball, is_pair,
-                           load_zone, osculations, roller_constant, solve_equilibrium, validate)
+from .distribution import (BallContacts, Equilibrium, InternalInputs, LoadZone, NoEquilibrium,
+                           RowState, ball_contacts, crown_drop, default_row_spacing, is_ball,
+                           is_pair, load_zone, make_rows, osculations, roller_constant,
+                           solve_equilibrium, stribeck_q_max, validate)
 
 NAN = math.nan
 SOURCE_HERTZ = "Hertz; Harris & Kotzalas, Rolling Bearing Analysis"
@@ -262,8 +263,6 @@ def _equilibrium_steps(d: Derivation, inputs: InternalInputs, eq: Equilibrium) -
 
 def _row_results(d: Derivation, inputs: InternalInputs, eq: Equilibrium,
                  contacts: BallContacts | None) -> list[RowResult]:
-    from .distribution import make_rows
-
     rows = make_rows(inputs, d.results["K"], eq.preload_offset)
     ball = contacts is not None
     capacities = _capacity_steps(d, inputs)
@@ -283,6 +282,13 @@ def _row_results(d: Derivation, inputs: InternalInputs, eq: Equilibrium,
         d.add(f"Q_max{suffix}", "Qmax", f"largest element load{tag}", formula="Q = K·δ^n at the most loaded element",
               template="n = {0}, {1} of {2} elements loaded", args=(n, float(loaded), float(inputs.z)),
               value=q_max, unit="N", source=SOURCE_EQUILIBRIUM)
+        if not suffix and inputs.fr > 0.0:
+            d.add("Q_max_stribeck", "Qmax,S", "largest element load by Stribeck, for comparison",
+                  formula="Qmax = Fr/(cos α·Σ cos^(n+1) ψj), zero clearance, pure radial",
+                  template="Fr = {0}, Z = {1}, n = {2}", args=(inputs.fr, float(inputs.z), n),
+                  value=stribeck_q_max(inputs.fr, inputs.z, n, alpha_deg=inputs.alpha_deg),
+                  unit="N", source="Stribeck; Harris & Kotzalas",
+                  note="the equilibrium above adds clearance, thrust and tilt")
         d.add(f"epsilon{suffix}", "ε", f"load zone parameter{tag}",
               formula="ε = (δ0 + δ1)/(2δ1), δψ = δ0 + δ1·cos ψ", template="{0} elements loaded",
               args=(float(loaded),), value=zone.epsilon, unit="", source=SOURCE_SJOVALL,
@@ -598,8 +604,6 @@ def clearance_sweep(inputs: InternalInputs, clearances: list[float]) -> list[Swe
     axial preload is replaced by the clearance.  No steps are recorded: the contact constants and
     raceway capacities are found once, then one equilibrium per point, each starting from the
     last."""
-    from .distribution import NoEquilibrium
-
     validate(inputs)
     base = inputs._replace(preload=0.0)
     ball = is_ball(inputs.kind)
