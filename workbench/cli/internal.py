@@ -68,8 +68,8 @@ def summary_lines(out: dict[str, Any], fmt: Any) -> list[str]:
     lines = [
         f"{out['kind']} ({out['arrangement']}):  Qmax {fmt(out['q_max_N'])} N,  ε {fmt(out['epsilon'])},"
         f"  ψl ±{fmt(out['load_zone_deg'])}°",
-        f"displacement: δr {fmt(q['radial_mm'])} mm, δa {fmt(q['axial_mm'])} mm, θ {fmt(q['tilt_rad'])} rad;"
-        f"  moment {fmt(out['moment_Nmm'])} N·mm",
+        f"displacement: δr {fmt(q['radial_mm'])} mm, δa {fmt(q['axial_mm'])} mm,"
+        f" θ {fmt(q['tilt_rad'])} rad;  moment {fmt(out['moment_Nmm'])} N·mm",
         f"pmax: inner {fmt(p['inner'])} MPa, outer {fmt(p['outer'])} MPa",
         f"stiffness: radial {fmt(k['radial_N_per_mm'])} N/mm, axial {fmt(k['axial_N_per_mm'])} N/mm,"
         f" tilt {fmt(k['tilt_Nmm_per_rad'])} N·mm/rad",

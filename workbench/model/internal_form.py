@@ -134,23 +134,20 @@ def inputs_from_texts(texts: Mapping[str, str]) -> InternalInputs:
         if math.isnan(ec):
             ec = float(contamination_factor(text, dpw)[0])
     moment = values.get("moment")
+    number = {name: float(value) for name, value in values.items()  # type: ignore[arg-type]
+              if isinstance(value, (int, float))}
     return InternalInputs(
-        kind=kind, z=int(values["elements"]), dw=float(values["dw"]), dpw=dpw,  # type: ignore[arg-type]
-        alpha_deg=float(values.get("contact_angle", 0.0)),  # type: ignore[arg-type]
-        lwe=_optional(values.get("lwe")), arrangement=str(values.get("arrangement", "single")),
-        clearance=float(values.get("clearance", 0.0)), preload=float(values.get("preload", 0.0)),  # type: ignore[arg-type]
-        fr=float(values["fr"]), fa=float(values.get("fa", 0.0)),  # type: ignore[arg-type]
-        moment=None if moment is None else 1000.0 * float(moment),  # type: ignore[arg-type]  # N·m → N·mm
-        tilt=float(values.get("tilt", 0.0)), speed=float(values.get("speed", 0.0)),  # type: ignore[arg-type]
-        fi=_optional(values.get("fi")), fe=_optional(values.get("fe")),
-        profile=str(values.get("profile", "crowned")), crown_drop=_optional(values.get("crown_drop")),
-        slices=int(values.get("slices", 30)),  # type: ignore[arg-type]
-        row_spacing=_optional(values.get("row_spacing")), nu=_optional(values.get("nu")), ec=ec,
-        cu=_optional(values.get("cu")), bm=_optional(values.get("bm")), f0=_optional(values.get("f0")))
-
-
-def _optional(value: object) -> float | None:
-    return None if value is None else float(value)  # type: ignore[arg-type]
+        kind=kind, z=int(number["elements"]), dw=number["dw"], dpw=dpw,
+        alpha_deg=number.get("contact_angle", 0.0), lwe=number.get("lwe"),
+        arrangement=str(values.get("arrangement", "single")),
+        clearance=number.get("clearance", 0.0), preload=number.get("preload", 0.0),
+        fr=number["fr"], fa=number.get("fa", 0.0),
+        moment=None if moment is None else 1000.0 * number["moment"],  # N·m → N·mm
+        tilt=number.get("tilt", 0.0), speed=number.get("speed", 0.0),
+        fi=number.get("fi"), fe=number.get("fe"), profile=str(values.get("profile", "crowned")),
+        crown_drop=number.get("crown_drop"), slices=int(number.get("slices", 30)),
+        row_spacing=number.get("row_spacing"), nu=number.get("nu"), ec=ec, cu=number.get("cu"),
+        bm=number.get("bm"), f0=number.get("f0"))
 
 
 def analyse_texts(texts: Mapping[str, str], *, keep_steps: bool = True) -> InternalResult:

@@ -188,7 +188,8 @@ def validate(inputs: InternalInputs) -> None:
             raise InputError("profile", f"use {' or '.join(PROFILES)}")
         if inputs.crown_drop is not None:
             _finite("crown_drop", inputs.crown_drop, low=0.0)
-        if isinstance(inputs.slices, bool) or not isinstance(inputs.slices, int) or not 1 <= inputs.slices <= 200:
+        slices = inputs.slices
+        if isinstance(slices, bool) or not isinstance(slices, int) or not 1 <= slices <= 200:
             raise InputError("slices", "use 1 to 200 slices")
     _finite("clearance", inputs.clearance)
     if abs(inputs.clearance) >= 0.05 * inputs.dw:
