@@ -87,3 +87,26 @@ def test_clearance_curve_for_a_session_case() -> None:
     assert len(points) == 15
     assert points[0].clearance < 0.0 < points[-1].clearance
     assert all(math.isfinite(p.life) for p in points)
+
+
+def test_the_spindle_pair_example_session() -> None:
+    # The example session's wheel-end pair, geometry as its comments give it: the rows share the
+    # thrust (shaft equilibrium), and at the finishing pass's light load the 600 N preload, which
+    # the catalogue method ignores, governs: the reference life falls below the ISO 281 life.
+    from pathlib import Path
+
+    from workbench.model.session import evaluate_case
+    from workbench.model.sessionfile import load_session
+
+    session = load_session(Path(__file__).parents[2] / "sessions" / "spindle-pair.toml")
+    geometry = {"elements": "16", "dw": "11.1 mm", "dpw": "72.5 mm", "row_spacing": "24 mm"}
+    fit = {"preload": "600 N"}
+    results = {}
+    for case in session.cases:
+        inputs = evaluate_case(session, case).inputs
+        assert inputs is not None
+        results[case.name] = internal_for_case(inputs, geometry, fit)
+    rough, finish = results["Roughing pass"], results["Finishing pass"]
+    assert rough.rows[0].axial_load - rough.rows[1].axial_load == pytest.approx(500.0, rel=1e-8)
+    assert finish.results["L10r"] < finish.results["L10_iso281"]
+    assert rough.results["k_radial"] > 0.0 and rough.results["k_tilt"] > 0.0
