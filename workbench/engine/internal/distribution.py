@@ -491,7 +491,7 @@ def _refuse_impossible(inputs: InternalInputs) -> None:
 
 
 def solve_equilibrium(inputs: InternalInputs, *, stiffness: float | None = None,
-                      start: np.ndarray | None = None) -> Equilibrium:
+                      start: np.ndarray | None = None, continuation: bool = True) -> Equilibrium:
     """Ring displacements balancing Fr, Fa and M (and a pair's preload), by scipy.optimize.root.
 
     The unknowns are δr, δa (not for a cylindrical bearing: α = 0 gives it no axial stiffness)
@@ -500,7 +500,9 @@ def solve_equilibrium(inputs: InternalInputs, *, stiffness: float | None = None,
     load, forces by the largest load.  Levenberg–Marquardt with the analytic Jacobian first (fewer
     evaluations than Powell's hybrid method on these cases), the hybrid method if it stalls, both
     from ``start`` (a neighbouring solution, as a sweep
-    passes) or Stribeck's estimate.  :class:`NoEquilibrium`
+    passes) or Stribeck's estimate.  When a given moment defeats both, the moment is reached in
+    steps from the one the rings carry untilted (``continuation``), each step starting from the
+    last.  :class:`NoEquilibrium`
     names the cause when no position balances the loads.
     """
     from scipy.optimize import root
@@ -532,28 +534,78 @@ def solve_equilibrium(inputs: InternalInputs, *, stiffness: float | None = None,
         error = (force - target) / denominators
         return error[active], (jacobian / denominators[:, None] * scale[None, :])[cross]
 
-    first = _first_guess(inputs, k, n) if start is None else np.asarray(start, dtype=float)
-    initial = first / scale
+    guesses = [_first_guess(inputs, k, n)]
+    if start is not None:
+        guesses.insert(0, np.asarray(start, dtype=float))
+    if inputs.moment:
+        guesses.append(np.array([guesses[-1][0], guesses[-1][1], inputs.tilt]))
     evaluations = 0
     best: tuple[float, np.ndarray, str] | None = None
-    for method in METHODS:
-        solution = root(residual, initial[active], jac=True, method=method, options={"xtol": 1e-11})
-        evaluations += int(solution.get("nfev", 0))
-        error = float(np.max(np.abs(residual(solution.x)[0])))
-        if best is None or error < best[0]:
-            best = (error, solution.x, method)
-        if error < RESIDUAL_TOLERANCE:
+    for guess in guesses:
+        initial = _in_contact(rows, guess, active) / scale
+        for method in METHODS:
+            solution = root(residual, initial[active], jac=True, method=method,
+                            options={"xtol": 1e-11})
+            evaluations += int(solution.get("nfev", 0))
+            error = float(np.max(np.abs(residual(solution.x)[0])))
+            if best is None or error < best[0]:
+                best = (error, solution.x, method)
+            if error < RESIDUAL_TOLERANCE:
+                break
+        if best is not None and best[0] < RESIDUAL_TOLERANCE:
             break
     assert best is not None
     error, x, method = best
     if error >= RESIDUAL_TOLERANCE:
-        raise NoEquilibrium("fr", f"no ring position balances these loads (the solver's best "
-                                  f"leaves {error:.1e} of the load unbalanced)")
+        cause = NoEquilibrium("moment" if inputs.moment else "fr", _unbalanced_cause(inputs, error))
+        if continuation and inputs.moment is not None:
+            return _moment_in_steps(inputs, k, cause)
+        raise cause
     q = displacement(x)
     states = [row.state(q) for row in rows]
     _check_result(inputs, states)
     force, jacobian = _total(rows, q)
     return Equilibrium(q, force, jacobian, states, evaluations, error, method, offset)
+
+
+def _moment_in_steps(inputs: InternalInputs, stiffness: float, cause: NoEquilibrium,
+                     steps: int = 8) -> Equilibrium:
+    """Continuation in the moment: from the untilted rings' own moment M0 to M in ``steps``;
+    ``cause`` is raised if the untilted rings have no equilibrium to start from."""
+    try:
+        held = solve_equilibrium(inputs._replace(moment=None), stiffness=stiffness,
+                                 continuation=False)
+    except (NoEquilibrium, InputError):
+        raise cause from None
+    carried = float(held.reactions[2])
+    target = float(inputs.moment or 0.0)
+    result, evaluations = held, held.evaluations
+    for step in range(1, steps + 1):
+        moment = carried + (target - carried) * step / steps
+        result = solve_equilibrium(inputs._replace(moment=moment), stiffness=stiffness,
+                                   start=result.displacement, continuation=False)
+        evaluations += result.evaluations
+    return result._replace(evaluations=evaluations, method=f"{result.method}, moment in steps")
+
+
+def _in_contact(rows: list[Row], guess: np.ndarray, active: np.ndarray) -> np.ndarray:
+    """``guess`` with its free displacements grown by half again until some element is in
+    contact (a start with none gives the solver a zero Jacobian), at most 40 times."""
+    q = guess.copy()
+    for _ in range(40):
+        if any(np.any(row.approach(q)[0] > 0.0) for row in rows):
+            break
+        q[active] *= 1.5
+    return q
+
+
+def _unbalanced_cause(inputs: InternalInputs, error: float) -> str:
+    """Words for a load no position balances, naming the likely cause."""
+    words = (f"no ring position balances these loads (the solver's best leaves {error:.1e} of the "
+             "load unbalanced)")
+    if inputs.moment and not is_pair(inputs):
+        return words + ": the moment is likely too large for a single row under these loads"
+    return words
 
 
 def _first_guess(inputs: InternalInputs, k: float, n: float) -> np.ndarray:
@@ -570,6 +622,8 @@ def _first_guess(inputs: InternalInputs, k: float, n: float) -> np.ndarray:
         sin_a = max(math.sin(alpha), 0.1)
         q_axial = abs(inputs.fa) / (inputs.z * sin_a)
         guess[1] = math.copysign((q_axial / k) ** (1.0 / n) / sin_a, inputs.fa)
+        if not is_ball(inputs.kind) and pd > 0.0:  # a roller row's axial play first
+            guess[1] += math.copysign(0.5 * pd * math.cos(alpha) / sin_a, inputs.fa)
         if is_ball(inputs.kind) and pd > 0.0:  # the free contact angle's axial play first
             fi, fe = osculations(inputs)
             a = (fi + fe - 1.0) * inputs.dw
