@@ -7,6 +7,8 @@ import math
 
 import numpy as np
 import pytest
+from hypothesis import given, settings
+from hypothesis import strategies as st
 from internal_examples import BALL, ROLLER
 
 from workbench.engine.internal import hertz
@@ -268,3 +270,31 @@ def test_bad_inputs_name_the_input(changes: dict[str, object], field: str) -> No
     with pytest.raises(InputError) as info:
         solve_equilibrium(BALL._replace(**changes))
     assert info.value.field == field
+
+
+@settings(max_examples=40, derandomize=True, deadline=None)
+@given(kind=st.sampled_from(["deep-groove", "angular-contact", "cylindrical", "tapered"]),
+       pair=st.booleans(), fr=st.floats(0.0, 0.4), fa=st.floats(-0.2, 0.4),
+       clearance=st.floats(-0.002, 0.006), moment=st.one_of(st.none(), st.floats(-0.05, 0.05)))
+def test_either_balanced_or_a_named_cause(kind: str, pair: bool, fr: float, fa: float,
+                                          clearance: float, moment: float | None) -> None:
+    # Any load on any covered kind: an equilibrium whose reactions balance the loads (residual
+    # below 1e-8 of the largest), or NoEquilibrium / InputError naming an input, nothing else.
+    dw, dpw, z = 10.0, 60.0, 14
+    capacity = 100.0 * z * dw ** 1.8  # of the order of C (N)
+    arrangement = "back-to-back" if pair and kind in ("angular-contact", "tapered") else "single"
+    inputs = InternalInputs(
+        kind, z, dw, dpw, alpha_deg=0.0 if kind in ("deep-groove", "cylindrical") else 25.0,
+        lwe=12.0 if kind in ("cylindrical", "tapered") else None, arrangement=arrangement,
+        clearance=clearance * dw, fr=fr * capacity, fa=fa * capacity,
+        moment=None if moment is None else moment * capacity * dpw)
+    try:
+        eq = solve_equilibrium(inputs)
+    except (NoEquilibrium, InputError) as exc:
+        assert exc.field and exc.message
+        return
+    target = np.array([inputs.fr, 0.0 if kind == "cylindrical" else inputs.fa,
+                       eq.reactions[2] if inputs.moment is None else inputs.moment])
+    scale = max(inputs.fr, abs(inputs.fa), 1.0)
+    assert np.allclose(eq.reactions * [1, 1, 1 / (0.5 * dpw)], target * [1, 1, 1 / (0.5 * dpw)],
+                       atol=1e-8 * scale)
