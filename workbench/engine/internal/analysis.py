@@ -22,6 +22,7 @@ from ..life import aiso, fatigue_load_limit_estimate, kappa_in_range, life_hours
 from ..ratings import (dynamic_rating_radial_ball, dynamic_rating_radial_roller,
                        static_rating_radial_ball, static_rating_radial_roller)
 from ..rating_tables import BM_BY_KIND
+from ..num import cosd, tand
 from ..record import Derivation, InputError
 from . import hertz, reference_life
 from .distribution import (BallContacts, Equilibrium, InternalInputs, LoadZone, NoEquilibrium,
@@ -154,118 +155,118 @@ def _row_names(inputs: InternalInputs) -> tuple[str, ...]:
 
 def _geometry_steps(d: Derivation, inputs: InternalInputs) -> None:
     alpha = inputs.alpha_deg
-    d.add("gamma", symbol="γ", label="geometry ratio", formula="γ = Dw·cos α/Dpw",
-          template="γ = {0}·cos {1}°/{2}", args=(inputs.dw, alpha, inputs.dpw),
-          value=inputs.dw * math.cos(math.radians(alpha)) / inputs.dpw, unit="",
-          source=SOURCE_HERTZ)
+    d.add("gamma", inputs.dw * cosd(alpha) / inputs.dpw, symbol="γ", label="geometry ratio",
+          formula="γ = Dw·cos α/Dpw", template="γ = {0}·cos {1}°/{2}",
+          args=(inputs.dw, alpha, inputs.dpw), unit="", source=SOURCE_HERTZ)
     if inputs.preload > 0.0:
-        d.add("preload", symbol="Fpre", label="axial preload of the pair", formula="given",
-              template="{0}", args=(inputs.preload,), value=inputs.preload, unit="N",
-              source="input")
+        d.add("preload", inputs.preload, symbol="Fpre", label="axial preload of the pair",
+              formula="given", template="{0}", args=(inputs.preload,), unit="N", source="input")
     else:
-        d.add("Pd", symbol="Pd", label="operating diametral clearance",
+        d.add("Pd", inputs.clearance, symbol="Pd", label="operating diametral clearance",
               formula="given (negative: preload)", template="{0}", args=(inputs.clearance,),
-              value=inputs.clearance, unit="mm", source="input",
+              unit="mm", source="input",
               note="preload" if inputs.clearance < 0.0 else None)
     if is_pair(inputs):
         spacing = inputs.row_spacing if inputs.row_spacing is not None else default_row_spacing(inputs)
-        d.add("row_spacing", symbol="L", label="distance between the pair's row centres",
+        d.add("row_spacing", spacing, symbol="L", label="distance between the pair's row centres",
               formula="given" if inputs.row_spacing is not None else
-              ("2·Dw (assumed)" if is_ball(inputs.kind) else "Lwe + Dwe (assumed)"),
-              template="{0}", args=(spacing,), value=spacing, unit="mm",
+              ("2·Dw (assumed)" if is_ball(inputs.kind) else "Lwe + Dwe (assumed)"), template="{0}",
+              args=(spacing,), unit="mm",
               source="input" if inputs.row_spacing is not None else "assumption (give the drawing's)")
 
 
 def _ball_contact_steps(d: Derivation, inputs: InternalInputs, contacts: BallContacts) -> float:
     fi, fe = osculations(inputs)
     for key, symbol, value, given in (("fi", "fi", fi, inputs.fi), ("fe", "fe", fe, inputs.fe)):
-        d.add(key, symbol=symbol, label=f"{'inner' if key == 'fi' else 'outer'} raceway osculation",
-              formula="groove radius/Dw", template="{0}", args=(value,), value=value, unit="",
+        d.add(key, value, symbol=symbol,
+              label=f"{'inner' if key == 'fi' else 'outer'} raceway osculation",
+              formula="groove radius/Dw", template="{0}", args=(value,), unit="",
               source="input" if given is not None else "common practice default (0.52 inner, 0.53 outer)")
     for side, curvature, ellipse, k in (("i", contacts.inner, contacts.inner_ellipse, contacts.k_inner),
                                         ("e", contacts.outer, contacts.outer_ellipse, contacts.k_outer)):
         word = "inner" if side == "i" else "outer"
-        d.add(f"sum_rho_{side}", symbol=f"Σρ{side}", label=f"curvature sum, {word} contact",
+        d.add(f"sum_rho_{side}", curvature.curvature_sum, symbol=f"Σρ{side}",
+              label=f"curvature sum, {word} contact",
               formula="Σρ = 4/Dw ± (2/Dw)·γ/(1 ∓ γ) − 1/(f·Dw)",
               template="Dw = {0}, γ = {1}, f = {2}",
-              args=(inputs.dw, d.results["gamma"], fi if side == "i" else fe),
-              value=curvature.curvature_sum, unit="1/mm", source=SOURCE_HERTZ)
-        d.add(f"F_rho_{side}", symbol=f"F(ρ){side}", label=f"curvature difference, {word} contact",
-              formula="F(ρ) = [(ρI1 − ρI2) + (ρII1 − ρII2)]/Σρ", template="Σρ = {0}",
-              args=(curvature.curvature_sum,), value=curvature.curvature_difference, unit="",
+              args=(inputs.dw, d.results["gamma"], fi if side == "i" else fe), unit="1/mm",
               source=SOURCE_HERTZ)
-        d.add(f"k_{side}", symbol=f"k{side}", label=f"ellipticity a/b, {word} contact",
+        d.add(f"F_rho_{side}", curvature.curvature_difference, symbol=f"F(ρ){side}",
+              label=f"curvature difference, {word} contact",
+              formula="F(ρ) = [(ρI1 − ρI2) + (ρII1 − ρII2)]/Σρ", template="Σρ = {0}",
+              args=(curvature.curvature_sum,), unit="", source=SOURCE_HERTZ)
+        d.add(f"k_{side}", ellipse.k, symbol=f"k{side}", label=f"ellipticity a/b, {word} contact",
               formula="F(ρ) = [(k² + 1)·E(e) − 2K(e)]/[(k² − 1)·E(e)], e² = 1 − 1/k²",
               template="F(ρ) = {0}: K = {1}, E = {2}",
               args=(curvature.curvature_difference, ellipse.first_kind, ellipse.second_kind),
-              value=ellipse.k, unit="", source=SOURCE_HERTZ,
+              unit="", source=SOURCE_HERTZ,
               note="complete elliptic integrals by scipy.special.ellipk/ellipe")
-        d.add(f"K_{side}", symbol=f"K{side}", label=f"load–deflection constant, {word} contact",
+        d.add(f"K_{side}", k, symbol=f"K{side}", label=f"load–deflection constant, {word} contact",
               formula="Q = K·δ^(3/2), K = (Σρ·E'/3)·(2/(δ*·Σρ))^(3/2)",
               template="Σρ = {0}, E' = {1}",
-              args=(curvature.curvature_sum, hertz.REDUCED_MODULUS_STEEL), value=k, unit="N/mm^1.5",
+              args=(curvature.curvature_sum, hertz.REDUCED_MODULUS_STEEL), unit="N/mm^1.5",
               source=SOURCE_HERTZ, note="steel, E = 207 GPa, ν = 0.3")
-    return d.add("K", symbol="K", label="load–deflection constant of one ball (both contacts)",
+    return d.add("K", contacts.k_element, symbol="K",
+                 label="load–deflection constant of one ball (both contacts)",
                  formula="K = [(1/Ki)^(2/3) + (1/Ke)^(2/3)]^(−3/2)", template="Ki = {0}, Ke = {1}",
-                 args=(contacts.k_inner, contacts.k_outer), value=contacts.k_element,
-                 unit="N/mm^1.5", source=SOURCE_HERTZ)
+                 args=(contacts.k_inner, contacts.k_outer), unit="N/mm^1.5", source=SOURCE_HERTZ)
 
 
 def _roller_contact_steps(d: Derivation, inputs: InternalInputs) -> float:
     lwe = float(inputs.lwe or 0.0)
     single = hertz.line_contact_constant(lwe)
-    d.add("K_line", symbol="Kl", label="load–deflection constant, one line contact",
+    d.add("K_line", single, symbol="Kl", label="load–deflection constant, one line contact",
           formula="δ = 3.84·10⁻⁵·Q^0.9/Lwe^0.8 ⇒ K = Lwe^(8/9)/(3.84·10⁻⁵)^(10/9)",
-          template="Lwe = {0}", args=(lwe,), value=single, unit="N/mm^(10/9)",
+          template="Lwe = {0}", args=(lwe,), unit="N/mm^(10/9)",
           source=SOURCE_PALMGREN, note="steel, from memory")
     drop = crown_drop(inputs)
-    d.add("slices", symbol="ns", label="slices per roller", formula="laminae of width Lwe/ns",
-          template="{0}", args=(float(inputs.slices),), value=float(inputs.slices), unit="",
+    d.add("slices", float(inputs.slices), symbol="ns", label="slices per roller",
+          formula="laminae of width Lwe/ns", template="{0}", args=(float(inputs.slices),), unit="",
           source=SOURCE_TS16281, note=f"{inputs.profile} profile")
-    d.add("crown_drop", symbol="c", label="crown gap at each roller end",
-          formula="parabolic crown c·(2x/Lwe)²", template="{0}", args=(drop,), value=drop,
+    d.add("crown_drop", drop, symbol="c", label="crown gap at each roller end",
+          formula="parabolic crown c·(2x/Lwe)²", template="{0}", args=(drop,), 
           unit="mm", source="input" if inputs.crown_drop is not None or inputs.profile == "straight"
           else "assumption: 0.001·Lwe")
-    return d.add("K", symbol="K", label="load–deflection constant of one roller (both contacts)",
+    return d.add("K", roller_constant(lwe), symbol="K",
+                 label="load–deflection constant of one roller (both contacts)",
                  formula="K = Kl·2^(−10/9), shared among the slices by width", template="Kl = {0}",
-                 args=(single,), value=roller_constant(lwe), unit="N/mm^(10/9)",
-                 source=SOURCE_PALMGREN)
+                 args=(single,), unit="N/mm^(10/9)", source=SOURCE_PALMGREN)
 
 
 def _equilibrium_steps(d: Derivation, inputs: InternalInputs, eq: Equilibrium) -> None:
     if eq.preload_offset > 0.0:
-        d.add("delta_pre", symbol="δpre", label="axial preload interference per row",
+        d.add("delta_pre", eq.preload_offset, symbol="δpre",
+              label="axial preload interference per row",
               formula="row's axial reaction = Fpre (rings centred)", template="Fpre = {0}",
-              args=(inputs.preload,), value=eq.preload_offset, unit="mm", source=SOURCE_EQUILIBRIUM,
-              note="Brent's method")
+              args=(inputs.preload,), unit="mm", source=SOURCE_EQUILIBRIUM, note="Brent's method")
     q = eq.displacement
     how = (f"scipy.optimize.root ({'Powell hybrid' if eq.method == 'hybr' else 'Levenberg–Marquardt'},"
            f" analytic Jacobian), {eq.evaluations} evaluations, residual {eq.residual:.1e}")
-    d.add("delta_r", symbol="δr", label="radial displacement of the inner ring",
-          formula="Σ Q·∂δ/∂δr = Fr", template="Fr = {0}", args=(inputs.fr,), value=float(q[0]),
+    d.add("delta_r", float(q[0]), symbol="δr", label="radial displacement of the inner ring",
+          formula="Σ Q·∂δ/∂δr = Fr", template="Fr = {0}", args=(inputs.fr,), 
           unit="mm", source=SOURCE_EQUILIBRIUM, note=how)
     if inputs.kind == "cylindrical":
-        d.add("delta_a", symbol="δa", label="axial displacement",
-              formula="α = 0°: no axial stiffness", template="0", args=(), value=0.0, unit="mm",
+        d.add("delta_a", 0.0, symbol="δa", label="axial displacement",
+              formula="α = 0°: no axial stiffness", template="0", args=(), unit="mm",
               source=SOURCE_EQUILIBRIUM,
               warning=("Fa is carried by the ribs, outside this analysis: the raceway loads "
                        "below are from Fr and the moment") if inputs.fa != 0.0 else None)
     else:
-        d.add("delta_a", symbol="δa", label="axial displacement of the inner ring",
-              formula="Σ Q·∂δ/∂δa = Fa", template="Fa = {0}", args=(inputs.fa,), value=float(q[1]),
+        d.add("delta_a", float(q[1]), symbol="δa", label="axial displacement of the inner ring",
+              formula="Σ Q·∂δ/∂δa = Fa", template="Fa = {0}", args=(inputs.fa,), 
               unit="mm", source=SOURCE_EQUILIBRIUM)
     if inputs.moment is not None:
-        d.add("theta", symbol="θ", label="tilt of the inner ring", formula="Σ Q·∂δ/∂θ = M",
-              template="M = {0}", args=(inputs.moment,), value=float(q[2]), unit="rad",
+        d.add("theta", float(q[2]), symbol="θ", label="tilt of the inner ring",
+              formula="Σ Q·∂δ/∂θ = M", template="M = {0}", args=(inputs.moment,), unit="rad",
               source=SOURCE_EQUILIBRIUM)
-        d.add("M", symbol="M", label="tilting moment", formula="given", template="{0}",
-              args=(inputs.moment,), value=inputs.moment, unit="N·mm", source="input")
+        d.add("M", inputs.moment, symbol="M", label="tilting moment", formula="given",
+              template="{0}", args=(inputs.moment,), unit="N·mm", source="input")
     else:
-        d.add("theta", symbol="θ", label="tilt of the inner ring (held)",
-              formula="given misalignment", template="{0}", args=(inputs.tilt,), value=inputs.tilt,
+        d.add("theta", inputs.tilt, symbol="θ", label="tilt of the inner ring (held)",
+              formula="given misalignment", template="{0}", args=(inputs.tilt,), 
               unit="rad", source="input")
-        d.add("M", symbol="M", label="moment the rings carry at that tilt", formula="M = Σ Q·∂δ/∂θ",
-              template="θ = {0}", args=(inputs.tilt,), value=float(eq.reactions[2]), unit="N·mm",
+        d.add("M", float(eq.reactions[2]), symbol="M", label="moment the rings carry at that tilt",
+              formula="M = Σ Q·∂δ/∂θ", template="θ = {0}", args=(inputs.tilt,), unit="N·mm",
               source=SOURCE_EQUILIBRIUM)
 
 
@@ -287,39 +288,39 @@ def _row_results(d: Derivation, inputs: InternalInputs, eq: Equilibrium,
                                  loaded, p_inner, p_outer, lives.inner, lives.outer, lives.row))
         tag = f" (row {name})" if name else ""
         suffix = f"_{name}" if name else ""
-        d.add(f"Q_max{suffix}", symbol="Qmax", label=f"largest element load{tag}",
+        d.add(f"Q_max{suffix}", q_max, symbol="Qmax", label=f"largest element load{tag}",
               formula="Q = K·δ^n at the most loaded element",
               template="n = {0}, {1} of {2} elements loaded",
-              args=(n, float(loaded), float(inputs.z)), value=q_max, unit="N",
+              args=(n, float(loaded), float(inputs.z)), unit="N",
               source=SOURCE_EQUILIBRIUM)
         if not suffix and inputs.fr > 0.0:
-            d.add("Q_max_stribeck", symbol="Qmax,S",
-                  label="largest element load by Stribeck, for comparison",
+            d.add("Q_max_stribeck",
+                  stribeck_q_max(inputs.fr, inputs.z, n, alpha_deg=inputs.alpha_deg),
+                  symbol="Qmax,S", label="largest element load by Stribeck, for comparison",
                   formula="Qmax = Fr/(cos α·Σ cos^(n+1) ψj), zero clearance, pure radial",
                   template="Fr = {0}, Z = {1}, n = {2}", args=(inputs.fr, float(inputs.z), n),
-                  value=stribeck_q_max(inputs.fr, inputs.z, n, alpha_deg=inputs.alpha_deg),
                   unit="N", source="Stribeck; Harris & Kotzalas",
                   note="the equilibrium above adds clearance, thrust and tilt")
-        d.add(f"epsilon{suffix}", symbol="ε", label=f"load zone parameter{tag}",
+        d.add(f"epsilon{suffix}", zone.epsilon, symbol="ε", label=f"load zone parameter{tag}",
               formula="ε = (δ0 + δ1)/(2δ1), δψ = δ0 + δ1·cos ψ", template="{0} elements loaded",
-              args=(float(loaded),), value=zone.epsilon, unit="", source=SOURCE_SJOVALL,
+              args=(float(loaded),), unit="", source=SOURCE_SJOVALL,
               note="ε = 0.5: half the ring loaded (zero clearance); > 0.5 preload; ∞ pure thrust")
-        d.add(f"psi_l{suffix}", symbol="ψl",
+        d.add(f"psi_l{suffix}", zone.half_angle_deg, symbol="ψl",
               label=f"loaded arc, ± from the most loaded element{tag}",
               formula="ψl = arccos(−δ0/δ1)", template="ε = {0}", args=(zone.epsilon,),
-              value=zone.half_angle_deg, unit="°", source=SOURCE_SJOVALL)
+              unit="°", source=SOURCE_SJOVALL)
         limit = hertz.STATIC_REFERENCE_PRESSURE_BALL if ball else hertz.STATIC_REFERENCE_PRESSURE_ROLLER
         for side, p in (("inner", p_inner), ("outer", p_outer)):
             warning = None
             if p > limit:
                 warning = (f"{side} raceway{tag}: pmax = {p:.0f} MPa exceeds the {limit:.0f} MPa "
                            "ISO 76 takes at C0 (permanent deformation beyond 0.0001·Dw)")
-            d.add(f"p_max_{side}{suffix}", symbol=f"pmax,{side[0]}",
+            d.add(f"p_max_{side}{suffix}", p, symbol=f"pmax,{side[0]}",
                   label=f"largest contact pressure, {side} raceway{tag}",
                   formula="pmax = 3Q/(2π·a·b)" if ball else
                   "pmax = 2q/(π·b·w), b = (8q/(π·w·Σρ·E'))^(1/2)",
                   template="Q = {0}" if ball else "slice width w = {0}",
-                  args=(q_max,) if ball else (width,), value=p, unit="MPa", source=SOURCE_HERTZ,
+                  args=(q_max,) if ball else (width,), unit="MPa", source=SOURCE_HERTZ,
                   note=f"reference at C0: {limit:.0f} MPa ({SOURCE_ISO76})", warning=warning)
         _row_life_steps(d, inputs, lives, suffix, tag)
     if len(results) > 1:
@@ -340,8 +341,8 @@ def _pair_summary_steps(d: Derivation, rows: list[RowResult]) -> None:
              inner.p_max_inner, "MPa", inner),
             ("p_max_outer", "pmax,o", "largest contact pressure of the pair, outer",
              outer.p_max_outer, "MPa", outer)):
-        d.add(key, symbol=symbol, label=label, formula="the larger of rows A and B",
-              template=f"row {row.name}", args=(), value=value, unit=unit,
+        d.add(key, value, symbol=symbol, label=label, formula="the larger of rows A and B",
+              template=f"row {row.name}", args=(), unit=unit,
               source=SOURCE_EQUILIBRIUM)
 
 
@@ -355,30 +356,31 @@ def _row_life_steps(d: Derivation, inputs: InternalInputs, lives: reference_life
         rotating = (side == "inner") != inputs.outer_ring_rotates
         if ball:
             power = "3" if rotating else "10/3"
-            d.add(f"Qe_{side}{suffix}", symbol=f"Qe{side[0]}",
+            d.add(f"Qe_{side}{suffix}", load, symbol=f"Qe{side[0]}",
                   label=f"equivalent reference load, {side} raceway{tag}",
                   formula=f"((1/Z)·Σ Q^{power})^(1/{power})", template="Z = {0}",
-                  args=(float(inputs.z),), value=load, unit="N", source=SOURCE_LP,
+                  args=(float(inputs.z),), unit="N", source=SOURCE_LP,
                   note="ring rotating against the load" if rotating else "ring stationary against the load")
-            d.add(f"L_{side}{suffix}", symbol=f"L{side[0]}", label=f"{side} raceway life{tag}",
-                  formula="(Qc/Qe)³", template="({0}/{1})³", args=(capacity, load), value=life,
-                  unit="10⁶ rev", source=SOURCE_LP)
+            d.add(f"L_{side}{suffix}", life, symbol=f"L{side[0]}",
+                  label=f"{side} raceway life{tag}", formula="(Qc/Qe)³", template="({0}/{1})³",
+                  args=(capacity, load), unit="10⁶ rev", source=SOURCE_LP)
         else:
             power = "4" if rotating else "4.5"
-            d.add(f"Qe_{side}{suffix}", symbol=f"qe{side[0]}",
+            d.add(f"Qe_{side}{suffix}", load, symbol=f"qe{side[0]}",
                   label=f"equivalent slice load, {side} raceway, " f"most loaded slice{tag}",
                   formula=f"((1/Z)·Σ q^{power})^(1/{power}) per slice", template="Z = {0}",
-                  args=(float(inputs.z),), value=load, unit="N", source=SOURCE_LP,
+                  args=(float(inputs.z),), unit="N", source=SOURCE_LP,
                   note="ring rotating against the load" if rotating else "ring stationary against the load")
-            d.add(f"L_{side}{suffix}", symbol=f"L{side[0]}", label=f"{side} raceway life{tag}",
+            d.add(f"L_{side}{suffix}", life, symbol=f"L{side[0]}",
+                  label=f"{side} raceway life{tag}",
                   formula="[Σk (qck/qek)^(−9/2)]^(−8/9), qck = Qc·ns^(−7/9)",
-                  template="Qc = {0}, ns = {1}", args=(capacity, float(inputs.slices)), value=life,
+                  template="Qc = {0}, ns = {1}", args=(capacity, float(inputs.slices)),
                   unit="10⁶ rev", source=SOURCE_LP)
-    d.add(f"L10r_row{suffix}" if suffix else "L10r", symbol="L10r",
+    d.add(f"L10r_row{suffix}" if suffix else "L10r", lives.row, symbol="L10r",
           label=f"reference rating life of the row{tag}",
           formula="(Li^(−e) + Le^(−e))^(−1/e), e = 10/9" if ball else
           "[Σ raceways, slices (qck/qek)^(−9/2)]^(−8/9)",
-          template="Li = {0}, Le = {1}", args=(lives.inner, lives.outer), value=lives.row,
+          template="Li = {0}, Le = {1}", args=(lives.inner, lives.outer), 
           unit="10⁶ rev", source=SOURCE_TS16281)
 
 
@@ -391,10 +393,11 @@ def _capacity_steps(d: Derivation, inputs: InternalInputs) -> tuple[float, float
                "Qc = bm·0.83·552·(1 ∓ γ)^(29/27)/(1 ± γ)^(1/4)·(Dwe/Dpw)^(2/9)·Dwe^(29/27)"
                "·Lwe^(7/9)·Z^(−1/4)")
     for side, value in (("inner", q_ci), ("outer", q_ce)):
-        d.add(f"Qc_{side}", symbol=f"Qc{side[0]}", label=f"basic dynamic capacity, {side} raceway",
-              formula=formula, template="bm = {0}, γ = {1}, Z = {2}",
-              args=(_bm(inputs), d.results["gamma"], float(inputs.z)), value=value, unit="N",
-              source=SOURCE_LP, note="constants from memory")
+        d.add(f"Qc_{side}", value, symbol=f"Qc{side[0]}",
+              label=f"basic dynamic capacity, {side} raceway", formula=formula,
+              template="bm = {0}, γ = {1}, Z = {2}",
+              args=(_bm(inputs), d.results["gamma"], float(inputs.z)), unit="N", source=SOURCE_LP,
+              note="constants from memory")
     return q_ci, q_ce
 
 
@@ -448,9 +451,9 @@ def _stiffness_steps(d: Derivation, eq: Equilibrium) -> None:
             ("k_radial", "kr", "radial stiffness", 0, "N/mm"),
             ("k_axial", "ka", "axial stiffness", 1, "N/mm"),
             ("k_tilt", "kθ", "tilting stiffness", 2, "N·mm/rad")):
-        d.add(key, symbol=symbol, label=label,
+        d.add(key, float(k[index, index]), symbol=symbol, label=label,
               formula=f"∂F/∂q at equilibrium (diagonal term {index + 1})",
-              template="from the analytic Jacobian", args=(), value=float(k[index, index]),
+              template="from the analytic Jacobian", args=(), 
               unit=unit, source=SOURCE_EQUILIBRIUM)
 
 
@@ -475,12 +478,12 @@ def _rating_steps(d: Derivation, inputs: InternalInputs,
         c0 = static_rating_radial_roller(rows, inputs.z, inputs.dw, lwe, inputs.alpha_deg, inputs.dpw)
         c0_how = "C0r = 44·(1 − γ)·i·Z·Lwe·Dwe·cos α"
         c0_source = "ISO 76:2006 §6.1 (from memory)"
-    d.add("C", symbol="C", label="basic dynamic load rating from the geometry",
+    d.add("C", float(c), symbol="C", label="basic dynamic load rating from the geometry",
           formula="ISO 281 Cr (ball or roller formula)", template="i = {0}, Z = {1}, bm = {2}",
-          args=(float(rows), float(inputs.z), bm), value=float(c), unit="N",
+          args=(float(rows), float(inputs.z), bm), unit="N",
           source="ISO 281:2007 §5.1/§7.1 (from memory)")
-    d.add("C0", symbol="C0", label="basic static load rating", formula=c0_how,
-          template="i = {0}, Z = {1}", args=(float(rows), float(inputs.z)), value=float(c0),
+    d.add("C0", float(c0), symbol="C0", label="basic static load rating", formula=c0_how,
+          template="i = {0}, Z = {1}", args=(float(rows), float(inputs.z)), 
           unit="N", source=c0_source)
     return float(c), float(c0)
 
@@ -491,7 +494,7 @@ def _static_rating_by_pressure(inputs: InternalInputs, contacts: BallContacts, r
     probe = 1000.0
     p_probe = hertz.point_contact(probe, contacts.inner, contacts.inner_ellipse).p_max
     q0 = probe * (hertz.STATIC_REFERENCE_PRESSURE_BALL / p_probe) ** 3
-    return q0 * rows * inputs.z * math.cos(math.radians(inputs.alpha_deg)) / STRIBECK_DESIGN_CONSTANT
+    return q0 * rows * inputs.z * cosd(inputs.alpha_deg) / STRIBECK_DESIGN_CONSTANT
 
 
 def _life_steps(d: Derivation, inputs: InternalInputs, rows: list[RowResult], c: float) -> None:
@@ -499,45 +502,47 @@ def _life_steps(d: Derivation, inputs: InternalInputs, rows: list[RowResult], c:
     slope = reference_life.BALL_WEIBULL_SLOPE if ball else reference_life.ROLLER_WEIBULL_SLOPE
     if len(rows) > 1:
         life = reference_life.combine_lives([row.life for row in rows], slope)
-        d.add("L10r", symbol="L10r", label="reference rating life of the pair",
+        d.add("L10r", life, symbol="L10r", label="reference rating life of the pair",
               formula="(LA^(−e) + LB^(−e))^(−1/e)", template="LA = {0}, LB = {1}, e = {2}",
-              args=(rows[0].life, rows[1].life, slope), value=life, unit="10⁶ rev",
+              args=(rows[0].life, rows[1].life, slope), unit="10⁶ rev",
               source=SOURCE_TS16281)
     else:
         life = rows[0].life  # recorded with the row (L10r)
     if inputs.speed > 0.0:
-        d.add("L10rh", symbol="L10rh", label="reference rating life in hours",
-              formula="L10r·10⁶/(60·n)", template="{0} × 10⁶/(60 × {1})", args=(life, inputs.speed),
-              value=life_hours(life, inputs.speed), unit="h", source="ISO 281:2007 §5.3 (hours)")
+        d.add("L10rh", life_hours(life, inputs.speed), symbol="L10rh",
+              label="reference rating life in hours", formula="L10r·10⁶/(60·n)",
+              template="{0} × 10⁶/(60 × {1})", args=(life, inputs.speed), unit="h",
+              source="ISO 281:2007 §5.3 (hours)")
     exponent = 3.0 if ball else 10.0 / 3.0
-    p_ref = d.add("P_ref", symbol="Pref", label="dynamic equivalent reference load of the bearing",
+    p_ref = d.add("P_ref", reference_life.reference_load(c, life, exponent), symbol="Pref",
+                  label="dynamic equivalent reference load of the bearing",
                   formula="Pref = C·L10r^(−1/p)", template="C = {0}, L10r = {1}, p = {2}",
-                  args=(c, life, exponent), value=reference_life.reference_load(c, life, exponent),
-                  unit="N", source=SOURCE_TS16281, note="the load that gives L10r through (C/P)^p")
+                  args=(c, life, exponent), unit="N", source=SOURCE_TS16281,
+                  note="the load that gives L10r through (C/P)^p")
     if inputs.nu is None or inputs.ec is None or inputs.speed <= 0.0:
-        d.add("aISO", symbol="aISO", label="life modification factor", formula="not evaluated",
-              template="1", args=(), value=1.0, unit="", source="ISO 281:2007 §9.3",
+        d.add("aISO", 1.0, symbol="aISO", label="life modification factor", formula="not evaluated",
+              template="1", args=(), unit="", source="ISO 281:2007 §9.3",
               note="give ν, eC and a speed for aISO")
         return
     roller = not ball
     nu1 = reference_viscosity(inputs.speed, inputs.dpw)
     kappa = inputs.nu / nu1
-    d.add("kappa", symbol="κ", label="viscosity ratio", formula="κ = ν/ν1(n, dpw)",
-          template="{0}/{1}", args=(inputs.nu, nu1), value=kappa, unit="",
+    d.add("kappa", kappa, symbol="κ", label="viscosity ratio", formula="κ = ν/ν1(n, dpw)",
+          template="{0}/{1}", args=(inputs.nu, nu1), unit="",
           source="ISO 281:2007 §9.3.3")
     c0 = d.results["C0"]
     cu = inputs.cu if inputs.cu is not None else fatigue_load_limit_estimate(c0, inputs.dpw, roller)
-    d.add("Cu", symbol="Cu", label="fatigue load limit",
+    d.add("Cu", cu, symbol="Cu", label="fatigue load limit",
           formula="given" if inputs.cu is not None else ("C0/8.2" if roller else "C0/22") + " (estimate)",
-          template="{0}", args=(cu,), value=cu, unit="N",
+          template="{0}", args=(cu,), unit="N",
           source="input" if inputs.cu is not None else "ISO 281:2007 Annex B (estimate)")
     ratio = inputs.ec * cu / p_ref if p_ref > 0.0 else math.inf
     a = aiso(kappa_in_range(kappa), ratio, roller)
-    d.add("aISO", symbol="aISO", label="life modification factor",
+    d.add("aISO", a, symbol="aISO", label="life modification factor",
           formula="ISO 281 relation in κ and eC·Cu/Pref", template="κ = {0}, eC·Cu/Pref = {1}",
-          args=(kappa, ratio), value=a, unit="", source="ISO 281:2007 §9.3.2")
-    d.add("Lnmr", symbol="Lnmr", label="modified reference rating life", formula="aISO·L10r",
-          template="{0} × {1}", args=(a, life), value=a * life, unit="10⁶ rev",
+          args=(kappa, ratio), unit="", source="ISO 281:2007 §9.3.2")
+    d.add("Lnmr", a * life, symbol="Lnmr", label="modified reference rating life",
+          formula="aISO·L10r", template="{0} × {1}", args=(a, life), unit="10⁶ rev",
           source=SOURCE_TS16281)
 
 
@@ -545,7 +550,7 @@ def iso281_case(inputs: InternalInputs, c: float, c0: float) -> CaseInputs:
     """The catalogue-method case of the same bearing and loads (af = 1, R = 90 %)."""
     f0 = inputs.f0
     if inputs.kind == "deep-groove" and f0 is None:
-        f0 = c0 / (inputs.z * inputs.dw ** 2 * math.cos(math.radians(inputs.alpha_deg)))
+        f0 = c0 / (inputs.z * inputs.dw ** 2 * cosd(inputs.alpha_deg))
     return CaseInputs(kind=inputs.kind, arrangement=inputs.arrangement, fr=inputs.fr,
                       fa=abs(inputs.fa), c=c, c0=c0, f0=f0 if inputs.kind == "deep-groove" else None,
                       contact_angle=inputs.alpha_deg, speed=inputs.speed, nu=inputs.nu,
@@ -556,18 +561,18 @@ def _iso281_step(d: Derivation, inputs: InternalInputs, c: float, c0: float) -> 
     try:
         catalogue = derive(iso281_case(inputs, c, c0), keep_steps=False)
     except InputError as exc:
-        d.add("L10_iso281", symbol="L10", label="basic rating life, ISO 281 (beside)",
-              formula="(C/P)^p", template="not evaluated", args=(), value=NAN, unit="10⁶ rev",
+        d.add("L10_iso281", NAN, symbol="L10", label="basic rating life, ISO 281 (beside)",
+              formula="(C/P)^p", template="not evaluated", args=(), unit="10⁶ rev",
               source="ISO 281:2007", note=f"the catalogue method refuses this case: {exc.message}")
         return
     r = catalogue.results
     note = "the moment is not part of the catalogue method" if inputs.moment else None
-    d.add("P_iso281", symbol="P", label="equivalent dynamic load, ISO 281 (beside)",
+    d.add("P_iso281", r["P"], symbol="P", label="equivalent dynamic load, ISO 281 (beside)",
           formula="P = X·Fr + Y·Fa", template="Fr = {0}, Fa = {1}",
-          args=(inputs.fr, abs(inputs.fa)), value=r["P"], unit="N", source="ISO 281:2007 §5.2/§7.2",
+          args=(inputs.fr, abs(inputs.fa)), unit="N", source="ISO 281:2007 §5.2/§7.2",
           note=note)
-    d.add("L10_iso281", symbol="L10", label="basic rating life, ISO 281 (beside)",
-          formula="(C/P)^p", template="({0}/{1})^p", args=(c, r["P"]), value=r["L10"],
+    d.add("L10_iso281", r["L10"], symbol="L10", label="basic rating life, ISO 281 (beside)",
+          formula="(C/P)^p", template="({0}/{1})^p", args=(c, r["P"]), 
           unit="10⁶ rev", source="ISO 281:2007 §5.3/§7.3")
 
 
@@ -576,7 +581,7 @@ def _pair_rule_steps(d: Derivation, inputs: InternalInputs, rows: list[RowResult
     rows' radial loads from the equilibrium, against the displacement-compatible loads."""
     alpha = inputs.alpha_deg
     if inputs.kind == "tapered":
-        y = 0.4 / math.tan(math.radians(alpha))
+        y = 0.4 / tand(alpha)
         induced = [pairs.induced_thrust_tapered(row.radial_load, y) for row in rows]
         how = "Fi = Fr/(2Y), Y = 0.4·cot α"
     else:
@@ -592,10 +597,10 @@ def _pair_rule_steps(d: Derivation, inputs: InternalInputs, rows: list[RowResult
     fa_a, fa_b, words = pairs.share_thrust(rows[0].radial_load, rows[1].radial_load, induced[0],
                                            induced[1], inputs.fa, mounting)
     for row, rule in zip(rows, (fa_a, fa_b)):
-        d.add(f"Fa_rule_{row.name}", symbol=f"Fa,{row.name}",
+        d.add(f"Fa_rule_{row.name}", rule, symbol=f"Fa,{row.name}",
               label=f"row {row.name} axial load: rule vs equilibrium",
               formula=f"rule: {how}; equilibrium: displacement compatibility",
-              template="rule {0} N, equilibrium {1} N", args=(rule, row.axial_load), value=rule,
+              template="rule {0} N, equilibrium {1} N", args=(rule, row.axial_load), 
               unit="N", source=SOURCE_PAIRS,
               note=f"difference {row.axial_load - rule:+.4g} N" + (
                   "; the rule ignores the preload"
@@ -624,7 +629,7 @@ def default_clearances(inputs: InternalInputs, count: int = 41) -> list[float]:
     validate(inputs)
     n = hertz.POINT_CONTACT_EXPONENT if is_ball(inputs.kind) else hertz.LINE_CONTACT_EXPONENT
     stiffness = element_stiffness(inputs)
-    cos_alpha = math.cos(math.radians(inputs.alpha_deg))
+    cos_alpha = cosd(inputs.alpha_deg)
     load = 5.0 * max(abs(inputs.fr), abs(inputs.fa), 1.0) / (inputs.z * cos_alpha)
     approach = (load / stiffness) ** (1.0 / n)
     limit = 0.049 * inputs.dw

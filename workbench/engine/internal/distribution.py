@@ -36,6 +36,7 @@ from typing import NamedTuple
 
 import numpy as np
 
+from ..num import cosd, tand
 from ..record import InputError
 from . import hertz
 
@@ -482,7 +483,7 @@ def _refuse_impossible(inputs: InternalInputs) -> None:
                                       "load to hold its contact angle (its own induced thrust); "
                                       "give Fa, or analyse the pair")
     if inputs.kind == "tapered" and not is_pair(inputs) and inputs.fr > 0.0:
-        induced = inputs.fr * math.tan(math.radians(inputs.alpha_deg))
+        induced = inputs.fr * tand(inputs.alpha_deg)
         if inputs.fa < induced and moment == 0.0 and inputs.tilt == 0.0:
             raise NoEquilibrium("fa", f"Fa = {inputs.fa:.4g} N is below Fr·tan α = {induced:.4g} N: "
                                       "a single tapered row cannot balance its own induced thrust "
@@ -704,4 +705,4 @@ def stribeck_q_max(fr: float, z: int, exponent: float, *, alpha_deg: float = 0.0
     psi = np.arange(z) * (2.0 * math.pi / z)
     cos_psi = np.cos(psi)
     loaded = cos_psi > 1e-12
-    return fr / (math.cos(math.radians(alpha_deg)) * float(np.sum(cos_psi[loaded] ** (exponent + 1.0))))
+    return fr / (cosd(alpha_deg) * float(np.sum(cos_psi[loaded] ** (exponent + 1.0))))

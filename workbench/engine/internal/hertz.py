@@ -14,6 +14,8 @@ from __future__ import annotations
 import math
 from typing import NamedTuple
 
+from ..num import cosd
+
 ELASTIC_MODULUS_STEEL = 207_000.0  # N/mm², bearing steel (from memory)
 POISSON_RATIO_STEEL = 0.3
 # E' = 2/[(1 − ν1²)/E1 + (1 − ν2²)/E2]: both bodies steel.
@@ -59,7 +61,7 @@ def ball_raceway_curvature(dw: float, dpw: float, alpha_deg: float, osculation: 
     ρII2 = −1/(fe·Dw).  Σρ = ρI1 + ρI2 + ρII1 + ρII2,
     F(ρ) = [(ρI1 − ρI2) + (ρII1 − ρII2)]/Σρ (Harris & Kotzalas, *Rolling Bearing Analysis*).
     """
-    gamma = dw * math.cos(math.radians(alpha_deg)) / dpw
+    gamma = dw * cosd(alpha_deg) / dpw
     ball = 2.0 / dw
     if inner:
         race_rolling = ball * gamma / (1.0 - gamma)
@@ -138,7 +140,7 @@ def series_constant(inner: float, outer: float, exponent: float) -> float:
 def roller_raceway_curvature_sum(dwe: float, dpw: float, alpha_deg: float, *, inner: bool) -> float:
     """Σρ in the rolling direction of a roller on a raceway (1/mm): 2/(Dwe·(1 ∓ γ)),
     γ = Dwe·cos α/Dpw, upper sign inner raceway (Harris & Kotzalas)."""
-    gamma = dwe * math.cos(math.radians(alpha_deg)) / dpw
+    gamma = dwe * cosd(alpha_deg) / dpw
     return 2.0 / (dwe * ((1.0 - gamma) if inner else (1.0 + gamma)))
 
 

@@ -27,6 +27,8 @@ from typing import NamedTuple
 
 import numpy as np
 
+from ..num import cosd
+
 BALL_CAPACITY_CONSTANT = 98.1  # Lundberg–Palmgren, N and mm (from memory)
 ROLLER_CAPACITY_CONSTANT = 552.0  # Lundberg–Palmgren line contact, N and mm (from memory)
 ROLLER_LAMBDA_NU = 0.83  # ISO 281 reduction for edge stresses and manufacture (from memory)
@@ -39,7 +41,7 @@ def ball_raceway_capacity(dw: float, dpw: float, alpha_deg: float, z: int, oscul
     """Basic dynamic capacity Qc of a ball raceway (N), Lundberg–Palmgren, upper signs inner:
     Qc = bm·98.1·(2f/(2f − 1))^0.41·(1 ∓ γ)^1.39/(1 ± γ)^(1/3)·(γ/cos α)^0.3·Dw^1.8·Z^(−1/3),
     γ = Dw·cos α/Dpw (γ/cos α = Dw/Dpw)."""
-    gamma = dw * math.cos(math.radians(alpha_deg)) / dpw
+    gamma = dw * cosd(alpha_deg) / dpw
     near, far = (1.0 - gamma, 1.0 + gamma) if inner else (1.0 + gamma, 1.0 - gamma)
     return (bm * BALL_CAPACITY_CONSTANT * (2.0 * osculation / (2.0 * osculation - 1.0)) ** 0.41
             * near ** 1.39 / far ** (1.0 / 3.0) * (dw / dpw) ** 0.3 * dw ** 1.8 * z ** (-1.0 / 3.0))
@@ -49,7 +51,7 @@ def roller_raceway_capacity(dwe: float, dpw: float, alpha_deg: float, z: int, lw
                             *, inner: bool, bm: float = 1.0) -> float:
     """Basic dynamic capacity Qc of a roller raceway over the whole length (N), upper signs inner:
     Qc = bm·λν·552·(1 ∓ γ)^(29/27)/(1 ± γ)^(1/4)·(γ/cos α)^(2/9)·Dwe^(29/27)·Lwe^(7/9)·Z^(−1/4)."""
-    gamma = dwe * math.cos(math.radians(alpha_deg)) / dpw
+    gamma = dwe * cosd(alpha_deg) / dpw
     near, far = (1.0 - gamma, 1.0 + gamma) if inner else (1.0 + gamma, 1.0 - gamma)
     return (bm * ROLLER_LAMBDA_NU * ROLLER_CAPACITY_CONSTANT * near ** (29.0 / 27.0)
             / far ** 0.25 * (dwe / dpw) ** (2.0 / 9.0) * dwe ** (29.0 / 27.0)
