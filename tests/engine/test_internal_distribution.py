@@ -4,6 +4,7 @@ closed forms, the equilibrium of the element loads themselves, and the definitio
 from __future__ import annotations
 
 import math
+from dataclasses import replace
 
 import numpy as np
 import pytest
@@ -35,14 +36,14 @@ def _cos_sum(z: int, n: float) -> float:
 @pytest.mark.parametrize("z", [7, 9, 12, 16])
 def test_zero_clearance_ball_matches_stribeck(z: int) -> None:
     # Stribeck, rigid rings, zero clearance, pure radial: Qmax = Fr/(Σ cos^(n+1) ψj), n = 3/2.
-    eq = solve_equilibrium(BALL._replace(z=z, dw=min(12.7, 3.0 * 65.0 / z)))
+    eq = solve_equilibrium(replace(BALL, z=z, dw=min(12.7, 3.0 * 65.0 / z)))
     assert float(np.max(eq.rows[0].load)) == pytest.approx(5000.0 / _cos_sum(z, 1.5), rel=1e-8)
 
 
 @pytest.mark.parametrize("z", [10, 14, 18])
 def test_zero_clearance_roller_matches_stribeck(z: int) -> None:
     # The same for line contact, n = 10/9 (straight rollers, slices share the load evenly).
-    eq = solve_equilibrium(ROLLER._replace(z=z))
+    eq = solve_equilibrium(replace(ROLLER, z=z))
     assert float(np.max(eq.rows[0].load)) == pytest.approx(20000.0 / _cos_sum(z, 10 / 9), rel=1e-8)
 
 
@@ -107,7 +108,7 @@ def test_zero_clearance_load_zone_is_half() -> None:
 def test_clearance_load_zone_formula() -> None:
     # Radial load with clearance Pd on a roller bearing: δψ = δr·cos ψ − Pd/2, so
     # ε = (1/2)·(1 − Pd/(2δr)) (Harris & Kotzalas; REFERENCE.md §8).
-    inputs = ROLLER._replace(clearance=0.02)
+    inputs = replace(ROLLER, clearance=0.02)
     eq = solve_equilibrium(inputs)
     delta_r = float(eq.displacement[0])
     assert load_zone(eq.rows[0]).epsilon == pytest.approx(0.5 * (1.0 - 0.02 / (2.0 * delta_r)), rel=1e-9)
@@ -222,8 +223,8 @@ def test_back_to_back_is_stiffer_in_tilt_than_face_to_face() -> None:
 
 def test_preload_stiffens_the_bearing() -> None:
     # Preload raises the radial stiffness (Harris & Kotzalas; the reason spindles are preloaded).
-    loose = solve_equilibrium(BALL._replace(clearance=0.01))
-    tight = solve_equilibrium(BALL._replace(clearance=-0.01))
+    loose = solve_equilibrium(replace(BALL, clearance=0.01))
+    tight = solve_equilibrium(replace(BALL, clearance=-0.01))
     assert tight.stiffness[0, 0] > loose.stiffness[0, 0]
 
 
@@ -251,7 +252,7 @@ def test_pure_thrust_on_a_cylindrical_bearing_has_no_equilibrium() -> None:
 
 def test_load_beyond_the_geometry_has_no_equilibrium() -> None:
     with pytest.raises(NoEquilibrium, match="beyond what the geometry"):
-        solve_equilibrium(BALL._replace(fr=5.0e6))
+        solve_equilibrium(replace(BALL, fr=5.0e6))
 
 
 def test_single_tapered_row_needs_its_induced_thrust() -> None:
@@ -268,7 +269,7 @@ def test_single_tapered_row_needs_its_induced_thrust() -> None:
 ])
 def test_bad_inputs_name_the_input(changes: dict[str, object], field: str) -> None:
     with pytest.raises(InputError) as info:
-        solve_equilibrium(BALL._replace(**changes))
+        solve_equilibrium(replace(BALL, **changes))
     assert info.value.field == field
 
 

@@ -5,6 +5,7 @@ independence, and the shape of life against clearance."""
 from __future__ import annotations
 
 import math
+from dataclasses import replace
 
 import numpy as np
 import pytest
@@ -44,7 +45,7 @@ def test_ball_reference_life_near_iso281_under_ideal_load() -> None:
     # life within a few per cent (REFERENCE.md §8: a sanity check, not an identity).
     c = dynamic_rating_radial_ball(1, 9, 12.7, 0.0, 65.0)
     for fr in (2000.0, 5000.0, 9000.0):
-        life = analyse_internal(BALL._replace(fr=fr)).results["L10r"]
+        life = analyse_internal(replace(BALL, fr=fr)).results["L10r"]
         assert life == pytest.approx((c / fr) ** 3, rel=0.10)
 
 
@@ -54,13 +55,13 @@ def test_roller_reference_life_meets_iso281_near_rating_load() -> None:
     # defined (ISO 281 §7, from memory): within 5 % at Fr = C, and the reference life is the
     # longer one below it.
     c = dynamic_rating_radial_roller(1, 14, 11.0, 11.0, 0.0, 70.0)
-    assert analyse_internal(ROLLER._replace(fr=c)).results["L10r"] == pytest.approx(1.0, rel=0.05)
-    assert analyse_internal(ROLLER._replace(fr=0.5 * c)).results["L10r"] > 0.5 ** (-10 / 3)
+    assert analyse_internal(replace(ROLLER, fr=c)).results["L10r"] == pytest.approx(1.0, rel=0.05)
+    assert analyse_internal(replace(ROLLER, fr=0.5 * c)).results["L10r"] > 0.5 ** (-10 / 3)
 
 
 def test_roller_life_does_not_depend_on_the_slice_count() -> None:
     # qck = Qc·ns^(−7/9) with equal slice loads gives (Qc/Qe)^4 whatever ns (closed form).
-    lives = [analyse_internal(ROLLER._replace(slices=n)).results["L10r"] for n in (1, 10, 40)]
+    lives = [analyse_internal(replace(ROLLER, slices=n)).results["L10r"] for n in (1, 10, 40)]
     assert lives[1] == pytest.approx(lives[0], rel=1e-9)
     assert lives[2] == pytest.approx(lives[0], rel=1e-9)
 
@@ -70,10 +71,10 @@ def test_misalignment_costs_life_of_straight_rollers() -> None:
     # (Harris & Kotzalas; the reason rollers are crowned).
     # A crown spreads the load back toward the middle, so it loses a smaller share.
     straight = analyse_internal(ROLLER).results["L10r"]
-    tilted = analyse_internal(ROLLER._replace(tilt=0.002)).results["L10r"]
+    tilted = analyse_internal(replace(ROLLER, tilt=0.002)).results["L10r"]
     assert tilted < 0.8 * straight
-    crowned = ROLLER._replace(profile="crowned")
-    crowned_share = (analyse_internal(crowned._replace(tilt=0.002)).results["L10r"]
+    crowned = replace(ROLLER, profile="crowned")
+    crowned_share = (analyse_internal(replace(crowned, tilt=0.002)).results["L10r"]
                      / analyse_internal(crowned).results["L10r"])
     assert crowned_share > tilted / straight
 
@@ -89,7 +90,7 @@ def test_raceway_capacity_formula() -> None:
 def test_life_against_clearance_peaks_near_slight_preload() -> None:
     # Life against operating clearance (Harris & Kotzalas): longest at a slight preload, falling
     # with clearance as the load zone narrows and steeply with heavy preload.
-    inputs = BALL._replace(fa=500.0)
+    inputs = replace(BALL, fa=500.0)
     clearances = default_clearances(inputs, count=25)
     points = clearance_sweep(inputs, clearances)
     lives = [p.life for p in points]
@@ -122,7 +123,7 @@ def test_analysis_records_the_steps_and_the_json_keys() -> None:
 def test_iso281_life_beside_is_derive_of_the_same_case() -> None:
     # The life shown beside is the catalogue method itself (engine/derive.py) with C from the
     # same geometry: compared with derive() run here.
-    result = analyse_internal(BALL._replace(fa=1000.0))
+    result = analyse_internal(replace(BALL, fa=1000.0))
     r = result.results
     case = CaseInputs(kind="deep-groove", fr=5000.0, fa=1000.0, c=r["C"], c0=r["C0"],
                       f0=r["C0"] / (9 * 12.7 ** 2), contact_angle=0.0, dm=65.0)
@@ -130,7 +131,7 @@ def test_iso281_life_beside_is_derive_of_the_same_case() -> None:
 
 
 def test_steps_and_results_agree_without_steps() -> None:
-    inputs = BALL._replace(fa=800.0, clearance=0.01)
+    inputs = replace(BALL, fa=800.0, clearance=0.01)
     full = analyse_internal(inputs)
     bare = analyse_internal(inputs, keep_steps=False)
     assert full.results == bare.results
@@ -138,13 +139,13 @@ def test_steps_and_results_agree_without_steps() -> None:
 
 
 def test_pressure_warns_above_the_iso76_reference() -> None:
-    result = analyse_internal(BALL._replace(fr=28000.0))
+    result = analyse_internal(replace(BALL, fr=28000.0))
     assert result.results["p_max_inner"] > 4200.0
     assert any("4200 MPa" in w for w in result.derivation.warnings)
 
 
 def test_cylindrical_axial_load_is_left_to_the_ribs() -> None:
-    result = analyse_internal(ROLLER._replace(fa=1000.0))
+    result = analyse_internal(replace(ROLLER, fa=1000.0))
     assert any("ribs" in w for w in result.derivation.warnings)
     with pytest.raises(NoEquilibrium):
-        analyse_internal(ROLLER._replace(fr=0.0, fa=1000.0))
+        analyse_internal(replace(ROLLER, fr=0.0, fa=1000.0))

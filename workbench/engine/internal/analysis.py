@@ -11,7 +11,8 @@ C0), ISO 281 (C, bm, the catalogue life beside it, aISO).
 from __future__ import annotations
 
 import math
-from typing import Any, NamedTuple
+from dataclasses import dataclass, replace
+from typing import Any
 
 import numpy as np
 
@@ -43,7 +44,8 @@ SOURCE_PAIRS = "two-bearing thrust-sharing rule (engine/pairs.py)"
 STRIBECK_DESIGN_CONSTANT = 5.0  # Qmax = 5·F/(i·Z·cos α), the classic allowance (from memory)
 
 
-class ElementLoad(NamedTuple):
+@dataclass(frozen=True, slots=True)
+class ElementLoad:
     """One rolling element at equilibrium: its row ("" single, "A"/"B" in a pair), azimuth from
     the direction of Fr (°), load (N), operating contact angle (°) and approach (mm)."""
 
@@ -54,7 +56,8 @@ class ElementLoad(NamedTuple):
     approach: float
 
 
-class RowResult(NamedTuple):
+@dataclass(frozen=True, slots=True)
+class RowResult:
     """One row's loads, load zone, pressures and lives."""
 
     name: str
@@ -70,7 +73,8 @@ class RowResult(NamedTuple):
     life: float
 
 
-class InternalResult(NamedTuple):
+@dataclass(frozen=True, slots=True)
+class InternalResult:
     """Everything the command, the screen and the reports show of one internal analysis."""
 
     inputs: InternalInputs
@@ -612,7 +616,8 @@ def _pair_rule_steps(d: Derivation, inputs: InternalInputs, rows: list[RowResult
 # Life against operating clearance (the What-if plot)
 
 
-class SweepPoint(NamedTuple):
+@dataclass(frozen=True, slots=True)
+class SweepPoint:
     """One point of :func:`clearance_sweep`: the clearance (mm), L10r (10⁶ rev; NaN where no
     equilibrium), the largest element load (N) and why a point is missing."""
 
@@ -643,7 +648,7 @@ def clearance_sweep(inputs: InternalInputs, clearances: list[float]) -> list[Swe
     raceway capacities are found once, then one equilibrium per point, each starting from the
     last."""
     validate(inputs)
-    base = inputs._replace(preload=0.0)
+    base = replace(inputs, preload=0.0)
     ball = is_ball(inputs.kind)
     stiffness = element_stiffness(inputs)
     capacities = raceway_capacities(inputs)
@@ -651,7 +656,7 @@ def clearance_sweep(inputs: InternalInputs, clearances: list[float]) -> list[Swe
     points = []
     previous = None
     for clearance in clearances:
-        case = base._replace(clearance=clearance)
+        case = replace(base, clearance=clearance)
         try:
             eq = solve_equilibrium(case, stiffness=stiffness, start=previous)
         except (NoEquilibrium, InputError) as exc:

@@ -32,7 +32,7 @@ Levenberg–Marquardt (MINPACK) with the analytic Jacobian, Powell's hybrid meth
 from __future__ import annotations
 
 import math
-from typing import NamedTuple
+from dataclasses import dataclass, replace
 
 import numpy as np
 
@@ -71,7 +71,8 @@ class NoEquilibrium(Exception):
         self.message = message
 
 
-class InternalInputs(NamedTuple):
+@dataclass(frozen=True, slots=True)
+class InternalInputs:
     """One bearing's internal geometry, fit and loads (N, mm, N·mm, r/min, degrees).
 
     ``kind`` deep-groove, angular-contact, cylindrical or tapered; ``arrangement`` single,
@@ -226,7 +227,8 @@ def validate(inputs: InternalInputs) -> None:
 # Contact constants
 
 
-class BallContacts(NamedTuple):
+@dataclass(frozen=True, slots=True)
+class BallContacts:
     """Hertz constants of a ball row at its nominal contact angle (Harris & Kotzalas)."""
 
     inner: hertz.Curvature
@@ -382,7 +384,8 @@ class Row:
                         delta.reshape(z, self.slices).max(axis=1), slices)
 
 
-class RowState(NamedTuple):
+@dataclass(frozen=True, slots=True)
+class RowState:
     """One row at equilibrium: per element its azimuth ψ (rad), load Q (N), contact angle (°),
     approach δ (mm, a roller's largest over its slices; negative where the element is free), and
     the slice loads (Z × slices; one column for balls)."""
@@ -433,7 +436,7 @@ def preload_offset(inputs: InternalInputs, stiffness: float) -> float:
 
     if inputs.preload <= 0.0:
         return 0.0
-    row = Row(inputs._replace(arrangement="single"), direction=1.0, position=0.0,
+    row = Row(replace(inputs, arrangement="single"), direction=1.0, position=0.0,
               preload_offset=0.0, stiffness=stiffness)
     high = 1e-3 * inputs.dw
     while row.axial_reaction(high) < inputs.preload:
@@ -444,7 +447,8 @@ def preload_offset(inputs: InternalInputs, stiffness: float) -> float:
                   xtol=1e-12 * inputs.dw, rtol=1e-12)
 
 
-class Equilibrium(NamedTuple):
+@dataclass(frozen=True, slots=True)
+class Equilibrium:
     """The solved ring displacements and what follows from them.
 
     ``displacement`` (δr mm, δa mm, θ rad); ``reactions`` (Fr N, Fa N, M N·mm) the rings carry
@@ -574,7 +578,7 @@ def _moment_in_steps(inputs: InternalInputs, stiffness: float, cause: NoEquilibr
     """Continuation in the moment: from the untilted rings' own moment M0 to M in ``steps``;
     ``cause`` is raised if the untilted rings have no equilibrium to start from."""
     try:
-        held = solve_equilibrium(inputs._replace(moment=None), stiffness=stiffness,
+        held = solve_equilibrium(replace(inputs, moment=None), stiffness=stiffness,
                                  continuation=False)
     except (NoEquilibrium, InputError):
         raise cause from None
@@ -583,10 +587,10 @@ def _moment_in_steps(inputs: InternalInputs, stiffness: float, cause: NoEquilibr
     result, evaluations = held, held.evaluations
     for step in range(1, steps + 1):
         moment = carried + (target - carried) * step / steps
-        result = solve_equilibrium(inputs._replace(moment=moment), stiffness=stiffness,
+        result = solve_equilibrium(replace(inputs, moment=moment), stiffness=stiffness,
                                    start=result.displacement, continuation=False)
         evaluations += result.evaluations
-    return result._replace(evaluations=evaluations, method=f"{result.method}, moment in steps")
+    return replace(result, evaluations=evaluations, method=f"{result.method}, moment in steps")
 
 
 def _in_contact(rows: list[Row], guess: np.ndarray, active: np.ndarray) -> np.ndarray:
@@ -656,7 +660,8 @@ def _check_result(inputs: InternalInputs, states: list[RowState]) -> None:
 # Load zone and the classic distributions
 
 
-class LoadZone(NamedTuple):
+@dataclass(frozen=True, slots=True)
+class LoadZone:
     """Sjövall's load-zone parameter ε and the loaded half-angle ψl (degrees) of one row."""
 
     epsilon: float

@@ -12,7 +12,7 @@ Steel on steel throughout: E = 207 000 N/mm², ν = 0.3 (REFERENCE.md §8, from 
 from __future__ import annotations
 
 import math
-from typing import NamedTuple
+from dataclasses import dataclass
 
 from ..num import cosd
 
@@ -28,14 +28,16 @@ STATIC_REFERENCE_PRESSURE_BALL = 4200.0  # MPa (4 600 self-aligning ball, not an
 STATIC_REFERENCE_PRESSURE_ROLLER = 4000.0  # MPa
 
 
-class Curvature(NamedTuple):
+@dataclass(frozen=True, slots=True)
+class Curvature:
     """Curvature sum Σρ (1/mm) and curvature difference F(ρ) of one contact (Harris & Kotzalas)."""
 
     curvature_sum: float
     curvature_difference: float
 
 
-class Ellipse(NamedTuple):
+@dataclass(frozen=True, slots=True)
+class Ellipse:
     """The contact ellipse constants: k = a/b, K(e), E(e) with e² = 1 − 1/k²."""
 
     k: float
@@ -43,7 +45,8 @@ class Ellipse(NamedTuple):
     second_kind: float
 
 
-class PointContact(NamedTuple):
+@dataclass(frozen=True, slots=True)
+class PointContact:
     """A loaded point contact: semi-axes a ≥ b (mm), largest pressure (MPa), approach δ (mm)."""
 
     a: float
@@ -102,7 +105,7 @@ def point_contact(load: float, curvature: Curvature, ellipse: Ellipse,
     a = (6k²·E·Q/(π·Σρ·E'))^(1/3), b = (6E·Q/(π·k·Σρ·E'))^(1/3), pmax = 3Q/(2π·a·b),
     δ = (2K/π)·(π/(2k²E))^(1/3)·(3Q/(Σρ·E'))^(2/3)·Σρ/2 (Hertz; Harris & Kotzalas).
     """
-    k, first, second = ellipse
+    k, second = ellipse.k, ellipse.second_kind
     rho = curvature.curvature_sum
     a = (6.0 * k * k * second * load / (math.pi * rho * modulus)) ** (1.0 / 3.0)
     b = (6.0 * second * load / (math.pi * k * rho * modulus)) ** (1.0 / 3.0)
@@ -113,7 +116,7 @@ def point_contact(load: float, curvature: Curvature, ellipse: Ellipse,
 
 def approach_factor(ellipse: Ellipse) -> float:
     """δ* = (2K/π)·(π/(2k²E))^(1/3), the dimensionless approach of Harris & Kotzalas."""
-    k, first, second = ellipse
+    k, first, second = ellipse.k, ellipse.first_kind, ellipse.second_kind
     return 2.0 * first / math.pi * (math.pi / (2.0 * k * k * second)) ** (1.0 / 3.0)
 
 

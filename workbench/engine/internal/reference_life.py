@@ -23,7 +23,7 @@ Pref = C·L10r^(−1/p), the equivalent load that gives the same life through IS
 from __future__ import annotations
 
 import math
-from typing import NamedTuple
+from dataclasses import dataclass
 
 import numpy as np
 
@@ -69,7 +69,8 @@ def equivalent_load(loads: np.ndarray, *, rotating: bool, ball: bool) -> np.ndar
     return np.mean(np.asarray(loads, dtype=float) ** power, axis=0) ** (1.0 / power)
 
 
-class RaceLives(NamedTuple):
+@dataclass(frozen=True, slots=True)
+class RaceLives:
     """Each raceway's life (10⁶ rev), the row's L10r, and each raceway's dynamic equivalent
     reference load (N; for rollers that of the most loaded slice)."""
 
