@@ -29,7 +29,7 @@ from . import hertz, reference_life
 from .distribution import (BallContacts, Equilibrium, InternalInputs, LoadZone, NoEquilibrium,
                            RowState, ball_contacts, crown_drop, default_row_spacing,
                            element_stiffness, is_ball,
-                           is_pair, load_zone, make_rows, osculations, roller_constant,
+                           is_pair, load_zone, osculations, roller_constant,
                            solve_equilibrium, stribeck_q_max, validate)
 
 NAN = math.nan
@@ -276,19 +276,17 @@ def _equilibrium_steps(d: Derivation, inputs: InternalInputs, eq: Equilibrium) -
 
 def _row_results(d: Derivation, inputs: InternalInputs, eq: Equilibrium,
                  contacts: BallContacts | None) -> list[RowResult]:
-    rows = make_rows(inputs, d.results["K"], eq.preload_offset)
     ball = contacts is not None
     capacities = _capacity_steps(d, inputs)
     results = []
     n = hertz.POINT_CONTACT_EXPONENT if ball else hertz.LINE_CONTACT_EXPONENT
-    for name, row, state in zip(_row_names(inputs), rows, eq.rows):
-        force = row.reactions(eq.displacement)[0]
+    for name, state, force in zip(_row_names(inputs), eq.rows, eq.row_reactions):
         q_max = float(np.max(state.load))
         zone = load_zone(state)
         loaded = int(np.count_nonzero(state.load > 0.0))
         p_inner, p_outer, width = _pressures(inputs, state, contacts)
         lives = _row_life(inputs, state, capacities)
-        results.append(RowResult(name, float(force[0]), float(force[1] * row.direction), q_max, zone,
+        results.append(RowResult(name, float(force[0]), float(force[1] * state.direction), q_max, zone,
                                  loaded, p_inner, p_outer, lives.inner, lives.outer, lives.row))
         tag = f" (row {name})" if name else ""
         suffix = f"_{name}" if name else ""

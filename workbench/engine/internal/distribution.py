@@ -378,23 +378,26 @@ class Row:
             sr = self.radial0 + self.radial_map @ q
             sa = self.axial0 + self.axial_map @ q
             angle = np.degrees(np.arctan2(sa, sr))
-            return RowState(self.azimuth, contact_load, angle, delta, contact_load.reshape(z, 1))
+            return RowState(self.azimuth, contact_load, angle, delta, contact_load.reshape(z, 1),
+                            self.direction)
         slices = contact_load.reshape(z, self.slices)
         return RowState(self.azimuth, slices.sum(axis=1), np.full(z, self.inputs.alpha_deg),
-                        delta.reshape(z, self.slices).max(axis=1), slices)
+                        delta.reshape(z, self.slices).max(axis=1), slices, self.direction)
 
 
 @dataclass(frozen=True, slots=True)
 class RowState:
     """One row at equilibrium: per element its azimuth ψ (rad), load Q (N), contact angle (°),
     approach δ (mm, a roller's largest over its slices; negative where the element is free), and
-    the slice loads (Z × slices; one column for balls)."""
+    the slice loads (Z × slices; one column for balls); ``direction`` the way the row takes
+    thrust (+1: the inner ring pushed toward row B)."""
 
     azimuth: np.ndarray
     load: np.ndarray
     contact_angle_deg: np.ndarray
     approach: np.ndarray
     slice_loads: np.ndarray
+    direction: float
 
 
 def element_stiffness(inputs: InternalInputs) -> float:
@@ -454,7 +457,8 @@ class Equilibrium:
     ``displacement`` (δr mm, δa mm, θ rad); ``reactions`` (Fr N, Fa N, M N·mm) the rings carry
     there (M is a result when the tilt was held); ``stiffness`` the tangent stiffness matrix ∂F/∂q
     (N/mm, N, N·mm/rad) at that point; ``rows`` each row's state; ``evaluations`` of the residual;
-    ``residual`` the largest scaled force error; ``preload_offset`` δpre of a pair.
+    ``residual`` the largest scaled force error; ``preload_offset`` δpre of a pair;
+    ``row_reactions`` each row's (Fr, Fa, M) in the same axes.
     """
 
     displacement: np.ndarray
@@ -465,6 +469,7 @@ class Equilibrium:
     residual: float
     method: str
     preload_offset: float
+    row_reactions: list[np.ndarray]
 
 
 def _refuse_impossible(inputs: InternalInputs) -> None:
@@ -528,16 +533,17 @@ def solve_equilibrium(inputs: InternalInputs, *, stiffness: float | None = None,
     denominators = np.array([force_scale, force_scale, force_scale * radius])
     fixed = np.array([0.0, 0.0, inputs.tilt])
     cross = np.ix_(active, active)
+    jacobian_scale = scale[None, :] / denominators[:, None]
+    free_scale = scale[active]
 
     def displacement(x: np.ndarray) -> np.ndarray:
         q = fixed.copy()
-        q[active] = x * scale[active]
+        q[active] = x * free_scale
         return q
 
     def residual(x: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
         force, jacobian = _total(rows, displacement(x))
-        error = (force - target) / denominators
-        return error[active], (jacobian / denominators[:, None] * scale[None, :])[cross]
+        return ((force - target) / denominators)[active], (jacobian * jacobian_scale)[cross]
 
     guesses = [_first_guess(inputs, k, n)]
     if start is not None:
@@ -569,8 +575,11 @@ def solve_equilibrium(inputs: InternalInputs, *, stiffness: float | None = None,
     q = displacement(x)
     states = [row.state(q) for row in rows]
     _check_result(inputs, states)
-    force, jacobian = _total(rows, q)
-    return Equilibrium(q, force, jacobian, states, evaluations, error, method, offset)
+    per_row = [row.reactions(q) for row in rows]
+    force = sum(f for f, _ in per_row)
+    jacobian = sum(j for _, j in per_row)
+    return Equilibrium(q, force, jacobian, states, evaluations, error, method, offset,
+                       [f for f, _ in per_row])
 
 
 def _moment_in_steps(inputs: InternalInputs, stiffness: float, cause: NoEquilibrium,

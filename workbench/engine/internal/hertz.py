@@ -13,6 +13,7 @@ from __future__ import annotations
 
 import math
 from dataclasses import dataclass
+from functools import lru_cache
 
 from ..num import cosd
 
@@ -84,9 +85,11 @@ def curvature_difference_of(k: float) -> float:
     return ((k * k + 1.0) * second - 2.0 * first) / ((k * k - 1.0) * second)
 
 
+@lru_cache(maxsize=256)
 def ellipse_of(curvature_difference: float) -> Ellipse:
     """k, K and E of the contact ellipse whose F(ρ) is given: F(ρ) = [(k² + 1)E − 2K]/[(k² − 1)E]
-    solved for k by Brent's method (F rises monotonically from 0 at k = 1 toward 1)."""
+    solved for k by Brent's method (F rises monotonically from 0 at k = 1 toward 1).  Cached: the
+    screen re-analyses one geometry under changing loads."""
     from scipy.optimize import brentq
     from scipy.special import ellipe, ellipk
 
