@@ -88,7 +88,7 @@ def input_problem(name: str, text: str) -> str | None:
     if spec.kind == "choice" or not text.strip():
         return None
     try:
-        _read(spec, text.strip())
+        read_rating_input(spec, text.strip())
     except FieldError as exc:
         return exc.message
     return None
