@@ -1,5 +1,5 @@
 """Command line: the screen by default, and headless ``calc``, ``report``, ``select``, ``rate``,
-``bench``, one module each.
+``internal``, ``bench``, one module each.
 
 A sub-command module gives ``SUMMARY`` (its line in the help), ``DESCRIPTION``, ``EPILOG``,
 ``add_arguments(parser)`` and ``run(args) -> int``; :func:`build_parser` hangs them on one
@@ -21,7 +21,7 @@ from typing import Sequence
 
 from . import screen
 
-SUBCOMMANDS = ("calc", "report", "select", "rate", "bench")  # each a module of this package
+SUBCOMMANDS = ("calc", "report", "select", "rate", "internal", "bench")  # each a module of this package
 
 
 def build_parser() -> argparse.ArgumentParser:

@@ -68,7 +68,9 @@ def _count(spec: RatingInput, text: str) -> int:
     return int(value)
 
 
-def _read(spec: RatingInput, text: str) -> float | int:
+def read_rating_input(spec: RatingInput, text: str) -> float | int:
+    """One typed input of the form as a number: a count, a plain number, or a length or angle
+    (bare numbers in mm or degrees); :class:`FieldError` naming it."""
     try:
         if spec.kind == "count":
             return _count(spec, text)
@@ -86,7 +88,7 @@ def input_problem(name: str, text: str) -> str | None:
     if spec.kind == "choice" or not text.strip():
         return None
     try:
-        _read(spec, text.strip())
+        read_rating_input(spec, text.strip())
     except FieldError as exc:
         return exc.message
     return None
@@ -108,7 +110,7 @@ def geometry_from_texts(texts: Mapping[str, str]) -> BearingGeometry:
                 raise FieldError(spec.name, "needed")
             values[spec.name] = 1 if spec.name == "rows" else None
             continue
-        values[spec.name] = _read(spec, text)
+        values[spec.name] = read_rating_input(spec, text)
     return BearingGeometry(kind, int(values["rows"] or 1), int(values["elements"] or 0),
                            float(values["dw"] or 0.0), float(values["contact_angle"] or 0.0),
                            float(values["dpw"] or 0.0), _optional(values["lwe"]),
