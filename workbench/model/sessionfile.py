@@ -76,7 +76,6 @@ import hashlib
 import os
 import re
 import tempfile
-import tomllib
 from dataclasses import dataclass, field
 from importlib import resources
 from pathlib import Path
@@ -87,6 +86,7 @@ import platformdirs
 from ..engine.solve import UNKNOWNS
 from .duty_cycles import duty_cycles_from_tables
 from .fields import BEARING_FIELDS, CASE_FIELDS, FieldError, parse_field
+from .guarded_read import FileRefused, parse_toml, read_text
 from .session import (
     SCHEMA_VERSION, UNIT_SYSTEMS, Bearing, LoadCase, Session, SolverSetup, Targets, parse_target,
 )
@@ -110,24 +110,8 @@ T = TypeVar("T")
 KeyPath = tuple[str | int, ...]  # ("cases", 2, "fr"); table indexes count from 1
 
 
-class SessionFileError(Exception):
+class SessionFileError(FileRefused):
     """A session file that cannot be read or written; ``str()`` is one line for the user."""
-
-    def __init__(self, path: str | os.PathLike[str], message: str, key: str | None = None,
-                 line: int | None = None) -> None:
-        self.path = str(path)
-        self.message = " ".join(message.split())
-        self.key = key
-        self.line = line
-        super().__init__(self.path, self.message, key, line)
-
-    def __str__(self) -> str:
-        where = [self.path]
-        if self.line is not None:
-            where.append(f"line {self.line}")
-        if self.key:
-            where.append(self.key)
-        return f"{', '.join(where)}: {self.message}"
 
 
 @dataclass
@@ -141,8 +125,6 @@ class SaveOutcome:
 
 
 # ---- reading ---------------------------------------------------------------------------------
-_TOML_POSITION = re.compile(r"\s*\(at line (\d+), column (\d+)\)\s*$")
-_TOML_END = re.compile(r"\s*\(at end of document\)\s*$")
 _HEADER = re.compile(r"^\s*(\[\[?)\s*([^\[\]]+?)\s*\]\]?")
 _KEY_PART = re.compile(r"\[(\d+)\]|([^.\[\]]+)")
 
@@ -418,36 +400,14 @@ def loads_session(text: str, source: str = "<text>", *, check_values: bool = Tru
     values, a newer schema and (unless ``check_values`` is false, as for a recovery file saved
     mid-edit) for any field text that :func:`~workbench.model.fields.parse_field` refuses.
     """
-    try:
-        doc = tomllib.loads(text)
-    except tomllib.TOMLDecodeError as exc:
-        message = str(exc)
-        position = _TOML_POSITION.search(message)
-        if position:
-            message = f"{message[:position.start()]} (column {position[2]})"
-            raise SessionFileError(source, f"not valid TOML: {message}",
-                                   line=int(position[1])) from None
-        message = _TOML_END.sub(" at the end of the file", message)
-        raise SessionFileError(source, f"not valid TOML: {message}") from None
+    doc = parse_toml(text, source, error=SessionFileError)
     return _Reader(text, source, check_values).session(doc)
 
 
 def load_session(path: str | os.PathLike[str], *, check_values: bool = True) -> Session:
     """The session in the file at ``path`` (UTF-8 TOML); see :func:`loads_session`."""
-    target = Path(path)
-    if target.is_dir():
-        raise SessionFileError(target, "is a folder, not a session file")
-    try:
-        data = target.read_bytes()
-    except FileNotFoundError:
-        raise SessionFileError(target, "no such file") from None
-    except OSError as exc:
-        raise SessionFileError(target, f"cannot read it: {exc.strerror or exc}") from None
-    try:
-        text = data.decode("utf-8")
-    except UnicodeDecodeError as exc:
-        raise SessionFileError(target, f"not UTF-8 text (byte {exc.start})") from None
-    return loads_session(text, str(target), check_values=check_values)
+    text = read_text(path, error=SessionFileError, what="session file")
+    return loads_session(text, str(path), check_values=check_values)
 
 
 # ---- writing ---------------------------------------------------------------------------------
