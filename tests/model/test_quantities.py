@@ -241,3 +241,20 @@ def test_format_then_parse_round_trips_within_printed_digits(
     last_digit = 10 ** (math.floor(math.log10(shown)) - digits + 1) if shown > 0 else 0.0
     tolerance = 0.5 * last_digit * scale * (1 + 1e-9) + 1e-9 * (1 + abs(value))
     assert abs(back - value) <= tolerance, (text, back, value)
+
+
+@pytest.mark.parametrize("text", ["1 kN**99", "1 kN^99", "1e300 TN", "1 N*kN*MN*GN*TN*PN*EN"])
+def test_overflowing_units_and_values_are_a_message(text: str) -> None:
+    """A unit whose scale overflows pint (10^297 for kN**99) or a value past the double range
+    is a one-line QuantityError, not an OverflowError (the issue's second door into pint)."""
+    with pytest.raises(QuantityError):
+        parse(text, "force")
+
+
+def test_solver_target_goes_through_the_same_guard() -> None:
+    """'Lnm=1 kN**99' as a solver target is refused by the same door (FieldError on target)."""
+    from workbench.model.fields import FieldError
+    from workbench.model.targets import parse_target_text
+
+    with pytest.raises(FieldError, match="target"):
+        parse_target_text("Lnm=1 kN**99")

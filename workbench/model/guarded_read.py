@@ -89,12 +89,12 @@ def name_too_long(path: Path) -> str | None:
     return None
 
 
-def read_text(path: str | os.PathLike[str], *, error: Refusal = FileRefused,
-              limit: int = MAX_FILE_BYTES, what: str = "file") -> str:
-    """The UTF-8 text of the regular file at ``path`` (a leading BOM dropped).
+def read_bytes(path: str | os.PathLike[str], *, error: Refusal = FileRefused,
+               limit: int = MAX_FILE_BYTES, what: str = "file") -> bytes:
+    """The bytes of the regular file at ``path``, at most ``limit`` of them.
 
     Raises ``error`` (a :class:`FileRefused`) in one line: no such file, not a regular file,
-    over ``limit`` bytes, not UTF-8 (with the line of the first bad byte), cannot be read.
+    over ``limit`` bytes, cannot be read.
     """
     target = Path(path)
     too_long = name_too_long(target)
@@ -126,7 +126,14 @@ def read_text(path: str | os.PathLike[str], *, error: Refusal = FileRefused,
             raise error(target, f"cannot read it: {exc.strerror or exc}") from None
     if len(data) > limit:
         raise error(target, _too_large(len(data), limit))
-    return decode_text(data, target, error)
+    return data
+
+
+def read_text(path: str | os.PathLike[str], *, error: Refusal = FileRefused,
+              limit: int = MAX_FILE_BYTES, what: str = "file") -> str:
+    """The UTF-8 text of the regular file at ``path`` (a leading BOM dropped); ``error`` as
+    :func:`read_bytes` raises it, or for text that is not UTF-8 (with the line of the bad byte)."""
+    return decode_text(read_bytes(path, error=error, limit=limit, what=what), path, error)
 
 
 def _too_large(size: int, limit: int) -> str:
