@@ -14,7 +14,7 @@ import html
 import re
 
 QUOTE_LIMIT = 60  # characters of a person's text quoted in one message
-PATH_LIMIT = 100  # characters of a path named in one message (its end kept: the file's name)
+PATH_LIMIT = 160  # characters of a path named in one message (its end kept: the file's name)
 ELLIPSIS = "…"
 
 # C0 and C1 controls, DEL, and the bidirectional overrides that reorder what a terminal shows;
@@ -23,6 +23,8 @@ _BIDI = "\u061c\u200e\u200f\u202a-\u202e\u2066-\u2069"
 _CONTROLS = re.compile(f"[\x00-\x08\x0b\x0c\x0e-\x1f\x7f-\x9f{_BIDI}]")
 _CONTROLS_AND_LINES = re.compile(f"[\x00-\x1f\x7f-\x9f{_BIDI}\u2028\u2029\u0085]")
 _MARKDOWN_SPECIAL = re.compile(r"([\\`*_\[\]|~])")  # emphasis, code, links, table cells
+# What Markdown passes on as HTML: a tag, comment or declaration start, or a character reference
+_HTML_START = re.compile(r"<(?=[A-Za-z/!?])|&(?=#?\w+;)")
 _MARKDOWN_LEADING = re.compile(r"^(\d*)([#\-+>.)])")  # a heading, list or quote at the start
 
 
@@ -56,11 +58,18 @@ def one_line(text: str) -> str:
     return " ".join(_CONTROLS_AND_LINES.sub(" ", text).split())
 
 
-def markdown_text(text: str) -> str:
-    """User text as literal Markdown on one line: HTML escaped (``<script>`` shows as text),
-    Markdown's marks backslash-escaped, line breaks and control characters gone."""
-    escaped = _MARKDOWN_SPECIAL.sub(r"\\\1", html.escape(one_line(text), quote=False))
-    return _MARKDOWN_LEADING.sub(r"\1\\\2", escaped)
+def _html_entity(match: re.Match[str]) -> str:
+    return "&lt;" if match[0] == "<" else "&amp;"
+
+
+def markdown_text(text: str, *, block_start: bool = True) -> str:
+    """User text as literal Markdown on one line: HTML tags and character references escaped
+    (``<script>`` shows as text; a lone ``<`` or ``&`` stays as typed),
+    Markdown's inline marks backslash-escaped, line breaks and control characters gone.  Where
+    the text starts a block (a paragraph, a list item, a quote; ``block_start``) a leading
+    ``#``, ``-``, ``+``, ``>`` or ``1.`` is escaped too, so it cannot become a heading or a list."""
+    escaped = _MARKDOWN_SPECIAL.sub(r"\\\1", _HTML_START.sub(_html_entity, one_line(text)))
+    return _MARKDOWN_LEADING.sub(r"\1\\\2", escaped) if block_start else escaped
 
 
 def html_text(text: str) -> str:
