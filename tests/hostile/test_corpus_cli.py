@@ -9,6 +9,7 @@ codes documented in DEVELOPERS.md, and the ECMA-48 control ranges for what reach
 
 from __future__ import annotations
 
+import json
 import subprocess
 import sys
 from pathlib import Path
@@ -186,3 +187,23 @@ def test_report_output_is_written_atomically_and_never_over_the_session(
     assert main(["report", str(path), "-o", str(path)]) == 2
     assert path.read_bytes() == GOOD.encode()
     _one_line_failure(capsys.readouterr().err, path)
+
+
+def test_thousand_case_session_opens_and_reports(tmp_path: Path,
+                                                  capsys: pytest.CaptureFixture[str]) -> None:
+    """1,000 cases on one bearing: read and reported, every case in the summary; sensitivity
+    tables stop after the first 50 and the report says so (the speed is in workbench bench)."""
+    from workbench.model.sample_sessions import shared_bearing_session
+    from workbench.model.sessionfile import dumps_session
+    from workbench.report.contents import SENSITIVITY_CASES
+
+    path = tmp_path / "large.toml"
+    path.write_text(dumps_session(shared_bearing_session(1000)), encoding="utf-8")
+    assert len(open_session(path).session.cases) == 1000
+    assert main(["report", str(path), "--format", "json"]) == 0
+    cases = json.loads(capsys.readouterr().out)["cases"]
+    assert len(cases) == 1000 and all(case["error"] is None for case in cases)
+    with_tables = [case for case in cases if case["sensitivity"]]
+    assert len(with_tables) == SENSITIVITY_CASES
+    assert main(["report", str(path)]) == 0
+    assert f"first {SENSITIVITY_CASES} cases" in capsys.readouterr().out

@@ -22,10 +22,12 @@ ELLIPSIS = "…"
 _BIDI = "\u061c\u200e\u200f\u202a-\u202e\u2066-\u2069"
 _CONTROLS = re.compile(f"[\x00-\x08\x0b\x0c\x0e-\x1f\x7f-\x9f{_BIDI}]")
 _CONTROLS_AND_LINES = re.compile(f"[\x00-\x1f\x7f-\x9f{_BIDI}\u2028\u2029\u0085]")
-_MARKDOWN_SPECIAL = re.compile(r"([\\`*_\[\]|~])")  # emphasis, code, links, table cells
+# Emphasis, code, strike-through and table cells; "_" only at a word's edge (inside a word it
+# emphasises nothing: s0_min); "]" only where it would close a link or image ("](", "][").
+_MARKDOWN_SPECIAL = re.compile(r"([\\`*|~]|(?<![0-9A-Za-z])_|_(?![0-9A-Za-z])|\](?=[(\[]))")
 # What Markdown passes on as HTML: a tag, comment or declaration start, or a character reference
 _HTML_START = re.compile(r"<(?=[A-Za-z/!?])|&(?=#?\w+;)")
-_MARKDOWN_LEADING = re.compile(r"^(\d*)([#\-+>.)])")  # a heading, list or quote at the start
+_MARKDOWN_LEADING = re.compile(r"^(\d*)([#\-+>.)\[])")  # a heading, list, quote, link label
 
 
 def clipped(text: str, limit: int = QUOTE_LIMIT) -> str:

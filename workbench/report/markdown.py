@@ -112,6 +112,8 @@ def render(report: Report) -> str:
     lines += _of(report.summary) if report.cases else ["No load cases.", ""]
     if report.generated_legend:
         lines += [f"\\{report.generated_legend}", ""]
+    if report.sensitivity_note:
+        lines += [markdown_text(report.sensitivity_note), ""]
     for case in report.cases:
         lines += _case(case)
     if report.shafts:
