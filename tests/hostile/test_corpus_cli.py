@@ -104,13 +104,19 @@ def test_markdown_report_escapes_markup_in_names(tmp_path: Path,
     assert "\n# injected" not in out
 
 
+def _select_with_catalog(folder: Path, name: str, data: bytes) -> tuple[int, Path]:
+    """``workbench select`` of the corpus base session on the catalog ``name``: exit code, path."""
+    [session] = write_files(folder, {"s.toml": GOOD.encode()})
+    [path] = write_files(folder, {name: data})
+    return main(["select", str(session), "--catalog", str(path)]), path
+
+
 @pytest.mark.parametrize("name", sorted(REFUSED_CATALOGS))
 def test_refused_catalog_is_one_line_and_exit_2(name: str, tmp_path: Path,
                                                 capsys: pytest.CaptureFixture[str]) -> None:
     """A 100 000-column header, a 200 kB header cell, nested or huge-integer TOML catalogs."""
-    [session] = write_files(tmp_path, {"s.toml": GOOD.encode()})
-    [path] = write_files(tmp_path, {name: REFUSED_CATALOGS[name]})
-    assert main(["select", str(session), "--catalog", str(path)]) == 2
+    code, path = _select_with_catalog(tmp_path, name, REFUSED_CATALOGS[name])
+    assert code == 2
     _one_line_failure(capsys.readouterr().err, path)
 
 
@@ -118,9 +124,7 @@ def test_refused_catalog_is_one_line_and_exit_2(name: str, tmp_path: Path,
 def test_bad_catalog_rows_are_rejected_and_bounded(name: str, tmp_path: Path,
                                                    capsys: pytest.CaptureFixture[str]) -> None:
     """A 140 kB field rejects its row; 5000 bad rows are named 20 at a time on standard error."""
-    [session] = write_files(tmp_path, {"s.toml": GOOD.encode()})
-    [path] = write_files(tmp_path, {name: ROW_PROBLEM_CATALOGS[name]})
-    assert main(["select", str(session), "--catalog", str(path)]) == 0
+    assert _select_with_catalog(tmp_path, name, ROW_PROBLEM_CATALOGS[name])[0] == 0
     err = capsys.readouterr().err
     assert 1 <= err.count("\n") <= 21 and max(len(line) for line in err.splitlines()) <= MAX_LINE
 

@@ -99,7 +99,7 @@ from .session import (
 from .shafts import SIDES, Shaft, case_name, shafts_from_tables
 from .targets import parse_target_text
 from .toml_tables import checked_table, required_name, table_list, table_text, type_words
-from .user_text import clipped, clipped_path
+from .user_text import clipped, clipped_path, quoted
 
 APP_NAME = "bearing-workbench"
 DEMO_SESSION = "demo.toml"
@@ -297,7 +297,7 @@ class _Reader:
         head = self.table(doc.get("session", {}), ("session",), SESSION_KEYS)
         units = self.text(head, ("session",), "units", "SI")
         if units not in UNIT_SYSTEMS:
-            raise self.fail(("session", "units"), f"use {' or '.join(UNIT_SYSTEMS)}, not {units!r}")
+            raise self.fail(("session", "units"), f"use {' or '.join(UNIT_SYSTEMS)}, not {quoted(units)}")
         bearings = self.bearings(doc)
         cases = self.cases(doc, {b.name for b in bearings})
         if self.check_values:
@@ -369,7 +369,7 @@ class _Reader:
             name = self.unique_name(table, path, seen, "case")
             bearing = self.text(table, path, "bearing")
             if self.check_values and bearing not in bearing_names:
-                message = (f"no bearing called {bearing!r} in this file" if bearing.strip()
+                message = (f"no bearing called {quoted(bearing)} in this file" if bearing.strip()
                            else "every case names the bearing it loads")
                 raise self.fail(path + ("bearing",), message)
             result.append(LoadCase(name, bearing, self.texts(table, path, CASE_FIELDS),
@@ -388,7 +388,7 @@ class _Reader:
             for side in ("bearing_a", "bearing_b"):
                 if getattr(shaft, side) not in bearing_names:
                     raise self.fail(("shafts", number, side),
-                                    f"no bearing called {getattr(shaft, side)!r} in this file")
+                                    f"no bearing called {quoted(getattr(shaft, side))} in this file")
         return shafts
 
     def duty_cycles(self, doc: Mapping[str, Any], case_names: set[str]) -> None:
@@ -403,7 +403,7 @@ class _Reader:
             for state_number, (case, _) in enumerate(cycle.states, start=1):
                 if case not in case_names:
                     raise self.fail(("duty_cycles", number, "states", state_number, "case"),
-                                    f"no case called {case!r} in this file, nor generated "
+                                    f"no case called {quoted(case)} in this file, nor generated "
                                     "from one of its shafts")
 
     def solver(self, doc: Mapping[str, Any], case_names: set[str]) -> SolverSetup:
@@ -415,14 +415,14 @@ class _Reader:
         if not self.check_values:
             return setup
         if setup.unknown not in UNKNOWNS:
-            raise self.fail(path + ("unknown",), f"cannot solve for {setup.unknown!r}; "
+            raise self.fail(path + ("unknown",), f"cannot solve for {quoted(setup.unknown)}; "
                                                  f"use one of {', '.join(UNKNOWNS)}")
         try:
             parse_target_text(setup.target)
         except FieldError as exc:
             raise self.fail(path + ("target",), exc.message) from None
         if setup.case and setup.case not in case_names:
-            raise self.fail(path + ("case",), f"no case called {setup.case!r} in this file")
+            raise self.fail(path + ("case",), f"no case called {quoted(setup.case)} in this file")
         return setup
 
 
@@ -470,13 +470,13 @@ def dumps_session(session: Session) -> str:
     if session.bearings:
         doc["bearings"] = [
             _field_table({"name": b.name, "notes": b.notes}, b.texts, BEARING_FIELDS,
-                         f"bearing {b.name!r}")
+                         f"bearing {quoted(b.name)}")
             for b in session.bearings
         ]
     if session.cases:
         doc["cases"] = [
             _field_table({"name": c.name, "bearing": c.bearing, "notes": c.notes}, c.texts,
-                         CASE_FIELDS, f"case {c.name!r}")
+                         CASE_FIELDS, f"case {quoted(c.name)}")
             for c in session.cases
         ]
     doc["solver"] = {key: getattr(session.solver, key) for key in SOLVER_KEYS}
