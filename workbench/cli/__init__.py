@@ -45,8 +45,11 @@ def main(argv: Sequence[str] | None = None) -> int:
     """Entry point of the ``workbench`` console script and ``python -m workbench``."""
     argv = list(sys.argv[1:] if argv is None else argv)
     if argv and argv[0] in SUBCOMMANDS:
-        args = build_parser().parse_args(argv)
-        return run_guarded(lambda: int(args.run(args)))
+        def run() -> int:  # argparse's own error lines pass the guard too
+            args = build_parser().parse_args(argv)
+            return int(args.run(args))
+
+        return run_guarded(run)
     return screen.run(screen.parser(SUBCOMMANDS).parse_args(argv))
 
 

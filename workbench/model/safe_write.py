@@ -29,6 +29,7 @@ from pathlib import Path
 from typing import NamedTuple
 
 from .guarded_read import FileRefused, Refusal, file_kind, name_too_long
+from .user_text import clipped_path
 
 STALE_AFTER_S = 300.0  # a save takes milliseconds; a temporary this old belongs to a dead process
 NEW_FILE_MODE = 0o644
@@ -66,9 +67,10 @@ def resolved_path(path: str | os.PathLike[str]) -> Path:
 
 
 def writable_target(path: str | os.PathLike[str], *, error: Refusal = FileRefused,
-                    what: str = "file") -> tuple[Path, int | None]:
+                    what: str = "file", verb: str = "write") -> tuple[Path, int | None]:
     """The file a write to ``path`` lands in (links followed) and its permission bits (None
-    when it does not exist yet); ``error`` when it cannot or must not be written."""
+    when it does not exist yet); ``error`` ("cannot ``verb``: …") when it cannot or must not be
+    written."""
     given = Path(path).expanduser()
     too_long = name_too_long(given)
     if too_long:
@@ -81,10 +83,10 @@ def writable_target(path: str | os.PathLike[str], *, error: Refusal = FileRefuse
         status = os.stat(target)
     except FileNotFoundError:
         if not target.parent.is_dir():
-            raise error(given, f"cannot save: no folder {target.parent}") from None
+            raise error(given, f"cannot {verb}: no folder {clipped_path(target.parent)}") from None
         return target, None
     except OSError as exc:
-        raise error(given, f"cannot save: {exc.strerror or exc}") from None
+        raise error(given, f"cannot {verb}: {exc.strerror or exc}") from None
     kind = file_kind(status.st_mode)
     if kind:
         raise error(given, f"is {kind}, not a {what}: not written")
@@ -95,19 +97,19 @@ def writable_target(path: str | os.PathLike[str], *, error: Refusal = FileRefuse
 
 
 def write_atomically(path: str | os.PathLike[str], data: bytes, *, mode: int | None = None,
-                     error: Refusal = FileRefused, what: str = "file") -> Path:
+                     error: Refusal = FileRefused, what: str = "file", verb: str = "write") -> Path:
     """Write ``data`` to ``path`` so that it holds either its old or its new bytes, never part;
     the file written (a link's target).  ``mode`` defaults to the file's own bits, else 0644.
 
     Raises ``error`` in one line when the file must not or cannot be written.
     """
-    target, existing_mode = writable_target(path, error=error, what=what)
+    target, existing_mode = writable_target(path, error=error, what=what, verb=verb)
     remove_stale_temporaries(target)
     try:
         descriptor, temporary = tempfile.mkstemp(dir=target.parent, prefix=f".{target.name}.",
                                                  suffix=TEMPORARY_SUFFIX)
     except OSError as exc:
-        raise error(path, f"cannot save: {exc.strerror or exc}") from None
+        raise error(path, f"cannot {verb}: {exc.strerror or exc}") from None
     try:
         with os.fdopen(descriptor, "wb") as handle:
             handle.write(data)
@@ -119,7 +121,7 @@ def write_atomically(path: str | os.PathLike[str], data: bytes, *, mode: int | N
         with contextlib.suppress(OSError):
             os.unlink(temporary)
         if isinstance(exc, OSError):
-            raise error(path, f"cannot save: {exc.strerror or exc}") from None
+            raise error(path, f"cannot {verb}: {exc.strerror or exc}") from None
         raise
     _sync_folder(target.parent)
     return target

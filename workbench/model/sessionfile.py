@@ -603,7 +603,7 @@ def save_session(session: Session, path: str | os.PathLike[str], *,
     device, read-only, a name too long, no such folder, a full disk).
     """
     data = dumps_session(session).encode("utf-8")
-    target, mode = writable_target(path, error=SessionFileError, what="session file")
+    target, mode = writable_target(path, error=SessionFileError, what="session file", verb="save")
     outcome = SaveOutcome(target)
     old = None
     if mode is not None:
@@ -615,7 +615,7 @@ def save_session(session: Session, path: str | os.PathLike[str], *,
             original = _sibling(target, ".orig")
             if not original.exists():
                 outcome.original = write_atomically(original, old, mode=mode,
-                                                    error=SessionFileError)
+                                                    error=SessionFileError, verb="save")
                 outcome.messages.append(
                     f"{target.name} held comments, which saving does not keep: "
                     f"the file as it was is kept as {original.name}")
@@ -624,8 +624,8 @@ def save_session(session: Session, path: str | os.PathLike[str], *,
                     f"{target.name} held comments, which saving does not keep: the version "
                     f"just replaced is in {target.name}.bak ({original.name} keeps the first)")
         outcome.backup = write_atomically(_sibling(target, ".bak"), old, mode=mode,
-                                          error=SessionFileError)
-    write_atomically(target, data, error=SessionFileError, what="session file")
+                                          error=SessionFileError, verb="save")
+    write_atomically(target, data, error=SessionFileError, what="session file", verb="save")
     outcome.stamp = stamp_for(target, data)
     return outcome
 

@@ -236,6 +236,8 @@ def render(report: Report) -> str:
               _table(report.summary) if report.cases else "<p>No load cases.</p>"]
     if report.generated_legend:
         parts.append(f'<p class="note">{_e(report.generated_legend)}</p>')
+    if report.sensitivity_note:
+        parts.append(f'<p class="note">{_e(report.sensitivity_note)}</p>')
     if len(report.cases) > PLOTTED_CASES:
         parts.append(f'<p class="note">Figures are drawn for the first {PLOTTED_CASES} cases.</p>')
     parts.append("</section>")
