@@ -504,6 +504,8 @@ def has_comments(text: str) -> bool:
     A plain scan, not a TOML parser: it follows one-line and multi-line basic and literal strings
     (and backslash escapes in basic ones) so a ``#`` inside a value is not taken for a comment.
     """
+    if "#" not in text:  # the usual case, and a large file's, at C speed
+        return False
     closing: str | None = None  # the delimiter of the multi-line string we are inside
     for line in text.split("\n"):  # TOML lines end in \n; splitlines() would also break at U+0085
         i, n = 0, len(line)
