@@ -278,3 +278,20 @@ def test_derivation_numbers_follow_the_us_display() -> None:
     for step in d.steps:  # in SI the display writes what the engine writes
         assert step.substituted_in(si) == step.substituted, step.key
     assert d.step("T").substituted == "70 °C"
+
+
+@pytest.mark.parametrize("text", ["1 kN**99", "1 kN^99", "1e300 TN", "1 N*kN*MN*GN*TN*PN*EN"])
+def test_overflowing_units_and_values_are_a_message(text: str) -> None:
+    """A unit whose scale overflows pint (10^297 for kN**99) or a value past the double range
+    is a one-line QuantityError, not an OverflowError (the issue's second door into pint)."""
+    with pytest.raises(QuantityError):
+        parse(text, "force")
+
+
+def test_solver_target_goes_through_the_same_guard() -> None:
+    """'Lnm=1 kN**99' as a solver target is refused by the same door (FieldError on target)."""
+    from workbench.model.fields import FieldError
+    from workbench.model.targets import parse_target_text
+
+    with pytest.raises(FieldError, match="target"):
+        parse_target_text("Lnm=1 kN**99")

@@ -117,6 +117,27 @@ def _internal_figures(repeats: int) -> tuple[float, float]:
     return one, sweep
 
 
+def _large_session_figures(repeats: int, cases: int = 1000) -> dict[str, Any]:
+    """``open1000_ms``: read a 1,000-case session file (the screen's open); ``report1000_ms``:
+    its text report (analysis, derivations, layout).  Goal: each ≤ 2 s."""
+    import tempfile
+    from pathlib import Path
+
+    from ..model.sample_sessions import shared_bearing_session
+    from ..model.sessionfile import dumps_session, open_session
+    from ..report import render_report
+
+    with tempfile.TemporaryDirectory() as folder:
+        path = Path(folder) / "large.toml"
+        path.write_text(dumps_session(shared_bearing_session(cases)), encoding="utf-8")
+        opened = open_session(path)
+        assert opened.session is not None, opened.error
+        open_time = _median_seconds(lambda: open_session(path), repeats)
+        report_time = _median_seconds(lambda: render_report(opened.session, "text", str(path)),
+                                      repeats)
+    return {f"open{cases}_ms": open_time * 1e3, f"report{cases}_ms": report_time * 1e3}
+
+
 def run_benchmarks(quick: bool = False) -> dict[str, Any]:
     """Every figure of the project, as one mapping (see the README for the goals)."""
     repeats = 8 if quick else 40
@@ -127,6 +148,7 @@ def run_benchmarks(quick: bool = False) -> dict[str, Any]:
     from ..engine.select import benchmark_select
 
     figures.update(benchmark_select(n_bearings=1000 if quick else 10000))
+    figures.update(_large_session_figures(repeats=1 if quick else 3))
     from ..tui import bench as screen
 
     figures.update(screen.measure_typing(

@@ -159,6 +159,13 @@ def validate(case: CaseInputs) -> tuple[Kind, Arrangement, float]:
         _check("weibull_x0", case.weibull_x0)
         if case.weibull_x0 >= case.weibull_theta:
             raise InputError("weibull_x0", "x0 must be below θ")
+        try:
+            factor = reliability_life_factor(case)
+        except OverflowError:
+            factor = _INF
+        if not factor < _INF:
+            raise InputError("weibull_b", f"(ln 1/R)^(1/b) is beyond the largest number at "
+                                          f"R = {case.reliability:g}: b is too small")
     alpha = case.contact_angle
     if alpha is None:
         alpha = DEFAULT_CONTACT_ANGLE[kind]
@@ -198,14 +205,16 @@ def derive(case: CaseInputs, keep_steps: bool = True) -> Derivation:
             symbol="af·P", label="Load with the application factor", formula="af·P",
             template="{0} × {1:N}", args=(case.af, p), unit="N", source="common practice",
             note=T.APPLICATION_FACTOR_HINT))
+    if not p_eff > 0.0:  # a load that rounds to zero: C/P would divide by it
+        raise InputError("af" if case.af != 1.0 else "fr", "af·P rounds to zero: too small to rate")
     exponent = life_exponent(kind)
     rating_mrev = rating_basis_mrev(case)
-    l10 = rating_mrev * basic_rating_life(case.c, p_eff, exponent)
+    l10 = _finite_life(rating_mrev * basic_rating_life(case.c, p_eff, exponent), "L10", case)
     d.derived("L10", l10, lambda: _l10_words(case, kind, rating_mrev, p_eff, exponent))
     _hours(d, "L10h", "L10h", "Basic rating life in hours", l10, case.speed, kind)
     a_rel = _reliability(d, case)
     a_iso = _lubrication(d, case, kind, p_eff)
-    lnm_mrev = a_rel * a_iso * l10
+    lnm_mrev = _finite_life(a_rel * a_iso * l10, "Lnm", case)
     d.derived("Lnm_mrev", lnm_mrev, lambda: StepWords(
         symbol="Lnm", label="Modified rating life", formula="a1·aISO·L10",
         template="{0} × {1} × {2}", args=(a_rel, a_iso, l10), unit="10⁶ rev",
@@ -363,9 +372,21 @@ def _cylindrical_axial_warning(case: CaseInputs) -> str | None:
     return None
 
 
+def _finite_life(life_mrev: float, symbol: str, case: CaseInputs) -> float:
+    """``life_mrev``, refused when it is beyond the largest float: an infinite life is no answer.
+    The input named is af when it is below 1 (it divides the life), else C."""
+    if not life_mrev < _INF:
+        name, words = ("af", "af is too small") if case.af < 1.0 else ("c", "C is too large")
+        raise InputError(name, f"{symbol} is beyond the largest number: {words} for these loads")
+    return life_mrev
+
+
 def _hours(d: Derivation, key: str, symbol: str, label: str, life_mrev: float, speed: float,
            kind: Kind) -> None:
     """A life in hours at the case speed, or an undefined value with a warning at speed 0."""
+    if speed > 0.0 and not life_hours(life_mrev, speed) < _INF:
+        raise InputError("speed", f"{symbol} is beyond the largest number of hours: the speed is "
+                                  "too small for this life")
     if speed > 0.0:
         d.derived(key, life_hours(life_mrev, speed), lambda: StepWords(
             symbol=symbol, label=label, formula="L·10⁶/(60·n)", template="{0} × 10⁶ / (60 × {1:rpm})",

@@ -33,6 +33,8 @@ from typing import TYPE_CHECKING, Literal
 
 from workbench.engine.record import engine_units, fmt
 
+from .user_text import clipped, quoted
+
 if TYPE_CHECKING:  # pint is imported lazily, on the first cache miss
     import pint
 
@@ -113,8 +115,7 @@ def _spec(quantity: str) -> QuantitySpec:
 
 def _shown(text: str) -> str:
     """The user's text, shortened for a one-line message."""
-    text = text.strip()
-    return text if len(text) <= 40 else text[:37] + "…"
+    return clipped(text, 40)
 
 
 def unit_registry() -> pint.UnitRegistry[float]:
@@ -169,15 +170,29 @@ def _conversion(unit_text: str, quantity: str, shown: str) -> tuple[float, float
     exact = _exact_conversion(unit_text, spec)
     if exact is not None:
         return exact
+    try:
+        factor, offset = _pint_conversion(unit_text, quantity, spec, shown)
+    except (ArithmeticError, RecursionError, MemoryError):  # "kN**99": pint's scale overflows
+        raise QuantityError(f"{shown}: the unit {clipped(unit_text, 30)} is out of range") from None
+    if not (math.isfinite(factor) and math.isfinite(offset)) or factor == 0.0:
+        raise QuantityError(f"{shown}: the unit {clipped(unit_text, 30)} is out of range")
+    if len(_conversions) < _CACHE_LIMIT:
+        _conversions[key] = (factor, offset)
+    return factor, offset
+
+
+def _pint_conversion(unit_text: str, quantity: str, spec: QuantitySpec,
+                     shown: str) -> tuple[float, float]:
+    """(a, b) for ``unit_text`` from pint, checking its dimension against ``spec``."""
     import pint
 
     ureg = unit_registry()
     try:
         units = ureg.parse_units(unit_text)
     except pint.UndefinedUnitError as error:
-        raise QuantityError(f"{shown}: unknown unit {error.args[0]!r}") from None
+        raise QuantityError(f"{shown}: unknown unit {quoted(str(error.args[0]), 30)}") from None
     except (pint.PintError, ValueError, TypeError, SyntaxError):
-        raise QuantityError(f"{shown}: cannot read the unit {unit_text!r}") from None
+        raise QuantityError(f"{shown}: cannot read the unit {quoted(unit_text, 30)}") from None
     internal = ureg.parse_units(spec.internal)
     if _root(units) != _root(internal):
         other = _noun_for(units)
@@ -189,9 +204,7 @@ def _conversion(unit_text: str, quantity: str, shown: str) -> tuple[float, float
         # the slope over a wide span, so an offset unit's rounding in ``offset`` does not leak in
         factor = (float(ureg.Quantity(_SPAN, units).to(internal).magnitude) - offset) / _SPAN
     except pint.PintError:  # e.g. an offset unit inside a product, "°C·m"
-        raise QuantityError(f"{shown}: cannot convert {unit_text!r} to {spec.internal}") from None
-    if len(_conversions) < _CACHE_LIMIT:
-        _conversions[key] = (factor, offset)
+        raise QuantityError(f"{shown}: cannot convert {quoted(unit_text, 30)} to {spec.internal}") from None
     return factor, offset
 
 
@@ -229,6 +242,8 @@ def parse(text: str, quantity: str, *, default_unit: str | None = None) -> float
         unit_text = default_unit or ""
     factor, offset = _conversion(unit_text, quantity, _shown(text))
     result = factor * value + offset
+    if not math.isfinite(result):
+        raise QuantityError(f"{_shown(text)}: not a finite number (too large)")
     if quantity == "temperature" and result < ABSOLUTE_ZERO_C - 1e-9:
         raise QuantityError(f"{_shown(text)} is below absolute zero ({ABSOLUTE_ZERO_C} °C)")
     return result

@@ -16,6 +16,7 @@ from ..engine.ratings import BALL_KINDS, KINDS, THRUST_KINDS, BearingGeometry, r
 from ..engine.record import Derivation, InputError, fmt
 from .fields import FieldError
 from .quantities import QuantityError, parse
+from .user_text import quoted
 
 RADIAL_DEFAULT_ANGLE = "0°"
 THRUST_DEFAULT_ANGLE = "90°"
@@ -55,7 +56,7 @@ def _number(spec: RatingInput, text: str) -> float:
     try:
         value = float(text)
     except ValueError:
-        raise FieldError(spec.name, f"{text!r} is not a number") from None
+        raise FieldError(spec.name, f"{quoted(text)} is not a number") from None
     if not math.isfinite(value):
         raise FieldError(spec.name, "must be a finite number")
     return value
