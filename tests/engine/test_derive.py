@@ -65,6 +65,33 @@ def test_outer_ring_rotation_factor() -> None:
     assert d.step("V").value == 1.2
 
 
+def test_rotation_factor_on_a_cylindrical_bearing() -> None:
+    """P = V·Fr = 1.2 × 10 kN for a cylindrical roller bearing with the outer ring rotating (older
+    practice): the V reported is the V used, and life follows P (issue: life was overstated)."""
+    case = CaseInputs(kind="cylindrical", fr=10000.0, c=100000.0, c0=120000.0, speed=1000.0,
+                      outer_ring_rotates=True)
+    d = derive(case)
+    assert d.results["V"] == 1.2
+    assert d.results["P"] == pytest.approx(12000.0)
+    assert d.results["L10"] == pytest.approx((100000 / 12000) ** (10 / 3), rel=1e-12)
+
+
+@pytest.mark.parametrize("case", [
+    CaseInputs(kind="self-aligning", fr=5000.0, fa=400.0, c=30000.0, c0=9000.0, contact_angle=12.0,
+               speed=1000.0, outer_ring_rotates=True),
+    CaseInputs(kind="thrust-ball", fa=4000.0, c=30000.0, c0=60000.0, speed=1000.0,
+               outer_ring_rotates=True),
+])
+def test_rotation_factor_where_it_does_not_apply(case: CaseInputs) -> None:
+    """Self-aligning ball (older tables: V = 1, from memory) and thrust bearings: V = 1 is used,
+    reported as 1, and a warning says the rotating outer ring was not applied."""
+    d = derive(case)
+    plain = derive(replace(case, outer_ring_rotates=False))
+    assert d.results["V"] == 1.0
+    assert d.results["P"] == plain.results["P"]
+    assert any("outer ring rotation ignored" in w for w in d.warnings)
+
+
 def test_lubrication_chain_by_hand() -> None:
     """aISO chain (ISO 281:2007 §9.3, from memory) with ν given: κ = ν/ν1, eC midpoint of 'normal'
     (0.5–0.6 → 0.55), Cu = C0/22 for dpw ≤ 100 mm, ball relation for 1 ≤ κ ≤ 4."""
@@ -262,3 +289,205 @@ def test_engine_imports_neither_textual_nor_pint() -> None:
             "print(any(m.split('.')[0] in ('textual', 'pint') for m in sys.modules))")
     out = subprocess.run([sys.executable, "-c", code], capture_output=True, text=True, check=True)
     assert out.stdout.strip() == "False"
+
+
+# ---- the limits and the words each branch of the derivation shows -----------------------------
+@pytest.mark.parametrize(("changes", "field"), [
+    ({"temp": -61.0, "vg": 68.0, "dm": 50.0, "ec": 0.5}, "temp"),   # −60 °C … 250 °C (workbench's range)
+    ({"temp": 251.0, "vg": 68.0, "dm": 50.0, "ec": 0.5}, "temp"),
+    ({"ec": 1.01}, "ec"),                                             # ISO 281 §9.3.4: 0 ≤ eC ≤ 1
+    ({"reliability_model": "weibull", "reliability": 1.0}, "reliability"),
+    ({"reliability": 0.8999}, "reliability"),                        # Table 12: 90 % … 99.95 %
+    ({"reliability": 0.99951}, "reliability"),
+])
+def test_limits_at_the_door(changes: dict, field: str) -> None:
+    """Just past each limit the engine refuses, naming the input."""
+    with pytest.raises(InputError) as info:
+        derive(replace(BASE, **changes))
+    assert info.value.field == field
+
+
+def test_limits_are_inclusive() -> None:
+    """At each limit the engine still derives: −60 °C, 250 °C, eC = 1, R = 90 % and 99.95 %."""
+    for changes in ({"temp": -60.0, "vg": 68.0, "dm": 50.0, "ec": 1.0},
+                    {"temp": 250.0, "vg": 68.0, "dm": 50.0, "ec": 0.5},
+                    {"reliability": 0.90}, {"reliability": 0.9995}):
+        derive(replace(BASE, **changes))
+
+
+@pytest.mark.parametrize(("kind", "alpha", "field"), [("tapered", 90.5, "contact_angle"),
+                                                       ("thrust-ball", 91.0, "contact_angle"),
+                                                       ("thrust-roller", 91.0, "contact_angle")])
+def test_contact_angle_past_ninety_is_refused(kind: str, alpha: float, field: str) -> None:
+    """A radial bearing with α ≥ 90° or a thrust bearing with α > 90° is not a bearing of its kind."""
+    case = CaseInputs(kind=kind, fr=1000.0 if kind == "tapered" else 0.0, fa=2000.0, c=50000.0,
+                      c0=60000.0, contact_angle=alpha, speed=500.0)
+    with pytest.raises(InputError) as info:
+        derive(case)
+    assert info.value.field == field
+
+
+def test_factor_results_of_the_fixed_forms() -> None:
+    """Cylindrical: X = 1, Y = 0, no e (P = Fr, ISO 281 §7.2); thrust at 90°: X = 0, Y = 1 (P = Fa)."""
+    cyl = derive(CaseInputs(kind="cylindrical", fr=5000.0, c=50000.0, c0=60000.0, speed=500.0))
+    assert (cyl.results["X"], cyl.results["Y"], math.isnan(cyl.results["e"])) == (1.0, 0.0, True)
+    thrust = derive(CaseInputs(kind="thrust-ball", fa=5000.0, c=50000.0, c0=90000.0, speed=500.0))
+    assert (thrust.results["X"], thrust.results["Y"], math.isnan(thrust.results["e"])) == (0.0, 1.0, True)
+    assert thrust.step("P").formula == "P = Fa (α = 90°)"
+
+
+def test_steps_show_only_the_factors_in_play() -> None:
+    """af = 1 and LR = 1 add no step or factor; af ≠ 1 and LR ≠ 1 do, with their formula."""
+    plain = derive(BASE)
+    assert plain.peek("P_eff") is None and plain.step("L10").formula == "(C/P)^p"
+    assert plain.step("P").formula == "X·Fr + Y·Fa"
+    shocked = derive(replace(BASE, af=1.02))
+    assert shocked.step("P_eff").formula == "af·P"
+    weibull = derive(replace(BASE, reliability_model="weibull", rating_life_mrev=1.02))
+    assert weibull.step("L10").formula == "LR·(C/P)^p"
+    weibull_one = derive(replace(BASE, reliability_model="weibull"))
+    assert weibull_one.step("L10").formula == "(C/P)^p"
+    assert CaseInputs().rating_life_mrev == 1.0 and CaseInputs().af == 1.0
+
+
+def test_index_step_names_its_column() -> None:
+    """The Table 3 index step says what it holds: f0·Fa/C0r, or the printed Fa/C0r column when
+    f0 is not given; a 15° pair indexes with i = 2 rows."""
+    with_f0 = derive(BASE).step("index")
+    assert with_f0.symbol == "f0·Fa/C0r" and with_f0.substituted == "14 × 2500 / 19000"
+    plain = derive(replace(BASE, f0=None)).step("index")
+    assert plain.symbol == "Fa/C0r" and plain.substituted == "2500 / 19000"
+    pair = CaseInputs(kind="angular-contact", arrangement="back-to-back", contact_angle=15.0,
+                      fr=5000.0, fa=1000.0, c=40000.0, c0=30000.0, speed=1000.0)
+    assert derive(pair).step("index").substituted == "2 × 1000 / 30000"
+    assert derive(replace(pair, f0=14.0)).step("index").substituted == "2 × 14 × 1000 / 30000"
+
+
+def test_viscosity_index_defaults_to_100() -> None:
+    """ISO VG without VI or ν100 assumes VI 100 (the workbench's stated default) and says so."""
+    lubricated = replace(BASE, vg=68.0, temp=70.0, dm=60.0, cleanliness="normal")
+    assumed = derive(lubricated)
+    assert assumed.results["nu"] == derive(replace(lubricated, vi=100.0)).results["nu"]
+    assert "VI 100 assumed" in assumed.step("nu100").note
+
+
+def test_lubrication_words_follow_the_branch_used() -> None:
+    """ν1 shows the piece used (n < 1000 r/min or not); eC and Cu name the dpw column used
+    (ISO 281:2007 §9.3, from memory); a thrust ball bearing shows eC·Cu/(3·P)."""
+    lubricated = replace(BASE, nu=30.0, dm=100.0, cleanliness="normal")
+    slow, fast = derive(replace(lubricated, speed=999.0)), derive(replace(lubricated, speed=1000.0))
+    assert slow.step("nu1").formula == "45000·n^−0.83·dm^−0.5"
+    assert fast.step("nu1").formula == "4500·n^−0.5·dm^−0.5"
+    assert derive(lubricated).step("eC").note == "dpw ≥ 100 mm column"
+    assert derive(replace(lubricated, dm=99.0)).step("eC").note == "dpw < 100 mm column"
+    assert derive(replace(lubricated, dm=101.0)).step("Cu").formula == "C0/22·(100/dpw)^0.5"
+    assert derive(lubricated).step("Cu").formula == "C0/22"
+    thrust = CaseInputs(kind="thrust-ball", fa=5000.0, c=50000.0, c0=90000.0, speed=500.0,
+                        nu=30.0, dm=60.0, ec=0.5)
+    assert derive(thrust).step("load_ratio").formula == "eC·Cu/(3·P)"
+    roller = replace(thrust, kind="thrust-roller", cu=2000.0)
+    d = derive(roller)  # ISO 281:2007 §9.3.2 (from memory): thrust roller eC·Cu/(2.5·P)
+    assert d.step("load_ratio").formula == "eC·Cu/(2.5·P)"
+    assert d.results["load_ratio"] == pytest.approx(0.5 * 2000.0 / (2.5 * 5000.0), rel=1e-12)
+    d = derive(replace(roller, kind="thrust-ball"))  # thrust ball eC·Cu/(3·P)
+    assert d.results["load_ratio"] == pytest.approx(0.5 * 2000.0 / (3 * 5000.0), rel=1e-12)
+    assert derive(lubricated).step("load_ratio").formula == "eC·Cu/P"
+
+
+def test_a1_step_shows_r_in_per_cent() -> None:
+    """The a1 step substitutes R in per cent into the ISO 281:2007 closed form."""
+    step = derive(replace(BASE, reliability=0.95)).step("a1")
+    assert step.substituted.startswith("0.95 × (ln(100/95) / ln(100/90))")
+
+
+# ---- the maker's e and Y ------------------------------------------------------------------------
+TAPERED_PAIR = CaseInputs(kind="tapered", arrangement="back-to-back", fr=8000.0, fa=6000.0,
+                          c=90000.0, c0=110000.0, speed=800.0)
+
+
+def test_makers_y_of_a_tapered_pair_is_per_row() -> None:
+    """Catalogues print e and Y for one tapered bearing: Y = 0.4·cot α, e = 1.5·tan α (ISO 281
+    Table 3, from memory).  Given so, the pair derives the same P as when given by the angle."""
+    alpha = 14.0
+    t = math.tan(math.radians(alpha))
+    by_angle = derive(replace(TAPERED_PAIR, contact_angle=alpha))
+    by_maker = derive(replace(TAPERED_PAIR, e_given=1.5 * t, y_given=0.4 / t))
+    assert by_maker.results["P"] == pytest.approx(by_angle.results["P"], rel=1e-12)
+    assert by_angle.results["Y"] == pytest.approx(0.67 / t, rel=1e-12)  # Fa/Fr = 0.75 > e
+    assert "per row" in by_maker.step("Y").note
+    assert not by_maker.warnings
+
+
+def test_makers_y_of_a_spherical_bearing_is_the_bearings() -> None:
+    """A spherical roller bearing is one double-row unit: its maker's Y is the bearing's Y for
+    Fa/Fr > e (0.67·cot α form), Y≤e = (0.45/0.67)·Y."""
+    case = CaseInputs(kind="spherical", fr=10000.0, fa=1500.0, c=200000.0, c0=250000.0,
+                      speed=800.0, e_given=0.24, y_given=2.8)
+    d = derive(case)
+    assert d.results["Y"] == pytest.approx(2.8 * 0.45 / 0.67, rel=1e-12)  # Fa/Fr = 0.15 ≤ e
+    assert "whole bearing" in d.step("Y").note
+
+
+def test_makers_e_and_y_that_disagree_are_flagged() -> None:
+    """Table 3 keeps P continuous at Fa/Fr = e, so a single-row e·Y is 1 − 0.4 = 0.6; e = 0.43
+    with Y = 2.0 (e·Y = 0.86) makes P jump, and the derivation says so."""
+    case = CaseInputs(kind="tapered", fr=8000.0, fa=2000.0, c=90000.0, c0=110000.0, speed=800.0,
+                      e_given=0.43, y_given=2.0)
+    d = derive(case)
+    assert any("disagree" in w for w in d.warnings)
+    fitting = derive(replace(case, y_given=0.6 / 0.43))
+    assert not fitting.warnings
+
+
+def test_makers_factors_far_from_the_angle_are_flagged() -> None:
+    """With the contact angle given too, e more than 10 % from 1.5·tan α (or Y from 0.4·cot α
+    per row) is flagged."""
+    t = math.tan(math.radians(14.0))
+    case = replace(TAPERED_PAIR, contact_angle=14.0, e_given=1.5 * t * 1.2, y_given=0.6 / (1.5 * t * 1.2))
+    d = derive(case)
+    assert any("1.5·tan α" in w for w in d.warnings)
+    assert any("0.4·cot α" in w for w in d.warnings)
+
+
+@pytest.mark.parametrize(("share", "flagged"), [(1.08, False), (1.12, True)])
+def test_makers_e_limit_against_the_angle(share: float, flagged: bool) -> None:
+    """The maker's e is flagged beyond 10 % from 1.5·tan α (workbench's tolerance)."""
+    t = math.tan(math.radians(14.0))
+    e = 1.5 * t * share
+    d = derive(replace(TAPERED_PAIR, contact_angle=14.0, e_given=e, y_given=0.6 / e))
+    assert any("1.5·tan α" in w for w in d.warnings) is flagged
+
+
+@pytest.mark.parametrize(("jump", "flagged"), [(0.049, False), (0.051, True)])
+def test_makers_e_and_y_jump_limit(jump: float, flagged: bool) -> None:
+    """P may jump by 5 % at Fa/Fr = e before the maker's e and Y are flagged: single row,
+    X>e + Y·e = 0.4 + Y·e against 1, so Y = (0.6 + jump)/e gives a jump of ``jump``."""
+    e = 0.4
+    case = CaseInputs(kind="tapered", fr=8000.0, fa=2000.0, c=90000.0, c0=110000.0, speed=800.0,
+                      e_given=e, y_given=(0.6 + jump) / e)
+    assert any("disagree" in w for w in derive(case).warnings) is flagged
+
+
+@pytest.mark.parametrize(("r_percent", "printed"), [
+    (90, "1"), (95, "0.64"), (96, "0.55"), (97, "0.47"), (98, "0.37"), (99, "0.25"), (99.2, "0.22"),
+    (99.4, "0.19"), (99.6, "0.16"), (99.8, "0.12"), (99.9, "0.093"), (99.92, "0.087"),
+    (99.94, "0.08"), (99.95, "0.077")])
+def test_a1_step_quotes_table_12(r_percent: float, printed: str) -> None:
+    """ISO 281:2007 Table 12 (from memory), typed here: at a tabulated R the a1 step says what the
+    table prints beside the unrounded closed form it uses."""
+    step = derive(replace(BASE, reliability=r_percent / 100)).step("a1")
+    assert step.note == f"the closed form, unrounded; Table 12 prints {printed} at {r_percent:g} %"
+    decimals = len(printed.partition(".")[2])
+    assert round(step.value, max(decimals, 2)) == float(printed)  # the closed form rounds to it
+
+
+@pytest.mark.parametrize(("duty", "ball", "roller"), [("quiet", 2.0, 3.0), ("normal", 1.0, 1.5),
+                                                      ("shock", 1.5, 3.0)])
+def test_static_safety_minimums(duty: str, ball: float, roller: float) -> None:
+    """Common-practice s0 minimums, typed here: quiet 2 / 3, normal 1 / 1.5, shock 1.5 / 3
+    (ball / roller); a required s0 overrides them."""
+    assert derive(replace(BASE, static_duty=duty)).results["s0_min"] == ball
+    cylindrical = CaseInputs(kind="cylindrical", fr=5000.0, c=50000.0, c0=60000.0, speed=500.0,
+                             static_duty=duty)
+    assert derive(cylindrical).results["s0_min"] == roller
+    assert derive(replace(cylindrical, s0_min=4.0)).results["s0_min"] == 4.0

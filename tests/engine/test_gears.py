@@ -112,6 +112,15 @@ def test_belt_pull_factor_and_direction() -> None:
         assert 1.0 <= low <= default <= high
 
 
+def test_belt_pull_factors_are_the_common_practice_values() -> None:
+    # Shaft-load factors f (common practice, typed here): V-belt 2 (1.5–2.5), flat belt 2.5
+    # (2–3), toothed belt 1.3 (1.1–1.5), chain 1.3 (1.2–1.5).
+    assert BELT_PULL_FACTORS == {
+        "v_belt": (2.0, (1.5, 2.5)), "flat_belt": (2.5, (2.0, 3.0)),
+        "toothed_belt": (1.3, (1.1, 1.5)), "chain": (1.3, (1.2, 1.5)),
+    }
+
+
 def test_arrays_match_floats() -> None:
     torques = np.array([10.0, 55.0, 300.0])
     forces = helical_forces(torques, 90.0, 20.0, 20.0, "left", True)

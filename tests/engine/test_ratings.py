@@ -384,6 +384,7 @@ def test_rate_bearing_refuses_bad_geometry(geometry, field):
         (lambda: dynamic_rating_thrust_roller(0, 8.0, 8.0, 90, 80.0), "z"),
         (lambda: static_rating_radial_ball(1, 9, 8.0, 0, 60.0, f0=0.0), "f0"),
         (lambda: static_rating_radial_roller(1, 14, 10.0, 10.0, 50, 100.0), "alpha_deg"),
+        (lambda: static_rating_radial_roller(1, 14, 10.0, 10.0, 45.5, 100.0), "alpha_deg"),
         (lambda: static_rating_thrust_ball(15, 8.0, 90), "f0"),
         (lambda: static_rating_thrust_ball(15, 8.0, 45, f0=60.0), "alpha_deg"),
         (lambda: static_rating_thrust_roller(20, 8.0, 8.0, 90, 0.0), "dpw"),
@@ -393,6 +394,12 @@ def test_functions_refuse_bad_input_naming_the_field(call, field):
     with pytest.raises(InputError) as caught:
         call()
     assert caught.value.field == field
+
+
+def test_radial_and_thrust_meet_at_45_degrees():
+    # ISO 281:2007 §3 (from memory): radial bearings 0° ≤ α ≤ 45°, thrust bearings 45° < α ≤ 90°
+    assert static_rating_radial_roller(1, 14, 10.0, 10.0, 45.0, 100.0) > 0
+    assert static_rating_thrust_ball(15, 8.0, 45.5, f0=60.0) > 0
 
 
 # ---------------------------------------------------------------------------------------------

@@ -1,4 +1,9 @@
-"""Lubricant viscosity: ISO 3448 grades, ASTM D341 (Walther) and ASTM D2270 (viscosity index)."""
+"""Lubricant viscosity: ISO 3448 grades, ASTM D341 (Walther) and ASTM D2270 (viscosity index).
+
+ASTM D2270 is checked against the open-source `chemicals` property library (Chemical Engineering
+Design Library), which carries the standard's Table 1 and formulas: every table row and every
+midpoint between rows.  ISO 3448 midpoints and the ASTM D341 form are typed here from the sources.
+"""
 
 from __future__ import annotations
 
@@ -7,6 +12,7 @@ from typing import Callable
 
 import numpy as np
 import pytest
+from chemicals.viscosity import viscosity_index as chemicals_viscosity_index
 from hypothesis import given, settings
 from hypothesis import strategies as st
 
@@ -31,6 +37,38 @@ def field_of(call: Callable[[], object]) -> str:
     return caught.value.field
 
 
+# ---- ASTM D2270 against a reference library --------------------------------------------------
+def _d2270_nodes() -> list[float]:
+    """Every ν100 of ASTM D2270 Table 1 (2 … 70 mm²/s by 0.1, 0.2, 0.5) and the midpoint after
+    each, from the standard's steps (not from the engine's table)."""
+    rows = ([round(2.0 + 0.1 * i, 1) for i in range(181)]
+            + [round(20.2 + 0.2 * i, 1) for i in range(50)]
+            + [round(30.5 + 0.5 * i, 1) for i in range(80)])
+    return rows + [0.5 * (a + b) for a, b in zip(rows, rows[1:])]
+
+
+def test_d2270_matches_the_chemicals_library_everywhere() -> None:
+    """VI from ν40 and ν100 equals `chemicals.viscosity.viscosity_index` (ASTM D2270-10) at every
+    Table 1 row and midpoint, below, at and above VI 100, and on the formulas past 70 mm²/s."""
+    nodes = _d2270_nodes()
+    assert len(nodes) == 621
+    # at exactly 70 mm²/s the library switches to the formulas, the standard still reads Table 1
+    # (the formulas are for ν100 above 70); the two agree to 0.05 % there (see below)
+    for nu100 in [*(n for n in nodes if n != 70.0), 75.0, 120.0, 250.0]:
+        for nu40 in (nu100 * 4.0, nu100 * 6.5, nu100 * 9.0, nu100 * 14.0, nu100 * 30.0):
+            expected = chemicals_viscosity_index(nu40 * 1e-6, nu100 * 1e-6)
+            assert viscosity_index(nu40, nu100) == pytest.approx(expected, rel=1e-9, abs=1e-9), (
+                nu40, nu100)
+
+
+def test_d2270_reference_oils_match_the_chemicals_library() -> None:
+    """L and H are the ν40 of the VI 0 and VI 100 oils: the library gives 0 and 100 there."""
+    for nu100 in _d2270_nodes()[:: 7]:
+        low, high = d2270_l_and_h(nu100)
+        assert chemicals_viscosity_index(low * 1e-6, nu100 * 1e-6) == pytest.approx(0.0, abs=1e-7)
+        assert chemicals_viscosity_index(high * 1e-6, nu100 * 1e-6) == pytest.approx(100.0, abs=1e-7)
+
+
 # ---- ISO 3448 -------------------------------------------------------------------------------
 def test_iso_vg_grades() -> None:
     # ISO 3448: the eighteen grades ISO VG 2 … ISO VG 1500
@@ -43,7 +81,9 @@ def test_iso_vg_grades() -> None:
     ("vg", "midpoint"),
     # ISO 3448 midpoints at 40 °C; the four smallest grades are not their grade numbers
     # (2.2, 3.2, 4.6, 6.8 mm²/s, as on public ISO VG reference tables)
-    [(2, 2.2), (3, 3.2), (5, 4.6), (7, 6.8), (10, 10.0), (32, 32.0), (68, 68.0), (1500, 1500.0)],
+    [(2, 2.2), (3, 3.2), (5, 4.6), (7, 6.8), (10, 10.0), (15, 15.0), (22, 22.0), (32, 32.0),
+     (46, 46.0), (68, 68.0), (100, 100.0), (150, 150.0), (220, 220.0), (320, 320.0), (460, 460.0),
+     (680, 680.0), (1000, 1000.0), (1500, 1500.0)],
 )
 def test_grade_midpoints(vg: int, midpoint: float) -> None:
     assert nu40_of_grade(vg) == midpoint

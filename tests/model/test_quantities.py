@@ -20,9 +20,12 @@ from workbench.model.quantities import (
     format_quantity,
     from_display,
     parse,
+    step_number_writer,
     to_display,
     unit_label,
 )
+from workbench.engine.derive import CaseInputs, derive
+from workbench.engine.record import fmt
 
 # reference: pint's default definitions, plus "rev" as another name for pint's own "turn"
 REFERENCE = pint.UnitRegistry()
@@ -240,4 +243,55 @@ def test_format_then_parse_round_trips_within_printed_digits(
     scale = abs(pint_value(2.0, unit, internal) - pint_value(1.0, unit, internal))
     last_digit = 10 ** (math.floor(math.log10(shown)) - digits + 1) if shown > 0 else 0.0
     tolerance = 0.5 * last_digit * scale * (1 + 1e-9) + 1e-9 * (1 + abs(value))
+    if quantity == "temperature" and value - 2 * last_digit * scale < -273.15:
+        # at absolute zero the text is rounded toward warmer, so that it reads back: a whole digit
+        tolerance *= 2
     assert abs(back - value) <= tolerance, (text, back, value)
+
+
+@pytest.mark.parametrize("digits", range(2, 9))
+@pytest.mark.parametrize("system", ["SI", "US"])
+def test_absolute_zero_reads_back(digits: int, system: str) -> None:
+    """−273.15 °C is −459.67 °F (pint): its text, at any precision, is never below absolute zero."""
+    assert pint_value(-273.15, "degC", "degF") == pytest.approx(-459.67)
+    text = format_quantity(-273.15, "temperature", system, digits)  # type: ignore[arg-type]
+    assert parse(text, "temperature") >= -273.15 - 1e-9
+
+
+# ---- derivation numbers in the display's unit system ---------------------------------------------
+LUBRICATED = CaseInputs(kind="deep-groove", fr=5200.0, fa=2500.0, c=33000.0, c0=19000.0, f0=14.0,
+                        speed=700.0, vg=68.0, temp=70.0, dm=60.0, cleanliness="normal")
+
+
+def test_derivation_numbers_follow_the_us_display() -> None:
+    """Under a result in lbf the substituted forces are lbf too (pint: 1 N = 0.2248 lbf), a
+    temperature is °F, and a relation stated in mm keeps its mm and says so."""
+    d = derive(LUBRICATED)
+    us = step_number_writer("US")
+    lbf = pint_value(1.0, "N", "lbf")
+    y = d.results["Y"]
+    assert d.step("P").substituted_in(us) == f"0.56 × {fmt(5200 * lbf)} + {fmt(y)} × {fmt(2500 * lbf)}"
+    assert d.step("s0").substituted_in(us) == f"{fmt(19000 * lbf)} / {fmt(5200 * lbf)}"
+    assert d.step("T").substituted_in(us) == f"{fmt(pint_value(70.0, 'degC', 'degF'))} °F"
+    assert "(60 mm)^−0.5" in d.step("nu1").substituted_in(us)
+    si = step_number_writer("SI")
+    for step in d.steps:  # in SI the display writes what the engine writes
+        assert step.substituted_in(si) == step.substituted, step.key
+    assert d.step("T").substituted == "70 °C"
+
+
+@pytest.mark.parametrize("text", ["1 kN**99", "1 kN^99", "1e300 TN", "1 N*kN*MN*GN*TN*PN*EN"])
+def test_overflowing_units_and_values_are_a_message(text: str) -> None:
+    """A unit whose scale overflows pint (10^297 for kN**99) or a value past the double range
+    is a one-line QuantityError, not an OverflowError (the issue's second door into pint)."""
+    with pytest.raises(QuantityError):
+        parse(text, "force")
+
+
+def test_solver_target_goes_through_the_same_guard() -> None:
+    """'Lnm=1 kN**99' as a solver target is refused by the same door (FieldError on target)."""
+    from workbench.model.fields import FieldError
+    from workbench.model.targets import parse_target_text
+
+    with pytest.raises(FieldError, match="target"):
+        parse_target_text("Lnm=1 kN**99")

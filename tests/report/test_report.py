@@ -194,7 +194,8 @@ def test_run_report_returns_2_with_one_line(kind: str, tmp_path: Path,
     assert run_report(str(path), "text", None) == 2
     captured = capsys.readouterr()
     assert captured.out == ""
-    assert captured.err.startswith(str(path)) and captured.err.count("\n") == 1
+    # the same "workbench: " prefix as every other sub-command's failure line
+    assert captured.err.startswith(f"workbench: {path}") and captured.err.count("\n") == 1
 
 
 def test_run_report_refuses_an_unknown_format(capsys: pytest.CaptureFixture[str]) -> None:

@@ -50,7 +50,7 @@ async def test_shafts_view_tables_show_what_analyse_gives(size) -> None:
             assert column_texts(states, column) == [
                 format_quantity(state.solution.bearing_loads[side][load], "force", "SI")
                 for state in shaft.states]
-        for n, duty in enumerate(analysis.duties):
+        for n, _duty in enumerate(analysis.duties):
             damage = [float(text) for text in column_texts(screen.query_one(f"#duty-{n}"), 2)]
             assert sum(damage) == pytest.approx(100.0, abs=0.1 * len(damage))  # Miner: Σ shares = 1
         await pilot.press("escape")

@@ -1,5 +1,5 @@
 """Command line: the screen by default, and headless ``calc``, ``report``, ``select``, ``rate``,
-``bench``, one module each.
+``internal``, ``bench``, one module each.
 
 A sub-command module gives ``SUMMARY`` (its line in the help), ``DESCRIPTION``, ``EPILOG``,
 ``add_arguments(parser)`` and ``run(args) -> int``; :func:`build_parser` hangs them on one
@@ -8,8 +8,10 @@ file named where a sub-command would stand cannot share argparse's sub-command p
 :func:`main` routes on the first word. The sub-command modules load only when a sub-command is
 given, so opening the screen imports none of them.
 
-Exit codes: 0 success, 2 a bad input or file (one line on standard error naming it), 3 a question
-the solver cannot answer (no root, or more than one).
+Exit codes: 0 success, 2 a bad input or file (one line on standard error naming it) or output
+that could not be written (a closed pipe, a full disk), 3 a question the solver cannot answer
+(no root, or more than one).  A sub-command's output passes :func:`.common.run_guarded`:
+control characters never reach the terminal.
 """
 
 from __future__ import annotations
@@ -20,8 +22,9 @@ import sys
 from typing import Sequence
 
 from . import screen
+from .common import run_guarded
 
-SUBCOMMANDS = ("calc", "report", "select", "rate", "bench")  # each a module of this package
+SUBCOMMANDS = ("calc", "report", "select", "rate", "internal", "bench")  # each a module of this package
 
 
 def build_parser() -> argparse.ArgumentParser:
@@ -42,9 +45,11 @@ def main(argv: Sequence[str] | None = None) -> int:
     """Entry point of the ``workbench`` console script and ``python -m workbench``."""
     argv = list(sys.argv[1:] if argv is None else argv)
     if argv and argv[0] in SUBCOMMANDS:
-        args = build_parser().parse_args(argv)
-        code: int = args.run(args)
-        return code
+        def run() -> int:  # argparse's own error lines pass the guard too
+            args = build_parser().parse_args(argv)
+            return int(args.run(args))
+
+        return run_guarded(run)
     return screen.run(screen.parser(SUBCOMMANDS).parse_args(argv))
 
 

@@ -15,6 +15,7 @@ from dataclasses import replace
 from typing import Any, Callable
 
 from ..engine.derive import CaseInputs, derive
+from ..engine.internal.distribution import InternalInputs
 from ..engine.kinds import Arrangement, Kind, dynamic_factors
 from ..engine.life import a1_iso281
 from .common import print_json
@@ -26,6 +27,14 @@ EPILOG = None
 REFERENCE_CASE = CaseInputs(
     kind="deep-groove", fr=5200.0, fa=2500.0, c=33000.0, c0=19000.0, f0=14.0, speed=1450.0,
     af=1.2, reliability=0.95, vg=68.0, temp=70.0, dm=47.5, cleanliness="normal",
+)
+
+
+# A deep-groove bearing with clearance under combined load, lubrication given: one internal
+# analysis with every step recorded (the figure internal_ms), and its life against clearance.
+REFERENCE_INTERNAL = InternalInputs(
+    kind="deep-groove", z=9, dw=12.7, dpw=65.0, clearance=0.015, fr=5200.0, fa=1100.0,
+    speed=1450.0, nu=30.0, ec=0.5,
 )
 
 
@@ -84,13 +93,49 @@ def _engine_figures(repeats: int) -> dict[str, Any]:
         evaluations.append(solve(REFERENCE_CASE, "c", "Lnm", 25000.0).evaluations)
 
     solve_time = _median_seconds(one_solve, max(10, repeats // 2))
+    internal, sweep = _internal_figures(repeats)
     return {
         "case_eval_us": case_eval * 1e6,
         "session100_ms": session100 * 1e3,
         "pint_ratio": with_pint / ours,
         "solve_ms": solve_time * 1e3,
         "solve_evals": statistics.median(evaluations),
+        "internal_ms": internal * 1e3,
+        "internal_sweep_ms": sweep * 1e3,
     }
+
+
+def _internal_figures(repeats: int) -> tuple[float, float]:
+    """Median seconds of one internal analysis (steps kept) and of the 25-point life-against-
+    clearance sweep the What-if plot draws (engine/internal)."""
+    from ..engine.internal.analysis import analyse_internal, clearance_sweep, default_clearances
+
+    analyse_internal(REFERENCE_INTERNAL)  # scipy's modules load before timing
+    one = _median_seconds(lambda: analyse_internal(REFERENCE_INTERNAL), repeats, 5)
+    clearances = default_clearances(REFERENCE_INTERNAL, count=25)
+    sweep = _median_seconds(lambda: clearance_sweep(REFERENCE_INTERNAL, clearances), max(5, repeats // 4))
+    return one, sweep
+
+
+def _large_session_figures(repeats: int, cases: int = 1000) -> dict[str, Any]:
+    """``open1000_ms``: read a 1,000-case session file (the screen's open); ``report1000_ms``:
+    its text report (analysis, derivations, layout).  Goal: each ≤ 2 s."""
+    import tempfile
+    from pathlib import Path
+
+    from ..model.sample_sessions import shared_bearing_session
+    from ..model.sessionfile import dumps_session, open_session
+    from ..report import render_report
+
+    with tempfile.TemporaryDirectory() as folder:
+        path = Path(folder) / "large.toml"
+        path.write_text(dumps_session(shared_bearing_session(cases)), encoding="utf-8")
+        opened = open_session(path)
+        assert opened.session is not None, opened.error
+        open_time = _median_seconds(lambda: open_session(path), repeats)
+        report_time = _median_seconds(lambda: render_report(opened.session, "text", str(path)),
+                                      repeats)
+    return {f"open{cases}_ms": open_time * 1e3, f"report{cases}_ms": report_time * 1e3}
 
 
 def run_benchmarks(quick: bool = False) -> dict[str, Any]:
@@ -103,6 +148,7 @@ def run_benchmarks(quick: bool = False) -> dict[str, Any]:
     from ..engine.select import benchmark_select
 
     figures.update(benchmark_select(n_bearings=1000 if quick else 10000))
+    figures.update(_large_session_figures(repeats=1 if quick else 3))
     from ..tui import bench as screen
 
     figures.update(screen.measure_typing(

@@ -5,8 +5,9 @@ from __future__ import annotations
 import argparse
 import sys
 
+from ..model.user_text import quoted
 from ..report import FORMATS
-from .common import EXIT_BAD_INPUT
+from .common import fail
 
 SUMMARY = "write the design review of a session"
 DESCRIPTION = "Report every load case of a session."
@@ -28,23 +29,20 @@ def run_report(path: str, fmt: str, out: str | None) -> int:
 
     A case that cannot be derived shows its error in the report and does not fail the run.
     """
-    from ..model.sessionfile import SessionFileError, load_session
+    from ..model.guarded_read import FileRefused
+    from ..model.sessionfile import load_session
     from ..report import report_text, write_report
 
     if fmt not in FORMATS:
-        print(f"workbench report: unknown format {fmt!r}; use one of {', '.join(FORMATS)}",
-              file=sys.stderr)
-        return EXIT_BAD_INPUT
+        return fail(f"report: unknown format {quoted(fmt)}; use one of {', '.join(FORMATS)}")
     try:
         session = load_session(path)
-    except SessionFileError as exc:
-        print(str(exc), file=sys.stderr)
-        return EXIT_BAD_INPUT
+    except FileRefused as exc:
+        return fail(str(exc))
     if out is None:
         sys.stdout.write(report_text(session, fmt=fmt, session_path=path))
         return 0
     written = write_report(session, session_path=path, fmt=fmt, out_path=out)
     if written.error is not None:
-        print(written.error, file=sys.stderr)
-        return EXIT_BAD_INPUT
+        return fail(written.error)
     return 0

@@ -3,7 +3,7 @@
 Every load case of the session (or of one session bearing, ``--bearing``) is run on every catalog
 bearing; those meeting the session's life target on Lnm and its static safety are listed smallest
 first (ISO 281:2007, ISO 76:2006, by :func:`workbench.engine.select.select`).  Rejected catalog
-rows go to standard error with their row number.  Exit codes: 0 done (also when none qualifies),
+rows go to standard error with their row number (the first twenty; ``--json`` lists all).  Exit codes: 0 done (also when none qualifies),
 2 a bad session or catalog file or a bad option value.
 """
 
@@ -15,6 +15,7 @@ from typing import TYPE_CHECKING, Any
 
 from ..engine.kinds import Kind
 from ..model.quantities import QuantityError, parse
+from ..model.user_text import clipped, clipped_path
 from .common import fail, print_json
 
 if TYPE_CHECKING:
@@ -23,6 +24,7 @@ if TYPE_CHECKING:
     from ..model.session import Session
 
 DEFAULT_TOP = 10
+SHOWN_PROBLEMS = 20  # rejected catalog rows named on standard error; --json lists all
 SUMMARY = "list the catalog bearings that meet a session's cases"
 DESCRIPTION = ("List the catalog bearings that meet every load case of a session: Lnm at the "
                "session's reliability against its life target, and its static safety "
@@ -93,9 +95,13 @@ def run(args: argparse.Namespace) -> int:
         catalog = load_catalog(catalog_path)
     except CatalogError as exc:
         return fail(str(exc))
-    for problem in catalog.problems:
-        print(f"workbench: {catalog.source}: rejected row {problem.row}, {problem.column}: "
-              f"{problem.message}", file=sys.stderr)
+    for problem in catalog.problems[:SHOWN_PROBLEMS]:
+        print(f"workbench: {clipped_path(catalog.source)}: rejected row {problem.row}, "
+              f"{clipped(problem.column, 30)}: {clipped(problem.message, 200)}", file=sys.stderr)
+    if len(catalog.problems) > SHOWN_PROBLEMS:
+        print(f"workbench: {clipped_path(catalog.source)}: and "
+              f"{len(catalog.problems) - SHOWN_PROBLEMS} more rejected rows (--json lists all)",
+              file=sys.stderr)
     try:
         filters = Filters(args.kind, _length("--bore-min", args.bore_min),
                           _length("--bore-max", args.bore_max), _length("--od-max", args.od_max),

@@ -14,14 +14,16 @@ from functools import lru_cache
 
 from . import tables as T
 from . import viscosity
+from .explain import aiso_words, table_lookup
 from .kinds import (
-    DEFAULT_CONTACT_ANGLE, KIND_WORDS, ROLLER_KINDS, THRUST_KINDS, Arrangement, Kind,
-    aiso_load_divisor, contact_angle_from_e, dynamic_factors, dynamic_load, equivalent_static_load,
-    StaticFactors, life_clause, life_exponent, load_clause, parse_arrangement, parse_kind,
+    DEFAULT_CONTACT_ANGLE, KIND_WORDS, ROLLER_KINDS, THRUST_KINDS, Arrangement, DynamicFactors,
+    Kind, StaticFactors, aiso_load_divisor, contact_angle_from_e, dynamic_factors, dynamic_load,
+    equivalent_static_load, life_clause, life_exponent, load_clause, makers_factor_warnings,
+    makers_y_is_per_row, parse_arrangement, parse_kind, rotation_factor, rotation_factor_refusal,
     static_factors,
 )
 from .life import (
-    AISO_CAP, KAPPA_MAX, KAPPA_MIN, a1_iso281, aiso, basic_rating_life, contamination_factor,
+    KAPPA_MAX, KAPPA_MIN, a1_iso281, aiso, basic_rating_life, contamination_factor,
     fatigue_load_limit_estimate, kappa_in_range, life_hours, reference_viscosity,
     weibull_life_factor,
 )
@@ -159,6 +161,13 @@ def validate(case: CaseInputs) -> tuple[Kind, Arrangement, float]:
         _check("weibull_x0", case.weibull_x0)
         if case.weibull_x0 >= case.weibull_theta:
             raise InputError("weibull_x0", "x0 must be below θ")
+        try:
+            factor = reliability_life_factor(case)
+        except OverflowError:
+            factor = _INF
+        if not factor < _INF:
+            raise InputError("weibull_b", f"(ln 1/R)^(1/b) is beyond the largest number at "
+                                          f"R = {case.reliability:g}: b is too small")
     alpha = case.contact_angle
     if alpha is None:
         alpha = DEFAULT_CONTACT_ANGLE[kind]
@@ -196,16 +205,18 @@ def derive(case: CaseInputs, keep_steps: bool = True) -> Derivation:
     if case.af != 1.0:
         d.derived("P_eff", p_eff, lambda: StepWords(
             symbol="af·P", label="Load with the application factor", formula="af·P",
-            template="{0} × {1}", args=(case.af, p), unit="N", source="common practice",
+            template="{0} × {1:N}", args=(case.af, p), unit="N", source="common practice",
             note=T.APPLICATION_FACTOR_HINT))
+    if not p_eff > 0.0:  # a load that rounds to zero: C/P would divide by it
+        raise InputError("af" if case.af != 1.0 else "fr", "af·P rounds to zero: too small to rate")
     exponent = life_exponent(kind)
     rating_mrev = rating_basis_mrev(case)
-    l10 = rating_mrev * basic_rating_life(case.c, p_eff, exponent)
+    l10 = _finite_life(rating_mrev * basic_rating_life(case.c, p_eff, exponent), "L10", case)
     d.derived("L10", l10, lambda: _l10_words(case, kind, rating_mrev, p_eff, exponent))
     _hours(d, "L10h", "L10h", "Basic rating life in hours", l10, case.speed, kind)
     a_rel = _reliability(d, case)
     a_iso = _lubrication(d, case, kind, p_eff)
-    lnm_mrev = a_rel * a_iso * l10
+    lnm_mrev = _finite_life(a_rel * a_iso * l10, "Lnm", case)
     d.derived("Lnm_mrev", lnm_mrev, lambda: StepWords(
         symbol="Lnm", label="Modified rating life", formula="a1·aISO·L10",
         template="{0} × {1} × {2}", args=(a_rel, a_iso, l10), unit="10⁶ rev",
@@ -221,39 +232,37 @@ def _l10_words(case: CaseInputs, kind: Kind, rating_mrev: float, p_eff: float,
     if rating_mrev != 1.0:
         return StepWords(
             symbol="L10", label="Basic rating life", formula="LR·(C/P)^p",
-            template="{0} × ({1} / {2})^{3}", args=(rating_mrev, case.c, p_eff, exponent),
+            template="{0} × ({1:N} / {2:N})^{3}", args=(rating_mrev, case.c, p_eff, exponent),
             unit="10⁶ rev", source=_LIFE_CLAUSE[kind],
             note=f"p = {p_word}; C rated at LR = {rating_mrev:g}·10⁶ revolutions")
     return StepWords(
-        symbol="L10", label="Basic rating life", formula="(C/P)^p", template="({0} / {1})^{2}",
+        symbol="L10", label="Basic rating life", formula="(C/P)^p", template="({0:N} / {1:N})^{2}",
         args=(case.c, p_eff, exponent), unit="10⁶ rev", source=_LIFE_CLAUSE[kind],
         note=f"p = {p_word}")
 
 
 def _dynamic_load(d: Derivation, case: CaseInputs, kind: Kind, arrangement: Arrangement,
                   alpha: float) -> None:
-    """Steps for e, the branch, X, Y and P (ISO 281:2007 §6, Table 3)."""
+    """Steps for V, the Table 3 index, e, the branch, X, Y and P (ISO 281:2007 §5.2–§8.2, Table 3)."""
     factors = dynamic_factors(kind, arrangement, alpha, case.fa, case.c0, case.f0,
                               case.e_given, case.y_given)
-    v = rotation_factor(case)
+    v = rotation_factor(kind, case.outer_ring_rotates)
     p, ratio, high, possible = dynamic_load(kind, factors, case.fr, case.fa, v)
     if case.outer_ring_rotates:
-        d.derived("V", v, lambda: StepWords(
-            symbol="V", label="Rotation factor", formula="outer ring rotates relative to the load",
-            template="1.2",
-            source="common practice (older practice; ISO 281:2007 no longer carries V)",
-            note="V multiplies Fr in the branch test and in X·V·Fr"))
+        _rotation_step(d, kind, v)
     if kind is _CYLINDRICAL:
         d.derived("P", p, lambda: StepWords(
-            symbol="P", label="Equivalent dynamic load", formula="P = Fr (α = 0)", template="{0}",
-            args=(case.fr,), unit="N", source=factors.source),
+            symbol="P", label="Equivalent dynamic load",
+            formula="P = V·Fr (α = 0)" if v != 1.0 else "P = Fr (α = 0)",
+            template="{0} × {1:N}" if v != 1.0 else "{1:N}", args=(v, case.fr), unit="N",
+            source=factors.source),
             warning=_cylindrical_axial_warning(case))
         d.results.update(e=NAN, X=1.0, Y=0.0)
         return
     if kind in THRUST_KINDS and alpha >= 90.0:
         d.derived("P", case.fa, lambda: StepWords(
             symbol="P", label="Equivalent dynamic load", formula="P = Fa (α = 90°)",
-            template="{0}", args=(case.fa,), unit="N", source=factors.source))
+            template="{0:N}", args=(case.fa,), unit="N", source=factors.source))
         d.results.update(e=NAN, X=0.0, Y=1.0)
         return
     if not possible:  # refused before any step is recorded: a refused case has no derivation
@@ -264,57 +273,94 @@ def _dynamic_load(d: Derivation, case: CaseInputs, kind: Kind, arrangement: Arra
     warning = None
     if factors.clamped and (high or factors.clamped > 0) and case.fa > 0:
         warning = f"{factors.index_formula} lies outside the table; e and Y clamped at its end"
-    if factors.index_formula and case.fa > 0:  # with no axial load the table plays no part
-        d.derived("index", factors.index, lambda: StepWords(
-            symbol=factors.index_formula.split(" ")[0], label="Table index for e and Y",
-            formula=factors.index_formula, template="{0} × {1} / {2}",
-            args=_index_args(case, arrangement), source=factors.source,
-            note=_clamp_note(factors.clamped)))
-    d.derived("e", factors.e, lambda: StepWords(
-        symbol="e", label="Limit ratio e", formula=factors.basis, template="{0}",
-        args=(factors.e,), source=factors.source))
-    vfr = "V·Fr" if case.outer_ring_rotates else "Fr"
+    if kind in _ANGLED_RADIAL_KINDS:
+        warning = "; ".join(makers_factor_warnings(
+            factors, kind, arrangement, case.contact_angle, case.e_given, case.y_given)) or None
+    tabulated = factors.columns is not None and case.fa > 0  # no axial load: no table look-up
+    if tabulated:
+        d.derived("index", factors.index, lambda: _index_words(case, arrangement, factors))
+    d.derived("e", factors.e, lambda: _factor_words("e", "Limit ratio e", factors, 1, tabulated))
+    vfr = "V·Fr" if v != 1.0 else "Fr"
     side = f"Fa/{vfr} > e" if high else f"Fa/{vfr} ≤ e"
     d.derived("ratio", ratio, lambda: StepWords(
         symbol=f"Fa/{vfr}", label="Axial-to-radial load ratio",
-        formula=f"Fa/{vfr}, compared with e", template="{0} / {1}", args=(case.fa, v * case.fr),
+        formula=f"Fa/{vfr}, compared with e", template="{0:N} / {1:N}", args=(case.fa, v * case.fr),
         source=_LOAD_CLAUSE[kind], note=f"branch: {side}"))
     d.derived("X", x, lambda: StepWords(
-        symbol="X", label=f"Radial factor ({side})", formula="Table 3", template="{0}", args=(x,),
-        source=factors.source))
-    d.derived("Y", y, lambda: StepWords(
-        symbol="Y", label=f"Axial factor ({side})",
-        formula="Table 3" if factors.index_formula else factors.basis, template="{0}", args=(y,),
-        source=factors.source), warning=warning)
-    if case.outer_ring_rotates:
+        symbol="X", label=f"Radial factor ({side})", formula=f"Table 3, {side}", template="{0}",
+        args=(x,), source=factors.source))
+    d.derived("Y", y, lambda: _factor_words(
+        "Y", f"Axial factor ({side})", factors, 2 if high else 3, tabulated,
+        _makers_y_note(case, kind, arrangement)), warning=warning)
+    if v != 1.0:
         d.derived("P", p, lambda: StepWords(
             symbol="P", label="Equivalent dynamic load", formula="X·V·Fr + Y·Fa",
-            template="{0} × {1} × {2} + {3} × {4}", args=(x, v, case.fr, y, case.fa), unit="N",
-            source=_LOAD_CLAUSE[kind]))
+            template="{0} × {1} × {2:N} + {3} × {4:N}", args=(x, v, case.fr, y, case.fa),
+            unit="N", source=_LOAD_CLAUSE[kind]))
     else:
         d.derived("P", p, lambda: StepWords(
             symbol="P", label="Equivalent dynamic load", formula="X·Fr + Y·Fa",
-            template="{0} × {1} + {2} × {3}", args=(x, case.fr, y, case.fa), unit="N",
+            template="{0} × {1:N} + {2} × {3:N}", args=(x, case.fr, y, case.fa), unit="N",
             source=_LOAD_CLAUSE[kind]))
 
 
-def _clamp_note(clamp: float) -> str | None:
-    """What a clamped table index means for e and Y (no note when it lies inside the table)."""
-    if not clamp:
-        return None
-    edge = "first" if clamp < 0 else "last"
-    return f"index outside the table: e and Y taken at its {edge} row, not extrapolated"
+def _factor_words(symbol: str, label: str, factors: DynamicFactors, column: int, tabulated: bool,
+                  note: str | None = None) -> StepWords:
+    """e or Y: read from its Table 3 column with the bracketing rows (``column`` 1 e, 2 Y>e,
+    3 Y≤e of a pair), or the closed form or fixed row that gave it."""
+    value = factors.e if column == 1 else (factors.y_high if column == 2 else factors.y_low)
+    columns = factors.columns
+    if not tabulated or columns is None or columns[column] is None:
+        return StepWords(symbol=symbol, label=label, formula=factors.basis, template="{0}",
+                         args=(value,), source=factors.source, note=note)
+    words = table_lookup(symbol, factors.index_formula, float(factors.index), columns[0],
+                         columns[column], "Table 3")  # type: ignore[arg-type]
+    notes = "; ".join(n for n in (words.note, note) if n) or None
+    return StepWords(symbol=symbol, label=label, formula=f"{factors.basis}: {words.formula}",
+                     template=words.template, args=words.args, source=factors.source, note=notes)
 
 
-def rotation_factor(case: CaseInputs) -> float:
-    """V: 1.2 when the outer ring rotates relative to the load, else 1 (common practice, older practice)."""
-    return 1.2 if case.outer_ring_rotates else 1.0
+_ROTATION_SOURCE = "common practice (older practice; ISO 281:2007 no longer carries V)"
 
 
-def _index_args(case: CaseInputs, arrangement: Arrangement) -> tuple[float, ...]:
+def _rotation_step(d: Derivation, kind: Kind, v: float) -> None:
+    """The step for V when the outer ring rotates: 1.2 where V applies, else 1 with a warning."""
+    refusal = rotation_factor_refusal(kind)
+    if refusal is None:
+        d.derived("V", v, lambda: StepWords(
+            symbol="V", label="Rotation factor", formula="outer ring rotates relative to the load",
+            template="{0}", args=(v,), source=_ROTATION_SOURCE,
+            note="V multiplies Fr in the branch test and in X·V·Fr"))
+        return
+    d.derived("V", v, lambda: StepWords(
+        symbol="V", label="Rotation factor", formula="not applied", template="{0}", args=(v,),
+        source=_ROTATION_SOURCE, note=f"outer ring rotates, but {refusal}"),
+        warning=f"outer ring rotation ignored: {refusal}; V = 1 used")
+
+
+def _index_words(case: CaseInputs, arrangement: Arrangement, factors: DynamicFactors) -> StepWords:
+    """The Table 3 index step: i·f0·Fa/C0r with f0 known, else the printed i·Fa/C0r column."""
     rows = 2.0 if arrangement in _PAIRED_ARRANGEMENTS else 1.0
-    f0 = case.f0 if case.f0 is not None else T.DEEP_GROOVE_FOLDED_F0
-    return (rows * f0, case.fa, case.c0)
+    formula = factors.index_formula
+    label = f"Table 3 index {formula}"
+    if case.f0 is not None:
+        template = "{0} × {1} × {2:N} / {3:N}" if rows != 1.0 else "{1} × {2:N} / {3:N}"
+        return StepWords(symbol=formula, label=label, formula=formula, template=template,
+                         args=(rows, case.f0, case.fa, case.c0), source=factors.source)
+    template = "{0} × {1:N} / {2:N}" if rows != 1.0 else "{1:N} / {2:N}"
+    return StepWords(symbol=formula, label=label,
+                     formula=f"{formula} (no f0 given: the printed Fa/C0r column)",
+                     template=template, args=(rows, case.fa, case.c0), source=factors.source)
+
+
+def _makers_y_note(case: CaseInputs, kind: Kind, arrangement: Arrangement) -> str | None:
+    """Whose Y the maker's Y is: a row's (tapered pairs and double-row sets) or the bearing's."""
+    if case.y_given is None:
+        return None
+    if makers_y_is_per_row(kind, arrangement):
+        return (f"maker's Y = {case.y_given:g} taken per row; the set's Y>e = (0.67/0.4)·Y and "
+                "Y≤e = (0.45/0.4)·Y (ISO 281 Table 3 ratios)")
+    return f"maker's Y = {case.y_given:g} taken for the whole bearing, Fa/Fr > e"
 
 
 def _cylindrical_axial_warning(case: CaseInputs) -> str | None:
@@ -328,12 +374,24 @@ def _cylindrical_axial_warning(case: CaseInputs) -> str | None:
     return None
 
 
+def _finite_life(life_mrev: float, symbol: str, case: CaseInputs) -> float:
+    """``life_mrev``, refused when it is beyond the largest float: an infinite life is no answer.
+    The input named is af when it is below 1 (it divides the life), else C."""
+    if not life_mrev < _INF:
+        name, words = ("af", "af is too small") if case.af < 1.0 else ("c", "C is too large")
+        raise InputError(name, f"{symbol} is beyond the largest number: {words} for these loads")
+    return life_mrev
+
+
 def _hours(d: Derivation, key: str, symbol: str, label: str, life_mrev: float, speed: float,
            kind: Kind) -> None:
     """A life in hours at the case speed, or an undefined value with a warning at speed 0."""
+    if speed > 0.0 and not life_hours(life_mrev, speed) < _INF:
+        raise InputError("speed", f"{symbol} is beyond the largest number of hours: the speed is "
+                                  "too small for this life")
     if speed > 0.0:
         d.derived(key, life_hours(life_mrev, speed), lambda: StepWords(
-            symbol=symbol, label=label, formula="L·10⁶/(60·n)", template="{0} × 10⁶ / (60 × {1})",
+            symbol=symbol, label=label, formula="L·10⁶/(60·n)", template="{0} × 10⁶ / (60 × {1:rpm})",
             args=(life_mrev, speed), unit="h", source=_LIFE_CLAUSE[kind]))
         return
     d.derived(key, NAN, lambda: StepWords(
@@ -362,11 +420,14 @@ def _reliability(d: Derivation, case: CaseInputs) -> float:
 def _reliability_words(case: CaseInputs) -> StepWords:
     r = case.reliability
     if case.reliability_model == "iso281":
+        printed = dict(T.A1_TABLE).get(round(100.0 * r, 6))
+        note = ("the closed form, unrounded; Table 12 prints it rounded" if printed is None else
+                f"the closed form, unrounded; Table 12 prints {printed:g} at {100.0 * r:g} %")
         return StepWords(
-            symbol="a1", label="Life factor for reliability",
+            symbol="a1", label="Life factor for reliability (closed form)",
             formula="0.95·(ln(100/R)/ln(100/90))^(2/3) + 0.05",
             template="0.95 × (ln(100/{0}) / ln(100/90))^(2/3) + 0.05", args=(100.0 * r,),
-            source="ISO 281:2007 §9.2, Table 12")
+            source="ISO 281:2007 §9.2 (the closed form behind Table 12)", note=note)
     return StepWords(
         symbol="aR", label="Life factor for reliability (Weibull)",
         formula="x0 + (θ − x0)·(ln 1/R)^(1/b)", template="{0} + ({1} − {0}) × (ln 1/{2})^(1/{3})",
@@ -379,7 +440,7 @@ def operating_viscosity(d: Derivation, case: CaseInputs) -> float | None:
     """ν at operating temperature: given directly, or from ISO VG and VI (ISO 3448, ASTM D341)."""
     if case.nu is not None:
         return d.derived("nu", case.nu, lambda: StepWords(
-            symbol="ν", label="Operating viscosity", formula="given", template="{0}",
+            symbol="ν", label="Operating viscosity", formula="given", template="{0:mm²/s}",
             args=(case.nu,), unit="mm²/s", source="input"))
     if case.vg is None or case.temp is None:
         return None
@@ -387,22 +448,32 @@ def operating_viscosity(d: Derivation, case: CaseInputs) -> float | None:
     vi = 100.0 if case.vi is None else case.vi
     nu100 = case.nu100 if case.nu100 is not None else viscosity.nu100_from_viscosity_index(nu40, vi)
     nu = viscosity.viscosity_at_temperature(nu40, nu100, case.temp)
+    walther_a, walther_b = viscosity.walther_constants(nu40, nu100)
+    kelvin = case.temp + viscosity.KELVIN_OFFSET
     d.derived("nu40", nu40, lambda: StepWords(
         symbol="ν40", label="Viscosity at 40 °C", formula=f"ISO VG {case.vg:g} midpoint",
-        template="{0}", args=(nu40,), unit="mm²/s", source="ISO 3448"))
+        template="{0:mm²/s}", args=(nu40,), unit="mm²/s", source="ISO 3448"))
     if case.nu100 is not None:
         d.derived("nu100", nu100, lambda: StepWords(
-            symbol="ν100", label="Viscosity at 100 °C", formula="given", template="{0}",
+            symbol="ν100", label="Viscosity at 100 °C", formula="given", template="{0:mm²/s}",
             args=(nu100,), unit="mm²/s", source="input"))
     else:
         d.derived("nu100", nu100, lambda: StepWords(
             symbol="ν100", label="Viscosity at 100 °C", formula="from ν40 and VI",
             template="VI {0}", args=(vi,), unit="mm²/s", source="ASTM D2270",
             note="VI 100 assumed (no VI given)" if case.vi is None else None))
+    d.derived("T", kelvin, lambda: StepWords(
+        symbol="T", label="Operating temperature, absolute", formula="T = t + 273.15",
+        template="{0:°C+}", args=(case.temp,), unit="K", source="ASTM D341 (T in kelvin)"))
     return d.derived("nu", nu, lambda: StepWords(
-        symbol="ν", label="Operating viscosity", formula="log log(ν + 0.7) = A − B·log T",
-        template="at {0} °C through ν40 = {1}, ν100 = {2}", args=(case.temp, nu40, nu100),
-        unit="mm²/s", source="ASTM D341"))
+        symbol="ν", label="Operating viscosity (ASTM D341)",
+        formula="ν = 10^(10^(A − B·log10 T)) − 0.7",
+        # A and B written to six figures: the double logarithm magnifies their rounding
+        template=f"10^(10^({walther_a:.6g} − {walther_b:.6g} × log10 {{0}})) − 0.7", args=(kelvin,),
+        unit="mm²/s", source="ASTM D341",
+        note=(f"A = {walther_a:.6g}, B = {walther_b:.6g}: the line log10 log10(ν + 0.7) = "
+              f"A − B·log10 T through ν40 = {nu40:.4g} and ν100 = {nu100:.4g} mm²/s "
+              "(at 313.15 K and 373.15 K)")))
 
 
 def lubrication_gaps(case: CaseInputs) -> list[str]:
@@ -433,7 +504,8 @@ def _lubrication(d: Derivation, case: CaseInputs, kind: Kind, p_eff: float) -> f
     kappa = nu / nu1
     used, warning = kappa_in_range(kappa), None
     if kappa < KAPPA_MIN:
-        warning = f"κ = {kappa:.3g} is below 0.1, outside the aISO method; κ = 0.1 used"
+        warning = (f"κ = {kappa:.3g} is below {KAPPA_MIN:g}, outside the aISO method; "
+                   f"κ = {KAPPA_MIN:g} used")
     low = high = NAN
     if case.ec is not None:
         ec = case.ec
@@ -449,21 +521,39 @@ def _lubrication(d: Derivation, case: CaseInputs, kind: Kind, p_eff: float) -> f
     d.derived("nu1", nu1, lambda: StepWords(
         symbol="ν1", label="Rated viscosity",
         formula="45000·n^−0.83·dm^−0.5" if slow else "4500·n^−0.5·dm^−0.5",
-        template="45000 × {0}^−0.83 × {1}^−0.5" if slow else "4500 × {0}^−0.5 × {1}^−0.5",
-        args=(case.speed, dm), unit="mm²/s", source="ISO 281:2007 §9.3.3"))
-    d.derived("kappa", used, lambda: StepWords(
-        symbol="κ", label="Viscosity ratio", formula="ν/ν1", template="{0} / {1}", args=(nu, nu1),
-        source="ISO 281:2007 §9.3.3",
-        note=f"κ = {kappa:.3g} above 4: 4 used" if kappa > KAPPA_MAX else None),
-        warning=warning)
+        template=("45000 × {0:rpm}^−0.83 × ({1:=mm})^−0.5" if slow
+                  else "4500 × {0:rpm}^−0.5 × ({1:=mm})^−0.5"),
+        args=(case.speed, dm), unit="mm²/s", source="ISO 281:2007 §9.3.3",
+        note=("n < 1000 r/min" if slow else "n ≥ 1000 r/min") + "; the relation is stated in mm"))
+    if used == kappa:
+        d.derived("kappa", used, lambda: StepWords(
+            symbol="κ", label="Viscosity ratio", formula="ν/ν1", template="{0:mm²/s} / {1:mm²/s}",
+            args=(nu, nu1), source="ISO 281:2007 §9.3.3"))
+    else:
+        d.derived("kappa_ratio", kappa, lambda: StepWords(
+            symbol="ν/ν1", label="Viscosity ratio", formula="ν/ν1",
+            template="{0:mm²/s} / {1:mm²/s}", args=(nu, nu1), source="ISO 281:2007 §9.3.3"))
+        d.derived("kappa", used, lambda: StepWords(
+            symbol="κ", label="Viscosity ratio used for aISO",
+            formula=f"ν/ν1 held to {KAPPA_MIN:g} … {KAPPA_MAX:g}", template="{0}", args=(used,),
+            source="ISO 281:2007 §9.3.2",
+            note=(f"ν/ν1 = {kappa:.3g} lies {'below' if kappa < KAPPA_MIN else 'above'} the range "
+                  f"of the aISO method ({KAPPA_MIN:g} to {KAPPA_MAX:g}): κ = {used:g} is used"
+                  + (", outside the method" if kappa < KAPPA_MIN else
+                     " (more viscosity brings no further gain)"))),
+            warning=warning)
     d.derived("eC", ec, lambda: _contamination_words(case, ec, low, high))
     d.derived("Cu", cu, lambda: _fatigue_limit_words(case, cu, roller))
     d.derived("load_ratio", load_ratio, lambda: _load_ratio_words(ec, cu, divisor, p_eff))
-    return d.derived("aISO", a, lambda: StepWords(
-        symbol="aISO", label="Systems-approach factor",
-        formula=f"ISO 281 {'roller' if roller else 'ball'} relation in κ, eC·Cu/P",
-        template="κ = {0}, eC·Cu/P = {1}", args=(used, load_ratio), source="ISO 281:2007 §9.3.2",
-        note="capped at 50" if a >= AISO_CAP else None))
+    return d.derived("aISO", a, lambda: _aiso_step_words(used, load_ratio, roller, divisor, a))
+
+
+def _aiso_step_words(kappa: float, load_ratio: float, roller: bool, divisor: float,
+                     value: float) -> StepWords:
+    words = aiso_words(kappa, load_ratio, roller, divisor, value)
+    return StepWords(symbol="aISO", label="Systems-approach factor", formula=words.formula,
+                     template=words.template, args=words.args, source="ISO 281:2007 §9.3.2",
+                     note=words.note)
 
 
 def _contamination_words(case: CaseInputs, ec: float, low: float, high: float) -> StepWords:
@@ -480,14 +570,16 @@ def _contamination_words(case: CaseInputs, ec: float, low: float, high: float) -
 def _fatigue_limit_words(case: CaseInputs, cu: float, roller: bool) -> StepWords:
     if case.cu is not None or case.dm is None:
         return StepWords(
-            symbol="Cu", label="Fatigue load limit", formula="given", template="{0}", args=(cu,),
+            symbol="Cu", label="Fatigue load limit", formula="given", template="{0:N}", args=(cu,),
             unit="N", source="input")
     formula = "C0/8.2" if roller else "C0/22"
+    template = "{0:N} / 8.2" if roller else "{0:N} / 22"
     if case.dm > 100:
         formula += "·(100/dpw)^0.3" if roller else "·(100/dpw)^0.5"
+        template += " × (100 / {1:=mm})^0.3" if roller else " × (100 / {1:=mm})^0.5"
     return StepWords(
         symbol="Cu", label="Fatigue load limit (estimated)", formula=formula,
-        template="from C0 = {0}, dpw = {1}", args=(case.c0, case.dm), unit="N",
+        template=template, args=(case.c0, case.dm), unit="N",
         source="ISO 281:2007 Annex B (estimate)",
         note="no Cu given: estimated from C0; the maker's value is better")
 
@@ -496,11 +588,11 @@ def _load_ratio_words(ec: float, cu: float, divisor: float, p_eff: float) -> Ste
     if divisor != 1.0:
         return StepWords(
             symbol="eC·Cu/P", label="Load ratio for aISO", formula=f"eC·Cu/({divisor:g}·P)",
-            template="{0} × {1} / ({2} × {3})", args=(ec, cu, divisor, p_eff),
+            template="{0} × {1:N} / ({2} × {3:N})", args=(ec, cu, divisor, p_eff),
             source="ISO 281:2007 §9.3.2")
     return StepWords(
         symbol="eC·Cu/P", label="Load ratio for aISO", formula="eC·Cu/P",
-        template="{0} × {1} / {2}", args=(ec, cu, p_eff), source="ISO 281:2007 §9.3.2")
+        template="{0} × {1:N} / {2:N}", args=(ec, cu, p_eff), source="ISO 281:2007 §9.3.2")
 
 
 def static_safety_minimum(case: CaseInputs, kind: Kind) -> tuple[float, str]:
@@ -526,7 +618,7 @@ def _static(d: Derivation, case: CaseInputs, kind: Kind, arrangement: Arrangemen
     if sf.radial and kind is not _CYLINDRICAL:
         d.results.update(X0=sf.x0, Y0=sf.y0)
     d.derived("s0", s0, lambda: StepWords(
-        symbol="s0", label="Static safety factor", formula="C0/P0", template="{0} / {1}",
+        symbol="s0", label="Static safety factor", formula="C0/P0", template="{0:N} / {1:N}",
         args=(case.c0, p0), source="ISO 76:2006 (s0 = C0/P0); minimum: common practice",
         note=f"minimum {minimum:g}: {why}"),
         warning=warning)
@@ -538,15 +630,16 @@ def _static_load_words(case: CaseInputs, kind: Kind, sf: StaticFactors, floored:
         if sf.x0 == 0.0:
             return StepWords(
                 symbol="P0", label="Equivalent static load", formula="P0 = Fa (α = 90°)",
-                template="{0}", args=(case.fa,), unit="N", source=sf.source)
+                template="{0:N}", args=(case.fa,), unit="N", source=sf.source)
         return StepWords(
             symbol="P0", label="Equivalent static load", formula="2.3·Fr·tan α + Fa",
-            template="{0} × {1} + {2}", args=(sf.x0, case.fr, case.fa), unit="N", source=sf.source)
+            template="{0} × {1:N} + {2:N}", args=(sf.x0, case.fr, case.fa), unit="N",
+            source=sf.source)
     if kind is _CYLINDRICAL:
         return StepWords(
-            symbol="P0", label="Equivalent static load", formula="P0 = Fr", template="{0}",
+            symbol="P0", label="Equivalent static load", formula="P0 = Fr", template="{0:N}",
             args=(case.fr,), unit="N", source=sf.source)
     return StepWords(
         symbol="P0", label="Equivalent static load", formula="max(X0·Fr + Y0·Fa, Fr)",
-        template="max({0} × {1} + {2} × {3}, {1})", args=(sf.x0, case.fr, sf.y0, case.fa),
+        template="max({0} × {1:N} + {2} × {3:N}, {1:N})", args=(sf.x0, case.fr, sf.y0, case.fa),
         unit="N", source=sf.source, note="P0 = Fr rule applied" if floored else None)

@@ -116,7 +116,7 @@ def miner_life(lives: Sequence[float], shares: Sequence[float]) -> MinerLife:
     time shares with lives in hours.  A state of infinite life does no damage.
     """
     life = _vector("lives", lives, low_open=True, allow_infinite=True)
-    damage = [u / l for u, l in zip(_weights("shares", shares, len(life)), life)]
+    damage = [u / li for u, li in zip(_weights("shares", shares, len(life)), life)]
     total = math.fsum(damage)
     if total == 0.0:
         return MinerLife(math.inf, (0.0,) * len(damage))
@@ -127,7 +127,7 @@ def system_life(lives: Sequence[float], weibull_slope: float) -> float:
     """L10,sys = (Σ L10,i^(−e))^(−1/e): series system of two-parameter Weibull lives of slope e."""
     checked("weibull_slope", weibull_slope, low=0.0, low_open=True)
     life = _vector("lives", lives, low_open=True, allow_infinite=True)
-    total = math.fsum(l ** -weibull_slope for l in life)
+    total = math.fsum(li ** -weibull_slope for li in life)
     return total ** (-1.0 / weibull_slope) if total > 0.0 else math.inf
 
 

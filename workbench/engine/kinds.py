@@ -10,6 +10,7 @@ from __future__ import annotations
 import math
 from dataclasses import dataclass
 from enum import StrEnum
+from typing import NamedTuple
 
 from . import tables as T
 from .num import Num, interp, safe_ratio, tand, where
@@ -161,6 +162,9 @@ class DynamicFactors:
     index: Num = math.nan
     index_formula: str = ""
     clamped: Num = 0
+    columns: tuple[tuple[float, ...], tuple[float, ...], tuple[float, ...],
+                   tuple[float, ...] | None] | None = None
+    """(index, e, Y>e, Y≤e or None) columns of the Table 3 block read, for showing the rows."""
 
 
 def _clamp_flag(index: Num, lo: float, hi: float) -> Num:
@@ -185,13 +189,15 @@ def dynamic_factors(
 ) -> DynamicFactors:
     """e, X and Y for the kind (ISO 281:2007 Table 3 family).
 
-    Deep-groove and 15° angular-contact bearings read e and Y from the table by f0·Fa/C0r (or by
-    Fa/C0 with f0 ≈ 12.3 folded in when f0 is not known), interpolated linearly.  Bearings with a
-    contact angle take e = 1.5·tan α and Y ∝ cot α, unless the maker's e and Y are given.
+    Deep-groove and 15° angular-contact bearings read e and Y from the table by f0·Fa/C0r, or,
+    when f0 is not known, by the table's printed Fa/C0r column; linear interpolation between
+    rows.  Bearings with a contact angle take e = 1.5·tan α and Y ∝ cot α, unless the maker's e
+    and Y are given.
     """
     if kind is Kind.DEEP_GROOVE:
         return _table_factors(
-            fa, c0, f0, T.DEEP_GROOVE_INDEX_F0, T.DEEP_GROOVE_E, T.DEEP_GROOVE_Y,
+            fa, c0, f0, TableBlock(T.DEEP_GROOVE_INDEX_F0, T.DEEP_GROOVE_INDEX_PLAIN,
+                                   T.DEEP_GROOVE_E, T.DEEP_GROOVE_Y),
             x_high=T.DEEP_GROOVE_X, rows=1.0, x_low=1.0, y_low=0.0,
             what="deep-groove", source="ISO 281:2007 Table 3 (deep-groove ball)",
         )
@@ -207,14 +213,16 @@ def dynamic_factors(
         source = "ISO 281:2007 Table 3 (angular-contact ball)"
         if angle == 15:
             if paired:
-                y_low = _interp_index(fa, c0, f0, T.ANGULAR_15_INDEX, T.ANGULAR_15_PAIR_Y_LOW, 2.0)
                 return _table_factors(
-                    fa, c0, f0, T.ANGULAR_15_INDEX, T.ANGULAR_15_E, T.ANGULAR_15_PAIR_Y_HIGH,
-                    x_high=T.ANGULAR_15_PAIR_X_HIGH, rows=2.0, x_low=1.0, y_low=y_low,
+                    fa, c0, f0, TableBlock(T.ANGULAR_15_INDEX, T.ANGULAR_15_INDEX_PLAIN,
+                                           T.ANGULAR_15_E, T.ANGULAR_15_PAIR_Y_HIGH,
+                                           T.ANGULAR_15_PAIR_Y_LOW),
+                    x_high=T.ANGULAR_15_PAIR_X_HIGH, rows=2.0, x_low=1.0, y_low=0.0,
                     what="15° angular-contact pair", source=source,
                 )
             return _table_factors(
-                fa, c0, f0, T.ANGULAR_15_INDEX, T.ANGULAR_15_E, T.ANGULAR_15_Y,
+                fa, c0, f0, TableBlock(T.ANGULAR_15_INDEX, T.ANGULAR_15_INDEX_PLAIN,
+                                       T.ANGULAR_15_E, T.ANGULAR_15_Y),
                 x_high=T.ANGULAR_15_X, rows=1.0, x_low=1.0, y_low=0.0,
                 what="15° angular-contact", source=source,
             )
@@ -230,47 +238,80 @@ def dynamic_factors(
     return _angle_factors(kind, arrangement, alpha_deg, e_given, y_given)
 
 
-def _index(fa: Num, c0: Num, f0: Num | None, rows: float) -> tuple[Num, str]:
-    """The table index: i·f0·Fa/C0r when f0 is known, else i·12.3·Fa/C0 (the folded form)."""
+class TableBlock(NamedTuple):
+    """One block of ISO 281:2007 Table 3: the two printed index columns and the e and Y columns."""
+
+    index_f0: tuple[float, ...]     # f0·Fa/C0r (i·f0·Fa/C0r for pairs)
+    index_plain: tuple[float, ...]  # Fa/C0r (i·Fa/C0r), read when f0 is not known
+    e: tuple[float, ...]
+    y: tuple[float, ...]            # Y for Fa/Fr > e
+    y_low: tuple[float, ...] | None = None  # Y for Fa/Fr ≤ e where it is tabulated (pairs)
+
+
+def _index(fa: Num, c0: Num, f0: Num | None, block: TableBlock,
+           rows: float) -> tuple[Num, str, tuple[float, ...]]:
+    """The table index, its formula and the index column it is read in: i·f0·Fa/C0r in the f0
+    column when f0 is known, else i·Fa/C0r in the printed Fa/C0r column."""
+    pair = rows != 1.0
     if f0 is None:
-        return rows * T.DEEP_GROOVE_FOLDED_F0 * fa / c0, "Fa/C0 (f0 ≈ 12.3 folded in)"
-    return rows * f0 * fa / c0, "f0·Fa/C0r" if rows == 1.0 else "i·f0·Fa/C0r"
+        return rows * fa / c0, "i·Fa/C0r" if pair else "Fa/C0r", block.index_plain
+    return rows * f0 * fa / c0, "i·f0·Fa/C0r" if pair else "f0·Fa/C0r", block.index_f0
 
 
-def _interp_index(fa: Num, c0: Num, f0: Num | None, xp: tuple[float, ...],
-                  fp: tuple[float, ...], rows: float) -> Num:
-    index, _ = _index(fa, c0, f0, rows)
-    return interp(index, xp, fp)
-
-
-def _table_factors(fa: Num, c0: Num, f0: Num | None, xp: tuple[float, ...],
-                   e_col: tuple[float, ...], y_col: tuple[float, ...], *, x_high: float,
+def _table_factors(fa: Num, c0: Num, f0: Num | None, block: TableBlock, *, x_high: float,
                    rows: float, x_low: float, y_low: Num, what: str, source: str) -> DynamicFactors:
-    """Linear interpolation of e and Y in a Table 3 block, clamped (and flagged) at its ends."""
-    index, formula = _index(fa, c0, f0, rows)
-    e = interp(index, xp, e_col)
-    y = interp(index, xp, y_col)
+    """Linear interpolation of e and Y in a Table 3 block, clamped (and flagged) at its ends;
+    Y≤e from its own column where the block has one, else ``y_low``."""
+    index, formula, xp = _index(fa, c0, f0, block, rows)
+    e = interp(index, xp, block.e)
+    y = interp(index, xp, block.y)
+    if block.y_low is not None:
+        y_low = interp(index, xp, block.y_low)
     basis = f"{what} table by {formula}"
     return DynamicFactors(e, x_low, y_low, x_high, y, basis, source, index, formula,
-                          _clamp_flag(index, xp[0], xp[-1]))
+                          _clamp_flag(index, xp[0], xp[-1]), (xp, block.e, block.y, block.y_low))
+
+
+# ISO 281:2007 Table 3 for α ≠ 0 (from memory): X≤e = 1, and (Y≤e, X>e, Y>e) with each Y a
+# multiple of cot α; e = 1.5·tan α for all three.
+_SINGLE_ROW_ROLLER = (0.0, 0.4, 0.4)
+_DOUBLE_ROW_ROLLER = (0.45, 0.67, 0.67)
+_SELF_ALIGNING_BALL = (0.42, 0.65, 0.65)
+
+
+def _angle_form(kind: Kind, arrangement: Arrangement) -> tuple[tuple[float, float, float], str]:
+    """The Table 3 closed form (Y≤e, X>e, Y>e over cot α) of an angled radial bearing, and its source."""
+    if kind is Kind.SELF_ALIGNING:
+        return _SELF_ALIGNING_BALL, "ISO 281:2007 Table 3 (self-aligning ball)"
+    if arrangement is not Arrangement.SINGLE:
+        return _DOUBLE_ROW_ROLLER, "ISO 281:2007 §7.2 (radial roller, double row, α ≠ 0)"
+    return _SINGLE_ROW_ROLLER, "ISO 281:2007 §7.2 (radial roller, single row, α ≠ 0)"
+
+
+def makers_y_is_per_row(kind: Kind, arrangement: Arrangement) -> bool:
+    """True where the maker's Y is a single row's (a tapered bearing of a pair or double-row set,
+    as catalogues print Y for one bearing), false where it is the whole bearing's Y for Fa/Fr > e
+    (single-row bearings, and spherical and self-aligning bearings, which are double-row units)."""
+    return kind is Kind.TAPERED and arrangement is not Arrangement.SINGLE
 
 
 def _angle_factors(kind: Kind, arrangement: Arrangement, alpha_deg: float,
                    e_given: float | None, y_given: float | None) -> DynamicFactors:
-    """Self-aligning ball, tapered and spherical roller: e = 1.5·tan α, Y ∝ cot α (Table 3)."""
+    """Self-aligning ball, tapered and spherical roller: e = 1.5·tan α, Y ∝ cot α (Table 3).
+
+    The maker's e replaces 1.5·tan α; the maker's Y replaces Y>e — for a tapered pair or
+    double-row set it is the single row's Y, and the set's factors follow the closed forms'
+    ratios: Y>e = (0.67/0.4)·Y, Y≤e = (0.45/0.4)·Y.
+    """
     tan_a = tand(alpha_deg)
-    double = arrangement is not Arrangement.SINGLE
-    if kind is Kind.SELF_ALIGNING:
-        low, high_x, high = 0.42, 0.65, 0.65
-        source = "ISO 281:2007 Table 3 (self-aligning ball)"
-    elif double:
-        low, high_x, high = 0.45, 0.67, 0.67
-        source = "ISO 281:2007 §7.2 (radial roller, double row, α ≠ 0)"
-    else:
-        low, high_x, high = 0.0, 0.4, 0.4
-        source = "ISO 281:2007 §7.2 (radial roller, single row, α ≠ 0)"
+    (low, high_x, high), source = _angle_form(kind, arrangement)
     e = 1.5 * tan_a if e_given is None else e_given
-    y_high = high / tan_a if y_given is None else y_given
+    if y_given is None:
+        y_high = high / tan_a
+    elif makers_y_is_per_row(kind, arrangement):
+        y_high = y_given * high / _SINGLE_ROW_ROLLER[2]
+    else:
+        y_high = y_given
     y_low = y_high * low / high  # both rows scale with cot α
     if e_given is not None or y_given is not None:
         basis = "maker's e and Y" if (e_given is not None and y_given is not None) else (
@@ -279,6 +320,43 @@ def _angle_factors(kind: Kind, arrangement: Arrangement, alpha_deg: float,
         basis = f"α = {alpha_deg:g}°: e = 1.5·tan α, Y ∝ cot α"
     x_low = 1.0
     return DynamicFactors(e, x_low, y_low, high_x, y_high, basis, source)
+
+
+def makers_factor_warnings(factors: DynamicFactors, kind: Kind, arrangement: Arrangement,
+                           alpha_deg: float | None, e_given: float | None,
+                           y_given: float | None) -> list[str]:
+    """Where the maker's e and Y disagree with each other or with the contact angle.
+
+    With each other: ISO 281 Table 3 makes P continuous at Fa/Fr = e (X≤·Fr + Y≤·Fa =
+    X>·Fr + Y>·Fa there); a jump of more than 5 % says e and Y do not belong together.  With the
+    angle (when one is given as well): e = 1.5·tan α and Y = the closed form's multiple of cot α,
+    more than 10 % apart.
+    """
+    if e_given is None and y_given is None:
+        return []
+    warnings = []
+    low_side = factors.x_low + factors.y_low * factors.e
+    high_side = factors.x_high + factors.y_high * factors.e
+    jump = abs(high_side - low_side) / low_side
+    if jump > 0.05:
+        row = "per row " if makers_y_is_per_row(kind, arrangement) else ""
+        warnings.append(
+            f"maker's e = {factors.e:.3g} and Y {row}= {y_given if y_given is not None else factors.y_high:.3g} "
+            f"disagree: P jumps by {100 * jump:.0f} % at Fa/Fr = e (Table 3 keeps it continuous)")
+    if alpha_deg is not None:
+        tan_a = tand(alpha_deg)
+        (_, _, high), _ = _angle_form(kind, arrangement)
+        if e_given is not None and abs(e_given / (1.5 * tan_a) - 1.0) > 0.10:
+            warnings.append(f"maker's e = {e_given:.3g} differs from 1.5·tan α = {1.5 * tan_a:.3g} "
+                            f"at α = {alpha_deg:g}° by more than 10 %")
+        if y_given is not None:
+            per_row = makers_y_is_per_row(kind, arrangement)
+            closed = (_SINGLE_ROW_ROLLER[2] if per_row else high) / tan_a
+            form = "0.4·cot α" if per_row else f"{high:g}·cot α"
+            if abs(y_given / closed - 1.0) > 0.10:
+                warnings.append(f"maker's Y = {y_given:.3g} differs from {form} = {closed:.3g} "
+                                f"at α = {alpha_deg:g}° by more than 10 %")
+    return warnings
 
 
 def _thrust_factors(kind: Kind, alpha_deg: float) -> DynamicFactors:
@@ -302,6 +380,24 @@ def _thrust_factors(kind: Kind, alpha_deg: float) -> DynamicFactors:
                           f"α = {angle}°: e = 1.25·tan α", "ISO 281:2007 §6.2 (thrust ball, α ≠ 90°)")
 
 
+def rotation_factor(kind: Kind, outer_ring_rotates: bool) -> float:
+    """V (common practice, older practice; ISO 281:2007 no longer carries it): 1.2 for a radial
+    bearing whose outer ring rotates relative to the load, cylindrical roller bearings included
+    (P = V·Fr); 1 otherwise, and always 1 for self-aligning ball and thrust bearings."""
+    if outer_ring_rotates and rotation_factor_refusal(kind) is None:
+        return T.ROTATION_FACTOR_OUTER_RING
+    return 1.0
+
+
+def rotation_factor_refusal(kind: Kind) -> str | None:
+    """Why a rotating outer ring changes nothing for ``kind`` (V = 1), or None where V applies."""
+    if kind in THRUST_KINDS:
+        return "thrust bearings have no rotation factor"
+    if kind is Kind.SELF_ALIGNING:
+        return "the older tables take V = 1 for self-aligning ball bearings (from memory)"
+    return None
+
+
 def equivalent_dynamic_load(factors: DynamicFactors, fr: Num, fa: Num,
                             v: Num = 1.0) -> tuple[Num, Num, Num]:
     """P = X·V·Fr + Y·Fa with X, Y from the side of e that Fa/(V·Fr) falls on (ISO 281:2007 §6).
@@ -318,7 +414,7 @@ def equivalent_dynamic_load(factors: DynamicFactors, fr: Num, fa: Num,
 
 def dynamic_load(kind: Kind, factors: DynamicFactors, fr: Num, fa: Num,
                  v: Num = 1.0) -> tuple[Num, Num, Num, Num]:
-    """P for ``kind``: Fr for a cylindrical roller bearing (α = 0, ISO 281:2007 §7.2), else
+    """P for ``kind``: V·Fr for a cylindrical roller bearing (α = 0, ISO 281:2007 §7.2), else
     :func:`equivalent_dynamic_load` (ISO 281:2007 §5.2–§8.2).
 
     Returns ``(P, ratio, high, possible)``; ``possible`` is false where a single-direction thrust
@@ -326,7 +422,7 @@ def dynamic_load(kind: Kind, factors: DynamicFactors, fr: Num, fa: Num,
     """
     p, ratio, high = equivalent_dynamic_load(factors, fr, fa, v)
     if kind is Kind.CYLINDRICAL:
-        return fr, ratio, high, True
+        return v * fr, ratio, high, True
     return p, ratio, high, (high if kind in THRUST_KINDS else True)
 
 

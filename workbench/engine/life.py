@@ -102,7 +102,14 @@ _AISO_BALL = (2.5671, (2.2649, 1.9987, 1.9987), (0.054381, 0.19087, 0.071739), 0
 _AISO_ROLLER = (1.5859, (1.3993, 1.2348, 1.2348), (0.054381, 0.19087, 0.071739), 1.0, 0.4, -9.185)
 
 
-def _kappa_piece(kappa: Num) -> Num:
+def aiso_coefficients(roller: bool) -> tuple[float, tuple[float, float, float],
+                                             tuple[float, float, float], float, float, float]:
+    """(c1, c2 per κ piece, κ exponent per piece, outer power, load-ratio power, final exponent)
+    of the aISO relation, ball or roller (ISO 281:2007 §9.3.2, from memory)."""
+    return _AISO_ROLLER if roller else _AISO_BALL
+
+
+def kappa_piece(kappa: Num) -> Num:
     """Which piece of the aISO relation applies: 0 for κ < 0.4, 1 for 0.4 ≤ κ < 1, 2 above."""
     middle, upper = KAPPA_PIECE_LIMITS
     return 2 - (kappa < middle) - (kappa < upper)
@@ -119,8 +126,8 @@ def aiso(kappa: Num, load_ratio: Num, roller: bool) -> Num:
     ``kappa`` is taken as given (callers clamp it to 0.1…4 and say so); ``load_ratio`` is eC·Cu/P
     with the thrust divisors (3 for thrust ball, 2.5 for thrust roller) already applied.
     """
-    c1, c2s, ks, outer, load_power, final = _AISO_ROLLER if roller else _AISO_BALL
-    piece = _kappa_piece(kappa)
+    c1, c2s, ks, outer, load_power, final = aiso_coefficients(roller)
+    piece = kappa_piece(kappa)
     bracket = c1 - take(c2s, piece) / kappa ** take(ks, piece)
     bracket = maximum(bracket, 0.0)
     inner = 1.0 - bracket ** outer * load_ratio ** load_power

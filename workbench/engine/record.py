@@ -8,9 +8,10 @@ cheap in the hot path.
 
 from __future__ import annotations
 
+import string
 from collections.abc import Callable
 from dataclasses import dataclass
-from typing import Any
+from typing import Any, TypeAlias
 
 
 class InputError(ValueError):
@@ -20,6 +21,26 @@ class InputError(ValueError):
         super().__init__(f"{field_name}: {message}")
         self.field = field_name
         self.message = message
+
+
+NumberWriter: TypeAlias = Callable[[float, str], str]
+"""Writes one number of a step for display, given its placeholder's unit spec."""
+
+
+def engine_units(value: float, spec: str) -> str:
+    """A step's number in the engine's own unit: the number, and the unit where the spec asks."""
+    unit = spec.removeprefix("=").removesuffix("+")
+    return f"{fmt(value)} {unit}" if spec.endswith("+") else fmt(value)
+
+
+class _SpecFormatter(string.Formatter):
+    """``str.format`` that hands each placeholder's spec to a writer instead of ``format()``."""
+
+    def __init__(self, write: NumberWriter) -> None:
+        self._write = write
+
+    def format_field(self, value: Any, format_spec: str) -> str:
+        return self._write(value, format_spec)
 
 
 def fmt(value: float, digits: int = 4) -> str:
@@ -42,7 +63,11 @@ class Step:
     """One line of a derivation.
 
     ``template`` is the formula with ``{0}``, ``{1}`` … where ``args`` go; ``substituted`` fills
-    them in.  ``source`` names the standard and clause or table, or says ``common practice``.
+    them in.  A placeholder may name the engine unit of its number, ``{0:N}``, so that a display
+    can write it in its own unit system (:meth:`substituted_in`); ``{0:°C+}`` also writes the unit
+    after the number, and ``{0:=mm}`` keeps the engine unit (the relation is stated in it) and
+    writes it whenever the display's unit differs.  ``source`` names the standard and clause or
+    table, or says ``common practice``.
     """
 
     key: str
@@ -59,10 +84,15 @@ class Step:
 
     @property
     def substituted(self) -> str:
-        """The formula with the numbers put in, for display."""
+        """The formula with the numbers put in, in the engine's units."""
+        return self.substituted_in(engine_units)
+
+    def substituted_in(self, write: NumberWriter) -> str:
+        """The formula with each number written by ``write(value, spec)``, where ``spec`` is the
+        placeholder's unit spec ("" when it has none; see the class notes)."""
         if not self.args:
             return self.template
-        return self.template.format(*(fmt(a) for a in self.args))
+        return _SpecFormatter(write).format(self.template, *self.args)
 
     @property
     def value_text(self) -> str:

@@ -28,11 +28,11 @@ import numpy as np
 
 from .derive import (
     CaseInputs, derive, lubrication_gaps, operating_viscosity, rating_basis_mrev,
-    reliability_life_factor, rotation_factor, static_safety_minimum, validate,
+    reliability_life_factor, static_safety_minimum, validate,
 )
 from .kinds import (
     ROLLER_KINDS, Arrangement, Kind, aiso_load_divisor, dynamic_factors, dynamic_load, equivalent_static_load,
-    life_exponent, parse_arrangement, static_factors,
+    life_exponent, parse_arrangement, rotation_factor, static_factors,
 )
 from .life import (
     aiso, basic_rating_life, contamination_factor, fatigue_load_limit_estimate, kappa_in_range,
@@ -253,7 +253,7 @@ class _CaseRows:
     fa: np.ndarray
     speed: np.ndarray
     af: np.ndarray
-    v: np.ndarray
+    outer_ring_rotates: np.ndarray  # bool: V then depends on each group's kind
     basis: np.ndarray        # LR, 10⁶ rev
     a_rel: np.ndarray        # a1 or the Weibull life factor
     hours_speed: np.ndarray  # speed, NaN at 0 (no life in hours)
@@ -267,7 +267,7 @@ def _case_rows(cases: Sequence[CaseInputs], usable: Sequence[bool]) -> _CaseRows
     """The case-only terms of derive(), once per case, by derive's own functions."""
     m = len(cases)
     fr, fa, speed, af = np.ones(m), np.zeros(m), np.ones(m), np.ones(m)
-    v, basis, a_rel = np.ones(m), np.ones(m), np.ones(m)
+    outer, basis, a_rel = np.zeros(m, dtype=bool), np.ones(m), np.ones(m)
     lubricated: list[int] = []
     nus: list[float] = []
     errors: list[Refusal | None] = [None] * m
@@ -275,7 +275,7 @@ def _case_rows(cases: Sequence[CaseInputs], usable: Sequence[bool]) -> _CaseRows
         if not usable[j]:
             continue
         fr[j], fa[j], speed[j], af[j] = case.fr, case.fa, case.speed, case.af
-        v[j] = rotation_factor(case)
+        outer[j] = case.outer_ring_rotates
         basis[j], a_rel[j] = rating_basis_mrev(case), reliability_life_factor(case)
         if lubrication_gaps(replace(case, dm=1.0)):  # dm comes from each catalog bearing
             continue
@@ -288,7 +288,7 @@ def _case_rows(cases: Sequence[CaseInputs], usable: Sequence[bool]) -> _CaseRows
         lubricated.append(j)
         nus.append(nu)
     hours_speed = np.where(speed > 0.0, speed, np.nan)
-    return _CaseRows(fr[None], fa[None], speed[None], af[None], v[None], basis[None], a_rel[None],
+    return _CaseRows(fr[None], fa[None], speed[None], af[None], outer[None], basis[None], a_rel[None],
                      hours_speed[None], (speed > 0.0)[None], np.asarray(lubricated, dtype=int),
                      np.asarray(nus, dtype=float)[None], errors)
 
@@ -422,7 +422,8 @@ def _evaluate_group(group: _Group, kind: Kind, alpha: float, bearings: BearingAr
         refusals.add((exc.field, exc.message), where=np.ones((ng, m), dtype=bool))
         return _Outcome(refusals.first_per_bearing(), refusals.table, np.zeros(ng, bool),
                         np.zeros(ng, bool), np.full(ng, np.nan), np.full(ng, -1), np.full(ng, np.nan))
-    p, _, _, possible = dynamic_load(kind, factors, rows_of.fr, rows_of.fa, rows_of.v)
+    v = np.where(rows_of.outer_ring_rotates, rotation_factor(kind, True), 1.0)
+    p, _, _, possible = dynamic_load(kind, factors, rows_of.fr, rows_of.fa, v)
     if possible is not True:
         refusals.add(("fa", f"a single-direction {kind.value} bearing needs Fa/Fr > e"),
                      where=~np.broadcast_to(possible, (ng, m)))

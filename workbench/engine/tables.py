@@ -15,9 +15,10 @@ DEEP_GROOVE_INDEX_F0: tuple[float, ...] = (0.172, 0.345, 0.689, 1.03, 1.38, 2.07
 DEEP_GROOVE_E: tuple[float, ...] = (0.19, 0.22, 0.26, 0.28, 0.30, 0.34, 0.38, 0.42, 0.44)
 DEEP_GROOVE_Y: tuple[float, ...] = (2.30, 1.99, 1.71, 1.55, 1.45, 1.31, 1.15, 1.04, 1.00)
 DEEP_GROOVE_X = 0.56
-# The same table indexed by Fa/C0 alone, f0 ≈ 12.3 folded in (handbook, partly; rest from memory).
+# The same block's printed Fa/C0r column, read when f0 is not known (handbook, partly; rest from
+# memory).  It is the f0·Fa/C0r column divided by f0 ≈ 12.3 and rounded as printed; the workbench
+# reads this column as printed rather than dividing by 12.3, so a table point gives its printed e, Y.
 DEEP_GROOVE_INDEX_PLAIN: tuple[float, ...] = (0.014, 0.028, 0.056, 0.084, 0.11, 0.17, 0.28, 0.42, 0.56)
-DEEP_GROOVE_FOLDED_F0 = 12.3
 
 # --- ISO 281:2007 Table 3, single-row angular-contact ball, 15° contact angle (from memory) ----
 # Index i·f0·Fa/C0r; e; Y for Fa/Fr > e with X = 0.44 (single row and tandem).
@@ -25,6 +26,9 @@ ANGULAR_15_INDEX: tuple[float, ...] = (0.178, 0.357, 0.714, 1.07, 1.43, 2.14, 3.
 ANGULAR_15_E: tuple[float, ...] = (0.38, 0.40, 0.43, 0.46, 0.47, 0.50, 0.55, 0.56, 0.56)
 ANGULAR_15_Y: tuple[float, ...] = (1.47, 1.40, 1.30, 1.23, 1.19, 1.12, 1.02, 1.00, 1.00)
 ANGULAR_15_X = 0.44
+# The printed i·Fa/C0r column of the same block, read when f0 is not known (from memory; maker
+# data print the same digits): the i·f0·Fa/C0r column over f0 ≈ 12.3, rounded as printed.
+ANGULAR_15_INDEX_PLAIN: tuple[float, ...] = (0.015, 0.029, 0.058, 0.087, 0.12, 0.17, 0.29, 0.44, 0.58)
 # 15° pairs (back-to-back, face-to-face), from memory — treat with care: ≤ e X = 1, Y = 1.65…1.12;
 # > e X = 0.72, Y = 2.39…1.63, on the same index.
 ANGULAR_15_PAIR_Y_LOW: tuple[float, ...] = (1.65, 1.57, 1.46, 1.38, 1.34, 1.26, 1.14, 1.12, 1.12)
@@ -101,6 +105,13 @@ APPLICATION_FACTOR_HINT = (
     "about 1.0–1.1 smooth running, 1.1–1.3 commercial gearing, 1.2–1.5 moderate shock, "
     "1.5–3 heavy impact (common practice)"
 )
+
+# --- Rotation factor V (common practice: older practice, ISO 281:1962 and the rating standards of
+# that time; ISO 281:2007 no longer carries it) ------------------------------------------------
+# V = 1.2 multiplies Fr of a radial bearing whose outer ring rotates relative to the load
+# (P = X·V·Fr + Y·Fa; P = V·Fr for a cylindrical roller bearing); the older tables kept V = 1 for
+# self-aligning ball bearings (from memory), and thrust bearings have no V.
+ROTATION_FACTOR_OUTER_RING = 1.2
 
 # --- Axial load a ribbed cylindrical roller bearing takes alongside Fr (common practice) ------
 CYLINDRICAL_AXIAL_RATIO_LIMIT = 0.4

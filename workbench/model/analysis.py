@@ -137,6 +137,7 @@ def _shaft_duties(session: Session, key: str, shaft: Shaft, cases: list[LoadCase
                 for cycle, result in zip(cycles, system.duties)]
     outcomes = []
     for cycle in cycles:
+        error: str | None
         if cases_error is not None:
             result, error = None, cases_error
         else:

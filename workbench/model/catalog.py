@@ -18,11 +18,10 @@ can rate.
 
 from __future__ import annotations
 
-import csv
 import math
 import os
 import re
-import tomllib
+from collections import Counter
 from dataclasses import dataclass, field
 from importlib import resources
 from pathlib import Path
@@ -35,6 +34,8 @@ from ..engine.kinds import THRUST_KINDS, dynamic_factors, parse_arrangement, par
 from ..engine.record import InputError
 from ..engine.select import BearingArrays
 from .fields import BEARING_FIELDS
+from .guarded_read import FileRefused, csv_cells, csv_rows, parse_toml, read_text
+from .user_text import clipped, quoted
 
 DEMO_CATALOG = "demo_catalog.csv"
 REQUIRED_COLUMNS = ("designation", "kind", "d_mm", "D_mm", "B_mm", "C_kN", "C0_kN")
@@ -50,16 +51,8 @@ _TOML_TOP_KEYS = ("title", "notes", "bearing")
 KN = 1000.0
 
 
-class CatalogError(Exception):
+class CatalogError(FileRefused):
     """A catalog file that cannot be read at all; ``str()`` is one line for the user."""
-
-    def __init__(self, path: str | os.PathLike[str], message: str) -> None:
-        self.path = str(path)
-        self.message = message
-        super().__init__(self.path, message)
-
-    def __str__(self) -> str:
-        return f"{self.path}: {self.message}"
 
 
 @dataclass(frozen=True)
@@ -107,14 +100,14 @@ def _number(column: str, raw: object) -> float | None:
     if raw is None or (isinstance(raw, str) and not raw.strip()):
         return None
     if isinstance(raw, bool):
-        raise _RowError(column, f"expected a number, got {raw!r}")
+        raise _RowError(column, f"expected a number, got {quoted(raw)}")
     if isinstance(raw, (int, float)):
         value = float(raw)
     elif isinstance(raw, str):
         try:
             value = float(raw.strip())
         except ValueError:
-            raise _RowError(column, f"expected a number, got {raw.strip()!r}") from None
+            raise _RowError(column, f"expected a number, got {quoted(raw.strip())}") from None
     else:
         raise _RowError(column, f"expected a number, got {type(raw).__name__}")
     if not math.isfinite(value):
@@ -126,7 +119,7 @@ def _text(column: str, raw: object) -> str:
     if raw is None:
         return ""
     if not isinstance(raw, str):
-        raise _RowError(column, f"expected text, got {raw!r}")
+        raise _RowError(column, f"expected text, got {quoted(raw)}")
     return raw.strip()
 
 
@@ -186,7 +179,7 @@ def _build(rows: Iterable[RawRow], problems: list[CatalogProblem], source: str,
         try:
             row = _read_row(values)
             if row["designation"] in seen:
-                raise _RowError("designation", f"{row['designation']!r} is already used on row "
+                raise _RowError("designation", f"{quoted(row['designation'])} is already used on row "
                                                f"{seen[row['designation']]}")
         except _RowError as exc:
             problems.append(CatalogProblem(key_lines.get(exc.column, line), exc.column, exc.message))
@@ -213,28 +206,35 @@ def _build(rows: Iterable[RawRow], problems: list[CatalogProblem], source: str,
 # ---- CSV -------------------------------------------------------------------------------------
 def loads_catalog_csv(text: str, source: str = "<text>") -> Catalog:
     """The catalog in CSV ``text`` (``#`` lines are comments); see the module notes."""
-    lines = [(number, line) for number, line in enumerate(text.splitlines(), 1)
-             if line.strip() and not line.lstrip().startswith("#")]
+    lines = list(csv_rows(text))
     if not lines:
         raise CatalogError(source, "no header line: the first line that is not a comment names the columns")
     header_line, header_text = lines[0]
-    header = [name.strip() for name in next(csv.reader([header_text]))]
+    cells = csv_cells(header_text)
+    if isinstance(cells, str):
+        raise CatalogError(source, f"the header {cells}", line=header_line)
+    header = [name.strip() for name in cells]
     problems: list[CatalogProblem] = []
     missing = [name for name in REQUIRED_COLUMNS if name not in header]
     if missing:
-        raise CatalogError(source, f"line {header_line}: missing column(s) {', '.join(missing)}; "
-                                   f"the header needs {','.join(REQUIRED_COLUMNS)}")
-    doubled = sorted({name for name in header if header.count(name) > 1})
+        raise CatalogError(source, f"missing column(s) {', '.join(missing)}; "
+                                   f"the header needs {','.join(REQUIRED_COLUMNS)}", line=header_line)
+    counts = Counter(header)
+    doubled = sorted(clipped(name, 30) for name, count in counts.items() if count > 1)
     if doubled:
-        raise CatalogError(source, f"line {header_line}: column(s) {', '.join(doubled)} named twice")
+        raise CatalogError(source, f"column(s) {', '.join(doubled[:5])} named twice",
+                           line=header_line)
     for name in header:
         if name not in COLUMNS:
-            problems.append(CatalogProblem(header_line, name,
+            problems.append(CatalogProblem(header_line, clipped(name, 30),
                                            f"unknown column, ignored; known: {', '.join(COLUMNS)}"))
 
     def rows() -> Iterable[RawRow]:
         for number, line in lines[1:]:
-            cells = next(csv.reader([line]))
+            cells = csv_cells(line)
+            if isinstance(cells, str):
+                problems.append(CatalogProblem(number, "row", cells))
+                continue
             if len(cells) != len(header):
                 problems.append(CatalogProblem(number, "row", f"{len(cells)} values for "
                                                               f"{len(header)} columns"))
@@ -265,13 +265,10 @@ def _toml_lines(text: str) -> list[tuple[int, dict[str, int]]]:
 
 def loads_catalog_toml(text: str, source: str = "<text>") -> Catalog:
     """The catalog in TOML ``text``: ``[[bearing]]`` tables with the CSV column names as keys."""
-    try:
-        doc = tomllib.loads(text)
-    except tomllib.TOMLDecodeError as exc:
-        raise CatalogError(source, f"not valid TOML: {exc}") from None
-    unknown = [key for key in doc if key not in _TOML_TOP_KEYS]
+    doc = parse_toml(text, source, error=CatalogError)
+    unknown = [quoted(key, 30) for key in doc if key not in _TOML_TOP_KEYS]
     if unknown:
-        raise CatalogError(source, f"unknown top-level key(s) {', '.join(unknown)}; "
+        raise CatalogError(source, f"unknown top-level key(s) {', '.join(unknown[:5])}; "
                                    f"allowed: {', '.join(_TOML_TOP_KEYS)}")
     tables = doc.get("bearing", [])
     if not isinstance(tables, list) or not all(isinstance(t, dict) for t in tables):
@@ -287,7 +284,8 @@ def loads_catalog_toml(text: str, source: str = "<text>") -> Catalog:
             header_line, key_lines = positions[index] if index < len(positions) else (0, {})
             stray = [key for key in table if key not in COLUMNS]
             if stray:
-                problems.append(CatalogProblem(key_lines.get(stray[0], header_line), stray[0],
+                problems.append(CatalogProblem(key_lines.get(stray[0], header_line),
+                                               clipped(stray[0], 30),
                                                f"unknown key; known: {', '.join(COLUMNS)}"))
                 continue
             yield header_line, table, key_lines
@@ -302,16 +300,7 @@ def load_catalog(path: str | os.PathLike[str]) -> Catalog:
     suffix = target.suffix.lower()
     if suffix not in (".csv", ".toml"):
         raise CatalogError(target, "a catalog is a .csv or a .toml file")
-    if target.is_dir():
-        raise CatalogError(target, "is a folder, not a catalog file")
-    try:
-        text = target.read_bytes().decode("utf-8")
-    except FileNotFoundError:
-        raise CatalogError(target, "no such file") from None
-    except UnicodeDecodeError as exc:
-        raise CatalogError(target, f"not UTF-8 text (byte {exc.start})") from None
-    except OSError as exc:
-        raise CatalogError(target, f"cannot read it: {exc.strerror or exc}") from None
+    text = read_text(target, error=CatalogError, what="catalog file")
     if suffix == ".csv":
         return loads_catalog_csv(text, str(target))
     return loads_catalog_toml(text, str(target))
@@ -333,7 +322,9 @@ def catalog_bearing_texts(catalog: Catalog, i: int) -> dict[str, str]:
     kind, arrangement, c and c0 in kN, f0, contact angle in degrees, dm = (d + D)/2 in mm, cu in
     kN; e and Y blank (a catalog row carries none), so adopting a row clears a maker's e and Y.
     """
-    optional = lambda value, text: "" if math.isnan(value) else text  # noqa: E731
+    def optional(value: float, text: str) -> str:
+        return "" if math.isnan(value) else text
+
     texts = {
         "kind": str(catalog.kind[i]),
         "arrangement": str(catalog.arrangement[i]),

@@ -51,6 +51,7 @@ from .toml_tables import checked_table, named_tables, required_name, table_list,
 from .shafts import (
     SIDES, Shaft, case_name, shaft_cases,
 )
+from .user_text import quoted
 
 BASES = ("time", "revolutions")
 CYCLE_KEYS = ("name", "basis", "states")
@@ -110,7 +111,7 @@ def duty_cycle_from_table(data: Mapping[str, Any], key: str = "duty_cycles[1]") 
     name = required_name(table, key, set(), "duty cycle")
     basis = table_text(table, key, "basis", DutyCycle.basis)
     if basis not in BASES:
-        raise FieldError(f"{key}.basis", f"use 'time' or 'revolutions', not {basis!r}")
+        raise FieldError(f"{key}.basis", f"use 'time' or 'revolutions', not {quoted(basis)}")
     states = []
     for number, value in enumerate(table_list(table, key, "states"), start=1):
         where = f"{key}.states[{number}]"
@@ -176,7 +177,7 @@ def duty_life(session: Session, cycle: DutyCycle, cases: Sequence[LoadCase] = ()
     the states load different bearings or are derived at different reliabilities.
     """
     if cycle.basis not in BASES:
-        raise FieldError(f"{key}.basis", f"use 'time' or 'revolutions', not {cycle.basis!r}")
+        raise FieldError(f"{key}.basis", f"use 'time' or 'revolutions', not {quoted(cycle.basis)}")
     if not cycle.states:
         raise FieldError(f"{key}.states", "a duty cycle needs at least one state")
     results: list[CaseResult] = []
@@ -189,13 +190,13 @@ def duty_life(session: Session, cycle: DutyCycle, cases: Sequence[LoadCase] = ()
         shares.append(_share(f"{where}.share", share_text))
         case = _find_case(session, name, cases)
         if case is None:
-            raise FieldError(f"{where}.case", f"no load case called {name!r}")
+            raise FieldError(f"{where}.case", f"no load case called {quoted(name)}")
         result = evaluate(case) if evaluate is not None else evaluate_case(session, case)
         if result.derivation is None or result.inputs is None:
-            raise FieldError(f"{where}.case", f"case {name!r}: {result.error_field}: {result.error}")
+            raise FieldError(f"{where}.case", f"case {quoted(name)}: {result.error_field}: {result.error}")
         if results and case.bearing != results[0].case.bearing:
-            raise FieldError(f"{where}.case", f"case {name!r} loads bearing {case.bearing!r}, not "
-                                              f"{results[0].case.bearing!r}: a duty cycle is one bearing's")
+            raise FieldError(f"{where}.case", f"case {quoted(name)} loads bearing {quoted(case.bearing)}, not "
+                                              f"{quoted(results[0].case.bearing)}: a duty cycle is one bearing's")
         if results and result.inputs.reliability != reliability:
             raise FieldError(f"{where}.case", "every state of a duty cycle is derived at one "
                                               "reliability; this case uses another")

@@ -55,7 +55,7 @@ FIELDS: tuple[FieldSpec, ...] = (
     FieldSpec("f0", "--f0", "Factor f0", "number", hint="ISO 76 factor; blank: Fa/C0 basis", group="bearing"),
     FieldSpec("contact_angle", "--contact-angle", "Contact angle α", "quantity", "angle", "deg", group="bearing"),
     FieldSpec("e_given", "--e", "Maker's e", "number", hint="tapered, spherical, self-aligning", group="bearing"),
-    FieldSpec("y_given", "--y", "Maker's Y", "number", hint="Y for Fa/Fr > e", group="bearing"),
+    FieldSpec("y_given", "--y", "Maker's Y", "number", hint="Y for Fa/Fr > e; one row's for a tapered pair", group="bearing"),
     FieldSpec("fr", "--fr", "Radial load Fr", "quantity", "force", "N"),
     FieldSpec("fa", "--fa", "Axial load Fa", "quantity", "force", "N"),
     FieldSpec("speed", "--speed", "Speed n", "quantity", "speed", "rpm"),

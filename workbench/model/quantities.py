@@ -27,10 +27,13 @@ from __future__ import annotations
 import math
 import re
 import unicodedata
+from collections.abc import Callable
 from dataclasses import dataclass
 from typing import TYPE_CHECKING, Literal
 
-from workbench.engine.record import fmt
+from workbench.engine.record import engine_units, fmt
+
+from .user_text import clipped, quoted
 
 if TYPE_CHECKING:  # pint is imported lazily, on the first cache miss
     import pint
@@ -100,7 +103,7 @@ _SI_PREFIXES = {"k": 1e3, "M": 1e6}
 _PREFIXABLE_INTERNAL = ("N", "W")
 _SPAN = 1e6
 _conversions: dict[tuple[str, str], tuple[float, float]] = {}
-_registry: pint.UnitRegistry | None = None
+_registry: pint.UnitRegistry[float] | None = None
 
 
 def _spec(quantity: str) -> QuantitySpec:
@@ -112,16 +115,16 @@ def _spec(quantity: str) -> QuantitySpec:
 
 def _shown(text: str) -> str:
     """The user's text, shortened for a one-line message."""
-    text = text.strip()
-    return text if len(text) <= 40 else text[:37] + "…"
+    return clipped(text, 40)
 
 
-def unit_registry() -> pint.UnitRegistry:
+def unit_registry() -> pint.UnitRegistry[float]:
     """The pint registry, created on first use (with pint's on-disk cache when it can write one)."""
     global _registry
     if _registry is None:
         import pint
 
+        registry: pint.UnitRegistry[float]
         try:
             registry = pint.UnitRegistry(cache_folder=":auto:")
         except OSError:  # no writable cache folder: build the registry from its definitions
@@ -167,15 +170,29 @@ def _conversion(unit_text: str, quantity: str, shown: str) -> tuple[float, float
     exact = _exact_conversion(unit_text, spec)
     if exact is not None:
         return exact
+    try:
+        factor, offset = _pint_conversion(unit_text, quantity, spec, shown)
+    except (ArithmeticError, RecursionError, MemoryError):  # "kN**99": pint's scale overflows
+        raise QuantityError(f"{shown}: the unit {clipped(unit_text, 30)} is out of range") from None
+    if not (math.isfinite(factor) and math.isfinite(offset)) or factor == 0.0:
+        raise QuantityError(f"{shown}: the unit {clipped(unit_text, 30)} is out of range")
+    if len(_conversions) < _CACHE_LIMIT:
+        _conversions[key] = (factor, offset)
+    return factor, offset
+
+
+def _pint_conversion(unit_text: str, quantity: str, spec: QuantitySpec,
+                     shown: str) -> tuple[float, float]:
+    """(a, b) for ``unit_text`` from pint, checking its dimension against ``spec``."""
     import pint
 
     ureg = unit_registry()
     try:
         units = ureg.parse_units(unit_text)
     except pint.UndefinedUnitError as error:
-        raise QuantityError(f"{shown}: unknown unit {error.args[0]!r}") from None
+        raise QuantityError(f"{shown}: unknown unit {quoted(str(error.args[0]), 30)}") from None
     except (pint.PintError, ValueError, TypeError, SyntaxError):
-        raise QuantityError(f"{shown}: cannot read the unit {unit_text!r}") from None
+        raise QuantityError(f"{shown}: cannot read the unit {quoted(unit_text, 30)}") from None
     internal = ureg.parse_units(spec.internal)
     if _root(units) != _root(internal):
         other = _noun_for(units)
@@ -187,9 +204,7 @@ def _conversion(unit_text: str, quantity: str, shown: str) -> tuple[float, float
         # the slope over a wide span, so an offset unit's rounding in ``offset`` does not leak in
         factor = (float(ureg.Quantity(_SPAN, units).to(internal).magnitude) - offset) / _SPAN
     except pint.PintError:  # e.g. an offset unit inside a product, "°C·m"
-        raise QuantityError(f"{shown}: cannot convert {unit_text!r} to {spec.internal}") from None
-    if len(_conversions) < _CACHE_LIMIT:
-        _conversions[key] = (factor, offset)
+        raise QuantityError(f"{shown}: cannot convert {quoted(unit_text, 30)} to {spec.internal}") from None
     return factor, offset
 
 
@@ -227,6 +242,8 @@ def parse(text: str, quantity: str, *, default_unit: str | None = None) -> float
         unit_text = default_unit or ""
     factor, offset = _conversion(unit_text, quantity, _shown(text))
     result = factor * value + offset
+    if not math.isfinite(result):
+        raise QuantityError(f"{_shown(text)}: not a finite number (too large)")
     if quantity == "temperature" and result < ABSOLUTE_ZERO_C - 1e-9:
         raise QuantityError(f"{_shown(text)} is below absolute zero ({ABSOLUTE_ZERO_C} °C)")
     return result
@@ -262,6 +279,34 @@ def from_display(value: float, quantity: str, system: System) -> float:
     return _from_unit(value, quantity, unit_label(quantity, system))
 
 
+# The engine's units as derivation steps name them (the unit spec of a step's placeholder, see
+# ``engine.record.Step``), and the quantity each is.
+ENGINE_UNIT_QUANTITY: dict[str, str] = {
+    "N": "force", "mm": "length", "rpm": "speed", "h": "time", "mm²/s": "viscosity",
+    "°C": "temperature", "N·m": "torque", "W": "power", "kg": "mass",
+}
+
+
+def step_number_writer(system: System) -> Callable[[float, str], str]:
+    """How a display in ``system`` writes the numbers of a derivation step: a number tagged with
+    an engine unit in the display's unit (with the unit after it where the tag ends in "+"), a
+    number whose relation is stated in the engine unit ("=mm") as it is, with that unit written
+    whenever the display's unit differs; an untagged number as it is."""
+
+    def write(value: float, spec: str) -> str:
+        unit = spec.strip("=+")
+        quantity = ENGINE_UNIT_QUANTITY.get(unit)
+        if quantity is None or not math.isfinite(value):
+            return engine_units(value, spec)
+        label = unit_label(quantity, system)
+        if spec.startswith("="):
+            return f"{fmt(value)} {unit}" if spec.endswith("+") or label != unit else fmt(value)
+        shown = fmt(to_display(value, quantity, system))
+        return f"{shown} {label}".rstrip() if spec.endswith("+") else shown
+
+    return write
+
+
 def format_quantity(value: float, quantity: str, system: System, digits: int = 4) -> str:
     """``value`` (internal unit) as text in ``system``'s display unit, ``digits`` significant
     figures: "2.5 kN", "450 lbf", "70 °C", "15°".  The text parses back with :func:`parse`.
@@ -271,7 +316,13 @@ def format_quantity(value: float, quantity: str, system: System, digits: int = 4
     if system == "SI" and spec.si_large is not None:
         if abs(_to_unit(value, quantity, label)) >= KILO_FROM_N:
             label = spec.si_large
-    number = fmt(_to_unit(value, quantity, label), digits)
+    shown = _to_unit(value, quantity, label)
+    number = fmt(shown, digits)
+    if quantity == "temperature" and _from_unit(float(number), quantity, label) < ABSOLUTE_ZERO_C:
+        # rounding took a temperature at absolute zero below it ("-459.67 °F" to "-459.7 °F"),
+        # which would not read back: round toward warmer at the last printed digit instead
+        step = 10.0 ** (math.floor(math.log10(abs(shown))) - digits + 1)
+        number = fmt(math.ceil(shown / step) * step, digits)
     if not label:
         return number
     if label == "°":

@@ -16,6 +16,7 @@ from ..engine.ratings import BALL_KINDS, KINDS, THRUST_KINDS, BearingGeometry, r
 from ..engine.record import Derivation, InputError, fmt
 from .fields import FieldError
 from .quantities import QuantityError, parse
+from .user_text import quoted
 
 RADIAL_DEFAULT_ANGLE = "0°"
 THRUST_DEFAULT_ANGLE = "90°"
@@ -55,7 +56,7 @@ def _number(spec: RatingInput, text: str) -> float:
     try:
         value = float(text)
     except ValueError:
-        raise FieldError(spec.name, f"{text!r} is not a number") from None
+        raise FieldError(spec.name, f"{quoted(text)} is not a number") from None
     if not math.isfinite(value):
         raise FieldError(spec.name, "must be a finite number")
     return value
@@ -68,7 +69,9 @@ def _count(spec: RatingInput, text: str) -> int:
     return int(value)
 
 
-def _read(spec: RatingInput, text: str) -> float | int:
+def read_rating_input(spec: RatingInput, text: str) -> float | int:
+    """One typed input of the form as a number: a count, a plain number, or a length or angle
+    (bare numbers in mm or degrees); :class:`FieldError` naming it."""
     try:
         if spec.kind == "count":
             return _count(spec, text)
@@ -86,7 +89,7 @@ def input_problem(name: str, text: str) -> str | None:
     if spec.kind == "choice" or not text.strip():
         return None
     try:
-        _read(spec, text.strip())
+        read_rating_input(spec, text.strip())
     except FieldError as exc:
         return exc.message
     return None
@@ -108,7 +111,7 @@ def geometry_from_texts(texts: Mapping[str, str]) -> BearingGeometry:
                 raise FieldError(spec.name, "needed")
             values[spec.name] = 1 if spec.name == "rows" else None
             continue
-        values[spec.name] = _read(spec, text)
+        values[spec.name] = read_rating_input(spec, text)
     return BearingGeometry(kind, int(values["rows"] or 1), int(values["elements"] or 0),
                            float(values["dw"] or 0.0), float(values["contact_angle"] or 0.0),
                            float(values["dpw"] or 0.0), _optional(values["lwe"]),

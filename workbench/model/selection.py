@@ -15,6 +15,7 @@ from ..engine.record import InputError
 from ..engine.select import Selection
 from .catalog import Catalog
 from .session import CaseResult
+from .user_text import quoted
 
 
 def _number(value: float) -> float | None:
@@ -30,7 +31,7 @@ def selection_inputs(results: Sequence[CaseResult]) -> tuple[list[CaseInputs], f
     """
     for result in results:
         if result.inputs is None:
-            raise InputError("case", f"case {result.case.name!r}, {result.error_field}: "
+            raise InputError("case", f"case {quoted(result.case.name)}, {result.error_field}: "
                                      f"{result.error}")
     life_target = results[0].life_target_h if results else None
     if life_target is None:

@@ -14,6 +14,7 @@ from ..engine.derive import CaseInputs, derive
 from ..engine.record import Derivation, InputError
 from .quantities import QuantityError, parse
 from .fields import BEARING_FIELDS, CASE_FIELDS, FieldError, inputs_from_values, parse_field
+from .user_text import quoted
 
 SCHEMA_VERSION = 1
 UNIT_SYSTEMS = ("SI", "US")
@@ -169,7 +170,7 @@ def evaluate_case(session: Session, case: LoadCase, *, keep_steps: bool = True) 
     if s0_target is not None and values.get("s0_min") is None:
         values["s0_min"] = s0_target
     if session.bearing(case.bearing) is None:
-        errors["bearing"] = f"no bearing called {case.bearing!r} in this session"
+        errors["bearing"] = f"no bearing called {quoted(case.bearing)} in this session"
     static_only = bool(values.get("static_only"))
     if errors:
         first = next(iter(errors))

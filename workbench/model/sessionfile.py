@@ -75,24 +75,31 @@ import contextlib
 import hashlib
 import os
 import re
-import tempfile
-import tomllib
 from dataclasses import dataclass, field
+from enum import Enum
 from importlib import resources
 from pathlib import Path
-from typing import Any, Callable, Mapping, TypeVar
+from typing import Any, Callable, Collection, Mapping, TypeVar
 
 import platformdirs
 
 from ..engine.solve import UNKNOWNS
 from .duty_cycles import duty_cycles_from_tables
 from .fields import BEARING_FIELDS, CASE_FIELDS, FieldError, parse_field
+from .guarded_read import (
+    MAX_FILE_BYTES, FileRefused, decode_text, parse_toml, read_bytes, read_text,
+)
+from .safe_write import (
+    FileStamp, digest_of, remove_stale_temporaries, resolved_path, stamp_for, writable_target,
+    write_atomically,
+)
 from .session import (
     SCHEMA_VERSION, UNIT_SYSTEMS, Bearing, LoadCase, Session, SolverSetup, Targets, parse_target,
 )
 from .shafts import SIDES, Shaft, case_name, shafts_from_tables
 from .targets import parse_target_text
 from .toml_tables import checked_table, required_name, table_list, table_text, type_words
+from .user_text import clipped, clipped_path, quoted
 
 APP_NAME = "bearing-workbench"
 DEMO_SESSION = "demo.toml"
@@ -103,46 +110,54 @@ TARGET_KEYS = ("life", "reliability", "s0")
 SOLVER_KEYS = ("unknown", "target", "case")
 BEARING_KEYS = ("name", "notes", "designation", "source") + BEARING_FIELDS
 CASE_KEYS = ("name", "bearing", "notes") + CASE_FIELDS
-SESSION_FILE_MODE = 0o644
+RECOVERY_STEM_CHARS = 40
 RECOVERY_FILE_MODE = 0o600
 
 T = TypeVar("T")
 KeyPath = tuple[str | int, ...]  # ("cases", 2, "fr"); table indexes count from 1
 
 
-class SessionFileError(Exception):
+class SessionFileError(FileRefused):
     """A session file that cannot be read or written; ``str()`` is one line for the user."""
 
-    def __init__(self, path: str | os.PathLike[str], message: str, key: str | None = None,
-                 line: int | None = None) -> None:
-        self.path = str(path)
-        self.message = " ".join(message.split())
-        self.key = key
-        self.line = line
-        super().__init__(self.path, self.message, key, line)
 
-    def __str__(self) -> str:
-        where = [self.path]
-        if self.line is not None:
-            where.append(f"line {self.line}")
-        if self.key:
-            where.append(self.key)
-        return f"{', '.join(where)}: {self.message}"
+class SaveStatus(Enum):
+    """How a save ended: written, a question for the person, or refused."""
+
+    SAVED = "saved"
+    NOT_A_SESSION = "not a session"  # the file there is something else (README.md …)
+    EXISTS = "exists"  # another session file is there (save-as onto it)
+    CHANGED_ON_DISK = "changed on disk"  # someone saved the file since it was read here
+    REFUSED = "refused"  # read-only, a folder or device, a name too long, a full disk …
 
 
 @dataclass
 class SaveOutcome:
-    """What a save did: the file written, the backup and original copies, notes for the screen."""
+    """What a save did: the file written (a link's target), the backup and original copies,
+    the new stamp of the file, notes for the screen; or the question or refusal in ``message``."""
 
     path: Path
     backup: Path | None = None
     original: Path | None = None
     messages: list[str] = field(default_factory=list)
+    status: SaveStatus = SaveStatus.SAVED
+    message: str | None = None
+    stamp: FileStamp | None = None
+
+
+@dataclass
+class OpenOutcome:
+    """What opening a file gave: the session and the file's stamp, or the one-line error; and
+    a recovery copy newer than the file, when a run ended without saving."""
+
+    path: Path
+    session: Session | None = None
+    stamp: FileStamp | None = None
+    error: str | None = None
+    recovery: Path | None = None
 
 
 # ---- reading ---------------------------------------------------------------------------------
-_TOML_POSITION = re.compile(r"\s*\(at line (\d+), column (\d+)\)\s*$")
-_TOML_END = re.compile(r"\s*\(at end of document\)\s*$")
 _HEADER = re.compile(r"^\s*(\[\[?)\s*([^\[\]]+?)\s*\]\]?")
 _KEY_PART = re.compile(r"\[(\d+)\]|([^.\[\]]+)")
 
@@ -282,7 +297,7 @@ class _Reader:
         head = self.table(doc.get("session", {}), ("session",), SESSION_KEYS)
         units = self.text(head, ("session",), "units", "SI")
         if units not in UNIT_SYSTEMS:
-            raise self.fail(("session", "units"), f"use {' or '.join(UNIT_SYSTEMS)}, not {units!r}")
+            raise self.fail(("session", "units"), f"use {' or '.join(UNIT_SYSTEMS)}, not {quoted(units)}")
         bearings = self.bearings(doc)
         cases = self.cases(doc, {b.name for b in bearings})
         if self.check_values:
@@ -358,7 +373,7 @@ class _Reader:
             name = self.unique_name(table, path, seen, "case")
             bearing = self.text(table, path, "bearing")
             if self.check_values and bearing not in bearing_names:
-                message = (f"no bearing called {bearing!r} in this file" if bearing.strip()
+                message = (f"no bearing called {quoted(bearing)} in this file" if bearing.strip()
                            else "every case names the bearing it loads")
                 raise self.fail(path + ("bearing",), message)
             result.append(LoadCase(name, bearing, self.texts(table, path, CASE_FIELDS),
@@ -377,7 +392,7 @@ class _Reader:
             for side in ("bearing_a", "bearing_b"):
                 if getattr(shaft, side) not in bearing_names:
                     raise self.fail(("shafts", number, side),
-                                    f"no bearing called {getattr(shaft, side)!r} in this file")
+                                    f"no bearing called {quoted(getattr(shaft, side))} in this file")
         return shafts
 
     def duty_cycles(self, doc: Mapping[str, Any], case_names: set[str]) -> None:
@@ -392,7 +407,7 @@ class _Reader:
             for state_number, (case, _) in enumerate(cycle.states, start=1):
                 if case not in case_names:
                     raise self.fail(("duty_cycles", number, "states", state_number, "case"),
-                                    f"no case called {case!r} in this file, nor generated "
+                                    f"no case called {quoted(case)} in this file, nor generated "
                                     "from one of its shafts")
 
     def solver(self, doc: Mapping[str, Any], case_names: set[str]) -> SolverSetup:
@@ -404,14 +419,14 @@ class _Reader:
         if not self.check_values:
             return setup
         if setup.unknown not in UNKNOWNS:
-            raise self.fail(path + ("unknown",), f"cannot solve for {setup.unknown!r}; "
+            raise self.fail(path + ("unknown",), f"cannot solve for {quoted(setup.unknown)}; "
                                                  f"use one of {', '.join(UNKNOWNS)}")
         try:
             parse_target_text(setup.target)
         except FieldError as exc:
             raise self.fail(path + ("target",), exc.message) from None
         if setup.case and setup.case not in case_names:
-            raise self.fail(path + ("case",), f"no case called {setup.case!r} in this file")
+            raise self.fail(path + ("case",), f"no case called {quoted(setup.case)} in this file")
         return setup
 
 
@@ -422,36 +437,14 @@ def loads_session(text: str, source: str = "<text>", *, check_values: bool = Tru
     values, a newer schema and (unless ``check_values`` is false, as for a recovery file saved
     mid-edit) for any field text that :func:`~workbench.model.fields.parse_field` refuses.
     """
-    try:
-        doc = tomllib.loads(text)
-    except tomllib.TOMLDecodeError as exc:
-        message = str(exc)
-        position = _TOML_POSITION.search(message)
-        if position:
-            message = f"{message[:position.start()]} (column {position[2]})"
-            raise SessionFileError(source, f"not valid TOML: {message}",
-                                   line=int(position[1])) from None
-        message = _TOML_END.sub(" at the end of the file", message)
-        raise SessionFileError(source, f"not valid TOML: {message}") from None
+    doc = parse_toml(text, source, error=SessionFileError)
     return _Reader(text, source, check_values).session(doc)
 
 
 def load_session(path: str | os.PathLike[str], *, check_values: bool = True) -> Session:
     """The session in the file at ``path`` (UTF-8 TOML); see :func:`loads_session`."""
-    target = Path(path)
-    if target.is_dir():
-        raise SessionFileError(target, "is a folder, not a session file")
-    try:
-        data = target.read_bytes()
-    except FileNotFoundError:
-        raise SessionFileError(target, "no such file") from None
-    except OSError as exc:
-        raise SessionFileError(target, f"cannot read it: {exc.strerror or exc}") from None
-    try:
-        text = data.decode("utf-8")
-    except UnicodeDecodeError as exc:
-        raise SessionFileError(target, f"not UTF-8 text (byte {exc.start})") from None
-    return loads_session(text, str(target), check_values=check_values)
+    text = read_text(path, error=SessionFileError, what="session file")
+    return loads_session(text, str(path), check_values=check_values)
 
 
 # ---- writing ---------------------------------------------------------------------------------
@@ -483,13 +476,13 @@ def dumps_session(session: Session) -> str:
             _field_table({"name": b.name, "notes": b.notes}
                          | {key: getattr(b, key) for key in ("designation", "source")
                             if getattr(b, key)}, b.texts, BEARING_FIELDS,
-                         f"bearing {b.name!r}")
+                         f"bearing {quoted(b.name)}")
             for b in session.bearings
         ]
     if session.cases:
         doc["cases"] = [
             _field_table({"name": c.name, "bearing": c.bearing, "notes": c.notes}, c.texts,
-                         CASE_FIELDS, f"case {c.name!r}")
+                         CASE_FIELDS, f"case {quoted(c.name)}")
             for c in session.cases
         ]
     doc["solver"] = {key: getattr(session.solver, key) for key in SOLVER_KEYS}
@@ -517,6 +510,8 @@ def has_comments(text: str) -> bool:
     A plain scan, not a TOML parser: it follows one-line and multi-line basic and literal strings
     (and backslash escapes in basic ones) so a ``#`` inside a value is not taken for a comment.
     """
+    if "#" not in text:  # the usual case, and a large file's, at C speed
+        return False
     closing: str | None = None  # the delimiter of the multi-line string we are inside
     for line in text.split("\n"):  # TOML lines end in \n; splitlines() would also break at U+0085
         i, n = 0, len(line)
@@ -552,80 +547,147 @@ def _sibling(path: Path, suffix: str) -> Path:
     return path.with_name(path.name + suffix)
 
 
-def _sync_folder(folder: Path) -> None:
-    """fsync a folder so a rename in it survives a power cut (POSIX; a no-op elsewhere)."""
-    if not hasattr(os, "O_DIRECTORY"):
-        return
-    descriptor = os.open(folder, os.O_RDONLY | os.O_DIRECTORY)
+_SCHEMA_FIRST = re.compile(rb"(?:\xef\xbb\xbf)?(?:[ \t]*(?:#[^\n]*)?\r?\n)*[ \t]*schema[ \t]*=[ \t]*\d+[ \t]*(?:#|\r?\n|$)")
+
+
+def looks_like_session(data: bytes) -> bool:
+    """True when ``data`` is TOML with a whole-number ``schema`` and only the top-level keys of
+    a session file: a file this workbench wrote or could have (whether its values are good).
+    A file whose first statement is ``schema = N``, as every file written here starts, is
+    taken without parsing it."""
+    if _SCHEMA_FIRST.match(data):
+        return True
     try:
-        os.fsync(descriptor)
-    finally:
-        os.close(descriptor)
+        doc = parse_toml(decode_text(data, "<file>", SessionFileError), "<file>",
+                         error=SessionFileError)
+    except SessionFileError:
+        return False
+    return type(doc.get("schema")) is int and all(key in TOP_LEVEL_KEYS for key in doc)
 
 
-def _atomic_write(path: Path, data: bytes, mode: int) -> None:
-    """Write ``data`` to ``path`` so that ``path`` holds either its old or its new bytes, never part.
+def _question(target: Path, old: bytes, read_stamp: FileStamp | None) -> SaveStatus | None:
+    """What must be asked before ``old`` (the bytes at ``target`` now) is replaced, if anything."""
+    if not looks_like_session(old):
+        return SaveStatus.NOT_A_SESSION
+    if read_stamp is None or read_stamp.path != target:
+        return SaveStatus.EXISTS
+    if digest_of(old) != read_stamp.digest:
+        return SaveStatus.CHANGED_ON_DISK
+    return None
 
-    Temporary file in the same folder, flush and fsync, then one ``os.replace``.
+
+_QUESTIONS = {
+    SaveStatus.NOT_A_SESSION: "is not a bearing-workbench session file: replace it with this "
+                              "session?",
+    SaveStatus.EXISTS: "already holds another session: replace it?",
+    SaveStatus.CHANGED_ON_DISK: "was changed on disk since it was read here (another window or "
+                                "program saved it): replace that version with this one?",
+}
+
+
+class SaveQuestion(SessionFileError):
+    """A save that needs the person's answer first; ``status`` says which question."""
+
+    def __init__(self, path: str | os.PathLike[str], status: SaveStatus) -> None:
+        super().__init__(path, _QUESTIONS[status])
+        self.status = status
+
+
+def save_session(session: Session, path: str | os.PathLike[str], *,
+                 read_stamp: FileStamp | None = None,
+                 confirmed: Collection[SaveStatus] = (SaveStatus.EXISTS,
+                                                      SaveStatus.CHANGED_ON_DISK)) -> SaveOutcome:
+    """Save atomically through links; keep the replaced version as ``.bak`` and a commented
+    original as ``.orig``; the outcome carries the new :class:`FileStamp` for the next save.
+
+    ``read_stamp`` is the stamp of the file as this session was read from it (or last saved;
+    None for a session never saved).  Replacing an existing file asks first
+    (:class:`SaveQuestion`, a SessionFileError) when it is not a session file, when it is
+    another session (no stamp of it), or when it changed on disk since ``read_stamp`` — unless
+    ``confirmed`` holds that status.  By default only a file that is not a session is asked
+    about; :func:`try_save_session`, the screen's door, asks about all three.
+
+    Raises SessionFileError when the file must not or cannot be written (a folder, pipe or
+    device, read-only, a name too long, no such folder, a full disk).
     """
-    descriptor, temporary = tempfile.mkstemp(dir=path.parent, prefix=f".{path.name}.", suffix=".tmp")
-    try:
-        with os.fdopen(descriptor, "wb") as handle:
-            handle.write(data)
-            handle.flush()
-            os.fsync(handle.fileno())
-        os.chmod(temporary, mode)
-        os.replace(temporary, path)
-    except BaseException:
-        with contextlib.suppress(OSError):
-            os.unlink(temporary)
-        raise
-    _sync_folder(path.parent)
-
-
-def save_session(session: Session, path: str | os.PathLike[str]) -> SaveOutcome:
-    """Save atomically; keep the replaced version as ``.bak`` and a commented original as ``.orig``.
-
-    Raises SessionFileError when the file or its folder cannot be written.
-    """
-    target = Path(path)
     data = dumps_session(session).encode("utf-8")
-    if target.is_dir():
-        raise SessionFileError(target, "is a folder, not a session file")
+    target, mode = writable_target(path, error=SessionFileError, what="session file", verb="save")
     outcome = SaveOutcome(target)
+    old = None
+    if mode is not None:
+        old = read_bytes(target, error=SessionFileError, what="session file", limit=MAX_FILE_BYTES)
+        question = _question(target, old, read_stamp)
+        if question is not None and question not in confirmed:
+            raise SaveQuestion(path, question)
+        if has_comments(old.decode("utf-8", errors="replace")):
+            original = _sibling(target, ".orig")
+            if not original.exists():
+                outcome.original = write_atomically(original, old, mode=mode,
+                                                    error=SessionFileError, verb="save")
+                outcome.messages.append(
+                    f"{target.name} held comments, which saving does not keep: "
+                    f"the file as it was is kept as {original.name}")
+            else:
+                outcome.messages.append(
+                    f"{target.name} held comments, which saving does not keep: the version "
+                    f"just replaced is in {target.name}.bak ({original.name} keeps the first)")
+        outcome.backup = write_atomically(_sibling(target, ".bak"), old, mode=mode,
+                                          error=SessionFileError, verb="save")
+    write_atomically(target, data, error=SessionFileError, what="session file", verb="save")
+    outcome.stamp = stamp_for(target, data)
+    return outcome
+
+
+def try_save_session(session: Session, path: str | os.PathLike[str], *,
+                     read_stamp: FileStamp | None = None,
+                     confirmed: Collection[SaveStatus] = ()) -> SaveOutcome:
+    """:func:`save_session` for the screen: never raises; a question or a refusal comes back as
+    the outcome's ``status`` and ``message`` (ask, then call again with ``confirmed``)."""
     try:
-        old = target.read_bytes() if target.exists() else None
-        mode = target.stat().st_mode & 0o777 if old is not None else SESSION_FILE_MODE
-        if old is not None:
-            if has_comments(old.decode("utf-8", errors="replace")):
-                original = _sibling(target, ".orig")
-                if not original.exists():
-                    _atomic_write(original, old, mode)
-                    outcome.original = original
-                    outcome.messages.append(
-                        f"{target.name} held comments, which saving does not keep: "
-                        f"the file as it was is kept as {original.name}")
-                else:
-                    outcome.messages.append(
-                        f"{target.name} held comments, which saving does not keep: the version "
-                        f"just replaced is in {target.name}.bak ({original.name} keeps the first)")
-            outcome.backup = _sibling(target, ".bak")
-            _atomic_write(outcome.backup, old, mode)
-        _atomic_write(target, data, mode)
-    except OSError as exc:
-        raise SessionFileError(target, f"cannot save: {exc.strerror or exc}") from None
+        return save_session(session, path, read_stamp=read_stamp, confirmed=confirmed)
+    except SaveQuestion as exc:
+        return SaveOutcome(Path(path), status=exc.status, message=str(exc))
+    except SessionFileError as exc:
+        return SaveOutcome(Path(path), status=SaveStatus.REFUSED, message=str(exc))
+    except (OSError, ValueError) as exc:  # a session holding what the schema has no place for
+        return SaveOutcome(Path(path), status=SaveStatus.REFUSED,
+                           message=f"{clipped_path(path)}: not saved: {clipped(str(exc), 120)}")
+
+
+def open_session(path: str | os.PathLike[str], *, recovered: bool = False) -> OpenOutcome:
+    """Read the session at ``path`` for the screen; never raises.
+
+    The outcome holds the session and the file's stamp (keep it for :func:`save_session`), or
+    one line saying why not, and a recovery copy newer than the file, if there is one.  A
+    recovery copy (``recovered``) is read without checking its values: it may hold a value typed
+    half-way.  Stale temporaries of killed saves beside the file are removed.
+    """
+    outcome = OpenOutcome(Path(path))
+    try:
+        data = read_bytes(path, error=SessionFileError, what="session file")
+        text = decode_text(data, path, SessionFileError)
+        outcome.session = loads_session(text, str(path), check_values=not recovered)
+        outcome.stamp = stamp_for(path, data)
+    except SessionFileError as exc:
+        outcome.error = str(exc)
+    except Exception as exc:  # noqa: BLE001 - the screen must never die opening a file
+        outcome.error = f"{clipped_path(path)}: cannot read it ({type(exc).__name__})"
+    if not recovered:
+        remove_stale_temporaries(resolved_path(path))
+        outcome.recovery = find_recovery(path)
     return outcome
 
 
 # ---- recovery and the demo -------------------------------------------------------------------
 def recovery_path(session_path: str | os.PathLike[str] | None) -> Path:
-    """Where the recovery copy of ``session_path`` lives (one per absolute path; one for untitled)."""
+    """Where the recovery copy of ``session_path`` lives: one per file (its path resolved: links,
+    ``..`` and ``~``), one for an untitled session."""
     folder = Path(platformdirs.user_data_dir(APP_NAME, appauthor=False)) / "recovery"
     if session_path is None:
         return folder / "untitled.toml"
-    absolute = Path(session_path).expanduser().absolute()
-    digest = hashlib.sha256(str(absolute).encode("utf-8")).hexdigest()[:12]
-    return folder / f"{absolute.stem}-{digest}.toml"
+    resolved = resolved_path(session_path)  # "../r.toml" and "r.toml" share one copy
+    digest = hashlib.sha256(os.fsencode(resolved)).hexdigest()[:12]
+    return folder / f"{resolved.stem[:RECOVERY_STEM_CHARS]}-{digest}.toml"
 
 
 def write_recovery(session: Session, session_path: str | os.PathLike[str] | None) -> Path:
@@ -633,9 +695,10 @@ def write_recovery(session: Session, session_path: str | os.PathLike[str] | None
     target = recovery_path(session_path)
     try:
         target.parent.mkdir(parents=True, exist_ok=True)
-        _atomic_write(target, dumps_session(session).encode("utf-8"), RECOVERY_FILE_MODE)
     except OSError as exc:
         raise SessionFileError(target, f"cannot write the recovery copy: {exc.strerror or exc}") from None
+    write_atomically(target, dumps_session(session).encode("utf-8"), mode=RECOVERY_FILE_MODE,
+                     error=SessionFileError, what="recovery copy")
     return target
 
 
@@ -652,7 +715,7 @@ def find_recovery(session_path: str | os.PathLike[str] | None) -> Path | None:
     if session_path is None:
         return candidate
     try:
-        file_at = Path(session_path).stat().st_mtime_ns
+        file_at = resolved_path(session_path).stat().st_mtime_ns
     except OSError:
         return candidate
     return candidate if saved_at > file_at else None

@@ -79,6 +79,7 @@ from .fields import BEARING_FIELDS, CASE_FIELDS, FieldError, inputs_from_values,
 from .quantities import QuantityError, parse
 from .session import LoadCase, Session
 from .toml_tables import checked_table, named_tables, required_name, table_list, table_text
+from .user_text import quoted
 
 ELEMENT_KINDS = ("spur", "helical", "bevel", "pulley")
 LOCATING = ("A", "B", "pair")
@@ -234,7 +235,7 @@ def _quantity(key: str, text: str, quantity: str, default_unit: str | None) -> f
 def _choice(key: str, text: str, choices: Sequence[str]) -> str:
     if text.strip() in choices:
         return text.strip()
-    raise FieldError(key, f"use {' or '.join(repr(c) for c in choices)}, not {text!r}")
+    raise FieldError(key, f"use {' or '.join(repr(c) for c in choices)}, not {quoted(text)}")
 
 
 def _yes_no(key: str, text: str) -> bool:
@@ -390,11 +391,11 @@ class ShaftSolution:
 
 def _bearing_inputs(session: Session, name: str, key: str) -> PairBearing:
     """The session bearing ``name`` as engine inputs; errors name ``bearings[n].<field>``."""
-    for number, bearing in enumerate(session.bearings, start=1):
+    for number, bearing in enumerate(session.bearings, start=1):  # noqa: B007 (read after the loop)
         if bearing.name == name:
             break
     else:
-        raise FieldError(key, f"no bearing called {name!r} in this session")
+        raise FieldError(key, f"no bearing called {quoted(name)} in this session")
     where = f"bearings[{number}]"
     values: dict[str, object] = {}
     for field_name in BEARING_FIELDS:
@@ -449,7 +450,7 @@ def solve_shaft(shaft: Shaft, state: OperatingState, session: Session, *,
         for side in ("bearing_a", "bearing_b"):
             if session.bearing(getattr(shaft, side)) is None:
                 raise FieldError(f"{key}.{side}",
-                                 f"no bearing called {getattr(shaft, side)!r} in this session")
+                                 f"no bearing called {quoted(getattr(shaft, side))} in this session")
     d = Derivation()
     with _engine_keys(state_key, {"power": "power", "speed": "speed"}):
         total_torque = shaft_torque(d, power_W=power, torque_Nm=torque, speed_rpm=speed)
@@ -500,7 +501,7 @@ def shaft_cases(session: Session, shaft: Shaft, *, key: str = "shaft",
             name = case_name(shaft, state, side)
             if name in taken:
                 raise FieldError(f"{key}.states[{state_number}].name",
-                                 f"the case name {name!r} is already taken")
+                                 f"the case name {quoted(name)} is already taken")
             taken.add(name)
             fr, fa = solution.bearing_loads[side]
             texts = dict(shaft.case_fields) | {

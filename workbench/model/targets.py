@@ -14,6 +14,7 @@ from collections.abc import Sequence
 from ..engine.solve import TARGETS
 from .fields import FieldError
 from .quantities import QuantityError, parse
+from .user_text import quoted
 
 MILLION_REV_SPELLINGS = ("10⁶ rev", "10^6 rev", "1e6 rev")
 
@@ -44,7 +45,7 @@ def parse_target_text(text: str) -> tuple[str, float]:
     if not equals or not name:
         raise FieldError("target", f"write a result, '=' and a value, e.g. Lnm=20000 h ({names})")
     if name not in TARGETS:
-        raise FieldError("target", f"unknown result {name!r}; use one of {names}")
+        raise FieldError("target", f"unknown result {quoted(name)}; use one of {names}")
     try:
         value = _target_value(name, value_text)
     except QuantityError as exc:

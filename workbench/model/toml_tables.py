@@ -11,6 +11,7 @@ import difflib
 from typing import Any, Callable, Mapping, Protocol, TypeVar
 
 from .fields import FieldError
+from .user_text import quoted
 
 
 def join_key(key: str, name: str) -> str:
@@ -43,7 +44,7 @@ def checked_table(value: object, key: str, allowed: tuple[str, ...]) -> dict[str
         if name not in allowed:
             close = difflib.get_close_matches(str(name), allowed, n=1)
             hint = f"did you mean {close[0]!r}?" if close else f"allowed: {', '.join(allowed)}"
-            raise FieldError(join_key(key, name), f"unknown key {name!r}; {hint}")
+            raise FieldError(join_key(key, name), f"unknown key {quoted(name)}; {hint}")
     return value
 
 
@@ -72,7 +73,7 @@ def required_name(table: Mapping[str, Any], key: str, seen: set[str], what: str)
         raise FieldError(join_key(key, "name"), f"every {what} needs a name")
     if name in seen:
         raise FieldError(join_key(key, "name"),
-                         f"a second {what} called {name!r}; names must differ")
+                         f"a second {what} called {quoted(name)}; names must differ")
     seen.add(name)
     return name
 

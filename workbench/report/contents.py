@@ -34,6 +34,9 @@ UNITS_NOTE = "Values are in the engine's units: N, mm, r/min, h, 10⁶ rev, mm²
 SUMMARY_RESULTS = ("P", "L10h", "Lnm", "s0")
 GENERATED_MARK = " *"
 GENERATED_LEGEND = "* generated from a shaft: its loads come from the Shafts section"
+# Each sensitivity table costs about 32 derivations; past this many cases (a large session, where
+# a reader compares the summary anyway) the later cases have none, and the report says so.
+SENSITIVITY_CASES = 50
 SENSITIVITY_HEADERS = ("input", "value", "ε life", "ε s0", "−10 %", "+10 %", "method")
 STATIC_ONLY = "static check only"
 BEARING_HEADERS = ("Bearing", "Kind", "Designation", "Source")
@@ -261,6 +264,7 @@ class Report:
     units_note: str
     summary: Table
     generated_legend: str | None
+    sensitivity_note: str | None  # why later cases have no sensitivity table, when they have none
     cases: tuple[CaseSection, ...]
     shafts: tuple[ShaftSection, ...]
     duties: tuple[DutySection, ...]
@@ -399,10 +403,18 @@ def _bearing_table(bearings: Sequence[BearingInfo]) -> Table:
         (b.name, b.kind or "—", b.designation or "—", b.source or "—") for b in bearings))
 
 
+def _sensitivity_note(cases: int) -> str | None:
+    """The line saying which cases have no sensitivity table (over SENSITIVITY_CASES), if any."""
+    if cases <= SENSITIVITY_CASES:
+        return None
+    return (f"Sensitivity tables are given for the first {SENSITIVITY_CASES} cases; for the other "
+            f"{cases - SENSITIVITY_CASES}, 'workbench calc --sensitivity' gives one case's.")
+
+
 def _case_section(session: Session, number: int, result: CaseResult) -> CaseSection:
     case, derivation = result.case, result.derivation
     texts = case_texts(session, case)
-    items = _sensitivity(result)
+    items = _sensitivity(result) if number <= SENSITIVITY_CASES else []
     return CaseSection(
         number=number, name=case.name, bearing=_bearing_info(session, case.bearing),
         notes=case.notes,
@@ -635,6 +647,7 @@ def build_report(session: Session, source_name: str,
         summary=_summary(analysis.cases),
         generated_legend=GENERATED_LEGEND if any(is_generated(r.case) for r in analysis.cases)
         else None,
+        sensitivity_note=_sensitivity_note(len(analysis.cases)),
         cases=tuple(_case_section(session, number, result)
                     for number, result in enumerate(analysis.cases, start=1)),
         shafts=tuple(_shaft_section(number, outcome)

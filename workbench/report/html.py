@@ -3,7 +3,8 @@
 One file: the style sheet is inline, the figures are inline SVG (drawn by matplotlib through
 :mod:`.plot_svg`), nothing is fetched and no script runs. Print rules start each case on a new
 page, keep table rows and figures whole, and print black on white. Every piece of user text
-(titles, names, notes, designations, typed values) is escaped by :func:`.escape.html_text`.
+(titles, names, notes, designations, typed values) is escaped by
+:func:`workbench.model.user_text.html_text`.
 
 Figures: per case, Lnm against a scale on its loads with the e switch marked
 (:func:`~workbench.engine.curves.life_curve`) and aISO against κ
@@ -18,10 +19,10 @@ from typing import Sequence
 
 from ..engine.curves import aiso_curve, life_curve
 from ..engine.record import Derivation, InputError
+from ..model.user_text import html_text as _e
 from .contents import (
     CaseSection, DutySection, Report, ShaftSection, Table, input_table, result_table, step_table,
 )
-from .escape import html_text as _e
 from .plot_svg import aiso_svg, life_svg, shaft_loads_svg, shares_svg  # matplotlib: when drawn
 
 PLOTTED_CASES = 40  # cases past this many get no figures: a large session's page stays usable
@@ -235,6 +236,8 @@ def render(report: Report) -> str:
               _table(report.summary) if report.cases else "<p>No load cases.</p>"]
     if report.generated_legend:
         parts.append(f'<p class="note">{_e(report.generated_legend)}</p>')
+    if report.sensitivity_note:
+        parts.append(f'<p class="note">{_e(report.sensitivity_note)}</p>')
     if len(report.cases) > PLOTTED_CASES:
         parts.append(f'<p class="note">Figures are drawn for the first {PLOTTED_CASES} cases.</p>')
     parts.append("</section>")

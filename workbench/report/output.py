@@ -12,8 +12,10 @@ import os
 from pathlib import Path
 from typing import NamedTuple
 
+from ..model.guarded_read import FileRefused
+from ..model.safe_write import resolved_path, writable_target, write_atomically
 from ..model.session import Session
-from ..model.sessionfile import SESSION_FILE_MODE, _atomic_write
+from ..model.user_text import clipped, clipped_path
 from .meta import provenance
 
 UNSAVED_SOURCE = "(not saved)"
@@ -59,27 +61,23 @@ def preview(session: Session, *, session_path: str | os.PathLike[str] | None,
 
 def write_report(session: Session, *, session_path: str | os.PathLike[str] | None, fmt: str,
                  out_path: str | os.PathLike[str], modified: bool = False) -> ReportWritten:
-    """Write the report of ``session`` in ``fmt`` to ``out_path`` atomically (temporary file in
-    the same folder, fsync, ``os.replace``): the file holds the old report or the new one,
-    never part of either. Refuses a folder and the session's own file. Never raises."""
-    target = Path(out_path)
+    """Write the report of ``session`` in ``fmt`` to ``out_path`` atomically and through links
+    (:func:`~workbench.model.safe_write.write_atomically`): the file holds the old report or the
+    new one, never part of either. Refuses a folder, a device, a read-only file and the
+    session's own file. Never raises."""
     try:
-        if target.is_dir():
-            return ReportWritten(None, f"{target}: is a folder; give a file name for the report")
-        if session_path is not None and target.exists() and os.path.samefile(target,
-                                                                             session_path):
-            return ReportWritten(None, f"{target}: is the session file itself; choose another "
-                                       "name")
-    except (OSError, ValueError) as exc:
-        return ReportWritten(None, f"{target}: cannot write the report: {exc}")
+        target, _ = writable_target(out_path, what="report file")
+        if session_path is not None and target == resolved_path(session_path):
+            return ReportWritten(None, f"{clipped_path(out_path)}: is the session file itself; "
+                                       "choose another name")
+    except FileRefused as exc:
+        return ReportWritten(None, str(exc))
     try:
         text = report_text(session, fmt=fmt, session_path=session_path, modified=modified)
     except Exception as exc:  # noqa: BLE001 - the screen's worker shows the line, never a trace
-        return ReportWritten(None, f"The report cannot be built: {exc}")
+        return ReportWritten(None, f"The report cannot be built: {clipped(str(exc), 200)}")
     try:
-        mode = target.stat().st_mode & 0o777 if target.exists() else SESSION_FILE_MODE
-        _atomic_write(target, text.encode("utf-8"), mode)
-    except (OSError, ValueError) as exc:
-        reason = exc.strerror if isinstance(exc, OSError) and exc.strerror else exc
-        return ReportWritten(None, f"{target}: cannot write the report: {reason}")
+        target = write_atomically(out_path, text.encode("utf-8"), what="report file")
+    except FileRefused as exc:
+        return ReportWritten(None, str(exc))
     return ReportWritten(target, None)

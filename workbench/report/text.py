@@ -143,6 +143,8 @@ def render(report: Report) -> str:
     lines += table_lines(report.summary) if report.cases else ["  (no load cases)"]
     if report.generated_legend:
         lines.append(f"  {report.generated_legend}")
+    if report.sensitivity_note:
+        lines.append(f"  {report.sensitivity_note}")
     lines.append("")
     for case in report.cases:
         lines += _case(case)

@@ -14,6 +14,9 @@ from typing import Literal, NamedTuple
 
 from textual.binding import Binding
 
+from ..model.config_files import key_problem
+from ..model.user_text import quoted
+
 Scope = Literal["app", "screen"]
 
 NUDGE_GROUP = Binding.Group("What-if ±5 % / ±1 %", compact=True)
@@ -134,9 +137,9 @@ def check_keymap(table: Mapping[str, object]) -> tuple[dict[str, str], list[str]
     problems: list[str] = []
     for action_id, keys in table.items():
         if action_id not in ACTION_BY_ID:
-            problems.append(f"{action_id!r} is not an action (see the help screen for the ids)")
-        elif not isinstance(keys, str) or not [k for k in keys.split(",") if k.strip()]:
-            problems.append(f"{action_id}: keys must be a text such as \"ctrl+k\" or \"f4,ctrl+e\"")
+            problems.append(f"{quoted(action_id)} is not an action (see the help screen for the ids)")
+        elif (problem := key_problem(keys) if isinstance(keys, str) else key_problem("")):
+            problems.append(f"{action_id}: {problem}")
         else:
             keymap[action_id] = ",".join(key.strip() for key in keys.split(",") if key.strip())
     claimed: dict[str, list[str]] = {}

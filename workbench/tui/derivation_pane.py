@@ -20,13 +20,12 @@ from textual.style import Style
 
 from ..engine.record import Step, fmt
 from ..model.fields import FIELD_BY_NAME
-from ..model.quantities import format_quantity
+from ..model.quantities import ENGINE_UNIT_QUANTITY, format_quantity, step_number_writer
 from ..model.session import CaseResult
 from ..model.document import Document, input_field
 from .view import View
 
 # Engine units that have a display quantity (the rest are shown as the engine writes them).
-UNIT_QUANTITY = {"N": "force", "h": "time", "mm²/s": "viscosity", "rpm": "speed", "mm": "length"}
 SYMBOL_STYLE = "bold $accent"
 RESULT_STYLE = "bold"
 SOURCE_STYLE = "italic $foreground 60%"
@@ -39,7 +38,7 @@ MIN_WRAP = 10
 
 def step_result_text(step: Step, system: str) -> str:
     """A step's value with its unit, in ``system`` where the unit has a display quantity."""
-    quantity = UNIT_QUANTITY.get(step.unit)
+    quantity = ENGINE_UNIT_QUANTITY.get(step.unit)
     if quantity is not None and math.isfinite(step.value):
         return format_quantity(step.value, quantity, system)  # type: ignore[arg-type]
     return f"{step.value_text} {step.unit}".rstrip()
@@ -95,7 +94,7 @@ def _summary(result: CaseResult, system: str) -> list[Content]:
 def step_content(step: Step, system: str) -> list[Content]:
     """The display lines of one derivation step; the shafts view shows its steps with it too."""
     lines = [Content.assemble((step.symbol, SYMBOL_STYLE), "  ", (step.label, "bold"))]
-    substituted = step.substituted
+    substituted = step.substituted_in(step_number_writer(system))  # type: ignore[arg-type]
     if step.formula and step.formula not in (substituted, "given"):
         lines.append(Content("  " + step.formula))
     if substituted and substituted != step.value_text:

@@ -1,0 +1,151 @@
+"""Reference rating life from the element loads (ISO/TS 16281 style) and the recorded analysis:
+checked against ISO 281's catalogue life under ideal load, the power-mean definitions, slice
+independence, and the shape of life against clearance."""
+
+from __future__ import annotations
+
+import math
+from dataclasses import replace
+
+import numpy as np
+import pytest
+from internal_examples import BALL, ROLLER
+
+from workbench.engine.derive import CaseInputs, derive
+from workbench.engine.internal import reference_life
+from workbench.engine.internal.analysis import (
+    analyse_internal,
+    clearance_sweep,
+    default_clearances,
+    raceway_capacities,
+)
+from workbench.engine.internal.distribution import InternalInputs, NoEquilibrium
+from workbench.engine.ratings import dynamic_rating_radial_ball, dynamic_rating_radial_roller
+
+
+
+def test_equivalent_load_power_means() -> None:
+    # Definitions (Lundberg–Palmgren): equal loads give that load; otherwise the power mean.
+    loads = np.array([1000.0, 500.0, 0.0, 0.0])
+    assert float(reference_life.equivalent_load(np.full(5, 700.0), rotating=True, ball=True)) == pytest.approx(700.0)
+    assert float(reference_life.equivalent_load(loads, rotating=True, ball=True)) == pytest.approx(
+        ((1000.0 ** 3 + 500.0 ** 3) / 4) ** (1 / 3))
+    assert float(reference_life.equivalent_load(loads, rotating=False, ball=False)) == pytest.approx(
+        ((1000.0 ** 4.5 + 500.0 ** 4.5) / 4) ** (1 / 4.5))
+
+
+def test_weibull_series_rule() -> None:
+    # L = (Σ Li^(−e))^(−1/e): two equal lives at e = 10/9 give L·2^(−9/10) (closed form).
+    assert reference_life.combine_lives([100.0, 100.0], 10 / 9) == pytest.approx(100.0 * 2 ** -0.9)
+    assert reference_life.combine_lives([100.0, math.inf], 10 / 9) == pytest.approx(100.0)
+
+
+def test_ball_reference_life_near_iso281_under_ideal_load() -> None:
+    # Under pure radial load near zero clearance the reference rating life reproduces the ISO 281
+    # life within a few per cent (REFERENCE.md §8: a sanity check, not an identity).
+    c = dynamic_rating_radial_ball(1, 9, 12.7, 0.0, 65.0)
+    for fr in (2000.0, 5000.0, 9000.0):
+        life = analyse_internal(replace(BALL, fr=fr)).results["L10r"]
+        assert life == pytest.approx((c / fr) ** 3, rel=0.10)
+
+
+def test_roller_reference_life_meets_iso281_near_rating_load() -> None:
+    # Line contact has life exponent 4 (Lundberg–Palmgren) where ISO 281 uses 10/3 for the
+    # whole bearing; the two meet at P = C, one million revolutions, where ISO 281's C is
+    # defined (ISO 281 §7, from memory): within 5 % at Fr = C, and the reference life is the
+    # longer one below it.
+    c = dynamic_rating_radial_roller(1, 14, 11.0, 11.0, 0.0, 70.0)
+    assert analyse_internal(replace(ROLLER, fr=c)).results["L10r"] == pytest.approx(1.0, rel=0.05)
+    assert analyse_internal(replace(ROLLER, fr=0.5 * c)).results["L10r"] > 0.5 ** (-10 / 3)
+
+
+def test_roller_life_does_not_depend_on_the_slice_count() -> None:
+    # qck = Qc·ns^(−7/9) with equal slice loads gives (Qc/Qe)^4 whatever ns (closed form).
+    lives = [analyse_internal(replace(ROLLER, slices=n)).results["L10r"] for n in (1, 10, 40)]
+    assert lives[1] == pytest.approx(lives[0], rel=1e-9)
+    assert lives[2] == pytest.approx(lives[0], rel=1e-9)
+
+
+def test_misalignment_costs_life_of_straight_rollers() -> None:
+    # A tilted straight roller carries its load at one end (edge loading): life falls
+    # (Harris & Kotzalas; the reason rollers are crowned).
+    # A crown spreads the load back toward the middle, so it loses a smaller share.
+    straight = analyse_internal(ROLLER).results["L10r"]
+    tilted = analyse_internal(replace(ROLLER, tilt=0.002)).results["L10r"]
+    assert tilted < 0.8 * straight
+    crowned = replace(ROLLER, profile="crowned")
+    crowned_share = (analyse_internal(replace(crowned, tilt=0.002)).results["L10r"]
+                     / analyse_internal(crowned).results["L10r"])
+    assert crowned_share > tilted / straight
+
+
+def test_raceway_capacity_formula() -> None:
+    # Lundberg–Palmgren Qc written out (REFERENCE.md §8, from memory), bm = 1.3.
+    gamma = 12.7 / 65.0
+    expected = (1.3 * 98.1 * (1.04 / 0.04) ** 0.41 * (1 - gamma) ** 1.39 / (1 + gamma) ** (1 / 3)
+                * gamma ** 0.3 * 12.7 ** 1.8 * 9 ** (-1 / 3))
+    assert raceway_capacities(BALL)[0] == pytest.approx(expected, rel=1e-12)
+
+
+def test_life_against_clearance_peaks_near_slight_preload() -> None:
+    # Life against operating clearance (Harris & Kotzalas): longest at a slight preload, falling
+    # with clearance as the load zone narrows and steeply with heavy preload.
+    inputs = replace(BALL, fa=500.0)
+    clearances = default_clearances(inputs, count=25)
+    points = clearance_sweep(inputs, clearances)
+    lives = [p.life for p in points]
+    best = int(np.nanargmax(lives))
+    assert points[best].clearance <= 0.0
+    assert lives[0] < lives[best] and lives[-1] < lives[best]
+    assert all(b <= a * (1 + 1e-9) for a, b in zip(lives[best:], lives[best + 1:]))
+
+
+def test_analysis_records_the_steps_and_the_json_keys() -> None:
+    inputs = InternalInputs("angular-contact", 12, 12.7, 65.0, alpha_deg=40.0, arrangement="back-to-back",
+                            fr=4000.0, fa=1000.0, preload=1000.0, speed=3000.0, nu=20.0, ec=0.5)
+    result = analyse_internal(inputs)
+    out = result.as_dict()
+    for key in ("elements", "q_max_N", "load_zone_deg", "epsilon", "displacement", "p_max_MPa",
+                "stiffness", "L10r", "L10_iso281", "steps"):
+        assert key in out
+    assert set(out["displacement"]) == {"radial_mm", "axial_mm", "tilt_rad"}
+    assert set(out["p_max_MPa"]) == {"inner", "outer"}
+    assert set(out["elements"][0]) >= {"angle_deg", "load_N", "contact_angle_deg"}
+    assert len(out["elements"]) == 24
+    keys = {step["key"] for step in out["steps"]}
+    assert {"K", "delta_r", "Q_max_A", "L10r", "aISO", "Lnmr", "L10_iso281", "Fa_rule_A"} <= keys
+    # the rule and the equilibrium both balance the external thrust (shaft axial equilibrium)
+    r = result.results
+    assert r["Fa_rule_A"] - r["Fa_rule_B"] == pytest.approx(1000.0, rel=1e-9)
+    assert result.rows[0].axial_load - result.rows[1].axial_load == pytest.approx(1000.0, rel=1e-8)
+
+
+def test_iso281_life_beside_is_derive_of_the_same_case() -> None:
+    # The life shown beside is the catalogue method itself (engine/derive.py) with C from the
+    # same geometry: compared with derive() run here.
+    result = analyse_internal(replace(BALL, fa=1000.0))
+    r = result.results
+    case = CaseInputs(kind="deep-groove", fr=5000.0, fa=1000.0, c=r["C"], c0=r["C0"],
+                      f0=r["C0"] / (9 * 12.7 ** 2), contact_angle=0.0, dm=65.0)
+    assert r["L10_iso281"] == pytest.approx(derive(case).results["L10"], rel=1e-12)
+
+
+def test_steps_and_results_agree_without_steps() -> None:
+    inputs = replace(BALL, fa=800.0, clearance=0.01)
+    full = analyse_internal(inputs)
+    bare = analyse_internal(inputs, keep_steps=False)
+    assert full.results == bare.results
+    assert bare.derivation.steps == []
+
+
+def test_pressure_warns_above_the_iso76_reference() -> None:
+    result = analyse_internal(replace(BALL, fr=28000.0))
+    assert result.results["p_max_inner"] > 4200.0
+    assert any("4200 MPa" in w for w in result.derivation.warnings)
+
+
+def test_cylindrical_axial_load_is_left_to_the_ribs() -> None:
+    result = analyse_internal(replace(ROLLER, fa=1000.0))
+    assert any("ribs" in w for w in result.derivation.warnings)
+    with pytest.raises(NoEquilibrium):
+        analyse_internal(replace(ROLLER, fr=0.0, fa=1000.0))

@@ -1,0 +1,33 @@
+"""tools/mutate.py finds the constants it should change and changes exactly those (no test run:
+the mutation run itself is too slow for the suite; see DEVELOPERS.md)."""
+
+from __future__ import annotations
+
+import ast
+from pathlib import Path
+
+from tools.mutate import _apply, engine_modules, mutants_of
+
+
+def test_only_physics_constants_are_mutated(tmp_path: Path) -> None:
+    source = tmp_path / "sample.py"
+    source.write_text(
+        "X = 0.56  # a factor\n"
+        "TOL = 1e-9\n"
+        "def f(a, rows):\n"
+        "    for _ in range(200):\n"
+        "        a = round(a, 3) + rows[1] + 0 * a\n"
+        "    return 2.3 * a ** -0.83  # ° · non-ASCII before: 2.3\n",
+        encoding="utf-8")
+    found = mutants_of("sample", 0.03, path=source)
+    assert [(m.line, m.original) for m in found] == [(1, "0.56"), (6, "2.3"), (6, "0.83")]
+    changed = _apply(source.read_bytes(), found[1]).decode("utf-8")
+    ast.parse(changed)
+    assert changed.splitlines()[5].startswith(f"    return {2.3 * 1.03!r} * a ** -0.83  # ° ·")
+
+
+def test_every_engine_module_but_numerics_and_display_is_covered() -> None:
+    modules = engine_modules()
+    assert {"tables", "kinds", "life", "viscosity", "derive", "ratings"} <= set(modules)
+    assert not {"solve", "sensitivity", "record", "num", "explain"} & set(modules)
+    assert mutants_of("pairs", 0.03)  # a real module parses and yields its constants

@@ -1,0 +1,328 @@
+"""Constant-mutation check of the engine: does some engine test fail when one number changes?
+
+Each numeric constant of the engine's physics modules is changed, one at a time, by a
+transcription-sized amount (``--delta``, 3 % by default: 0.56 becomes 0.5768), and the engine
+tests run with ``-x`` against the changed copy.  A change that no test notices is a *survivor*:
+that constant is not guarded by any check against an outside source.
+
+    python -m tools.mutate                      # every module, two workers
+    python -m tools.mutate --modules life kinds # some modules
+    python -m tools.mutate --limit 20 --json out.json
+
+Not a pytest test (a full run takes tens of minutes).  It never edits the working tree: each
+worker copies ``workbench/``, ``tests/`` and ``pyproject.toml`` to a temporary folder, changes the
+copy, and runs pytest there in a forked child (the parent has imported numpy, scipy and
+hypothesis already, so a mutant costs the engine's own imports and its tests).
+
+Constants that are not physics are left alone, by rule (see :func:`_skipped`): zero (a few per
+cent of nothing is nothing), tolerances below 1e-6, subscripts, the arguments of ``range``,
+``round`` and ``lru_cache``, functions that make synthetic data or time things (``random_*``,
+``benchmark*``), and the modules of numerical method and display (``SKIPPED_MODULES``):
+a solver grid of 64 points or a difference step of 1e-4 may change without changing an answer.
+"""
+
+from __future__ import annotations
+
+import argparse
+import ast
+import json
+import multiprocessing
+import os
+import random
+import shutil
+import signal
+import sys
+import tempfile
+import time
+from dataclasses import asdict, dataclass
+from pathlib import Path
+
+ROOT = Path(__file__).resolve().parent.parent
+ENGINE = ROOT / "workbench" / "engine"
+TESTS = ROOT / "tests" / "engine"
+
+# Numerical method and display, not physics (see the module docstring).
+SKIPPED_MODULES = frozenset({"__init__", "num", "record", "explain", "solve", "sensitivity"})
+# Functions that make synthetic data or time things (select.random_catalog, benchmark_select):
+# their numbers are sizes and seeds, not physics.
+_SKIPPED_FUNCTION_PREFIXES = ("benchmark", "random_")
+# Calls whose numeric arguments are counts, digits or cache sizes.
+_SKIPPED_CALLS = frozenset({"range", "round", "lru_cache", "fmt"})
+# Which engine test file checks a module first (the rest follow): a killed mutant stops early.
+_OWN_TESTS: dict[str, tuple[str, ...]] = {
+    "tables": ("test_factors.py", "test_life.py", "test_derive.py"),
+    "kinds": ("test_factors.py", "test_derive.py"),
+    "rating_tables": ("test_ratings.py",),
+    "ratings": ("test_ratings.py",),
+    "gears": ("test_gears.py",),
+    "shaft": ("test_shaft.py",),
+    "pairs": ("test_pairs.py",),
+    "duty": ("test_duty.py",),
+    "select": ("test_select.py",),
+    "curves": ("test_curves.py",),
+    "viscosity": ("test_viscosity.py",),
+    "life": ("test_life.py",),
+    "derive": ("test_derive.py",),
+}
+TIMEOUT_S = 300.0
+
+
+@dataclass(frozen=True)
+class Mutant:
+    """One constant of one module, and the text it becomes."""
+
+    module: str
+    line: int
+    col: int         # byte offsets within the line (as ast gives them)
+    end_col: int
+    original: str
+    mutated: str
+
+
+@dataclass
+class Outcome:
+    mutant: Mutant
+    killed: bool
+    how: str          # "failed", "error", "timeout", "survived"
+    seconds: float
+
+
+def _parents(tree: ast.AST) -> dict[ast.AST, ast.AST]:
+    return {child: node for node in ast.walk(tree) for child in ast.iter_child_nodes(node)}
+
+
+def _call_name(node: ast.Call) -> str:
+    func = node.func
+    if isinstance(func, ast.Name):
+        return func.id
+    if isinstance(func, ast.Attribute):
+        return func.attr
+    return ""
+
+
+def _skipped(node: ast.Constant, parents: dict[ast.AST, ast.AST]) -> bool:
+    """True for constants that are not physics (see the module docstring)."""
+    value = node.value
+    if value == 0 or abs(value) < 1e-6:
+        return True
+    child: ast.AST = node
+    parent = parents.get(node)
+    while parent is not None:
+        if isinstance(parent, ast.Subscript) and child is parent.slice:
+            return True
+        if isinstance(parent, ast.keyword) and parent.arg in ("maxsize", "digits"):
+            return True
+        if isinstance(parent, ast.Call) and _call_name(parent) in _SKIPPED_CALLS and child is not parent.func:
+            return True
+        if isinstance(parent, ast.FunctionDef) and parent.name.startswith(_SKIPPED_FUNCTION_PREFIXES):
+            return True
+        if isinstance(parent, ast.Module):
+            return False
+        child, parent = parent, parents.get(parent)
+    return False
+
+
+def _mutated_text(value: float, delta: float) -> str:
+    return repr(float(value) * (1.0 + delta))
+
+
+def mutants_of(module: str, delta: float, path: Path | None = None) -> list[Mutant]:
+    """Every mutable numeric constant of engine module ``module``, in source order."""
+    source = (path or ENGINE / f"{module}.py").read_text(encoding="utf-8")
+    tree = ast.parse(source)
+    parents = _parents(tree)
+    lines = source.encode("utf-8").splitlines()
+    found = []
+    for node in ast.walk(tree):
+        if not isinstance(node, ast.Constant) or type(node.value) not in (int, float):
+            continue
+        if node.lineno != node.end_lineno or _skipped(node, parents):
+            continue
+        text = lines[node.lineno - 1][node.col_offset:node.end_col_offset].decode("utf-8")
+        found.append(Mutant(module, node.lineno, node.col_offset, node.end_col_offset, text,
+                            _mutated_text(node.value, delta)))
+    return sorted(found, key=lambda m: (m.line, m.col))
+
+
+def _apply(source: bytes, mutant: Mutant) -> bytes:
+    lines = source.split(b"\n")
+    line = lines[mutant.line - 1]
+    lines[mutant.line - 1] = line[:mutant.col] + mutant.mutated.encode() + line[mutant.end_col:]
+    return b"\n".join(lines)
+
+
+# ---- workers ---------------------------------------------------------------------------------
+_WORK: Path | None = None
+_CHILD: int | None = None  # the worker's running pytest child, killed with the worker
+
+
+def _stop_worker(*_: object) -> None:
+    if _CHILD is not None:
+        os.kill(_CHILD, signal.SIGKILL)
+    os._exit(1)
+
+
+def _prepare_worker(base: str) -> None:
+    """Copy the tree to a private folder under ``base`` and import the heavy dependencies once."""
+    global _WORK
+    signal.signal(signal.SIGTERM, _stop_worker)
+    signal.signal(signal.SIGINT, signal.SIG_IGN)  # the parent stops the pool
+    _WORK = Path(tempfile.mkdtemp(dir=base))
+    for name in ("workbench", "tests"):
+        shutil.copytree(ROOT / name, _WORK / name,
+                        ignore=shutil.ignore_patterns("__pycache__", "*.pyc", ".hypothesis"))
+    shutil.copy2(ROOT / "pyproject.toml", _WORK / "pyproject.toml")
+    sys.dont_write_bytecode = True  # a changed module must never be read back from a stale .pyc
+    import hypothesis  # noqa: F401
+    import numpy  # noqa: F401
+    import pytest  # noqa: F401
+    import scipy.integrate  # noqa: F401
+    import scipy.optimize  # noqa: F401
+    import scipy.special  # noqa: F401
+    import scipy.stats  # noqa: F401
+
+
+def _test_files(module: str) -> tuple[list[str], list[str]]:
+    """The module's own engine test files, then the other engine test files."""
+    assert _WORK is not None
+    own = [f"tests/engine/{name}" for name in _OWN_TESTS.get(module, ())]
+    rest = sorted(f"tests/engine/{p.name}" for p in (_WORK / "tests" / "engine").glob("test_*.py")
+                  if f"tests/engine/{p.name}" not in own)
+    return own, rest
+
+
+_PYTEST_OPTIONS = ["-x", "-q", "-p", "no:cacheprovider", "--no-header", "-W", "ignore"]
+
+
+def _pytest_in_child(files: list[str], deadline: float) -> str:
+    """Run pytest on ``files`` in a forked child: "failed", "error", "survived" or "timeout"."""
+    global _CHILD
+    assert _WORK is not None
+    pid = os.fork()
+    if pid == 0:  # the child: a fresh import of the changed engine, then the tests
+        code = 3
+        try:
+            os.chdir(_WORK)
+            sys.path.insert(0, str(_WORK))
+            devnull = os.open(os.devnull, os.O_WRONLY)
+            os.dup2(devnull, 1)
+            os.dup2(devnull, 2)
+            import pytest
+
+            code = int(pytest.main([*files, *_PYTEST_OPTIONS]))
+        finally:
+            os._exit(code)
+    _CHILD = pid
+    while time.monotonic() < deadline:
+        done, status = os.waitpid(pid, os.WNOHANG)
+        if done:
+            _CHILD = None
+            return {0: "survived", 1: "failed"}.get(os.waitstatus_to_exitcode(status), "error")
+        time.sleep(0.02)
+    os.kill(pid, signal.SIGKILL)
+    os.waitpid(pid, 0)
+    _CHILD = None
+    return "timeout"
+
+
+def _run_one(task: tuple[Mutant, bool]) -> Outcome:
+    """Change one constant in the worker's copy, run the own tests, then (unless ``quick``) the
+    rest, stopping at the first failure; put the constant back."""
+    mutant, quick = task
+    assert _WORK is not None
+    target = _WORK / "workbench" / "engine" / f"{mutant.module}.py"
+    original = target.read_bytes()
+    target.write_bytes(_apply(original, mutant))
+    start = time.monotonic()
+    how = "survived"
+    try:
+        own, rest = _test_files(mutant.module)
+        for files in (own, [] if quick else rest):
+            if files:
+                how = _pytest_in_child(files, start + TIMEOUT_S)
+                if how != "survived":
+                    break
+    finally:
+        target.write_bytes(original)
+    return Outcome(mutant, how != "survived", how, time.monotonic() - start)
+
+
+def run(modules: list[str], delta: float, workers: int, limit: int | None,
+        quick: bool = False, sample: int | None = None, seed: int = 15) -> list[Outcome]:
+    """Mutate, test and collect the outcomes (printing one line per survivor as it is found).
+
+    ``sample`` draws that many mutants at random (seeded) from all of them: an estimate of the
+    kill rate when a full run would take too long.
+    """
+    mutants = [m for module in modules for m in mutants_of(module, delta)]
+    total = len(mutants)
+    if sample is not None and sample < total:
+        mutants = sorted(random.Random(seed).sample(mutants, sample),
+                         key=lambda m: (m.module, m.line, m.col))
+    if limit is not None:
+        mutants = mutants[:limit]
+    drawn = f" (a seeded sample of {total})" if len(mutants) < total and sample else ""
+    print(f"{len(mutants)} mutants{drawn} in {', '.join(modules)} (×{1 + delta:g}), "
+          f"{workers} workers", flush=True)
+    outcomes: list[Outcome] = []
+    context = multiprocessing.get_context("fork")
+    base = tempfile.mkdtemp(prefix="workbench-mutate-")
+    try:
+        with context.Pool(workers, initializer=_prepare_worker, initargs=(base,)) as pool:
+            for outcome in pool.imap_unordered(_run_one, [(m, quick) for m in mutants]):
+                outcomes.append(outcome)
+                if len(outcomes) % 50 == 0:
+                    killed = sum(o.killed for o in outcomes)
+                    print(f"… {len(outcomes)} of {len(mutants)}, {killed} killed", flush=True)
+                if not outcome.killed:
+                    m = outcome.mutant
+                    print(f"survived {m.module}.py:{m.line}: {m.original} → {m.mutated}", flush=True)
+    finally:
+        shutil.rmtree(base, ignore_errors=True)
+    return outcomes
+
+
+def engine_modules() -> list[str]:
+    """The engine modules the check covers (all but ``SKIPPED_MODULES``)."""
+    return sorted(p.stem for p in ENGINE.glob("*.py") if p.stem not in SKIPPED_MODULES)
+
+
+def main(argv: list[str] | None = None) -> int:
+    parser = argparse.ArgumentParser(prog="python -m tools.mutate", description=__doc__.split("\n")[0])
+    parser.add_argument("--modules", nargs="*", help="engine module names (default: all covered)")
+    parser.add_argument("--delta", type=float, default=0.03, help="relative change (default 0.03)")
+    parser.add_argument("--workers", type=int, default=2)
+    parser.add_argument("--limit", type=int, help="only the first N mutants")
+    parser.add_argument("--quick", action="store_true",
+                        help="run only the module's own test files (faster, may kill fewer)")
+    parser.add_argument("--sample", type=int, help="test only N mutants drawn at random (seeded)")
+    parser.add_argument("--seed", type=int, default=15, help="seed of --sample (default 15)")
+    parser.add_argument("--json", type=Path, help="write every outcome to this file")
+    args = parser.parse_args(argv)
+    modules = args.modules or engine_modules()
+    unknown = [m for m in modules if not (ENGINE / f"{m}.py").exists()]
+    if unknown:
+        parser.error(f"no engine module {', '.join(unknown)}")
+    signal.signal(signal.SIGTERM, lambda *_: sys.exit(1))  # so the pool and its folder go too
+    started = time.monotonic()
+    outcomes = run(modules, args.delta, args.workers, args.limit, args.quick, args.sample, args.seed)
+    killed = sum(o.killed for o in outcomes)
+    total = len(outcomes)
+    print(f"\nkilled {killed} of {total} ({100.0 * killed / max(total, 1):.1f} %) "
+          f"in {time.monotonic() - started:.0f} s")
+    by_module: dict[str, list[int]] = {}
+    for o in outcomes:
+        counts = by_module.setdefault(o.mutant.module, [0, 0])
+        counts[0] += o.killed
+        counts[1] += 1
+    for module, (k, n) in sorted(by_module.items()):
+        print(f"  {module:14} {k:4} / {n:4}")
+    if args.json:
+        args.json.write_text(json.dumps([{**asdict(o.mutant), "killed": o.killed, "how": o.how,
+                                          "seconds": round(o.seconds, 2)} for o in outcomes],
+                                        indent=1, ensure_ascii=False), encoding="utf-8")
+    return 0
+
+
+if __name__ == "__main__":
+    raise SystemExit(main())
