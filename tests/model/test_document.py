@@ -157,7 +157,7 @@ def test_a_case_field_derives_only_its_case(monkeypatch: pytest.MonkeyPatch) -> 
                         lambda session, case, **kw: derived.append(case.name) or real(
                             session, case, **kw))
     document.set_field(2, "fr", "4 kN")
-    document.results  # the analysis brought up to date
+    assert document.results  # the analysis brought up to date
     assert derived == ["Idler end"]
 
 
@@ -169,7 +169,7 @@ def test_a_bearing_field_derives_the_cases_on_that_bearing(monkeypatch: pytest.M
                         lambda session, case, **kw: derived.append(case.name) or real(
                             session, case, **kw))
     document.set_field(0, "c", "31 kN")  # the Drive bearing: every case but the idler's
-    document.results
+    assert document.results
     assert sorted(derived) == sorted(c.name for c in document.session.cases
                                      if c.bearing == "Drive")
     assert document.result(1).inputs.c == pytest.approx(31_000.0)

@@ -9,7 +9,6 @@ import pytest
 from textual.widgets import DataTable
 
 from screen_host import ScreenHost, column_texts, cut_widgets
-from tui_helpers import retype
 
 from workbench.model.analysis import analyse
 from workbench.model.quantities import format_quantity

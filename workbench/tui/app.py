@@ -8,7 +8,6 @@ from __future__ import annotations
 import os
 import sys
 from pathlib import Path
-from typing import Any
 
 from textual.app import App
 from textual.binding import Binding

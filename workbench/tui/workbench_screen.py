@@ -41,7 +41,6 @@ from .view import View, fit_words
 
 if TYPE_CHECKING:
     from .selection_screen import Adoption
-    from .whatif_pane import WhatIfPane
 
 AUTOSAVE_DELAY_S = 2.0
 DEFAULT_SAVE_NAME = "session.toml"
