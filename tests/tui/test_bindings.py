@@ -225,6 +225,13 @@ def _table_check(action_id: str, screen: type) -> Check:
     return check
 
 
+async def check_report(pilot, app: WorkbenchApp) -> None:
+    from workbench.tui.report_screen import ReportScreen
+
+    await press(pilot, "report.write")
+    assert isinstance(app.screen, ReportScreen)
+
+
 async def check_theme(pilot, app: WorkbenchApp) -> None:
     before = app.theme
     await press(pilot, "app.theme")
@@ -274,6 +281,7 @@ CHECKS: dict[str, Check] = {
     "focus.editor": check_focus_editor,
     "app.theme": check_theme,
     "bearing.manage": check_bearings,
+    "report.write": check_report,
     "bearing.add": check_add_bearing,
     "session.details": check_details,
     "shaft.edit": _table_check("shaft.edit", ShaftEditor),

@@ -105,6 +105,9 @@ ACTIONS: tuple[Action, ...] = (
            "A duty cycle over the selected case, to which states are added"),
     Action("bearing.add", "", "add_bearing", "Add a new bearing",
            "A new bearing of the session (deep-groove, no ratings yet), in the bearings list"),
+    Action("report.write", "alt+r", "write_report", "Write the report",
+           "The session's report as text, markdown, json or a self-contained html file with "
+           "plots, with a preview; written where you say"),
     Action("view.shafts", "alt+s", "show_shafts", "Shafts at a glance",
            "Show each shaft's bearing loads and free body, system lives and duty cycles"),
     Action("focus.cases", "f3", "focus_cases", "Cases", "Go to the load-case list"),

@@ -479,6 +479,19 @@ class WorkbenchScreen(Screen[None]):
         self.notify(f"Added bearing {name}")
         self.action_manage_bearings()
 
+    def action_write_report(self) -> None:
+        """Write the session's report (format, file, preview)."""
+        from .report_screen import ReportScreen
+
+        if isinstance(self.app.screen, ReportScreen):
+            return
+
+        def written(path: Path | None) -> None:
+            if path is not None:
+                self.notify(f"Report written to {path}")
+
+        self.app.push_screen(ReportScreen(self.document), written)
+
     def action_show_shafts(self) -> None:
         """Show the shafts, their bearing loads and free bodies, and the duty cycles."""
         from .shafts_screen import ShaftsScreen  # loaded on first use, not at start
