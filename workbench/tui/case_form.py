@@ -28,7 +28,7 @@ from ..model.fields import FIELD_BY_NAME, FieldError, FieldSpec, parse_field
 from ..model.quantities import QUANTITIES
 from .choice_box import ChoiceBox
 from .field_box import FieldBox, FieldValidator
-from .view import View
+from .view import View, view_reactive
 
 EDITOR_GROUPS: tuple[tuple[str, tuple[str, ...]], ...] = (
     ("Bearing", ("bearing", "kind", "arrangement", "c", "c0", "f0", "contact_angle", "e_given",
@@ -81,7 +81,7 @@ def _switch_on(name: str, text: str) -> bool:
         return False
 
 
-def _choices(name: str, texts: dict[str, str]) -> tuple[str, ...]:
+def field_choices(name: str, texts: dict[str, str]) -> tuple[str, ...]:
     """The options of a choice field; the arrangements follow the kind typed."""
     spec = FIELD_BY_NAME[name]
     if name == "arrangement":
@@ -141,7 +141,7 @@ class CaseForm(VerticalScroll):
     }
     """
 
-    view: var[View] = var(View(-1, -1))
+    view: var[View] = view_reactive()
     """The document's revision and the selected case (bound to the screen's)."""
 
     class Edited(Message):
@@ -269,7 +269,7 @@ class CaseForm(VerticalScroll):
              bearings: list[tuple[str, str]], bearing: str | None) -> None:
         if isinstance(control, ChoiceBox):
             options = bearings if name == BEARING_FIELD else [
-                (choice, choice) for choice in _choices(name, texts)]
+                (choice, choice) for choice in field_choices(name, texts)]
             value = bearing if name == BEARING_FIELD else texts.get(name, "")
             if [o for _, o in control._options if o is not Select.NULL] != [v for _, v in options]:
                 control.set_options(options)

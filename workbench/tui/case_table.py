@@ -24,7 +24,7 @@ from ..engine.record import fmt
 from ..model.document import Document
 from ..model.quantities import format_quantity
 from ..model.session import CaseResult
-from .view import View, fit_words
+from .view import View, fit_words, view_reactive
 
 COLUMNS = (("P", 9), ("Lnm h", 7), ("s0", 5), ("Checks", 8))
 """The columns after the name: (heading, width)."""
@@ -78,7 +78,7 @@ class CaseTable(DataTable[Text]):
     CaseTable { scrollbar-size-vertical: 1; }
     """
 
-    view: var[View] = var(View(-1, -1))
+    view: var[View] = view_reactive()
     """The document's revision and the selected case (bound to the screen's)."""
 
     class Chosen(Message):

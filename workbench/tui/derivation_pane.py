@@ -23,7 +23,7 @@ from ..model.fields import FIELD_BY_NAME
 from ..model.quantities import ENGINE_UNIT_QUANTITY, format_quantity, step_number_writer
 from ..model.session import CaseResult
 from ..model.document import Document, input_field
-from .view import View
+from .view import View, view_reactive
 
 # Engine units that have a display quantity (the rest are shown as the engine writes them).
 SYMBOL_STYLE = "bold $accent"
@@ -171,7 +171,7 @@ class DerivationPane(ScrollView, can_focus=True):
     text: Content = Content("")
     """What the pane shows now (its plain text is ``text.plain``)."""
 
-    view: var[View] = var(View(-1, -1))
+    view: var[View] = view_reactive()
     """The document's revision and the selected case (bound to the screen's)."""
 
     def __init__(self, document: Document, *, id: str | None = None) -> None:

@@ -23,7 +23,7 @@ from ..engine.solve import TARGETS, UNKNOWNS, Solution
 from ..model.quantities import format_quantity
 from ..model.session import SolverSetup
 from .choice_box import ChoiceBox
-from .view import View
+from .view import View, view_reactive
 
 UNKNOWN_QUANTITY = {"N": "force", "rpm": "speed"}
 TARGET_EXAMPLE = {"h": "20000 h", "10⁶ rev": "900 Mrev", "": "2"}
@@ -92,7 +92,7 @@ class SolverPane(VerticalScroll):
     }
     """
 
-    view: var[View] = var(View(-1, -1))
+    view: var[View] = view_reactive()
     """The document's revision and the selected case (bound to the screen's)."""
 
     class SolveRequested(Message):

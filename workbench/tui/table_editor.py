@@ -18,7 +18,6 @@ from textual.app import ComposeResult
 from textual.binding import Binding
 from textual.containers import Horizontal, VerticalScroll
 from textual.content import Content
-from textual.reactive import var
 from textual.screen import Screen
 from textual.widget import Widget
 from textual.widgets import Footer, Input, Label, Select, Static
@@ -108,8 +107,6 @@ class TableEditor(Screen[None]):
         & .form-hint { color: $text-muted; padding: 0 1 0 23; }
     }
     """
-
-    revision: var[int] = var(-1)
 
     def __init__(self, document: Document, index: int) -> None:
         super().__init__()

@@ -4,6 +4,8 @@ from __future__ import annotations
 
 from typing import NamedTuple
 
+from textual.reactive import var
+
 ELLIPSIS = "…"
 
 
@@ -13,6 +15,12 @@ class View(NamedTuple):
 
     revision: int
     selected: int
+
+
+def view_reactive() -> var[View]:
+    """The ``view`` reactive each pane declares and the screen binds (``data_bind``); it starts
+    at no revision and no case, so the first bound value always draws."""
+    return var(View(-1, -1))
 
 
 def fit_words(text: str, width: int) -> str:

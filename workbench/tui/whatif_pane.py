@@ -36,7 +36,7 @@ from ..model.quantities import format_quantity
 from ..model.session import CaseResult
 from ..report.plot_text import plot_lines
 from ..report.contents import percent, signed
-from .view import View
+from .view import View, view_reactive
 
 SENSITIVITY_TITLE = "Sensitivity of life"
 BUSY_MARK = " · working…"
@@ -135,7 +135,7 @@ class WhatIfPane(VerticalScroll):
     items: list[SensitivityItem]
     """The sensitivity items shown now (empty when the case cannot be derived)."""
 
-    view: var[View] = var(View(-1, -1))
+    view: var[View] = view_reactive()
     """The document's revision and the selected case (bound to the screen's)."""
 
     shown: var[View | None] = var(None)
