@@ -149,25 +149,28 @@ def test_the_applied_value_meets_its_own_target() -> None:
         document.undo()
 
 
-def test_a_case_field_derives_only_its_case(monkeypatch: pytest.MonkeyPatch) -> None:
-    document = Document(rig_session(5))
-    derived: list[str] = []
+@pytest.fixture
+def derived(monkeypatch: pytest.MonkeyPatch) -> list[str]:
+    """The names of the cases the document derives from now on, in order."""
+    names: list[str] = []
     real = document_module.evaluate_case
     monkeypatch.setattr(document_module, "evaluate_case",
-                        lambda session, case, **kw: derived.append(case.name) or real(
+                        lambda session, case, **kw: names.append(case.name) or real(
                             session, case, **kw))
+    return names
+
+
+def test_a_case_field_derives_only_its_case(derived: list[str]) -> None:
+    document = Document(rig_session(5))
+    derived.clear()
     document.set_field(2, "fr", "4 kN")
     assert document.results  # the analysis brought up to date
     assert derived == ["Idler end"]
 
 
-def test_a_bearing_field_derives_the_cases_on_that_bearing(monkeypatch: pytest.MonkeyPatch) -> None:
+def test_a_bearing_field_derives_the_cases_on_that_bearing(derived: list[str]) -> None:
     document = Document(rig_session(5))
-    derived: list[str] = []
-    real = document_module.evaluate_case
-    monkeypatch.setattr(document_module, "evaluate_case",
-                        lambda session, case, **kw: derived.append(case.name) or real(
-                            session, case, **kw))
+    derived.clear()
     document.set_field(0, "c", "31 kN")  # the Drive bearing: every case but the idler's
     assert document.results
     assert sorted(derived) == sorted(c.name for c in document.session.cases
