@@ -34,7 +34,7 @@ from ..engine.record import InputError
 from ..engine.solve import UNKNOWNS, Solution, solve
 from .analysis import SessionAnalysis, analyse_extras
 from .edits import (
-    DeleteBearing, DeleteCase, Edit, InsertBearing, InsertCase, MoveCase,
+    Edit, Insert, MoveCase, Remove,
     RenameBearing, RenameCase, SetBearingOrigin, SetCaseBearing, SetSessionText, SetTable,
     SetTarget, SetText, SetUnits,
     Together, Touch,
@@ -399,9 +399,9 @@ class Document:
             else (self.session.bearings[0].name if self.session.bearings else None)
         if bearing is None:
             bearing = "Bearing 1"
-            edits.append(InsertBearing(0, Bearing(bearing, dict(DEFAULT_BEARING_TEXTS))))
+            edits.append(Insert("bearings", 0, Bearing(bearing, dict(DEFAULT_BEARING_TEXTS))))
         name = self._unique(f"Case {own + 1}", self.case_names())
-        edits.append(InsertCase(index, LoadCase(name, bearing)))
+        edits.append(Insert("cases", index, LoadCase(name, bearing)))
         self.apply(Together(tuple(edits)), "add case", case_index=index)
         return index
 
@@ -415,7 +415,7 @@ class Document:
         copy = LoadCase(self._unique(f"{case.name} copy", self.case_names()), case.bearing,
                         dict(case.texts), notes)
         at = min(index + 1, len(self.session.cases))
-        self.apply(InsertCase(at, copy), "duplicate case", case_index=at)
+        self.apply(Insert("cases", at, copy), "duplicate case", case_index=at)
         return at
 
     def case_name_problem(self, index: int, name: str) -> str | None:
@@ -442,7 +442,7 @@ class Document:
         case = self.case(index)
         if case is None or index >= len(self.session.cases):
             return None
-        self.apply(DeleteCase(index), f"delete case {case.name}",
+        self.apply(Remove("cases", index), f"delete case {case.name}",
                    case_index=min(index, len(self.session.cases) - 2))
         return case.name
 
@@ -483,7 +483,7 @@ class Document:
         texts = dict(source.texts) if source else dict(DEFAULT_BEARING_TEXTS)
         bearing = Bearing(name, texts, source.notes if source else "",
                           source.designation if source else "", source.source if source else "")
-        self.apply(InsertBearing(len(self.session.bearings), bearing), f"add bearing {name}")
+        self.apply(Insert("bearings", len(self.session.bearings), bearing), f"add bearing {name}")
         return name
 
     def rename_bearing(self, old: str, new: str) -> str | None:
@@ -504,7 +504,7 @@ class Document:
         if users:
             shown = ", ".join(users[:4]) + (f" and {len(users) - 4} more" if len(users) > 4 else "")
             return f"bearing {name} is used by {shown}"
-        self.apply(DeleteBearing(index), f"delete bearing {name}")
+        self.apply(Remove("bearings", index), f"delete bearing {name}")
         return None
 
     def adopt_bearing(self, bearing_name: str, texts: dict[str, str], *, designation: str,

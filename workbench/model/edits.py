@@ -18,6 +18,7 @@ from typing import Literal, Protocol
 from .session import Bearing, LoadCase, Session
 
 Owner = Literal["case", "bearing"]
+Listed = Literal["cases", "bearings"]
 SESSION_TEXTS = ("title", "project", "engineer", "revision", "notes")
 TARGET_TEXTS = ("life", "reliability", "s0")
 
@@ -107,27 +108,30 @@ class SetCaseBearing:
 
 
 @dataclass(frozen=True)
-class InsertCase:
-    """Put ``case`` at ``index`` among the session's own cases."""
+class Insert:
+    """Put ``item`` at ``index`` in the session's ``cases`` or ``bearings``."""
 
+    items: Listed
     index: int
-    case: LoadCase
+    item: LoadCase | Bearing
     touch: Touch = EVERYTHING
 
     def apply(self, session: Session) -> Edit:
-        session.cases.insert(self.index, self.case)
-        return DeleteCase(self.index)
+        getattr(session, self.items).insert(self.index, self.item)
+        return Remove(self.items, self.index)
 
 
 @dataclass(frozen=True)
-class DeleteCase:
-    """Remove the own case at ``index``."""
+class Remove:
+    """Take the item at ``index`` out of the session's ``cases`` or ``bearings`` (the
+    document refuses to remove a bearing that cases use)."""
 
+    items: Listed
     index: int
     touch: Touch = EVERYTHING
 
     def apply(self, session: Session) -> Edit:
-        return InsertCase(self.index, session.cases.pop(self.index))
+        return Insert(self.items, self.index, getattr(session, self.items).pop(self.index))
 
 
 @dataclass(frozen=True)
@@ -159,30 +163,6 @@ class RenameCase:
             session.solver.case = self.name
         case.name = self.name
         return RenameCase(self.index, before)
-
-
-@dataclass(frozen=True)
-class InsertBearing:
-    """Put ``bearing`` at ``index`` in the session's bearing list."""
-
-    index: int
-    bearing: Bearing
-    touch: Touch = EVERYTHING
-
-    def apply(self, session: Session) -> Edit:
-        session.bearings.insert(self.index, self.bearing)
-        return DeleteBearing(self.index)
-
-
-@dataclass(frozen=True)
-class DeleteBearing:
-    """Remove the bearing at ``index`` (the document refuses while cases use it)."""
-
-    index: int
-    touch: Touch = EVERYTHING
-
-    def apply(self, session: Session) -> Edit:
-        return InsertBearing(self.index, session.bearings.pop(self.index))
 
 
 @dataclass(frozen=True)
