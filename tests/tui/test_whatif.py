@@ -10,7 +10,7 @@ from workbench.engine.sensitivity import sensitivity_of
 from workbench.model.analysis import analyse
 from workbench.model import files
 from workbench.tui.app import WorkbenchApp
-from workbench.tui.whatif_pane import WhatIfPane, share_bar
+from workbench.tui.whatif_pane import LIFE_PLOT_TITLE, WhatIfPane, share_bar
 
 
 def pane(app: WorkbenchApp) -> WhatIfPane:
@@ -43,7 +43,7 @@ async def test_elasticities_are_the_engines_and_follow_typed_fr(make_app) -> Non
         assert elasticities(shown) == elasticities(sensitivity_of(result.inputs))
         # ISO 281:2007 §7.1: L10 = (C/P)^p with p = 3 for ball bearings, so ε(C) = 3 exactly.
         assert elasticities(shown)["c"] == pytest.approx(3.0)
-        assert "radial load Fr" in pane(app).text and "aISO" in pane(app).text
+        assert "radial load Fr" in pane(app).text.plain and "aISO" in pane(app).text.plain
         before = elasticities(shown)
 
         await retype(pilot, app, "fr", "4.5 kN")
@@ -68,7 +68,7 @@ async def test_a_case_that_cannot_be_derived_says_so(make_app) -> None:
             revision=app.document.revision)
         await pilot.press("f7")
         await worked_out(pilot, app)
-        assert pane(app).items == [] and "cannot be derived" in pane(app).text
+        assert pane(app).items == [] and "cannot be derived" in pane(app).text.plain
 
 
 async def test_an_answer_for_an_older_view_is_dropped(make_app) -> None:
@@ -79,7 +79,7 @@ async def test_an_answer_for_an_older_view_is_dropped(make_app) -> None:
         before = pane(app).items
         older = app.workbench_screen.view._replace(revision=-5)
         pane(app)._draw(older, [], {}, "stale", None, "SI", [])  # as a late worker would
-        assert pane(app).items == before and "stale" not in pane(app).text
+        assert pane(app).items == before and "stale" not in pane(app).text.plain
 
 
 async def test_duty_block_shows_the_damage_shares_of_the_bearings_cycles() -> None:
@@ -90,7 +90,7 @@ async def test_duty_block_shows_the_damage_shares_of_the_bearings_cycles() -> No
         await pilot.pause()
         await pilot.press("f7")
         await worked_out(pilot, app)
-        text = pane(app).text
+        text = pane(app).text.plain
         bearing = selected_case(app).bearing
         duties = [d for d in analyse(session).duties if d.result and d.result.bearing == bearing]
         assert duties
@@ -115,8 +115,7 @@ def _theme(name: str, scroll_to: str | None = None):
         await pilot.press("f7")
         await worked_out(pilot, pilot.app)
         if scroll_to is not None:
-            what_if = pilot.app.workbench_screen.query_one(WhatIfPane)
-            what_if.scroll_to_widget(what_if.query_one(scroll_to), animate=False, top=True)
+            pilot.app.workbench_screen.query_one(WhatIfPane).scroll_to_block(scroll_to)
         await pilot.pause()
     return run_before
 
@@ -127,4 +126,4 @@ def test_whatif_tab_snapshot_night(snap_compare, make_app) -> None:
 
 def test_whatif_tab_snapshot_monochrome_plot(snap_compare, make_app) -> None:
     assert snap_compare(make_app(), terminal_size=(80, 24),
-                        run_before=_theme("bench-mono", "#whatif-life-plot"))
+                        run_before=_theme("bench-mono", LIFE_PLOT_TITLE))

@@ -9,7 +9,7 @@ from __future__ import annotations
 import math
 from dataclasses import dataclass
 
-from .derive import CaseInputs, derive
+from .derive import CaseInputs, above_e, derive
 from .kinds import ROLLER_KINDS, parse_kind
 from .life import KAPPA_MAX, KAPPA_MIN, aiso
 from .record import InputError
@@ -46,19 +46,18 @@ def life_curve(case: CaseInputs, target_h: float | None = None, count: int = 61)
     xs, ys, branches = [], [], []
     for scale in _geometric(SCALE_LOW, SCALE_HIGH, count):
         try:
-            d = derive(apply_unknown(case, "load_scale", scale))
+            results = derive(apply_unknown(case, "load_scale", scale), keep_steps=False).results
         except InputError:
             continue
-        value = d.results[key]
+        value = results[key]
         if not (math.isfinite(value) and value > 0):
             continue
-        ratio = d.peek("ratio")
         xs.append(scale)
         ys.append(value)
-        branches.append(ratio.note if ratio is not None else None)
+        branches.append(above_e(results))
     marks = tuple(("e switch", math.sqrt(xs[i - 1] * xs[i])) for i in range(1, len(xs))
                   if branches[i] != branches[i - 1])
-    base = derive(case).results[key]
+    base = derive(case, keep_steps=False).results[key]
     levels = (("target", target_h),) if target_h and key == "Lnm" else ()
     unit = "h" if key == "Lnm" else "10⁶ rev"
     return Curve(tuple(xs), tuple(ys), (1.0, base), "load scale on Fr and Fa", f"Lnm ({unit})",

@@ -9,6 +9,7 @@ ISO 76:2006 (static), ISO 3448 / ASTM D341 / ASTM D2270 (viscosity), three-param
 from __future__ import annotations
 
 import math
+from collections.abc import Mapping
 from dataclasses import dataclass, fields
 from functools import lru_cache
 
@@ -224,6 +225,14 @@ def derive(case: CaseInputs, keep_steps: bool = True) -> Derivation:
     _hours(d, "Lnm", "Lnm", "Modified rating life in hours", lnm_mrev, case.speed, kind)
     _static(d, case, kind, arrangement, alpha)
     return d
+
+
+def above_e(results: Mapping[str, float]) -> bool | None:
+    """The side of the e switch a derivation's ``results`` sit on (ISO 281:2007 §5.2): true for
+    Fa/Fr > e, false for Fa/Fr ≤ e, None where no ratio was compared with e."""
+    if "ratio" not in results:
+        return None
+    return results["ratio"] > results["e"]
 
 
 def _l10_words(case: CaseInputs, kind: Kind, rating_mrev: float, p_eff: float,

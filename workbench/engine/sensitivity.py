@@ -23,7 +23,7 @@ from dataclasses import dataclass, fields
 from typing import Any
 
 from . import tables as T
-from .derive import CaseInputs, derive, validate
+from .derive import CaseInputs, above_e, derive, validate
 from .kinds import life_exponent, parse_kind
 from .life import AISO_CAP, KAPPA_MAX, KAPPA_MIN, a1_iso281, weibull_life_factor
 from .record import Derivation, InputError, fmt
@@ -216,7 +216,7 @@ def _point(derivation: Derivation, case: CaseInputs, life_key: str) -> _Point:
     results = derivation.results
     life: list[tuple[str, object]] = []
     if "ratio" in results:  # the branch of ISO 281 §5.2: Fa/Fr > e or ≤ e
-        life.append(("e switch", results["ratio"] > results["e"]))
+        life.append(("e switch", above_e(results)))
     if "index" in results:
         rows = T.DEEP_GROOVE_INDEX_F0 if case.kind == "deep-groove" else T.ANGULAR_15_INDEX
         segment = bisect_right(rows, results["index"])

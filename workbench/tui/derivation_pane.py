@@ -10,30 +10,23 @@ from __future__ import annotations
 
 import math
 
-from rich.style import Style as RichStyle
 from textual.content import Content
-from textual.geometry import Size
 from textual.reactive import var
-from textual.scroll_view import ScrollView
-from textual.strip import Strip
-from textual.style import Style
 
 from ..engine.record import Step, fmt
 from ..model.fields import FIELD_BY_NAME
 from ..model.quantities import ENGINE_UNIT_QUANTITY, format_quantity, step_number_writer
 from ..model.session import CaseResult
 from ..model.document import Document, input_field
+from .line_pane import LinePane
 from .view import View, view_reactive
 
-# Engine units that have a display quantity (the rest are shown as the engine writes them).
 SYMBOL_STYLE = "bold $accent"
 RESULT_STYLE = "bold"
 SOURCE_STYLE = "italic $foreground 60%"
 WARNING_STYLE = "bold $text-warning on $warning-muted"
 ERROR_STYLE = "bold $text-error on $error-muted"
 BRANCH_STYLE = "bold $text-primary"
-INDENT = 1
-MIN_WRAP = 10
 
 
 def step_result_text(step: Step, system: str) -> str:
@@ -133,43 +126,9 @@ def derivation_lines(result: CaseResult | None, system: str) -> list[Content]:
     return lines
 
 
-class _WrappedLine:
-    """One line of the derivation wrapped to the pane's width; each part is painted (turned
-    into a strip) the first time it comes on show."""
-
-    __slots__ = ("parts", "strips")
-
-    def __init__(self, parts: list[Content]) -> None:
-        self.parts = parts
-        self.strips: list[Strip | None] = [None] * len(parts)
-
-    def strip(self, part: int, style: Style) -> Strip:
-        """The painted ``part``."""
-        painted = self.strips[part]
-        if painted is None:
-            painted = self.strips[part] = Strip(self.parts[part].render_segments(style))
-        return painted
-
-
-class DerivationPane(ScrollView, can_focus=True):
-    """A scrolling view of one case's derivation; keeps its scroll place when redrawn.
-
-    Each line is wrapped to the pane's width once and kept (most lines stay the same from one
-    keystroke to the next), a wrapped line is painted only when it comes on show, and the pane
-    paints line by line, so a redraw never asks the screen for a new layout.  Before the pane's
-    first layout its width is unknown: the lines are then wrapped when the first frame paints
-    them, at the width laid out.
-    """
-
-    DEFAULT_CSS = """
-    DerivationPane {
-        scrollbar-size-vertical: 1;
-        scrollbar-gutter: stable;  /* the text keeps its width when the scrollbar comes */
-    }
-    """
-
-    text: Content = Content("")
-    """What the pane shows now (its plain text is ``text.plain``)."""
+class DerivationPane(LinePane):
+    """A scrolling view of one case's derivation; keeps its scroll place when redrawn (a
+    :class:`LinePane`, so a redraw never asks the screen for a new layout)."""
 
     view: var[View] = view_reactive()
     """The document's revision and the selected case (bound to the screen's)."""
@@ -178,11 +137,6 @@ class DerivationPane(ScrollView, can_focus=True):
         super().__init__(id=id)
         self.document = document
         self._shown: tuple[View, str] | None = None
-        self._lines: list[Content] = []
-        self._rows: list[tuple[_WrappedLine, int]] = []
-        self._wrapped: dict[tuple[str, tuple[object, ...]], _WrappedLine] = {}
-        self._wrapped_width = 0
-        self._blank_style: RichStyle | None = None
 
     def watch_view(self, view: View) -> None:
         """Show the selected case as it stands now (derived with its steps only while the pane
@@ -204,62 +158,4 @@ class DerivationPane(ScrollView, can_focus=True):
 
     def show(self, result: CaseResult | None, system: str) -> None:
         """Redraw for ``result`` in the display ``system``."""
-        self._lines = derivation_lines(result, system)
-        self.text = Content("\n").join(self._lines)
-        if self.size.width:
-            self._wrap()
-        else:  # not laid out yet: at least this many lines (the scrollbar is laid out for them)
-            self._wrapped_width = 0
-            self.virtual_size = Size(MIN_WRAP, len(self._lines))
-
-    def _wrap(self) -> None:
-        width = self._text_width
-        if width != self._wrapped_width:
-            self._wrapped.clear()
-            self._wrapped_width = width
-        rows: list[tuple[_WrappedLine, int]] = []
-        kept: dict[tuple[str, tuple[object, ...]], _WrappedLine] = {}
-        for line in self._lines:
-            key = (line.plain, tuple(line.spans))
-            wrapped = self._wrapped.get(key) or kept.get(key) or _WrappedLine(
-                [line] if line.cell_length <= width else line.wrap(width))  # most lines fit
-            kept[key] = wrapped
-            rows.extend((wrapped, part) for part in range(len(wrapped.parts)))
-        self._wrapped = kept
-        self._rows = rows
-        self.virtual_size = Size(width, len(rows))
-        self.refresh()
-
-    @property
-    def _text_width(self) -> int:
-        return max(self.scrollable_content_region.width - INDENT, MIN_WRAP)
-
-    def on_resize(self) -> None:
-        """Wrap again for the new width."""
-        if self._text_width != self._wrapped_width:
-            self._wrap()
-
-    def notify_style_update(self) -> None:
-        """Re-render the styled lines when the theme changes."""
-        super().notify_style_update()
-        self._blank_style = None
-        self._wrapped.clear()
-        self._wrapped_width = 0
-        if self._lines:
-            self.call_later(self._wrap)
-
-    def render_line(self, y: int) -> Strip:
-        """One screen line: the wrapped line at the scroll position, indented by one cell."""
-        if self._text_width != self._wrapped_width:
-            self._wrap()
-        scroll_x, scroll_y = self.scroll_offset
-        width = self.scrollable_content_region.width
-        if self._blank_style is None:  # kept until the styles change
-            self._blank_style = self.rich_style
-        style = self._blank_style
-        index = scroll_y + y
-        if index >= len(self._rows):
-            return Strip.blank(width, style)
-        wrapped, part = self._rows[index]
-        line = Strip.join([Strip.blank(INDENT, style), wrapped.strip(part, self.visual_style)])
-        return line.crop_extend(scroll_x, scroll_x + width, style).apply_offsets(scroll_x, index)
+        self.show_lines(derivation_lines(result, system))

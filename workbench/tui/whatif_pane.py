@@ -22,10 +22,8 @@ from collections.abc import Sequence
 
 from textual import work
 from textual.app import ComposeResult
-from textual.containers import VerticalScroll
 from textual.content import Content
 from textual.reactive import var
-from textual.widgets import Label, Static
 
 from ..engine.curves import Curve, aiso_curve, life_curve
 from ..engine.record import InputError, fmt
@@ -36,6 +34,7 @@ from ..model.quantities import format_quantity
 from ..model.session import CaseResult
 from ..report.plot_text import plot_lines
 from ..report.contents import percent, signed
+from .line_pane import LinePane
 from .view import View, view_reactive
 
 SENSITIVITY_TITLE = "Sensitivity of life"
@@ -49,6 +48,15 @@ BAR_FULL, BAR_EMPTY = "█", "░"
 NUMBER_STYLE = "bold"
 NOTE_STYLE = "italic $foreground 70%"
 ERROR_STYLE = "bold $text-error on $error-muted"
+SECTION_STYLE = "bold $text-primary on $boost"
+LIFE_PLOT_TITLE = "Life against a scale on Fr and Fa"
+AISO_PLOT_TITLE = "aISO against κ"
+DUTY_TITLE = "Duty: share of damage by state"
+MISSING_CURVE = {
+    "life": "No life curve: the case cannot be derived.",
+    "aiso": "No aISO curve: the case has no lubrication data (ν or an ISO VG grade with its "
+            "temperature).",
+}
 
 
 def _value_text(item: SensitivityItem) -> str:
@@ -110,27 +118,21 @@ def duty_lines(duties: Sequence[DutyOutcome], system: str) -> list[Content]:
     return lines
 
 
-class WhatIfPane(VerticalScroll):
-    """The selected case's sensitivity table, life and aISO plots, and its bearing's duty cycles."""
+def section_title(title: str, width: int) -> Content:
+    """A block's title across the pane's ``width``, on the theme's boost colour."""
+    return Content.styled(f" {title}".ljust(width), SECTION_STYLE)
 
-    DEFAULT_CSS = """
-    WhatIfPane {
-        scrollbar-size-vertical: 1;
-        padding: 0 0 0 1;
-    }
-    WhatIfPane .plot {
-        text-wrap: nowrap;
-        text-overflow: clip;
-    }
-    WhatIfPane .group-title {
-        width: 1fr;
-        margin-top: 1;
-        padding: 0 1;
-        background: $boost;
-        color: $text-primary;
-        text-style: bold;
-    }
-    """
+
+def curve_lines(curve: Curve | None, name: str, width: int) -> list[Content]:
+    """A curve drawn ``width`` cells wide beside its axis labels, then its legend (no curve: why)."""
+    if curve is None:
+        return [Content(MISSING_CURVE[name])]
+    return [Content(line) for line in plot_lines(curve, width, PLOT_HEIGHT)]
+
+
+class WhatIfPane(LinePane):
+    """The selected case's sensitivity table, life and aISO plots, and its bearing's duty cycles
+    (a :class:`LinePane`, so the answer of a sweep is shown without a new layout)."""
 
     items: list[SensitivityItem]
     """The sensitivity items shown now (empty when the case cannot be derived)."""
@@ -146,27 +148,10 @@ class WhatIfPane(VerticalScroll):
         self.document = document
         self.items = []
         self._curves: dict[str, Curve | None] = {}
+        self._blocks: tuple[list[Content], list[Content]] = ([], [])
+        self._busy = False
         self._plot_width = 0
         self._asked: View | None = None
-
-    def compose(self) -> ComposeResult:
-        """The four blocks, each under its title."""
-        yield Label(SENSITIVITY_TITLE, classes="group-title", id="whatif-title")
-        yield Static(id="whatif-sensitivity")
-        yield Label("Life against a scale on Fr and Fa", classes="group-title")
-        yield Static(id="whatif-life-plot", classes="plot")
-        yield Static(id="whatif-life-legend")
-        yield Label("aISO against κ", classes="group-title")
-        yield Static(id="whatif-aiso-plot", classes="plot")
-        yield Static(id="whatif-aiso-legend")
-        yield Label("Duty: share of damage by state", classes="group-title")
-        yield Static(id="whatif-duty")
-
-    @property
-    def text(self) -> str:
-        """What the pane shows now, as plain text."""
-        return "\n".join(str(widget.render()) for widget in self.query(Static)
-                         if not isinstance(widget, Label))
 
     def watch_view(self, view: View) -> None:
         """Work the what-if out again while the pane is on show."""
@@ -186,7 +171,8 @@ class WhatIfPane(VerticalScroll):
         result = document.result(view.selected)
         duties = document.analysis.duties
         shown = duties_on(result.case.bearing, duties) if result is not None else []
-        self.query_one("#whatif-title", Label).update(SENSITIVITY_TITLE + BUSY_MARK)
+        self._busy = True
+        self._redraw()
         self._work(view, result, document.units, shown)
 
     @work(thread=True, exclusive=True, group="whatif")
@@ -214,48 +200,43 @@ class WhatIfPane(VerticalScroll):
         """Draw what the worker found, unless the document has moved on since."""
         if view != self.view:
             return
-        self.items, self._curves = items, curves
-        self.query_one("#whatif-title", Label).update(SENSITIVITY_TITLE)
-        sensitivity = self._static("whatif-sensitivity")
+        self.items, self._curves, self._busy = items, curves, False
         if error is not None:
-            sensitivity.update(Content.styled(error, ERROR_STYLE))
+            sensitivity = [Content.styled(error, ERROR_STYLE)]
         else:
-            sensitivity.update(Content("\n").join(sensitivity_lines(items)))
-        self._draw_plots()
-        duty = self._static("whatif-duty")
+            sensitivity = sensitivity_lines(items)
         if duties:
-            duty.update(Content("\n").join(duty_lines(duties, system)))
+            duty = duty_lines(duties, system)
         else:
             where = f" on bearing {result.case.bearing}" if result is not None else ""
-            duty.update(Content(f"No duty cycle{where}. A duty cycle or a shaft in the "
-                                "session makes one."))
+            duty = [Content(f"No duty cycle{where}. A duty cycle or a shaft in the session "
+                            "makes one.")]
+        self._blocks = (sensitivity, duty)
+        self._redraw()
         self.shown = view
 
-    def _static(self, name: str) -> Static:
-        return self.query_one(f"#{name}", Static)
+    def _redraw(self) -> None:
+        """The four blocks under their titles, the plots at the pane's width."""
+        width = self.text_width
+        self._plot_width = plot_width = max(width - PLOT_GUTTER, PLOT_MIN_WIDTH) \
+            if self.laid_out else PLOT_DEFAULT_WIDTH
+        sensitivity, duty = self._blocks
+        busy = BUSY_MARK if self._busy else ""
+        lines = [section_title(SENSITIVITY_TITLE + busy, width), *sensitivity]
+        for name, title in (("life", LIFE_PLOT_TITLE), ("aiso", AISO_PLOT_TITLE)):
+            lines += [Content(""), section_title(title, width)]
+            if name in self._curves or not self._busy:
+                lines += curve_lines(self._curves.get(name), name, plot_width)
+        lines += [Content(""), section_title(DUTY_TITLE, width), *duty]
+        self.show_lines(lines)
 
-    def _width(self) -> int:
-        width = self.scrollable_content_region.width - PLOT_GUTTER - 1
-        return max(width, PLOT_MIN_WIDTH) if width > 0 else PLOT_DEFAULT_WIDTH
-
-    def _draw_plots(self) -> None:
-        """Draw both curves at the pane's width (no curve: say why)."""
-        self._plot_width = width = self._width()
-        missing = {"life": "No life curve: the case cannot be derived.",
-                   "aiso": "No aISO curve: the case has no lubrication data (ν or an ISO VG "
-                           "grade with its temperature)."}
-        for name in ("life", "aiso"):
-            curve = self._curves.get(name)
-            plot, legend = self._static(f"whatif-{name}-plot"), self._static(f"whatif-{name}-legend")
-            if curve is None:
-                plot.update(Content(missing[name]))
-                legend.update("")
-                continue
-            lines = plot_lines(curve, width, PLOT_HEIGHT)
-            plot.update(Content("\n".join(lines[:-1])))
-            legend.update(Content(lines[-1]))
+    def scroll_to_block(self, title: str) -> None:
+        """Scroll the block titled ``title`` to the top of the pane."""
+        row = self.line_of(f" {title}")
+        if row is not None:
+            self.scroll_to(y=row, animate=False)
 
     def on_resize(self) -> None:
-        """Draw the plots again when the width they fit changes."""
-        if self._curves and self._width() != self._plot_width:
-            self._draw_plots()
+        """Draw the blocks again when the width they fit changes."""
+        if self.text_width != self._wrapped_width:
+            self._redraw()
