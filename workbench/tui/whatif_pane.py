@@ -21,7 +21,6 @@ import math
 from collections.abc import Sequence
 
 from textual import work
-from textual.app import ComposeResult
 from textual.content import Content
 from textual.reactive import var
 
