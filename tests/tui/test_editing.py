@@ -63,7 +63,8 @@ async def test_case_list_row_follows_typing(make_app) -> None:
 
 def note_shown(app, field: str) -> bool:
     """Whether the note line under ``field`` is on show."""
-    return app.workbench_screen.query_one(f"#note-{field}").display
+    notes = app.workbench_screen.query(f"#note-{field}")
+    return bool(notes) and notes.first().display
 
 
 BAD_TEXTS = [

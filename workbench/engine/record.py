@@ -58,6 +58,16 @@ def fmt(value: float, digits: int = 4) -> str:
     return text
 
 
+def signed(value: float | None) -> str:
+    """An elasticity with its sign, three decimals ("n/a" when there is none)."""
+    return "n/a" if value is None else f"{value + 0.0:+.3f}"
+
+
+def percent(value: float | None) -> str:
+    """A relative change as a signed percentage ("n/a" when there is none)."""
+    return "n/a" if value is None else f"{100.0 * value + 0.0:+.1f} %"
+
+
 @dataclass(slots=True)
 class Step:
     """One line of a derivation.

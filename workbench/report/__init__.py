@@ -5,8 +5,7 @@ module (``text``, ``markdown``, ``json``, ``html``) only lays that document out 
 ``render``. A new format is a module with a ``render(report) -> str`` and an entry in
 :data:`WRITERS`. ``meta`` gives a report its provenance (time, tool version, the session file's
 hash); ``output`` writes a report to a file atomically or previews it, for the screen and
-``report -o``. ``plot_text`` draws curves as text for the screen's What-if pane, ``plot_svg``
-draws the html report's figures.
+``report -o``. ``plot_svg`` draws the html report's figures.
 """
 
 from __future__ import annotations

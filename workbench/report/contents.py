@@ -18,7 +18,7 @@ from dataclasses import dataclass
 from typing import Sequence
 
 from ..engine.derive import CaseInputs
-from ..engine.record import Derivation, InputError
+from ..engine.record import Derivation, InputError, percent, signed
 from ..engine.record import fmt as number_text
 from ..engine.sensitivity import SensitivityItem, sensitivity_of
 from ..engine.solve import TARGETS, UNKNOWNS, Solution, solve
@@ -271,17 +271,6 @@ class Report:
     solver: SolverSection | None
     sources: tuple[str, ...]
     caution: str
-
-
-# ---- cell texts shared by the writers and the screen ---------------------------------------------
-def signed(value: float | None) -> str:
-    """An elasticity with its sign, three decimals ("n/a" when there is none)."""
-    return "n/a" if value is None else f"{value + 0.0:+.3f}"
-
-
-def percent(value: float | None) -> str:
-    """A relative change as a signed percentage ("n/a" when there is none)."""
-    return "n/a" if value is None else f"{100.0 * value + 0.0:+.1f} %"
 
 
 def _with_unit(value: float, unit: str) -> str:

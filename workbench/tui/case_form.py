@@ -122,15 +122,12 @@ class CaseForm(VerticalScroll):
             padding: 0 1;
             color: $text-muted;
         }
-        & .field-label.-long { display: none; width: 26; }
         & FieldRow > Input, & FieldRow > Select, & FieldRow > Checkbox { width: 1fr; }
         & .field-note {
-            display: none;
             padding: 0 1 0 3;
             color: $text-error;
             background: $error-muted;
         }
-        & .field-note.-shown { display: block; }
         & #case-note {
             display: none;
             color: $text-warning;
@@ -174,20 +171,22 @@ class CaseForm(VerticalScroll):
         """What each choice and switch was last loaded with (its text in the document)."""
         self._controls: dict[str, Widget] = {}
         self._case_note = ""
+        self._wide = False
 
     # ---- building --------------------------------------------------------------------------
     def compose(self) -> ComposeResult:
-        """A title per group, then a row and a (hidden) note line per field."""
+        """A title per group, then a row per field: its label, long or short as the screen is
+        wide or narrow, and its control.  The note line under a field is made the first time it
+        has a message (few fields ever have one, and every widget costs the form time)."""
+        self._wide = wide = self.app.size.width >= WIDE
         yield Static(id="case-note")
         for number, (title, names) in enumerate(EDITOR_GROUPS):
             yield Static(title, classes="group-title" + (" -first" if number == 0 else ""))
             for name in names:
                 with FieldRow(id=f"row-{name}"):
-                    yield Label(self._label(name, wide=True), id=f"label-{name}",
-                                classes="field-label -long")
-                    yield Label(self._label(name, wide=False), classes="field-label -short")
+                    yield Label(self._label(name, wide=wide), id=f"label-{name}",
+                                classes="field-label")
                     yield self._control(name)
-                yield Static("", id=f"note-{name}", classes="field-note", markup=False)
 
     @staticmethod
     def _label(name: str, *, wide: bool) -> str:
@@ -222,6 +221,14 @@ class CaseForm(VerticalScroll):
         self._controls = {name: self.query_one(f"#field-{name}") for name in FIELD_ORDER}
         self.load()
 
+    def on_resize(self) -> None:
+        """Write the labels long or short when the screen crosses :data:`WIDE` columns."""
+        wide = self.app.size.width >= WIDE
+        if wide != self._wide:
+            self._wide = wide
+            for name in FIELD_ORDER:
+                self.query_one(f"#label-{name}", Label).update(self._label(name, wide=wide))
+
     # ---- showing the document ----------------------------------------------------------------
     def watch_view(self, view: View) -> None:
         """Show the selected case as the document holds it now."""
@@ -230,15 +237,14 @@ class CaseForm(VerticalScroll):
     def load(self) -> None:
         """Put the document's texts for the selected case into the fields (a field whose text
         was refused keeps it while its case stays selected)."""
-        if not self._controls:
-            return  # not mounted yet: on_mount loads
+        if not self._controls or self.view.revision < 0:
+            return  # not mounted yet, or no view given yet: on_mount or the view loads
         document, index = self.document, self.view.selected
         case = document.case(index)
         if case is not self._shown_case:
             self._shown_case = case
             self._notes.clear()
-            for note in self.query(".field-note.-shown"):
-                note.remove_class("-shown")
+            self.query(".field-note").set(display=False)
         texts = document.texts(index)
         bearings = [(b.name, b.name) for b in document.session.bearings]
         read_only = document.generated_problem(index)
@@ -291,13 +297,18 @@ class CaseForm(VerticalScroll):
         """Show ``message`` under field ``name`` (None: clear it)."""
         if message is None and name not in self._notes:
             return  # nothing shown: nothing to lay out again
-        note = self.query_one(f"#note-{name}", Static)
-        if message:
-            self._notes[name] = message
-            note.update(f"✘ {message}")
-        else:
+        made = self.query(f"#note-{name}")
+        if not message:
             self._notes.pop(name, None)
-        note.set_class(bool(message), "-shown")
+            made.set(display=False)
+            return
+        self._notes[name] = message
+        if made:  # a note line made for an earlier message: shown again
+            made.first(Static).update(f"✘ {message}")
+            made.set(display=True)
+        else:
+            self.mount(Static(f"✘ {message}", id=f"note-{name}", classes="field-note",
+                              markup=False), after=f"#row-{name}")
 
     def message_for(self, name: str) -> str | None:
         """The message under field ``name`` (a refused text), or None."""

@@ -6,7 +6,7 @@ ranked by |ε|, signs kept, the method named where a piece boundary makes the di
 one-sided), the life against a scale on Fr and Fa from
 :func:`~workbench.engine.curves.life_curve` (target life and e switch marked) and aISO against κ
 from :func:`~workbench.engine.curves.aiso_curve` (ISO 281:2007 §9.3.2), drawn by
-:func:`workbench.report.plot_text.plot_lines` in braille and plain marks so they read in monochrome.
+:func:`workbench.tui.plot_text.plot_lines` in braille and plain marks so they read in monochrome.
 The Duty block shows each state's share of the Palmgren–Miner damage as a text bar, for the duty
 cycles on the selected case's bearing.
 
@@ -25,15 +25,14 @@ from textual.content import Content
 from textual.reactive import var
 
 from ..engine.curves import Curve, aiso_curve, life_curve
-from ..engine.record import InputError, fmt
+from ..engine.record import InputError, fmt, percent, signed
 from ..engine.sensitivity import SensitivityItem, sensitivity_of
 from ..model.analysis import DutyOutcome
 from ..model.document import Document
 from ..model.quantities import format_quantity
 from ..model.session import CaseResult
-from ..report.plot_text import plot_lines
-from ..report.contents import percent, signed
 from .line_pane import LinePane
+from .plot_text import plot_lines
 from .view import View, view_reactive
 
 SENSITIVITY_TITLE = "Sensitivity of life"

@@ -63,7 +63,11 @@ class WorkbenchScreen(Screen[None]):
 
     def __init__(self, document: Document,
                  autosave_delay: float | None = AUTOSAVE_DELAY_S) -> None:
-        super().__init__(id="workbench")
+        # The width class from the terminal's size now, so the first frame already has the
+        # labels it keeps (Textual sets it on the first resize, a frame later; set at mount
+        # instead, it restyled every widget of the form once more before the first frame).
+        wide = self.app.size.width >= WIDE
+        super().__init__(id="workbench", classes="-wide" if wide else "-narrow")
         self.document = document
         self._autosave_delay = autosave_delay
         self._autosave_timer: Timer | None = None
@@ -94,12 +98,7 @@ class WorkbenchScreen(Screen[None]):
         yield KeyFooter()
 
     def on_mount(self) -> None:
-        """Show the first case, with the focus in the list.  The width class is set now from
-        the terminal's size, so the first frame already has the labels it keeps (Textual
-        sets it on the first resize, a frame later)."""
-        wide = self.app.size.width >= WIDE
-        self.set_class(wide, "-wide")
-        self.set_class(not wide, "-narrow")
+        """Show the first case, with the focus in the list."""
         self.view = View(self.document.revision, 0 if self.document.results else -1)
         self.query_one(CaseTable).focus()
 
