@@ -2,7 +2,10 @@
 
 Every load case of the session (or of one session bearing, ``--bearing``) is run on every catalog
 bearing; those meeting the session's life target on Lnm and its static safety are listed smallest
-first (ISO 281:2007, ISO 76:2006, by :func:`workbench.engine.select.select`).  Rejected catalog
+first (ISO 281:2007, ISO 76:2006, by :func:`workbench.engine.select.select`).  A kind that cannot
+carry a case's load does not qualify, and the output says why: a cylindrical roller bearing under
+axial load (unless ``--flanged-cylindrical`` says it has flanges for it), a thrust bearing under
+radial load.  Rejected catalog
 rows go to standard error with their row number (the first twenty; ``--json`` lists all).  Exit codes: 0 done (also when none qualifies),
 2 a bad session or catalog file or a bad option value.
 """
@@ -44,6 +47,10 @@ def add_arguments(parser: argparse.ArgumentParser) -> None:
     parser.add_argument("--bore-max", metavar="LENGTH", help="largest bore d")
     parser.add_argument("--od-max", metavar="LENGTH", help="largest outer diameter D")
     parser.add_argument("--width-max", metavar="LENGTH", help="largest width B")
+    parser.add_argument("--flanged-cylindrical", action="store_true",
+                        help="cylindrical roller bearings have flanges to carry the axial load: "
+                             "let them qualify under Fa > 0 (life still on P = Fr, ISO 281; "
+                             "check their axial capacity with the maker's data)")
     parser.add_argument("--top", metavar="N", type=int, default=DEFAULT_TOP,
                         help=f"show the best N (default {DEFAULT_TOP}; 0 for all)")
     parser.add_argument("--json", action="store_true", help="print one JSON object")
@@ -59,13 +66,16 @@ def _length(flag: str, text: str | None) -> float | None:
         raise QuantityError(f"{flag}: {exc.message}") from None
 
 
+NOTE_MARK = "*"
+
+
 def _table(rows: list[dict[str, Any]]) -> str:
-    """The candidates as a plain table."""
+    """The candidates as a plain table; a designation with a note is marked (the notes follow)."""
     from ..engine.record import fmt
     from ..report.contents import Table
     from ..report.text import table_lines
 
-    body = tuple((str(n), r["designation"], r["kind"],
+    body = tuple((str(n), r["designation"] + (NOTE_MARK if r["note"] else ""), r["kind"],
                   f"{r['d_mm']:g} × {r['D_mm']:g} × {r['B_mm']:g}",
                   "—" if r["mass_kg"] is None else f"{r['mass_kg']:.3f}",
                   "—" if r["life_margin"] is None else fmt(r["life_margin"], 3),
@@ -82,7 +92,7 @@ def run(args: argparse.Namespace) -> int:
     from ..engine.record import InputError
     from ..engine.select import Filters, select
     from ..model.catalog import CatalogError, demo_catalog_path, load_catalog
-    from ..model.selection import candidate_rows, selection_inputs
+    from ..model.selection import candidate_rows, not_qualifying_rows, selection_inputs
     from ..model.session import evaluate_case
     from ..model.sessionfile import SessionFileError, load_session
 
@@ -105,7 +115,8 @@ def run(args: argparse.Namespace) -> int:
     try:
         filters = Filters(args.kind, _length("--bore-min", args.bore_min),
                           _length("--bore-max", args.bore_max), _length("--od-max", args.od_max),
-                          _length("--width-max", args.width_max))
+                          _length("--width-max", args.width_max),
+                          flanged_cylindrical=args.flanged_cylindrical)
     except QuantityError as exc:
         return fail(exc.message)
     cases = [case for case in session.cases if args.bearing is None or case.bearing == args.bearing]
@@ -124,8 +135,10 @@ def run(args: argparse.Namespace) -> int:
     case_names = [case.name for case in cases]
     rows = candidate_rows(catalog, selection, case_names, args.top)
     if args.json:
-        print_json(_report(args, session, catalog, selection, rows, case_names, life_target,
-                           results[0].s0_target))
+        report = _report(args, session, catalog, selection, rows, case_names, life_target,
+                         results[0].s0_target)
+        report["not_qualifying"] = not_qualifying_rows(catalog, selection, case_names)
+        print_json(report)
         return 0
     print(_text(args, session, catalog, selection, rows, case_names, life_target,
                 results[0].s0_target))
@@ -141,6 +154,8 @@ def _report(args: argparse.Namespace, session: Session, catalog: Catalog, select
         "qualifying": len(selection.order),
         "rejected_rows": [p.as_dict() for p in catalog.problems],
         "rejections": selection.rejections,
+        "reasons": selection.examples,
+        "flanged_cylindrical": args.flanged_cylindrical,
         "session": {"path": str(args.session), "title": session.title, "cases": case_names},
         "catalog": {"path": catalog.source, "bearings": len(catalog)},
         "targets": {"life_h": life_target, "reliability": session.targets.reliability,
@@ -166,6 +181,7 @@ def _text(args: argparse.Namespace, session: Session, catalog: Catalog, selectio
             else f"all {len(rows)}"
         lines += [f"Qualifying bearings, smallest first ({shown}); life margin = min Lnm/target:",
                   _table(rows)]
+        lines += [f"{NOTE_MARK} {note}" for note in dict.fromkeys(r["note"] for r in rows if r["note"])]
     else:
         lines.append("No catalog bearing meets every case.")
     if selection.rejections:
@@ -174,4 +190,27 @@ def _text(args: argparse.Namespace, session: Session, catalog: Catalog, selectio
         lines += ["", f"Not qualifying: {counts}."]
         for reason, message in selection.examples.items():
             lines.append(f"  {reason}: {message}")
+        lines += _load_refusals(catalog, selection, case_names, args.top,
+                                flanged_allowed=args.flanged_cylindrical)
     return "\n".join(lines)
+
+
+def _load_refusals(catalog: Catalog, selection: Selection, case_names: list[str], top: int, *,
+                   flanged_allowed: bool) -> list[str]:
+    """The bearings whose kind cannot carry some case's load, by reason and case (the first
+    ``top`` of each, 0: all); the JSON's ``not_qualifying`` lists every rejected bearing."""
+    from ..engine.select import REASON_NO_AXIAL, REASON_NO_RADIAL
+    from ..model.selection import not_qualifying_rows
+
+    by_cause: dict[tuple[str, str], list[str]] = {}
+    for row in not_qualifying_rows(catalog, selection, case_names):
+        if row["reason"] in (REASON_NO_AXIAL, REASON_NO_RADIAL):
+            by_cause.setdefault((row["reason"], row["case"]), []).append(row["designation"])
+    lines = []
+    for (reason, case), names in by_cause.items():
+        shown = names if top <= 0 else names[:top]
+        more = f", and {len(names) - len(shown)} more" if len(shown) < len(names) else ""
+        hint = (" (--flanged-cylindrical lets flanged ones qualify)"
+                if reason == REASON_NO_AXIAL and not flanged_allowed else "")
+        lines.append(f"  {reason} in case {case!r}{hint}: {', '.join(shown)}{more}.")
+    return lines

@@ -13,6 +13,11 @@ bearing and case, and is the reference the tests and :func:`benchmark_select` co
 A case at speed 0 has no life in hours: it is checked for static safety only.  A bearing whose
 combination with some case the engine refuses (an ``InputError`` from ``derive``) is rejected with
 the reason ``cannot be rated (<field>)``.
+
+A bearing must also suit its position (:func:`load_direction_refusal`, the one rule both sweeps
+and so ``workbench select`` and the selection screen apply): a cylindrical roller bearing under an
+axial load qualifies only when the person says its design has flanges for it
+(``Filters.flanged_cylindrical``), and a thrust bearing only where it can take the radial load.
 """
 
 from __future__ import annotations
@@ -31,20 +36,22 @@ from .derive import (
     reliability_life_factor, static_safety_minimum, validate,
 )
 from .kinds import (
-    ROLLER_KINDS, Arrangement, Kind, aiso_load_divisor, dynamic_factors, dynamic_load, equivalent_static_load,
+    DEFAULT_CONTACT_ANGLE, KIND_WORDS, ROLLER_KINDS, THRUST_KINDS, Arrangement, Kind, aiso_load_divisor, dynamic_factors, dynamic_load, equivalent_static_load,
     life_exponent, parse_arrangement, rotation_factor, static_factors,
 )
 from .life import (
     aiso, basic_rating_life, contamination_factor, fatigue_load_limit_estimate, kappa_in_range,
     life_hours, reference_viscosity,
 )
-from .record import Derivation, InputError
+from .record import Derivation, InputError, fmt
 
 REASON_KIND = "kind"
 REASON_BORE = "bore"
 REASON_OUTER = "outer diameter"
 REASON_WIDTH = "width"
 REASON_SPEED = "speed limit"
+REASON_NO_AXIAL = "cannot carry Fa"
+REASON_NO_RADIAL = "cannot carry Fr"
 REASON_STATIC = "static safety"
 REASON_LIFE = "life"
 
@@ -94,23 +101,31 @@ _COLUMNS = ("kind", "arrangement", "d_mm", "D_mm", "B_mm", "c_n", "c0_n", "f0", 
 
 @dataclass(frozen=True)
 class Filters:
-    """Limits on the bearing itself (mm); ``None`` leaves a limit open."""
+    """Limits on the bearing itself (mm); ``None`` leaves a limit open.
+
+    ``flanged_cylindrical``: the person says the cylindrical roller bearings considered have
+    flanges on both rings to carry the cases' axial load, so they may qualify under Fa > 0
+    (see :func:`load_direction_refusal`).
+    """
 
     kind: str | None = None
     bore_min_mm: float | None = None
     bore_max_mm: float | None = None
     outer_max_mm: float | None = None
     width_max_mm: float | None = None
+    flanged_cylindrical: bool = False
 
 
 @dataclass(frozen=True)
 class Candidate:
-    """One qualifying bearing: its catalog index, life margin, governing case and smallest s0."""
+    """One qualifying bearing: its catalog index, life margin, governing case, smallest s0, and
+    what the ranking leaves to the maker's data (``note``, "" for nothing)."""
 
     index: int
     life_margin: float
     governing_case: int
     min_s0: float
+    note: str = ""
 
 
 @dataclass
@@ -118,11 +133,13 @@ class Selection:
     """The outcome for every catalog bearing.
 
     ``reason[i]`` is ``""`` for a bearing that qualifies, else why it does not (the first reason in
-    the order: kind, bore, outer diameter, width, speed limit, cannot be rated, static safety,
-    life).  ``life_margin[i]`` is min over the cases at speed > 0 of Lnm/target (∞ when every case
-    is at speed 0), ``governing_case[i]`` the case giving it (−1 when none), ``min_s0[i]`` the
-    smallest s0 over the cases; all NaN (−1) where the bearing was not evaluated.  ``order`` lists
-    the qualifying bearings best first.
+    the order: kind, bore, outer diameter, width, speed limit, cannot carry Fa or Fr, cannot be
+    rated, static safety, life).  ``life_margin[i]`` is min over the cases at speed > 0 of
+    Lnm/target (∞ when every case is at speed 0), ``governing_case[i]`` the case giving it (−1
+    when none), ``min_s0[i]`` the smallest s0 over the cases; all NaN (−1) where the bearing was
+    not evaluated.  ``load_case[i]`` is the first case whose load bearing ``i`` cannot carry (−1
+    when none).  ``order`` lists the qualifying bearings best first; ``notes`` what the ranking
+    of a qualifying bearing leaves to the maker's data, by index.
     """
 
     order: np.ndarray
@@ -131,12 +148,14 @@ class Selection:
     governing_case: np.ndarray
     min_s0: np.ndarray
     examples: dict[str, str] = field(default_factory=dict)  # reason → one message behind it
+    load_case: np.ndarray = field(default_factory=lambda: np.full(0, -1))
+    notes: dict[int, str] = field(default_factory=dict)
 
     @property
     def candidates(self) -> list[Candidate]:
         """The qualifying bearings, best first."""
         return [Candidate(int(i), float(self.life_margin[i]), int(self.governing_case[i]),
-                          float(self.min_s0[i])) for i in self.order]
+                          float(self.min_s0[i]), self.notes.get(int(i), "")) for i in self.order]
 
     @property
     def rejections(self) -> dict[str, int]:
@@ -165,6 +184,82 @@ def bearing_case(case: CaseInputs, bearings: BearingArrays, i: int,
         cu=_optional(bearings.cu_n[i]),
         s0_min=case.s0_min if s0_min is None else s0_min,
     )
+
+
+def load_direction_refusal(kind: Kind, alpha_deg: float | None, fr: float, fa: float, *,
+                           flanged_cylindrical: bool = False) -> tuple[str, str] | None:
+    """Whether a bearing of ``kind`` (contact angle ``alpha_deg``) can take a case's loads at
+    all: None when it can, else ``(reason, message)``.
+
+    - A cylindrical roller bearing (α = 0) carries Fa only on flanges, which not every design
+      has, and ISO 281:2007 §7.2 rates its life on P = Fr whatever Fa is.  Under Fa > 0 it
+      qualifies only when ``flanged_cylindrical`` (the person says it has flanges for it), and
+      never under a purely axial load.
+    - A thrust bearing with α = 90° takes no radial load (ISO 281:2007 §6.2, §8.2); one with
+      α < 90° only while Fa/Fr > e (single direction, ISO 281:2007 Table 3): the engine's own
+      ``dynamic_factors`` and ``dynamic_load`` decide.  An angle the engine cannot rate is left
+      to ``derive`` (reason ``cannot be rated``).
+    """
+    if kind is Kind.CYLINDRICAL and fa > 0.0 and not (flanged_cylindrical and fr > 0.0):
+        if fr == 0.0:
+            return REASON_NO_AXIAL, "a cylindrical roller bearing cannot carry a purely axial load"
+        return REASON_NO_AXIAL, (
+            f"a cylindrical roller bearing takes axial load (Fa = {fmt(fa)} N) only on flanges, "
+            "and its life is rated on P = Fr alone (ISO 281:2007 §7.2); if yours has flanges "
+            "for it, allow flanged cylindrical bearings and check their axial capacity with the "
+            "maker's data")
+    if kind not in THRUST_KINDS or fr <= 0.0 or alpha_deg is None:
+        return None
+    words = KIND_WORDS[kind]
+    if alpha_deg >= 90.0:
+        return REASON_NO_RADIAL, f"a {words} with α = 90° takes no radial load (Fr = {fmt(fr)} N)"
+    try:
+        factors = dynamic_factors(kind, Arrangement.SINGLE, alpha_deg, fa, 1.0)
+    except InputError:
+        return None
+    if dynamic_load(kind, factors, fr, fa)[3]:
+        return None
+    return REASON_NO_RADIAL, (f"a {words} with α = {alpha_deg:g}° takes radial load only while "
+                              f"Fa/Fr > e = {fmt(factors.e, 3)} (here {fmt(fa / fr, 3)})")
+
+
+def _kind_and_angle(kind_text: str, alpha_deg: float) -> tuple[Kind | None, float | None]:
+    """A catalog row's kind and contact angle (the kind's default where the row gives none)."""
+    try:
+        kind = Kind(kind_text)
+    except ValueError:
+        return None, None
+    return kind, (DEFAULT_CONTACT_ANGLE[kind] if math.isnan(alpha_deg) else alpha_deg)
+
+
+def _first_load_refusal(kind_text: str, alpha_deg: float, cases: Sequence[CaseInputs],
+                        flanged_cylindrical: bool) -> tuple[int, str, str] | None:
+    """The first case (index, reason, message) whose load a bearing of this kind and angle cannot
+    carry, by :func:`load_direction_refusal`; None when it can carry them all."""
+    kind, alpha = _kind_and_angle(kind_text, alpha_deg)
+    if kind is None:
+        return None
+    for j, case in enumerate(cases):
+        refusal = load_direction_refusal(kind, alpha, case.fr, case.fa,
+                                         flanged_cylindrical=flanged_cylindrical)
+        if refusal is not None:
+            return j, *refusal
+    return None
+
+
+def flange_note(kind_text: str, cases: Sequence[CaseInputs]) -> str:
+    """What a qualifying cylindrical roller bearing under axial load leaves to the maker: its
+    flanges' axial capacity ("" for any other bearing, or with no axial load)."""
+    fa_max = max((case.fa for case in cases), default=0.0)
+    if kind_text != Kind.CYLINDRICAL.value or not fa_max > 0.0:
+        return ""
+    return (f"flanges carry Fa up to {fmt(fa_max)} N: check their axial capacity with the maker's "
+            "data (life rated on P = Fr, ISO 281:2007 §7.2)")
+
+
+def _notes(bearings: BearingArrays, cases: Sequence[CaseInputs], order: np.ndarray) -> dict[int, str]:
+    notes = {int(i): flange_note(str(bearings.kind[i]), cases) for i in order}
+    return {i: note for i, note in notes.items() if note}
 
 
 def _optional(value: float) -> float | None:
@@ -214,10 +309,17 @@ def select_by_loop(bearings: BearingArrays, cases: Sequence[CaseInputs], life_ta
     reason = list(_filter_reasons(bearings, cases, filters))
     margin = np.full(n, np.nan)
     governing = np.full(n, -1)
+    load_case = np.full(n, -1)
     min_s0 = np.full(n, np.nan)
     examples: dict[str, str] = {}
     for i in range(n):
         if reason[i]:
+            continue
+        refused = _first_load_refusal(str(bearings.kind[i]), float(bearings.contact_angle_deg[i]),
+                                      cases, filters.flanged_cylindrical)
+        if refused is not None:
+            load_case[i], reason[i] = refused[0], refused[1]
+            examples.setdefault(refused[1], refused[2])
             continue
         lowest_margin, lowest_case, lowest_s0 = math.inf, -1, math.inf
         static_ok = life_ok = True
@@ -238,7 +340,9 @@ def select_by_loop(bearings: BearingArrays, cases: Sequence[CaseInputs], life_ta
             continue
         margin[i], governing[i], min_s0[i] = lowest_margin, lowest_case, lowest_s0
         reason[i] = "" if static_ok and life_ok else (REASON_STATIC if not static_ok else REASON_LIFE)
-    return Selection(_rank(bearings, reason), reason, margin, governing, min_s0, examples)
+    order = _rank(bearings, reason)
+    return Selection(order, reason, margin, governing, min_s0, examples, load_case,
+                     _notes(bearings, cases, order))
 
 
 # ---- the vectorised sweep -------------------------------------------------------------------
@@ -494,7 +598,8 @@ def select(bearings: BearingArrays, cases: Sequence[CaseInputs], life_target_h: 
 
     Qualifies: Lnm ≥ ``life_target_h`` for each case at speed > 0 (ISO 281:2007 §9.1, at the
     case's reliability and lubrication), s0 ≥ the case's minimum (ISO 76:2006; ``s0_min`` replaces
-    every case's required s0 when given), and the ``filters``.  Same verdicts as
+    every case's required s0 when given), the ``filters``, and a kind that can carry each case's
+    load (:func:`load_direction_refusal`).  Same verdicts as
     :func:`select_by_loop`, which calls ``derive()`` per bearing and case.
     """
     _check_request(cases, life_target_h)
@@ -504,8 +609,17 @@ def select(bearings: BearingArrays, cases: Sequence[CaseInputs], life_target_h: 
     governing = np.full(n, -1)
     min_s0 = np.full(n, np.nan)
     examples: dict[str, str] = {}
+    load_case = np.full(n, -1)
     open_rows = np.flatnonzero(reason == "")
-    groups = _groups(bearings, open_rows) if open_rows.size else []
+    groups = []
+    for group in _groups(bearings, open_rows) if open_rows.size else []:
+        refused = _first_load_refusal(group.kind, float(bearings.contact_angle_deg[group.rows[0]]),
+                                      cases, filters.flanged_cylindrical)
+        if refused is None:
+            groups.append(group)
+        else:
+            load_case[group.rows], reason[group.rows] = refused[0], refused[1]
+            examples.setdefault(refused[1], refused[2])
     probes = [_probe(group, bearings, cases, s0_min) for group in groups]
     usable = [any(refusals[j] is None for refusals, _, _ in probes) for j in range(len(cases))]
     rows_of = _case_rows(cases, usable)
@@ -530,7 +644,9 @@ def select(bearings: BearingArrays, cases: Sequence[CaseInputs], life_target_h: 
             governing[rows[evaluated]] = outcome.governing[evaluated]
             min_s0[rows[evaluated]] = outcome.min_s0[evaluated]
     reasons = reason.tolist()
-    return Selection(_rank(bearings, reasons), reasons, margin, governing, min_s0, examples)
+    order = _rank(bearings, reasons)
+    return Selection(order, reasons, margin, governing, min_s0, examples, load_case,
+                     _notes(bearings, cases, order))
 
 
 # ---- the speed figures ----------------------------------------------------------------------

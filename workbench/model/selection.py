@@ -42,7 +42,8 @@ def selection_inputs(results: Sequence[CaseResult]) -> tuple[list[CaseInputs], f
 def candidate_rows(catalog: Catalog, selection: Selection, case_names: list[str],
                    top: int) -> list[dict[str, Any]]:
     """The best ``top`` candidates (0: all) as plain rows: designation, kind, d, D, B, mass,
-    life margin, governing case name and smallest s0 (NaN as None)."""
+    life margin, governing case name, smallest s0 (NaN as None) and the note on what the ranking
+    leaves to the maker's data ("" for nothing)."""
     chosen = selection.candidates if top <= 0 else selection.candidates[:top]
     return [{
         "designation": catalog.designations[c.index],
@@ -54,4 +55,17 @@ def candidate_rows(catalog: Catalog, selection: Selection, case_names: list[str]
         "life_margin": _number(c.life_margin),
         "governing_case": case_names[c.governing_case] if c.governing_case >= 0 else None,
         "min_s0": _number(c.min_s0),
+        "note": c.note,
     } for c in chosen]
+
+
+def not_qualifying_rows(catalog: Catalog, selection: Selection,
+                        case_names: list[str]) -> list[dict[str, Any]]:
+    """Every catalog bearing that does not qualify, in catalog order: designation, kind, the
+    reason, and the case whose load its kind cannot carry (None for other reasons)."""
+    return [{
+        "designation": catalog.designations[i],
+        "kind": str(catalog.kind[i]),
+        "reason": reason,
+        "case": case_names[selection.load_case[i]] if selection.load_case[i] >= 0 else None,
+    } for i, reason in enumerate(selection.reason) if reason]

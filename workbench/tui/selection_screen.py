@@ -4,7 +4,8 @@ The screen runs :func:`workbench.engine.select.select` (ISO 281:2007 life on Lnm
 session's life target, ISO 76:2006 static safety) over the demo catalog or a catalog file whose
 path is typed, for all the cases (the session's and the generated ones) that use one session
 bearing, with the inputs built by :func:`workbench.model.selection.selection_inputs` and the
-same filters as ``workbench select`` (kind, bore, outer diameter, width).  The ranking runs in a
+same filters as ``workbench select`` (kind, bore, outer diameter, width, and whether cylindrical
+roller bearings have flanges to carry the axial load).  The ranking runs in a
 worker thread: typing in the filters never waits for it, the list is dimmed and the summary says
 so while it runs, and a ranking that finishes after a newer one was asked for is dropped.
 
@@ -19,7 +20,7 @@ from __future__ import annotations
 
 import os
 from collections.abc import Mapping, Sequence
-from dataclasses import dataclass
+from dataclasses import dataclass, replace
 from pathlib import Path
 from typing import Any, NamedTuple
 
@@ -28,12 +29,12 @@ from textual.app import ComposeResult
 from textual.binding import Binding
 from textual.containers import Horizontal, Vertical
 from textual.content import Content
-from textual.widgets import DataTable, Input, Label, Select, Static
+from textual.widgets import Checkbox, DataTable, Input, Label, Select, Static
 from textual.worker import Worker, WorkerState
 
 from ..engine.kinds import KIND_WORDS, Kind
 from ..engine.record import InputError, fmt
-from ..engine.select import Filters, Selection, select
+from ..engine.select import REASON_NO_AXIAL, REASON_NO_RADIAL, Filters, Selection, select
 from ..model.catalog import Catalog, CatalogError, catalog_bearing_texts, demo_catalog_path, load_catalog
 from ..model.quantities import QuantityError, parse
 from ..model.selection import candidate_rows, selection_inputs
@@ -45,6 +46,9 @@ SIZE_FILTERS = (("bore_min", "Bore d from"), ("bore_max", "to"), ("outer_max", "
                 ("width_max", "Width B up to"))
 """The size limits on the bearing (``Filters`` field without ``_mm`` → label), in screen order."""
 FILTER_PREFIX = "filter-"
+FLANGED_WORDS = "flanged cylindrical may take Fa"
+"""The switch that lets cylindrical roller bearings qualify under axial load (``--flanged-cylindrical``)."""
+LOAD_REASONS = (REASON_NO_AXIAL, REASON_NO_RADIAL)
 NARROW_COLUMNS = (("designation", "Designation"), ("kind", "Kind"), ("size", "d × D × B mm"),
                   ("life_margin", "Life margin"), ("min_s0", "Least s0"))
 GOVERNING_COLUMN = ("governing_case", "Governing case")
@@ -97,7 +101,7 @@ def _cells(row: Mapping[str, Any]) -> dict[str, str]:
     return {"designation": row["designation"], "kind": row["kind"],
             "size": f"{row['d_mm']:g} × {row['D_mm']:g} × {row['B_mm']:g}",
             "life_margin": _number_text(row["life_margin"]), "min_s0": _number_text(row["min_s0"]),
-            "governing_case": row["governing_case"] or "—"}
+            "governing_case": row["governing_case"] or "—", "note": row["note"]}
 
 
 def _kind_words(kind: str) -> str:
@@ -124,7 +128,7 @@ class SelectionScreen(OnceModal[Adoption | None]):
 
     DEFAULT_CSS = """
     SelectionScreen {
-        #filter-kind { width: 36; }
+        #filter-kind { width: 32; margin-right: 1; }
         .size-limit { width: 9; margin-right: 1; }
         #catalog-path { width: 1fr; }
         #selection-summary, #filter-message { width: 100%; }
@@ -175,6 +179,7 @@ class SelectionScreen(OnceModal[Adoption | None]):
                 yield Label("Kind", classes="form-label")
                 yield Select([(words, kind.value) for kind, words in KIND_WORDS.items()],
                              prompt="any kind", compact=True, id=FILTER_PREFIX + "kind")
+                yield Checkbox(FLANGED_WORDS, compact=True, id=FILTER_PREFIX + "flanged")
             with Horizontal(classes="form-row"):
                 for name, label in SIZE_FILTERS:
                     yield Label(label, classes="form-label")
@@ -244,7 +249,16 @@ class SelectionScreen(OnceModal[Adoption | None]):
         event.stop()
         kind = None if event.value is Select.NULL else str(event.value)
         if kind != self._filters.kind:
-            self._filters = Filters(kind, *self._size_limits())
+            self._filters = Filters(kind, *self._size_limits(),
+                                    flanged_cylindrical=self._filters.flanged_cylindrical)
+            self.rank()
+
+    @on(Checkbox.Changed, f"#{FILTER_PREFIX}flanged")
+    def _flanged_changed(self, event: Checkbox.Changed) -> None:
+        """Cylindrical roller bearings may (or may no longer) qualify under axial load."""
+        event.stop()
+        if event.value != self._filters.flanged_cylindrical:
+            self._filters = replace(self._filters, flanged_cylindrical=event.value)
             self.rank()
 
     @on(Input.Changed, ".size-limit")
@@ -255,7 +269,8 @@ class SelectionScreen(OnceModal[Adoption | None]):
         self._show_filter_problems()
         limits = self._size_limits()
         if limits != self._size_limits_in_force():
-            self._filters = Filters(self._filters.kind, *limits)
+            self._filters = Filters(self._filters.kind, *limits,
+                                    flanged_cylindrical=self._filters.flanged_cylindrical)
             self.rank()
 
     @on(Input.Submitted, ".size-limit")
@@ -363,19 +378,24 @@ class SelectionScreen(OnceModal[Adoption | None]):
         self._describe_row()
 
     def _describe_row(self) -> None:
-        """The highlighted candidate in full words under the list; with none, why bearings
-        the engine could not rate were refused."""
+        """The highlighted candidate in full words under the list, with what it leaves to the
+        maker's data; then why bearings of a kind that cannot carry the load were left out (with
+        no candidate, why every refused bearing was)."""
         table = self.query_one("#candidates", DataTable)
         detail = self.query_one("#candidate-detail", Static)
+        examples = self.selection.examples if self.selection is not None else {}
         if not self._rows or not 0 <= table.cursor_row < len(self._rows):
-            examples = self.selection.examples if self.selection is not None else {}
             detail.update(Content("\n").join(Content(f"{reason}: {message}")
                                              for reason, message in examples.items()))
             return
         row = self._rows[table.cursor_row]
-        detail.update(Content(
+        note = f"; {row['note']}" if row["note"] else ""
+        lines = [Content(
             f"{row['designation']}: {_kind_words(row['kind'])}, {row['size']}; least life margin "
-            f"{row['life_margin']} (case {row['governing_case']}), least s0 {row['min_s0']}"))
+            f"{row['life_margin']} (case {row['governing_case']}), least s0 {row['min_s0']}{note}")]
+        lines += [Content(f"Not qualifying, {reason}: {examples[reason]}")
+                  for reason in LOAD_REASONS if reason in examples]
+        detail.update(Content("\n").join(lines))
 
     # ---- adopting ---------------------------------------------------------------------------
     @on(DataTable.RowSelected, "#candidates")
