@@ -65,7 +65,7 @@ def test_select_cli_json(session_file: Path, capsys: pytest.CaptureFixture[str])
     assert 1 <= len(out["candidates"]) <= 3
     first = out["candidates"][0]
     assert set(first) == {"designation", "kind", "d_mm", "D_mm", "B_mm", "mass_kg", "life_margin",
-                          "governing_case", "min_s0"}
+                          "governing_case", "min_s0", "note"}
     assert first["life_margin"] >= 1.0 and first["min_s0"] >= 1.5
     assert first["governing_case"] == "running"  # the speed-0 case is a static check only
     outer = [(c["D_mm"], c["B_mm"]) for c in out["candidates"]]
@@ -74,9 +74,44 @@ def test_select_cli_json(session_file: Path, capsys: pytest.CaptureFixture[str])
 
 
 def test_select_cli_filters_and_text(session_file: Path, capsys: pytest.CaptureFixture[str]) -> None:
-    assert main(["select", str(session_file), "--kind", "cylindrical", "--od-max", "90 mm"]) == 0
+    assert main(["select", str(session_file), "--kind", "cylindrical", "--od-max", "90 mm",
+                 "--flanged-cylindrical"]) == 0
     text = capsys.readouterr().out
     assert "designation" in text and "WB-CR" in text and "WB-DG" not in text
+
+
+def test_select_cli_refuses_cylindrical_bearings_under_axial_load_and_says_why(
+        session_file: Path, capsys: pytest.CaptureFixture[str]) -> None:
+    # both cases have Fa > 0: a cylindrical roller bearing carries it only on flanges (ISO 281:2007
+    # §7.2 rates it on P = Fr), so without --flanged-cylindrical none qualifies
+    assert main(["select", str(session_file), "--kind", "cylindrical"]) == 0
+    text = capsys.readouterr().out
+    assert "No catalog bearing meets every case." in text
+    assert "cannot carry Fa in case 'running' (--flanged-cylindrical" in text
+    assert "WB-CR 02-20" in text.split("cannot carry Fa in case")[1]
+    assert main(["select", str(session_file), "--json", "--top", "0"]) == 0
+    out = json.loads(capsys.readouterr().out)
+    assert all(c["kind"] != "cylindrical" for c in out["candidates"])
+    refused = [row for row in out["not_qualifying"] if row["kind"] == "cylindrical"]
+    assert refused and all(row == {"designation": row["designation"], "kind": "cylindrical",
+                                   "reason": "cannot carry Fa", "case": "running"} for row in refused)
+    assert "flanges" in out["reasons"]["cannot carry Fa"]
+    assert out["rejections"]["cannot carry Fa"] == len(refused)
+
+
+def test_select_cli_lets_flanged_cylindrical_bearings_qualify_with_a_note(
+        session_file: Path, capsys: pytest.CaptureFixture[str]) -> None:
+    assert main(["select", str(session_file), "--json", "--top", "0", "--kind", "cylindrical",
+                 "--flanged-cylindrical"]) == 0
+    out = json.loads(capsys.readouterr().out)
+    assert out["candidates"] and out["flanged_cylindrical"] is True
+    # the largest Fa of the session's cases (1 kN, "peak") is what the flanges must carry
+    assert all("Fa up to 1000 N" in c["note"] and "maker's data" in c["note"]
+               for c in out["candidates"])
+    assert main(["select", str(session_file), "--kind", "cylindrical", "--flanged-cylindrical"]) == 0
+    text = capsys.readouterr().out
+    assert " WB-CR 02-20*  cylindrical " in text  # marked: its note follows the table
+    assert "\n* flanges carry Fa up to 1000 N" in text
 
 
 def test_select_cli_reports_rejected_rows_on_stderr(session_file: Path, tmp_path: Path,

@@ -13,9 +13,11 @@ from workbench.engine.derive import CaseInputs
 from workbench.engine.life import aiso, contamination_factor, kappa_in_range
 from workbench.engine.record import InputError
 from workbench.engine.select import (
-    REASON_BORE, REASON_KIND, REASON_LIFE, REASON_OUTER, REASON_SPEED, REASON_STATIC, REASON_WIDTH,
-    BearingArrays, Filters, benchmark_select, select, select_by_loop, unrated_reason,
+    REASON_BORE, REASON_KIND, REASON_LIFE, REASON_NO_AXIAL, REASON_NO_RADIAL, REASON_OUTER,
+    REASON_SPEED, REASON_STATIC, REASON_WIDTH, BearingArrays, Filters, benchmark_select,
+    load_direction_refusal, select, select_by_loop, unrated_reason,
 )
+from workbench.engine.kinds import Kind
 
 NAN = math.nan
 
@@ -33,6 +35,8 @@ BEARING_SHAPES = (
     ("self-aligning", "double-row", 12.0, False),
     ("thrust-ball", "single", 90.0, False),
     ("thrust-roller", "single", 60.0, False),
+    ("thrust-ball", "single", 45.0, False),
+    ("thrust-ball", "single", 50.0, False),  # not tabulated: the engine refuses it
 )
 
 
@@ -94,16 +98,20 @@ def assert_same(vector, loop) -> None:
     np.testing.assert_allclose(vector.life_margin, loop.life_margin, rtol=1e-9)
     np.testing.assert_allclose(vector.min_s0, loop.min_s0, rtol=1e-12)
     np.testing.assert_array_equal(vector.governing_case, loop.governing_case)
+    np.testing.assert_array_equal(vector.load_case, loop.load_case)
     assert vector.rejections == loop.rejections
+    assert vector.notes == loop.notes and vector.examples.keys() == loop.examples.keys()
 
 
 @settings(max_examples=50, deadline=None, suppress_health_check=[HealthCheck.too_slow])
 @given(st.lists(bearing_rows, min_size=1, max_size=8), st.lists(load_cases(), min_size=1, max_size=4),
-       st.floats(100.0, 60000.0), st.sampled_from([None, 1.2]))
-def test_select_agrees_with_the_derive_loop(rows, cases, target, s0_min) -> None:
+       st.floats(100.0, 60000.0), st.sampled_from([None, 1.2]), st.booleans())
+def test_select_agrees_with_the_derive_loop(rows, cases, target, s0_min, flanged) -> None:
     # reference: derive() called per bearing and case (select_by_loop) — the scalar engine itself
     bearings = table_of(rows)
-    assert_same(select(bearings, cases, target, s0_min), select_by_loop(bearings, cases, target, s0_min))
+    filters = Filters(flanged_cylindrical=flanged)
+    assert_same(select(bearings, cases, target, s0_min, filters),
+                select_by_loop(bearings, cases, target, s0_min, filters))
 
 
 def test_closed_form_margin_for_pure_radial_load() -> None:
@@ -150,13 +158,87 @@ def test_ranking_is_outer_diameter_then_width_then_mass() -> None:
 
 
 def test_a_bearing_the_engine_refuses_is_rejected_with_the_field() -> None:
-    # ISO 281 §6.2 (from memory): a thrust ball bearing at α = 90° takes no radial load
-    rows = [(10, 30.0, 60.0, 15.0, 5e4, 8e4, 14.0, NAN, NAN, NAN)]
+    # ISO 281 Table 3 (from memory) tabulates angular-contact bearings at 15° … 45° in 5° steps;
+    # 33° is none of them, so the engine refuses the angle
+    rows = [(5, 30.0, 60.0, 15.0, 5e4, 8e4, 14.0, NAN, NAN, NAN)]
     cases = [CaseInputs(fr=1000.0, fa=2000.0, speed=1000.0)]
     for run in (select, select_by_loop):
         result = run(table_of(rows), cases, 1000.0)
-        assert result.reason == [unrated_reason("fr")]
+        assert result.reason == [unrated_reason("contact_angle")]
         assert math.isnan(result.life_margin[0])
+
+
+# ---- the position rule: a kind must carry the case's load in the direction it comes from ------
+CYLINDRICAL = (6, 40.0, 80.0, 18.0, 9e4, 9e4, NAN, NAN, NAN, NAN)
+DEEP_GROOVE = (1, 40.0, 80.0, 18.0, 9e4, 6e4, 14.0, NAN, NAN, NAN)
+THRUST_BALL_90 = (10, 40.0, 80.0, 18.0, 9e4, 2e5, NAN, NAN, NAN, NAN)
+THRUST_ROLLER_60 = (11, 40.0, 80.0, 18.0, 9e4, 2e5, NAN, NAN, NAN, NAN)
+THRUST_BALL_45 = (12, 40.0, 80.0, 18.0, 9e4, 2e5, NAN, NAN, NAN, NAN)
+
+
+def test_a_cylindrical_bearing_under_axial_load_qualifies_only_when_flanged() -> None:
+    # ISO 281:2007 §7.2: a radial roller bearing with α = 0 is rated on P = Fr; the axial load goes
+    # to flanges, which only some designs have — so under Fa > 0 it must not qualify by default
+    rows = [CYLINDRICAL, DEEP_GROOVE]
+    cases = [CaseInputs(fr=3000.0, speed=1500.0), CaseInputs(fr=3000.0, fa=800.0, speed=1500.0)]
+    for run in (select, select_by_loop):
+        result = run(table_of(rows), cases, 2000.0)
+        assert result.reason == [REASON_NO_AXIAL, ""]
+        assert list(result.load_case) == [1, -1]  # the second case is the one it cannot carry
+        assert "flanges" in result.examples[REASON_NO_AXIAL]
+        assert math.isnan(result.life_margin[0])
+        flanged = run(table_of(rows), cases, 2000.0, None, Filters(flanged_cylindrical=True))
+        assert flanged.reason == ["", ""]
+        # P = Fr for both cases (§7.2), p = 10/3: the margin is the closed form's, Fa left out
+        hours = (9e4 / 3000.0) ** (10 / 3) * 1e6 / (60 * 1500.0)
+        assert flanged.life_margin[0] == pytest.approx(hours / 2000.0, rel=1e-12)
+        assert "maker's data" in flanged.notes[0] and "800 N" in flanged.notes[0]
+        assert 1 not in flanged.notes  # a deep-groove bearing's Fa is in its P: nothing left over
+        assert flanged.candidates[[c.index for c in flanged.candidates].index(0)].note
+
+
+def test_a_cylindrical_bearing_never_carries_a_purely_axial_load() -> None:
+    cases = [CaseInputs(fr=0.0, fa=800.0, speed=1500.0)]
+    for run in (select, select_by_loop):
+        result = run(table_of([CYLINDRICAL]), cases, 2000.0, None, Filters(flanged_cylindrical=True))
+        assert result.reason == [REASON_NO_AXIAL]
+
+
+def test_a_pure_thrust_bearing_under_radial_load_does_not_qualify() -> None:
+    # ISO 281:2007 §6.2: a thrust ball bearing with α = 90° is rated on P = Fa and takes no Fr
+    rows = [THRUST_BALL_90, DEEP_GROOVE]
+    for run in (select, select_by_loop):
+        loaded = run(table_of(rows), [CaseInputs(fr=500.0, fa=3000.0, speed=1000.0)], 2000.0)
+        assert loaded.reason[0] == REASON_NO_RADIAL and loaded.load_case[0] == 0
+        assert "α = 90°" in loaded.examples[REASON_NO_RADIAL]
+        axial = run(table_of(rows), [CaseInputs(fr=0.0, fa=3000.0, speed=1000.0)], 2000.0)
+        # P = Fa (α = 90°), p = 3: L10 = (C/Fa)^3 10⁶ rev, closed form
+        hours = (9e4 / 3000.0) ** 3 * 1e6 / (60 * 1000.0)
+        assert axial.reason[0] == "" and axial.life_margin[0] == pytest.approx(hours / 2000.0)
+
+
+@pytest.mark.parametrize("row, e", [
+    (THRUST_ROLLER_60, 1.5 * math.tan(math.radians(60.0))),   # ISO 281:2007 §8.2: e = 1.5·tan α
+    (THRUST_BALL_45, 1.25 * math.tan(math.radians(45.0))),    # ISO 281:2007 §6.2: e = 1.25·tan α
+])
+def test_an_angled_thrust_bearing_carries_radial_load_only_while_fa_over_fr_exceeds_e(row, e) -> None:
+    fr = 1000.0
+    for run in (select, select_by_loop):
+        below = run(table_of([row]), [CaseInputs(fr=fr, fa=0.95 * e * fr, speed=500.0)], 100.0)
+        assert below.reason == [REASON_NO_RADIAL] and "Fa/Fr > e" in below.examples[REASON_NO_RADIAL]
+        above = run(table_of([row]), [CaseInputs(fr=fr, fa=1.05 * e * fr, speed=500.0)], 100.0)
+        assert above.reason == [""]
+
+
+def test_the_position_rule_names_the_load_each_kind_cannot_carry() -> None:
+    assert load_direction_refusal(Kind.CYLINDRICAL, 0.0, 1000.0, 0.0) is None
+    assert load_direction_refusal(Kind.CYLINDRICAL, 0.0, 1000.0, 1.0)[0] == REASON_NO_AXIAL
+    assert load_direction_refusal(Kind.CYLINDRICAL, 0.0, 1000.0, 1.0, flanged_cylindrical=True) is None
+    assert load_direction_refusal(Kind.THRUST_ROLLER, 90.0, 1.0, 1e4)[0] == REASON_NO_RADIAL
+    assert load_direction_refusal(Kind.THRUST_ROLLER, 90.0, 0.0, 1e4) is None
+    for kind in (Kind.DEEP_GROOVE, Kind.ANGULAR_CONTACT, Kind.TAPERED, Kind.SPHERICAL):
+        assert load_direction_refusal(kind, 30.0, 1000.0, 5000.0) is None
+        assert load_direction_refusal(kind, 30.0, 0.0, 5000.0) is None
 
 
 def test_bad_request_is_an_input_error() -> None:

@@ -28,7 +28,7 @@ from .life import (
     fatigue_load_limit_estimate, kappa_in_range, life_hours, reference_viscosity,
     weibull_life_factor,
 )
-from .record import Derivation, InputError, StepWords
+from .record import Derivation, InputError, StepWords, fmt
 
 NAN = math.nan
 RELIABILITY_MODELS = ("iso281", "weibull")
@@ -264,7 +264,7 @@ def _dynamic_load(d: Derivation, case: CaseInputs, kind: Kind, arrangement: Arra
             symbol="P", label="Equivalent dynamic load",
             formula="P = V·Fr (α = 0)" if v != 1.0 else "P = Fr (α = 0)",
             template="{0} × {1:N}" if v != 1.0 else "{1:N}", args=(v, case.fr), unit="N",
-            source=factors.source),
+            source=factors.source, note=_cylindrical_axial_note(case)),
             warning=_cylindrical_axial_warning(case))
         d.results.update(e=NAN, X=1.0, Y=0.0)
         return
@@ -370,6 +370,15 @@ def _makers_y_note(case: CaseInputs, kind: Kind, arrangement: Arrangement) -> st
         return (f"maker's Y = {case.y_given:g} taken per row; the set's Y>e = (0.67/0.4)·Y and "
                 "Y≤e = (0.45/0.4)·Y (ISO 281 Table 3 ratios)")
     return f"maker's Y = {case.y_given:g} taken for the whole bearing, Fa/Fr > e"
+
+
+def _cylindrical_axial_note(case: CaseInputs) -> str | None:
+    """P leaves a cylindrical roller bearing's axial load out: the flanges carry it, and their
+    capacity is the maker's to state (ISO 281 rates the rollers only)."""
+    if case.fa <= 0.0:
+        return None
+    return (f"Fa = {fmt(case.fa)} N is not in P: flanges must carry it; check their axial "
+            "capacity with the maker's data")
 
 
 def _cylindrical_axial_warning(case: CaseInputs) -> str | None:
