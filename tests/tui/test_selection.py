@@ -9,13 +9,13 @@ from __future__ import annotations
 import threading
 
 import pytest
-from textual.widgets import DataTable, Input, Select
+from textual.widgets import Checkbox, DataTable, Input, Select
 
 from screen_host import ScreenHost, column_texts, cut_widgets, settled, tab_to, users
 from tui_helpers import selected_result
 from tui_sessions import rig_session
 
-from workbench.engine.select import Candidate, Filters, select
+from workbench.engine.select import REASON_NO_AXIAL, Candidate, Filters, select
 from workbench.model.catalog import catalog_bearing_texts, demo_catalog_path, load_catalog
 from workbench.model.session import Session, evaluate_case
 from workbench.tui import selection_screen
@@ -154,14 +154,49 @@ async def test_typing_goes_on_while_ranking_and_an_older_ranking_is_dropped(monk
         assert not table.has_class("-busy")
 
 
+async def test_a_kind_that_cannot_carry_the_axial_load_does_not_qualify_and_the_list_says_why() -> None:
+    # both Drive cases have Fa > 0: a cylindrical roller bearing carries it only on flanges
+    # (ISO 281:2007 §7.2 rates it on P = Fr), so it qualifies only once flanges are said to be there
+    catalog = load_catalog(demo_catalog_path())
+    app = host()
+    async with app.run_test(size=(80, 24)) as pilot:
+        await settled(pilot)
+        screen = app.screen
+        table = screen.query_one("#candidates", DataTable)
+        assert row_indices(table) == expected()
+        assert "cylindrical" not in {catalog.kinds[i] for i in row_indices(table)}
+        assert f"{catalog.kinds.count('cylindrical')} {REASON_NO_AXIAL}" in \
+            str(screen.query_one("#selection-summary").render())
+        detail = str(screen.query_one("#candidate-detail").render())
+        assert f"Not qualifying, {REASON_NO_AXIAL}: a cylindrical roller bearing" in detail
+        await tab_to(pilot, "filter-flanged")
+        await pilot.press("space")
+        await settled(pilot)
+        assert screen.query_one("#filter-flanged", Checkbox).value
+        flanged = expected(Filters(flanged_cylindrical=True))
+        assert row_indices(table) == flanged
+        assert "cylindrical" in {catalog.kinds[i] for i in flanged}
+        await tab_to(pilot, "candidates")
+        await pilot.press(*["down"] * [catalog.kinds[i] for i in flanged].index("cylindrical"))
+        detail = str(screen.query_one("#candidate-detail").render())
+        # the largest Fa of the Drive cases, 1 kN, is left to the flanges and the maker's data
+        assert "flanges carry Fa up to 1000 N" in detail and "maker's data" in detail
+        assert REASON_NO_AXIAL not in str(screen.query_one("#selection-summary").render())
+        assert cut_widgets(screen) == []
+
+
 async def test_enter_adopts_the_highlighted_row() -> None:
     app = host()
     async with app.run_test(size=(80, 24)) as pilot:
         await settled(pilot)
+        await tab_to(pilot, "filter-flanged")  # more candidates: cylindrical ones too
+        await pilot.press("space")
+        await settled(pilot)
+        await tab_to(pilot, "candidates")
         await pilot.press("down", "enter")
         await pilot.pause()
         catalog = load_catalog(demo_catalog_path())
-        index = expected()[1]
+        index = expected(Filters(flanged_cylindrical=True))[1]
         assert app.answers == [Adoption(catalog.designations[index],
                                         catalog_bearing_texts(catalog, index),
                                         f"{catalog.source}, row {catalog.rows[index]}")]

@@ -204,10 +204,8 @@ def load_direction_refusal(kind: Kind, alpha_deg: float | None, fr: float, fa: f
         if fr == 0.0:
             return REASON_NO_AXIAL, "a cylindrical roller bearing cannot carry a purely axial load"
         return REASON_NO_AXIAL, (
-            f"a cylindrical roller bearing takes axial load (Fa = {fmt(fa)} N) only on flanges, "
-            "and its life is rated on P = Fr alone (ISO 281:2007 §7.2); if yours has flanges "
-            "for it, allow flanged cylindrical bearings and check their axial capacity with the "
-            "maker's data")
+            f"a cylindrical roller bearing takes Fa = {fmt(fa)} N only on flanges, its life "
+            "rated on P = Fr (ISO 281:2007 §7.2); allow flanged ones if yours has them")
     if kind not in THRUST_KINDS or fr <= 0.0 or alpha_deg is None:
         return None
     words = KIND_WORDS[kind]
