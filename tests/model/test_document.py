@@ -264,6 +264,23 @@ def test_a_shaft_edit_moves_its_generated_cases() -> None:
     assert document.result(own).inputs.fr > fr_before  # more power through the pinion
 
 
+def test_a_bearing_only_a_shaft_uses_takes_its_ratings_through_a_generated_case() -> None:
+    # a new session: two bearings, one shaft on them, no own case (as a newcomer builds it)
+    document = Document(load_session(DEMO))
+    session = document.session
+    session.cases.clear()
+    session.reserved.pop("duty_cycles", None)
+    document = Document(session)
+    shaft = document.tables("shafts")[0]
+    generated = next(index for index in range(len(document.results))
+                     if document.case(index).bearing == shaft["bearing_a"])
+    assert document.generated_problem(generated) is not None  # its loads come from the shaft
+    assert document.set_field(generated, "fr", "1 kN") is not None  # refused: edit the shaft
+    assert document.set_field(generated, "c", "61.3 kN") is None  # the bearing's own field
+    assert session.bearing(shaft["bearing_a"]).texts["c"] == "61.3 kN"
+    assert document.result(generated).inputs.c == pytest.approx(61300.0)  # derived again
+
+
 @pytest.mark.parametrize(("text", "factor", "expected"), [
     ("3 kN", 1.05, "3.15 kN"),
     ("  1200 r/min", 0.5, "  600 r/min"),

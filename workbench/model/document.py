@@ -258,7 +258,7 @@ class Document:
         for index in again:
             self._own[index] = evaluate_case(self.session, cases[index], keep_steps=False)
             self._case_revision[index] = self.revision
-        if again and self._extras_reach(touch):
+        if (again or touch.bearings) and self._extras_reach(touch):  # a shaft's bearing may have no own case
             self._extras = None
         elif self._extras is not None:
             own = len(self._own)
@@ -318,7 +318,8 @@ class Document:
         return ("case", index, case.texts)
 
     def set_field(self, index: int, name: str, text: str) -> str | None:
-        """Write ``text`` into field ``name`` of case ``index`` if it is valid.
+        """Write ``text`` into field ``name`` of case ``index`` if it is valid (a bearing field
+        into the case's bearing, so even a case generated from a shaft takes those).
 
         None when written (or unchanged), else the message to show beside the field.  Valid
         means the unit edge reads it and the engine does not refuse the case because of this
@@ -326,8 +327,8 @@ class Document:
         """
         if name not in FIELD_BY_NAME:
             return "unknown input"
-        if (generated := self.generated_problem(index)) is not None:
-            return generated
+        if name not in BEARING_FIELDS and (generated := self.generated_problem(index)) is not None:
+            return generated  # a generated case's bearing fields are its bearing's: open
         owner = self._owner(index, name)
         if owner is None:
             return "no load case with a bearing is selected"

@@ -8,6 +8,7 @@ from __future__ import annotations
 import os
 import sys
 from pathlib import Path
+from typing import Any
 
 from textual.app import App
 from textual.binding import Binding
@@ -179,13 +180,14 @@ class WorkbenchApp(App[int]):
             [("recover", "Recover it"), ("ignore", "Open the file as saved")]), answered)
 
 
-def run_app(path: str | None) -> int:
-    """Run the workbench on the session file at ``path`` (None: the demo session); exit code."""
+def app_for(path: str | None, **options: Any) -> WorkbenchApp | str:
+    """The workbench as ``workbench [FILE]`` opens it: on the session file at ``path``, a new
+    session there when no file is (written on the first save), or the demo session (None);
+    ``options`` go to :class:`WorkbenchApp`.  The message to print when it cannot open."""
     if path is None:
         demo = files.demo_path()
         if demo is None:
-            print("workbench: the demo session is not available", file=sys.stderr)
-            return 2
+            return "the demo session is not available"
         outcome = files.open_session(demo)
         file_path = None  # the demo is read-only: the first save asks for a name
     else:
@@ -198,8 +200,15 @@ def run_app(path: str | None) -> int:
         else:
             outcome = files.open_session(file_path)
     if outcome.session is None:
-        print(f"workbench: {outcome.error}", file=sys.stderr)
+        return outcome.error or "the session could not be opened"
+    return WorkbenchApp(outcome.session, file_path, greeting=" ".join(outcome.messages), **options)
+
+
+def run_app(path: str | None) -> int:
+    """Run the workbench on the session file at ``path`` (None: the demo session); exit code."""
+    app = app_for(path)
+    if isinstance(app, str):
+        print(f"workbench: {app}", file=sys.stderr)
         return 2
-    app = WorkbenchApp(outcome.session, file_path, greeting=" ".join(outcome.messages))
     result = app.run()
     return result if isinstance(result, int) else 0

@@ -24,7 +24,7 @@ from textual.widgets import Checkbox, Input, Label, Select, Static
 
 from ..engine.kinds import ARRANGEMENTS, parse_kind
 from ..model.document import Document
-from ..model.fields import FIELD_BY_NAME, FieldError, FieldSpec, parse_field
+from ..model.fields import BEARING_FIELDS, FIELD_BY_NAME, FieldError, FieldSpec, parse_field
 from ..model.quantities import QUANTITIES
 from .choice_box import ChoiceBox
 from .field_box import FieldBox, FieldValidator
@@ -251,7 +251,7 @@ class CaseForm(VerticalScroll):
         if case is None:
             text = "No load case selected: add one with ctrl+n."
         elif read_only:
-            text = read_only
+            text = f"{read_only}. Its Bearing fields edit {case.bearing} itself."
         else:
             result = document.result(index)
             problem = None if result is None or result.derivation is not None else result.error
@@ -261,9 +261,9 @@ class CaseForm(VerticalScroll):
             note = self.query_one("#case-note", Static)
             note.update(text)
             note.set_class(bool(text), "-shown")
-        disabled = case is None or read_only is not None
         for name in FIELD_ORDER:
             control = self._controls[name]
+            disabled = case is None or (read_only is not None and name not in BEARING_FIELDS)
             if control.disabled != disabled:
                 control.disabled = disabled
             if name in self._notes:

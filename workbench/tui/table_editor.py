@@ -64,7 +64,16 @@ def parse_control_id(widget_id: str) -> tuple[tuple[str | int, ...], str]:
 
 
 class TableForm(VerticalScroll):
-    """The editor's form; built again (``recompose``) when rows come or go."""
+    """The editor's form; built again (``recompose``) when rows come or go.
+
+    ↑/↓ move between the fields, as everywhere else: a scroll container's own ↑/↓ (scroll by a
+    line) sit nearer the focused field than the screen's and used to win, so the form scrolled
+    and the focus stayed put."""
+
+    BINDINGS = [
+        Binding("down", "app.focus_next", show=False),
+        Binding("up", "app.focus_previous", show=False),
+    ]
 
     def __init__(self, editor: TableEditor, *, id: str | None = None) -> None:
         super().__init__(id=id)

@@ -22,7 +22,7 @@ from textual.lazy import Lazy
 from textual.reactive import var
 from textual.screen import Screen
 from textual.timer import Timer
-from textual.widgets import Header, Static, TabbedContent, TabPane
+from textual.widgets import DataTable, Header, Static, TabbedContent, TabPane
 
 from ..engine.record import InputError
 from ..engine.solve import NoSolution, Solution
@@ -141,6 +141,12 @@ class WorkbenchScreen(Screen[None]):
         self.document.end_run()
         self._changed(event.index)
         self._help_for_case()
+
+    @on(DataTable.RowSelected, "#cases")
+    def _case_entered(self, event: DataTable.RowSelected) -> None:
+        """Enter on a case goes to its inputs (as f4 does)."""
+        event.stop()
+        self.action_focus_editor()
 
     def _help_for_case(self) -> None:
         case = self.document.case(self.selected)
