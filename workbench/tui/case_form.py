@@ -166,7 +166,8 @@ class CaseForm(VerticalScroll):
         self.document = document
         self._notes: dict[str, str] = {}
         """Fields whose typed text was refused, with the message shown under them."""
-        self._shown_case: object = None
+        self._shown_case: tuple[int, str] | None = None
+        """The case on show, by its place in the list and its name."""
         self._loaded: dict[str, str] = {}
         """What each choice and switch was last loaded with (its text in the document)."""
         self._controls: dict[str, Widget] = {}
@@ -241,8 +242,9 @@ class CaseForm(VerticalScroll):
             return  # not mounted yet, or no view given yet: on_mount or the view loads
         document, index = self.document, self.view.selected
         case = document.case(index)
-        if case is not self._shown_case:
-            self._shown_case = case
+        shown = None if case is None else (index, case.name)
+        if shown != self._shown_case:  # by place and name: a shaft makes its cases anew on each edit
+            self._shown_case = shown
             self._notes.clear()
             self.query(".field-note").set(display=False)
         texts = document.texts(index)
