@@ -20,10 +20,13 @@ from textual.containers import Horizontal, VerticalScroll
 from textual.content import Content
 from textual.screen import Screen
 from textual.widget import Widget
-from textual.widgets import Footer, Input, Label, Select, Static
+from textual.widgets import Input, Label, Select, Static
 
 from ..model.document import Document
 from .choice_box import ChoiceBox
+from .line_pane import LinePane
+from .field_box import FieldBox
+from .key_footer import KeyFooter
 
 Choices = tuple[str, ...] | str | None
 """A field's options: None typed, a tuple of fixed choices ("" = blank allowed), or the name of
@@ -121,6 +124,7 @@ class TableEditor(Screen[None]):
         super().__init__()
         self.document = document
         self.index = index
+        self._title = ""
 
     # ---- the form -----------------------------------------------------------------------
     @property
@@ -139,9 +143,8 @@ class TableEditor(Screen[None]):
         yield Static(id="editor-title")
         with Horizontal():
             yield TableForm(self, id="table-form")
-            with VerticalScroll(id="table-results"):
-                yield Static(id="results-text")
-        yield Footer()
+            yield LinePane(id="table-results")
+        yield KeyFooter()
 
     def form_widgets(self) -> ComposeResult:
         table = self.table
@@ -181,7 +184,7 @@ class TableEditor(Screen[None]):
     def _control(self, field: Field, where: tuple[str | int, ...], value: str) -> Widget:
         widget_id = control_id(where, field.key)
         if field.choices is None:
-            return Input(value, id=widget_id, compact=True, tooltip=field.hint or None)
+            return FieldBox(value, id=widget_id, compact=True, tooltip=field.hint or None)
         options = self._options(field.choices)
         if value and value not in options:
             options.append(value)
@@ -301,10 +304,12 @@ class TableEditor(Screen[None]):
     def _show(self) -> None:
         if self.gone:
             return
-        self.query_one("#editor-title", Static).update(
-            f"{self.TITLE_WORD.capitalize()}: {self.table.get('name', '')}   "
-            f"(results follow as you type; esc goes back)")
-        self.query_one("#results-text", Static).update(Content("\n").join(self.results()))
+        title = (f"{self.TITLE_WORD.capitalize()}: {self.table.get('name', '')}   "
+                 "(results follow as you type; esc goes back)")
+        if title != self._title:  # an update lays the screen out: only on a change
+            self._title = title
+            self.query_one("#editor-title", Static).update(title)
+        self.query_one("#table-results", LinePane).show_lines(self.results())
 
     def results(self) -> list[Content]:
         """What the analysis makes of the table now, line by line."""
