@@ -153,9 +153,17 @@ class TableEditor(Screen[None]):
         yield from self.extra_groups(table)
         for rows in self.ROWS:
             for number, row in enumerate(table.get(rows.key, [])):
-                title = f"{rows.title} {number + 1}: {row.get('name', row.get('case', ''))}"
-                yield Static(title, classes="group-title")
+                yield Static(self._row_title(rows, number, row), classes="group-title",
+                             id=self._title_id(rows.key, number))
                 yield from self._rows_of(self.row_fields(rows, row), (rows.key, number), row)
+
+    @staticmethod
+    def _row_title(rows: Rows, number: int, row: dict[str, str]) -> str:
+        return f"{rows.title} {number + 1}: {row.get('name', row.get('case', ''))}"
+
+    @staticmethod
+    def _title_id(key: str, number: int) -> str:
+        return SEP.join(["title", key, str(number)])
 
     def extra_groups(self, table: dict[str, Any]) -> ComposeResult:
         """More groups after the table's own fields (a shaft's case inputs)."""
@@ -215,6 +223,11 @@ class TableEditor(Screen[None]):
             return
         where, key = parse_control_id(widget_id)
         self.document.set_table_text(self.TABLES, self.index, where, key, text)
+        if key in ("name", "case") and len(where) == 2:  # a row's title names it
+            rows = next(r for r in self.ROWS if r.key == where[0])
+            row = self.table.get(rows.key, [])[int(where[1])]
+            self.query_one(f"#{self._title_id(rows.key, int(where[1]))}", Static).update(
+                self._row_title(rows, int(where[1]), row))
         self._show()
 
     @on(Input.Changed)
