@@ -126,6 +126,24 @@ class Solved:
     solution: Solution
 
 
+def _cases_named_by(cycles: object) -> set[str] | None:
+    """The case names the ``[[duty_cycles]]`` tables' states give, or None where the tables
+    do not read as written (then everything is worked out again)."""
+    if not isinstance(cycles, list):
+        return None
+    named: set[str] = set()
+    for cycle in cycles:
+        states = cycle.get("states") if isinstance(cycle, dict) else None
+        if not isinstance(states, list):
+            return None
+        for state in states:
+            case = state.get("case") if isinstance(state, dict) else None
+            if not isinstance(case, str):
+                return None
+            named.add(case)
+    return named
+
+
 @dataclass
 class Document:
     """A session under edit: its file, revision, undo and redo, and its analysis."""
@@ -265,18 +283,29 @@ class Document:
             self._extras = replace(self._extras, cases=self._own + self._extras.cases[own:])
 
     def _extras_reach(self, touch: Touch) -> bool:
-        """Whether shafts, generated cases or duty cycles can depend on what ``touch`` names."""
+        """Whether shafts, generated cases or duty cycles can depend on what ``touch`` names:
+        a shaft carried on a touched bearing, or a duty cycle naming a touched case (a case
+        touched itself or through its bearing).  Tables that do not read as written are
+        worked out again on any change."""
         reserved = self.session.reserved
-        if reserved.get("duty_cycles"):
-            return True  # a cycle names cases: few cycles, so any change works them out again
         shafts = reserved.get("shafts")
-        if not shafts:
+        if shafts:
+            if not isinstance(shafts, list):
+                return True
+            carried = {table.get(side) for table in shafts if isinstance(table, dict)
+                       for side in ("bearing_a", "bearing_b")}
+            if carried & set(touch.bearings):
+                return True
+        cycles = reserved.get("duty_cycles")
+        if not cycles:
             return False
-        if not isinstance(shafts, list):
+        named = _cases_named_by(cycles)
+        if named is None:
             return True
-        carried = {table.get(side) for table in shafts if isinstance(table, dict)
-                   for side in ("bearing_a", "bearing_b")}
-        return bool(carried & set(touch.bearings))
+        cases = self.session.cases
+        touched = {cases[index].name for index in touch.cases if 0 <= index < len(cases)}
+        touched |= {case.name for case in cases if case.bearing in touch.bearings}
+        return bool(named & touched)
 
     # ---- undo ---------------------------------------------------------------------------
     def _swap(self, source: list[Step], target: list[Step]) -> Undone | None:

@@ -25,13 +25,15 @@ MIN_WRAP = 10
 
 class _WrappedLine:
     """One line wrapped to the pane's width; each part is painted (turned into a strip) the first
-    time it comes on show."""
+    time it comes on show, and kept as last shown (a key redraws the pane, but most of its lines
+    are shown where they were)."""
 
-    __slots__ = ("parts", "strips")
+    __slots__ = ("parts", "strips", "shown")
 
     def __init__(self, parts: list[Content]) -> None:
         self.parts = parts
         self.strips: list[Strip | None] = [None] * len(parts)
+        self.shown: list[tuple[tuple[object, ...], Strip] | None] = [None] * len(parts)
 
     def strip(self, part: int, style: Style) -> Strip:
         """The painted ``part``."""
@@ -136,5 +138,11 @@ class LinePane(ScrollView, can_focus=True):
         if index >= len(self._rows):
             return Strip.blank(width, style)
         wrapped, part = self._rows[index]
+        place = (scroll_x, index, width, style)
+        shown = wrapped.shown[part]
+        if shown is not None and shown[0] == place:
+            return shown[1]
         line = Strip.join([Strip.blank(INDENT, style), wrapped.strip(part, self.visual_style)])
-        return line.crop_extend(scroll_x, scroll_x + width, style).apply_offsets(scroll_x, index)
+        painted = line.crop_extend(scroll_x, scroll_x + width, style).apply_offsets(scroll_x, index)
+        wrapped.shown[part] = (place, painted)
+        return painted
