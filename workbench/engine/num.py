@@ -41,6 +41,12 @@ def is_number(value: object) -> bool:
     return isinstance(value, np.ndarray) or (isinstance(value, numbers.Real) and not isinstance(value, bool))
 
 
+@overload
+def as_number(value: float) -> float: ...
+@overload
+def as_number(value: FloatArray) -> FloatArray: ...
+@overload
+def as_number(value: object) -> Num: ...
 def as_number(value: object) -> Num:
     """``value`` as a float, or as a float array when it is an array; TypeError or ValueError for
     anything else (a bool included)."""
