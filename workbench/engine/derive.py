@@ -319,11 +319,12 @@ def _factor_words(symbol: str, label: str, factors: DynamicFactors[float], colum
     3 Y≤e of a pair), or the closed form or fixed row that gave it."""
     value = factors.e if column == 1 else (factors.y_high if column == 2 else factors.y_low)
     columns = factors.columns
-    if not tabulated or columns is None or columns[column] is None:
+    read = None if columns is None else columns[column]
+    if not tabulated or columns is None or read is None:
         return StepWords(symbol=symbol, label=label, formula=factors.basis, template="{0}",
                          args=(value,), source=factors.source, note=note)
-    words = table_lookup(symbol, factors.index_formula, float(factors.index), columns[0],
-                         columns[column], "Table 3")  # type: ignore[arg-type]
+    words = table_lookup(symbol, factors.index_formula, float(factors.index), columns[0], read,
+                         "Table 3")
     notes = "; ".join(n for n in (words.note, note) if n) or None
     return StepWords(symbol=symbol, label=label, formula=f"{factors.basis}: {words.formula}",
                      template=words.template, args=words.args, source=factors.source, note=notes)

@@ -30,7 +30,7 @@ import math
 from dataclasses import dataclass
 from typing import Generic, Literal
 
-from .num import Num, NumT, cosd, extremes, is_number, sind, tand
+from .num import NumT, cosd, extremes, is_number, sind, tand
 from .record import InputError
 
 #: Shaft-load factor f in F = f·Wt for belt and chain drives, with the usual spread [common

@@ -475,7 +475,8 @@ def _rate_radial_ball(record: Derivation, g: BearingGeometry, gamma: float, bm: 
 
 def _rate_radial_roller(record: Derivation, g: BearingGeometry, gamma: float, bm: float, fc: float) -> None:
     """Steps Cr, f0 (the ISO 76 factor 44·(1 − γ)), C0r of a radial roller bearing."""
-    lwe = float(g.lwe)  # type: ignore[arg-type]  # present: checked by _check_layout
+    assert g.lwe is not None  # checked by _check_layout
+    lwe = float(g.lwe)
     record.add("C", _radial_roller_c(g.i, g.z, g.dw, lwe, g.alpha_deg, bm, fc), symbol="Cr",
                label="basic dynamic radial load rating",
                formula="Cr = bm·fc·(i·Lwe·cos α)^(7/9)·Z^(3/4)·Dwe^(29/27)",
@@ -494,7 +495,8 @@ def _rate_radial_roller(record: Derivation, g: BearingGeometry, gamma: float, bm
 
 def _rate_thrust_ball(record: Derivation, g: BearingGeometry, gamma: float, bm: float, fc: float) -> None:
     """Steps Ca, f0 (given), C0a of a thrust ball bearing, α = 90°."""
-    f0 = float(g.f0)  # type: ignore[arg-type]  # present: checked by _check_layout
+    assert g.f0 is not None  # checked by _check_layout
+    f0 = float(g.f0)
     if g.dw <= tables.BALL_DIAMETER_SWITCH_MM:
         formula = "Ca = bm·fc·Z^(2/3)·Dw^1.8  (α = 90°, Dw ≤ 25.4 mm)"
         template = "Ca = {0}·{1}·{2}^(2/3)·{3}^1.8"
@@ -514,7 +516,8 @@ def _rate_thrust_ball(record: Derivation, g: BearingGeometry, gamma: float, bm: 
 
 def _rate_thrust_roller(record: Derivation, g: BearingGeometry, gamma: float, bm: float, fc: float) -> None:
     """Steps Ca, f0 (the ISO 76 factor 220·(1 − Dwe·cos α/Dpw)), C0a of a thrust roller bearing."""
-    lwe = float(g.lwe)  # type: ignore[arg-type]  # present: checked by _check_layout
+    assert g.lwe is not None  # checked by _check_layout
+    lwe = float(g.lwe)
     record.add("C", _thrust_roller_c(g.z, g.dw, lwe, bm, fc), symbol="Ca",
                label="basic dynamic axial load rating",
                formula="Ca = bm·fc·Lwe^(7/9)·Z^(3/4)·Dwe^(29/27)  (α = 90°)",
