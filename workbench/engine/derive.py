@@ -313,17 +313,18 @@ def _dynamic_load(d: Derivation, case: CaseInputs, kind: Kind, arrangement: Arra
             source=_LOAD_CLAUSE[kind]))
 
 
-def _factor_words(symbol: str, label: str, factors: DynamicFactors, column: int, tabulated: bool,
+def _factor_words(symbol: str, label: str, factors: DynamicFactors[float], column: int, tabulated: bool,
                   note: str | None = None) -> StepWords:
     """e or Y: read from its Table 3 column with the bracketing rows (``column`` 1 e, 2 Y>e,
     3 Y≤e of a pair), or the closed form or fixed row that gave it."""
     value = factors.e if column == 1 else (factors.y_high if column == 2 else factors.y_low)
     columns = factors.columns
-    if not tabulated or columns is None or columns[column] is None:
+    read = None if columns is None else columns[column]
+    if not tabulated or columns is None or read is None:
         return StepWords(symbol=symbol, label=label, formula=factors.basis, template="{0}",
                          args=(value,), source=factors.source, note=note)
-    words = table_lookup(symbol, factors.index_formula, float(factors.index), columns[0],
-                         columns[column], "Table 3")  # type: ignore[arg-type]
+    words = table_lookup(symbol, factors.index_formula, float(factors.index), columns[0], read,
+                         "Table 3")
     notes = "; ".join(n for n in (words.note, note) if n) or None
     return StepWords(symbol=symbol, label=label, formula=f"{factors.basis}: {words.formula}",
                      template=words.template, args=words.args, source=factors.source, note=notes)
@@ -347,7 +348,7 @@ def _rotation_step(d: Derivation, kind: Kind, v: float) -> None:
         warning=f"outer ring rotation ignored: {refusal}; V = 1 used")
 
 
-def _index_words(case: CaseInputs, arrangement: Arrangement, factors: DynamicFactors) -> StepWords:
+def _index_words(case: CaseInputs, arrangement: Arrangement, factors: DynamicFactors[float]) -> StepWords:
     """The Table 3 index step: i·f0·Fa/C0r with f0 known, else the printed i·Fa/C0r column."""
     rows = 2.0 if arrangement in _PAIRED_ARRANGEMENTS else 1.0
     formula = factors.index_formula
@@ -456,18 +457,20 @@ def _reliability_words(case: CaseInputs) -> StepWords:
 
 def operating_viscosity(d: Derivation, case: CaseInputs) -> float | None:
     """ν at operating temperature: given directly, or from ISO VG and VI (ISO 3448, ASTM D341)."""
-    if case.nu is not None:
-        return d.derived("nu", case.nu, lambda: StepWords(
+    given = case.nu  # named, so the check below holds inside the lambda too
+    if given is not None:
+        return d.derived("nu", given, lambda: StepWords(
             symbol="ν", label="Operating viscosity", formula="given", template="{0:mm²/s}",
-            args=(case.nu,), unit="mm²/s", source="input"))
-    if case.vg is None or case.temp is None:
+            args=(given,), unit="mm²/s", source="input"))
+    temp_c = case.temp
+    if case.vg is None or temp_c is None:
         return None
     nu40 = viscosity.nu40_of_grade(case.vg)
     vi = 100.0 if case.vi is None else case.vi
     nu100 = case.nu100 if case.nu100 is not None else viscosity.nu100_from_viscosity_index(nu40, vi)
-    nu = viscosity.viscosity_at_temperature(nu40, nu100, case.temp)
+    nu = viscosity.viscosity_at_temperature(nu40, nu100, temp_c)
     walther_a, walther_b = viscosity.walther_constants(nu40, nu100)
-    kelvin = case.temp + viscosity.KELVIN_OFFSET
+    kelvin = temp_c + viscosity.KELVIN_OFFSET
     d.derived("nu40", nu40, lambda: StepWords(
         symbol="ν40", label="Viscosity at 40 °C", formula=f"ISO VG {case.vg:g} midpoint",
         template="{0:mm²/s}", args=(nu40,), unit="mm²/s", source="ISO 3448"))
@@ -482,7 +485,7 @@ def operating_viscosity(d: Derivation, case: CaseInputs) -> float | None:
             note="VI 100 assumed (no VI given)" if case.vi is None else None))
     d.derived("T", kelvin, lambda: StepWords(
         symbol="T", label="Operating temperature, absolute", formula="T = t + 273.15",
-        template="{0:°C+}", args=(case.temp,), unit="K", source="ASTM D341 (T in kelvin)"))
+        template="{0:°C+}", args=(temp_c,), unit="K", source="ASTM D341 (T in kelvin)"))
     return d.derived("nu", nu, lambda: StepWords(
         symbol="ν", label="Operating viscosity (ASTM D341)",
         formula="ν = 10^(10^(A − B·log10 T)) − 0.7",

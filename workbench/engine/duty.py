@@ -106,7 +106,8 @@ def mean_equivalent_load(loads: Sequence[float], shares: Sequence[float], p: flo
     weights = revolution_shares(shares, speeds, share_basis)
     if len(weights) != len(load):
         raise InputError("shares", f"needs one share per state ({len(load)}), got {len(weights)}")
-    return math.fsum(u * f ** p for u, f in zip(weights, load)) ** (1.0 / p)
+    mean: float = math.fsum(u * f ** p for u, f in zip(weights, load)) ** (1.0 / p)
+    return mean
 
 
 def miner_life(lives: Sequence[float], shares: Sequence[float]) -> MinerLife:

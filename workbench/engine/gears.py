@@ -28,9 +28,9 @@ from __future__ import annotations
 
 import math
 from dataclasses import dataclass
-from typing import Literal
+from typing import Generic, Literal
 
-from .num import Num, cosd, extremes, is_number, sind, tand
+from .num import NumT, cosd, extremes, is_number, sind, tand
 from .record import InputError
 
 #: Shaft-load factor f in F = f·Wt for belt and chain drives, with the usual spread [common
@@ -46,25 +46,25 @@ V_BELT_PULL_FACTOR = BELT_PULL_FACTORS["v_belt"][0]
 
 
 @dataclass(frozen=True, slots=True)
-class MeshForces:
+class MeshForces(Generic[NumT]):
     """Tangential Wt, radial Wr (magnitudes) and axial Wa (signed, see module notes), in N."""
 
-    tangential: Num
-    radial: Num
-    axial: Num
+    tangential: NumT
+    radial: NumT
+    axial: NumT
 
 
 @dataclass(frozen=True, slots=True)
-class BeltPull:
+class BeltPull(Generic[NumT]):
     """Resultant pull of a belt or chain on its shaft, in N, and its y and z components."""
 
-    force: Num
-    fy: Num
-    fz: Num
+    force: NumT
+    fy: NumT
+    fz: NumT
 
 
-def checked(field_name: str, value: Num, *, low: float | None = None, high: float | None = None,
-            low_open: bool = False, high_open: bool = False) -> Num:
+def checked(field_name: str, value: NumT, *, low: float | None = None, high: float | None = None,
+            low_open: bool = False, high_open: bool = False) -> NumT:
     """``value`` if it is finite and within the bounds given, else an InputError for ``field_name``.
 
     Works on a float or on every element of a numpy array.
@@ -85,30 +85,30 @@ def checked(field_name: str, value: Num, *, low: float | None = None, high: floa
     return value
 
 
-def tangential_load(torque_Nm: Num, diameter_mm: Num) -> Num:
+def tangential_load(torque_Nm: NumT, diameter_mm: NumT) -> NumT:
     """Wt = T/(d/2) in N, T in N·m and d in mm (gear-force relations; also the belt effective pull)."""
     checked("torque", torque_Nm, low=0.0)
     checked("diameter", diameter_mm, low=0.0, low_open=True)
     return 2000.0 * torque_Nm / diameter_mm
 
 
-def torque_from_power(power_W: Num, speed_rpm: Num) -> Num:
+def torque_from_power(power_W: NumT, speed_rpm: NumT) -> NumT:
     """T = P/ω in N·m with ω = 2π·n/60 (power P in W, speed n in r/min)."""
     checked("power", power_W, low=0.0)
     checked("speed", speed_rpm, low=0.0, low_open=True)
     return power_W * 60.0 / (2.0 * math.pi * speed_rpm)
 
 
-def spur_forces(torque_Nm: Num, pitch_diameter_mm: Num, pressure_angle_deg: Num) -> MeshForces:
+def spur_forces(torque_Nm: NumT, pitch_diameter_mm: NumT, pressure_angle_deg: NumT) -> MeshForces[NumT]:
     """Spur gear: Wt = T/(d/2), Wr = Wt·tan φ, Wa = 0 (gear-force relations, spur gears)."""
     checked("pressure_angle", pressure_angle_deg, low=0.0, high=90.0, low_open=True, high_open=True)
     wt = tangential_load(torque_Nm, pitch_diameter_mm)
     return MeshForces(wt, wt * tand(pressure_angle_deg), 0.0 * wt)
 
 
-def helical_forces(torque_Nm: Num, pitch_diameter_mm: Num, normal_pressure_angle_deg: Num,
-                   helix_angle_deg: Num, hand: Literal["left", "right"], driving: bool,
-                   *, rotation: int = 1) -> MeshForces:
+def helical_forces(torque_Nm: NumT, pitch_diameter_mm: NumT, normal_pressure_angle_deg: NumT,
+                   helix_angle_deg: NumT, hand: Literal["left", "right"], driving: bool,
+                   *, rotation: int = 1) -> MeshForces[NumT]:
     """Helical gear: Wt = T/(d/2), Wr = Wt·tan φn/cos ψ, Wa = ±Wt·tan ψ (helical gear force relations).
 
     ``d`` is the transverse pitch diameter.  The sign of Wa follows the module's shaft-frame
@@ -127,8 +127,8 @@ def helical_forces(torque_Nm: Num, pitch_diameter_mm: Num, normal_pressure_angle
     return MeshForces(wt, radial, sign * wt * tand(helix_angle_deg))
 
 
-def straight_bevel_forces(torque_Nm: Num, mean_pitch_diameter_mm: Num, pressure_angle_deg: Num,
-                          pitch_cone_angle_deg: Num) -> MeshForces:
+def straight_bevel_forces(torque_Nm: NumT, mean_pitch_diameter_mm: NumT, pressure_angle_deg: NumT,
+                          pitch_cone_angle_deg: NumT) -> MeshForces[NumT]:
     """Straight bevel gear: Wt at the mean pitch radius, Wr = Wt·tan φ·cos γ, Wa = Wt·tan φ·sin γ.
 
     Gear-force relations for straight bevel gears; Wa is the magnitude of the thrust, which points
@@ -142,8 +142,8 @@ def straight_bevel_forces(torque_Nm: Num, mean_pitch_diameter_mm: Num, pressure_
                       separating * sind(pitch_cone_angle_deg))
 
 
-def belt_pull(torque_Nm: Num, pulley_diameter_mm: Num, factor: Num = V_BELT_PULL_FACTOR,
-              direction_deg: Num = 0.0) -> BeltPull:
+def belt_pull(torque_Nm: NumT, pulley_diameter_mm: NumT, factor: float = V_BELT_PULL_FACTOR,
+              direction_deg: float = 0.0) -> BeltPull[NumT]:
     """Shaft load of a belt or chain drive: F = f·2T/D, resolved at ``direction_deg`` in the y–z plane.
 
     ``f`` is the shaft-load factor (:data:`BELT_PULL_FACTORS`, common practice; default the V-belt
@@ -155,7 +155,7 @@ def belt_pull(torque_Nm: Num, pulley_diameter_mm: Num, factor: Num = V_BELT_PULL
     return BeltPull(force, force * cosd(direction_deg), force * sind(direction_deg))
 
 
-def bevel_axial_load(thrust: Num, apex: Literal["A", "B"]) -> Num:
+def bevel_axial_load(thrust: NumT, apex: Literal["A", "B"]) -> NumT:
     """A straight bevel gear's thrust Wa (a magnitude) signed in the shaft frame, in N.
 
     The thrust points from the pitch-cone apex toward the back cone (gear-force relations for
@@ -166,8 +166,8 @@ def bevel_axial_load(thrust: Num, apex: Literal["A", "B"]) -> Num:
     return -thrust if apex == "B" else thrust
 
 
-def mesh_force_components(tangential: Num, radial: Num, mesh_angle_deg: Num, *, rotation: int,
-                          driving: bool) -> tuple[Num, Num]:
+def mesh_force_components(tangential: NumT, radial: NumT, mesh_angle_deg: NumT, *, rotation: int,
+                          driving: bool) -> tuple[NumT, NumT]:
     """(Fy, Fz): a mesh's loads on the shaft resolved in the y–z plane of the shaft frame, in N.
 
     Fy = −Wr·cos θ − s·Wt·sin θ and Fz = −Wr·sin θ + s·Wt·cos θ, with θ the direction of the mesh

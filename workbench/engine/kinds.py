@@ -10,10 +10,10 @@ from __future__ import annotations
 import math
 from dataclasses import dataclass
 from enum import StrEnum
-from typing import NamedTuple
+from typing import Generic, NamedTuple, TypeVar, overload
 
 from . import tables as T
-from .num import Num, interp, safe_ratio, tand, where
+from .num import BoolArray, FloatArray, Num, Truth, interp, safe_ratio, tand, where
 from .record import InputError
 
 
@@ -144,24 +144,29 @@ def life_exponent(kind: Kind) -> float:
     return 10.0 / 3.0 if kind in ROLLER_KINDS else 3.0
 
 
+FactorT = TypeVar("FactorT", bound=Num, covariant=True)
+"""What :class:`DynamicFactors` holds: ``float`` when found for one load (the derivation),
+``Num`` in a catalog sweep (a table kind's e and Y are arrays there, a fixed angle's are floats)."""
+
+
 @dataclass(slots=True)
-class DynamicFactors:
+class DynamicFactors(Generic[FactorT]):
     """e and the X, Y pair on each side of it, plus how they were found.
 
     ``basis`` says which table or relation gave them; ``index`` is the table index used (NaN when
     there is none) and ``clamped`` is -1/0/+1 when the index fell below / inside / above the table.
     """
 
-    e: Num
-    x_low: Num
-    y_low: Num
-    x_high: Num
-    y_high: Num
+    e: FactorT
+    x_low: FactorT
+    y_low: FactorT
+    x_high: FactorT
+    y_high: FactorT
     basis: str
     source: str
-    index: Num = math.nan
+    index: FactorT | float = math.nan  # a float (NaN) where no table was read
     index_formula: str = ""
-    clamped: Num = 0
+    clamped: FactorT | float = 0
     columns: tuple[tuple[float, ...], tuple[float, ...], tuple[float, ...],
                    tuple[float, ...] | None] | None = None
     """(index, e, Y>e, Y≤e or None) columns of the Table 3 block read, for showing the rows."""
@@ -177,6 +182,14 @@ def contact_angle_from_e(e: float) -> float:
     return math.degrees(math.atan(e / 1.5))
 
 
+@overload
+def dynamic_factors(kind: Kind, arrangement: Arrangement, alpha_deg: float, fa: float = 0.0,
+                    c0: float = 1.0, f0: float | None = None, e_given: float | None = None,
+                    y_given: float | None = None) -> DynamicFactors[float]: ...
+@overload
+def dynamic_factors(kind: Kind, arrangement: Arrangement, alpha_deg: float, fa: Num = 0.0,
+                    c0: Num = 1.0, f0: Num | None = None, e_given: float | None = None,
+                    y_given: float | None = None) -> DynamicFactors[Num]: ...
 def dynamic_factors(
     kind: Kind,
     arrangement: Arrangement,
@@ -186,7 +199,7 @@ def dynamic_factors(
     f0: Num | None = None,
     e_given: float | None = None,
     y_given: float | None = None,
-) -> DynamicFactors:
+) -> DynamicFactors[Num]:
     """e, X and Y for the kind (ISO 281:2007 Table 3 family).
 
     Deep-groove and 15° angular-contact bearings read e and Y from the table by f0·Fa/C0r, or,
@@ -259,7 +272,7 @@ def _index(fa: Num, c0: Num, f0: Num | None, block: TableBlock,
 
 
 def _table_factors(fa: Num, c0: Num, f0: Num | None, block: TableBlock, *, x_high: float,
-                   rows: float, x_low: float, y_low: Num, what: str, source: str) -> DynamicFactors:
+                   rows: float, x_low: float, y_low: Num, what: str, source: str) -> DynamicFactors[Num]:
     """Linear interpolation of e and Y in a Table 3 block, clamped (and flagged) at its ends;
     Y≤e from its own column where the block has one, else ``y_low``."""
     index, formula, xp = _index(fa, c0, f0, block, rows)
@@ -296,7 +309,7 @@ def makers_y_is_per_row(kind: Kind, arrangement: Arrangement) -> bool:
 
 
 def _angle_factors(kind: Kind, arrangement: Arrangement, alpha_deg: float,
-                   e_given: float | None, y_given: float | None) -> DynamicFactors:
+                   e_given: float | None, y_given: float | None) -> DynamicFactors[float]:
     """Self-aligning ball, tapered and spherical roller: e = 1.5·tan α, Y ∝ cot α (Table 3).
 
     The maker's e replaces 1.5·tan α; the maker's Y replaces Y>e — for a tapered pair or
@@ -322,7 +335,7 @@ def _angle_factors(kind: Kind, arrangement: Arrangement, alpha_deg: float,
     return DynamicFactors(e, x_low, y_low, high_x, y_high, basis, source)
 
 
-def makers_factor_warnings(factors: DynamicFactors, kind: Kind, arrangement: Arrangement,
+def makers_factor_warnings(factors: DynamicFactors[float], kind: Kind, arrangement: Arrangement,
                            alpha_deg: float | None, e_given: float | None,
                            y_given: float | None) -> list[str]:
     """Where the maker's e and Y disagree with each other or with the contact angle.
@@ -359,7 +372,7 @@ def makers_factor_warnings(factors: DynamicFactors, kind: Kind, arrangement: Arr
     return warnings
 
 
-def _thrust_factors(kind: Kind, alpha_deg: float) -> DynamicFactors:
+def _thrust_factors(kind: Kind, alpha_deg: float) -> DynamicFactors[float]:
     """Thrust bearings: α = 90° gives P = Fa; α < 90° has only the Fa/Fr > e branch (Table 3)."""
     if abs(alpha_deg - 90.0) < 1e-9:
         return DynamicFactors(0.0, 0.0, 1.0, 0.0, 1.0, "α = 90°: P = Fa",
@@ -398,8 +411,17 @@ def rotation_factor_refusal(kind: Kind) -> str | None:
     return None
 
 
-def equivalent_dynamic_load(factors: DynamicFactors, fr: Num, fa: Num,
-                            v: Num = 1.0) -> tuple[Num, Num, Num]:
+@overload
+def equivalent_dynamic_load(factors: DynamicFactors[float], fr: float, fa: float,
+                            v: float = 1.0) -> tuple[float, float, bool]: ...
+@overload
+def equivalent_dynamic_load(factors: DynamicFactors[Num], fr: FloatArray, fa: Num,
+                            v: Num = 1.0) -> tuple[FloatArray, FloatArray, BoolArray]: ...
+@overload
+def equivalent_dynamic_load(factors: DynamicFactors[Num], fr: Num, fa: Num,
+                            v: Num = 1.0) -> tuple[Num, Num, Truth]: ...
+def equivalent_dynamic_load(factors: DynamicFactors[Num], fr: Num, fa: Num,
+                            v: Num = 1.0) -> tuple[Num, Num, Truth]:
     """P = X·V·Fr + Y·Fa with X, Y from the side of e that Fa/(V·Fr) falls on (ISO 281:2007 §6).
 
     Returns ``(P, ratio, high)`` where ``high`` is true on the Fa/(V·Fr) > e branch.  Fr = 0 with
@@ -412,8 +434,14 @@ def equivalent_dynamic_load(factors: DynamicFactors, fr: Num, fa: Num,
     return x * v * fr + y * fa, ratio, high
 
 
-def dynamic_load(kind: Kind, factors: DynamicFactors, fr: Num, fa: Num,
-                 v: Num = 1.0) -> tuple[Num, Num, Num, Num]:
+@overload
+def dynamic_load(kind: Kind, factors: DynamicFactors[float], fr: float, fa: float,
+                 v: float = 1.0) -> tuple[float, float, bool, bool]: ...
+@overload
+def dynamic_load(kind: Kind, factors: DynamicFactors[Num], fr: FloatArray, fa: Num,
+                 v: Num = 1.0) -> tuple[FloatArray, FloatArray, BoolArray, Truth]: ...
+def dynamic_load(kind: Kind, factors: DynamicFactors[Num], fr: Num, fa: Num,
+                 v: Num = 1.0) -> tuple[Num, Num, Truth, Truth]:
     """P for ``kind``: V·Fr for a cylindrical roller bearing (α = 0, ISO 281:2007 §7.2), else
     :func:`equivalent_dynamic_load` (ISO 281:2007 §5.2–§8.2).
 
@@ -470,7 +498,11 @@ def static_factors(kind: Kind, arrangement: Arrangement, alpha_deg: float) -> St
     return StaticFactors(0.5, 0.22 * cot_a, True, f"{static_clause(kind)} (radial roller, single row)")
 
 
-def equivalent_static_load(factors: StaticFactors, fr: Num, fa: Num) -> tuple[Num, Num]:
+@overload
+def equivalent_static_load(factors: StaticFactors, fr: float, fa: float) -> tuple[float, bool]: ...
+@overload
+def equivalent_static_load(factors: StaticFactors, fr: FloatArray, fa: FloatArray) -> tuple[FloatArray, Truth]: ...
+def equivalent_static_load(factors: StaticFactors, fr: Num, fa: Num) -> tuple[Num, Truth]:
     """P0 = X0·Fr + Y0·Fa, and P0 = Fr for radial bearings when that is larger (ISO 76:2006 §5.2, §7.2).
 
     Returns ``(P0, floored)`` where ``floored`` is true where the P0 ≥ Fr rule applied.

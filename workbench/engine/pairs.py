@@ -30,7 +30,7 @@ from typing import Literal
 
 from .gears import checked
 from .kinds import Arrangement, DynamicFactors, Kind, dynamic_factors
-from .num import Num, safe_ratio
+from .num import NumT, safe_ratio
 from .record import Derivation, InputError, fmt
 
 Mounting = Literal["O", "X"]
@@ -42,7 +42,7 @@ SHARING_SOURCE = "two-bearing thrust-sharing rule: shaft axial equilibrium with 
 PAIR_ITERATIONS = 100
 
 
-def induced_thrust_tapered(fr: Num, y: Num) -> Num:
+def induced_thrust_tapered(fr: NumT, y: NumT) -> NumT:
     """Induced axial component of a single-row tapered roller bearing, Fi = Fr/(2Y).
 
     ISO-form relation with Y the bearing's axial load factor for Fa/Fr > e (ISO 281:2007 §6
@@ -53,7 +53,7 @@ def induced_thrust_tapered(fr: Num, y: Num) -> Num:
     return fr / (2.0 * y)
 
 
-def induced_thrust_angular_contact(fr: Num, e: Num, *, factor: Num | None = None) -> Num:
+def induced_thrust_angular_contact(fr: NumT, e: NumT, *, factor: NumT | None = None) -> NumT:
     """Induced axial component of a single-row angular-contact ball bearing, Fi = e·Fr.
 
     Taking the limiting ratio e of ISO 281:2007 Table 3 as the factor is common practice (from
@@ -127,7 +127,7 @@ class PairBearing:
     y_given: float | None = None
 
 
-def induced_thrust(bearing: PairBearing, fr: float, fa: float) -> tuple[float, float, DynamicFactors]:
+def induced_thrust(bearing: PairBearing, fr: float, fa: float) -> tuple[float, float, DynamicFactors[float]]:
     """(factor, Fi, factors) of one bearing of a pair at radial load ``fr`` and axial load ``fa``.
 
     A tapered roller bearing takes Fi = Fr/(2Y) with Y its Fa/Fr > e factor as

@@ -1,6 +1,8 @@
 """Basic load ratings from a bearing's internal geometry (ISO 281:2007 dynamic, ISO 76:2006 static).
 
-Inputs are in mm and degrees, ratings in N.  Every function takes floats or numpy arrays alike.
+Inputs are in mm and degrees, ratings in N.  Every function takes floats or numpy arrays alike
+(:data:`~workbench.engine.num.NumT`); the results of ``**`` are named with their type, which
+typeshed leaves Any for a float.
 The stand-alone functions refuse a geometry ratio outside the standard's table (no silent clamping,
 no extrapolation); :func:`rate_bearing` instead clamps to the table end and says so in the step.
 
@@ -18,7 +20,7 @@ from __future__ import annotations
 from dataclasses import dataclass
 
 from workbench.engine import rating_tables as tables
-from workbench.engine.num import Num, all_true, as_number, cosd, interp, isfinite, sind, where
+from workbench.engine.num import NumT, all_true, as_number, cosd, interp, isfinite, sind, where
 from workbench.engine.record import Derivation, InputError, fmt
 from workbench.engine.rating_tables import RatingTable
 
@@ -29,7 +31,7 @@ _TABLE_END_TOLERANCE = 1e-9
 # Input checks (float or array)
 
 
-def _as_number(field: str, value: object) -> Num:
+def _as_number(field: str, value: NumT) -> NumT:
     """``value`` as a float or a float array; anything else is refused."""
     try:
         return as_number(value)
@@ -37,7 +39,7 @@ def _as_number(field: str, value: object) -> Num:
         raise InputError(field, f"expected a number, got {value!r}") from None
 
 
-def _positive(field: str, value: object, label: str) -> Num:
+def _positive(field: str, value: NumT, label: str) -> NumT:
     """A finite value above zero (a diameter, a length, a factor)."""
     number = _as_number(field, value)
     if not all_true(isfinite(number) & (number > 0)):
@@ -45,7 +47,7 @@ def _positive(field: str, value: object, label: str) -> Num:
     return number
 
 
-def _count(field: str, value: object, label: str) -> Num:
+def _count(field: str, value: NumT, label: str) -> NumT:
     """A whole number of at least one (rows, rolling elements)."""
     number = _as_number(field, value)
     if not all_true(isfinite(number)):
@@ -57,7 +59,7 @@ def _count(field: str, value: object, label: str) -> Num:
     return number
 
 
-def _radial_angle(value: object) -> Num:
+def _radial_angle(value: NumT) -> NumT:
     """Nominal contact angle of a radial bearing: 0° ≤ α ≤ 45° (ISO 281:2007 §3, from memory)."""
     angle = _as_number("alpha_deg", value)
     if not all_true(isfinite(angle) & (angle >= 0) & (angle <= 45)):
@@ -65,7 +67,7 @@ def _radial_angle(value: object) -> Num:
     return angle
 
 
-def _thrust_angle(value: object) -> Num:
+def _thrust_angle(value: NumT) -> NumT:
     """Nominal contact angle of a thrust bearing: 45° < α ≤ 90° (ISO 281:2007 §3, from memory)."""
     angle = _as_number("alpha_deg", value)
     if not all_true(isfinite(angle) & (angle > 45) & (angle <= 90)):
@@ -73,7 +75,7 @@ def _thrust_angle(value: object) -> Num:
     return angle
 
 
-def _right_angle(value: object) -> Num:
+def _right_angle(value: NumT) -> NumT:
     """α = 90°: the only thrust contact angle whose dynamic fc column is carried here."""
     angle = _thrust_angle(value)
     if not all_true(angle == 90):
@@ -85,7 +87,7 @@ def _right_angle(value: object) -> Num:
     return angle
 
 
-def _within_pitch_circle(dw: Num, dpw: Num) -> None:
+def _within_pitch_circle(dw: NumT, dpw: NumT) -> None:
     """The rolling element must be smaller than the pitch diameter."""
     if not all_true(dw - dpw < 0):
         raise InputError("dw", "the rolling-element diameter must be smaller than the pitch diameter Dpw")
@@ -95,7 +97,7 @@ def _within_pitch_circle(dw: Num, dpw: Num) -> None:
 # Table look-up
 
 
-def table_factor(table: RatingTable, ratio: Num, field: str = "dw") -> Num:
+def table_factor(table: RatingTable, ratio: NumT, field: str = "dw") -> NumT:
     """``table`` read at ``ratio`` by linear interpolation; a ratio outside the table is refused.
 
     ``field`` names the input blamed when the ratio falls outside (the element diameter by default).
@@ -127,62 +129,60 @@ def _clamped_factor(table: RatingTable, ratio: float) -> tuple[float, str | None
 # The formulas, written once; callers have checked the inputs and read the tables.
 
 
-def _radial_ball_c(i: Num, z: Num, dw: Num, alpha_deg: Num, bm: Num, fc: Num) -> Num:
+def _radial_ball_c(i: NumT, z: NumT, dw: NumT, alpha_deg: NumT, bm: float, fc: NumT) -> NumT:
     """ISO 281:2007 §5.1.1: Cr, with the exponent switch at Dw = 25.4 mm."""
-    common = bm * fc * (i * cosd(alpha_deg)) ** 0.7 * z ** (2 / 3)
-    return where(
-        dw <= tables.BALL_DIAMETER_SWITCH_MM,
-        common * dw**1.8,
-        tables.LARGE_BALL_FACTOR * common * dw**1.4,
-    )
+    common: NumT = bm * fc * (i * cosd(alpha_deg)) ** 0.7 * z ** (2 / 3)
+    small: NumT = common * dw**1.8
+    large: NumT = tables.LARGE_BALL_FACTOR * common * dw**1.4
+    return where(dw <= tables.BALL_DIAMETER_SWITCH_MM, small, large)
 
 
-def _radial_roller_c(i: Num, z: Num, dwe: Num, lwe: Num, alpha_deg: Num, bm: Num, fc: Num) -> Num:
+def _radial_roller_c(i: NumT, z: NumT, dwe: NumT, lwe: NumT, alpha_deg: NumT, bm: float, fc: NumT) -> NumT:
     """ISO 281:2007 §7.1.1: Cr = bm·fc·(i·Lwe·cos α)^(7/9)·Z^(3/4)·Dwe^(29/27)."""
-    return bm * fc * (i * lwe * cosd(alpha_deg)) ** (7 / 9) * z**0.75 * dwe ** (29 / 27)
+    rating: NumT = bm * fc * (i * lwe * cosd(alpha_deg)) ** (7 / 9) * z**0.75 * dwe ** (29 / 27)
+    return rating
 
 
-def _thrust_ball_c(z: Num, dw: Num, bm: Num, fc: Num) -> Num:
+def _thrust_ball_c(z: NumT, dw: NumT, bm: float, fc: NumT) -> NumT:
     """ISO 281:2007 §6.1.1, α = 90° (from memory): Ca = bm·fc·Z^(2/3)·Dw^1.8, or 3.647·…·Dw^1.4."""
-    common = bm * fc * z ** (2 / 3)
-    return where(
-        dw <= tables.BALL_DIAMETER_SWITCH_MM,
-        common * dw**1.8,
-        tables.LARGE_BALL_FACTOR * common * dw**1.4,
-    )
+    common: NumT = bm * fc * z ** (2 / 3)
+    small: NumT = common * dw**1.8
+    large: NumT = tables.LARGE_BALL_FACTOR * common * dw**1.4
+    return where(dw <= tables.BALL_DIAMETER_SWITCH_MM, small, large)
 
 
-def _thrust_roller_c(z: Num, dwe: Num, lwe: Num, bm: Num, fc: Num) -> Num:
+def _thrust_roller_c(z: NumT, dwe: NumT, lwe: NumT, bm: float, fc: NumT) -> NumT:
     """ISO 281:2007 §8.1.1, α = 90° (from memory): Ca = bm·fc·Lwe^(7/9)·Z^(3/4)·Dwe^(29/27)."""
-    return bm * fc * lwe ** (7 / 9) * z**0.75 * dwe ** (29 / 27)
+    rating: NumT = bm * fc * lwe ** (7 / 9) * z**0.75 * dwe ** (29 / 27)
+    return rating
 
 
-def _radial_ball_c0(i: Num, z: Num, dw: Num, alpha_deg: Num, f0: Num) -> Num:
+def _radial_ball_c0(i: NumT, z: NumT, dw: NumT, alpha_deg: NumT, f0: NumT) -> NumT:
     """ISO 76:2006 §5.1: C0r = f0·i·Z·Dw²·cos α."""
     return f0 * i * z * dw**2 * cosd(alpha_deg)
 
 
-def _thrust_ball_c0(z: Num, dw: Num, alpha_deg: Num, f0: Num) -> Num:
+def _thrust_ball_c0(z: NumT, dw: NumT, alpha_deg: NumT, f0: NumT) -> NumT:
     """ISO 76:2006 §7.1: C0a = f0·Z·Dw²·sin α."""
     return f0 * z * dw**2 * sind(alpha_deg)
 
 
-def _radial_roller_c0(i: Num, z: Num, dwe: Num, lwe: Num, alpha_deg: Num, static_factor: Num) -> Num:
+def _radial_roller_c0(i: NumT, z: NumT, dwe: NumT, lwe: NumT, alpha_deg: NumT, static_factor: NumT) -> NumT:
     """ISO 76:2006 §6.1: C0r = 44·(1 − γ)·i·Z·Lwe·Dwe·cos α, with the factor 44·(1 − γ) given."""
     return static_factor * i * z * lwe * dwe * cosd(alpha_deg)
 
 
-def _thrust_roller_c0(z: Num, dwe: Num, lwe: Num, alpha_deg: Num, static_factor: Num) -> Num:
+def _thrust_roller_c0(z: NumT, dwe: NumT, lwe: NumT, alpha_deg: NumT, static_factor: NumT) -> NumT:
     """ISO 76:2006 §8.1: C0a = 220·(1 − γ)·Z·Lwe·Dwe·sin α, with the factor 220·(1 − γ) given."""
     return static_factor * z * lwe * dwe * sind(alpha_deg)
 
 
-def _radial_roller_static_factor(gamma: Num) -> Num:
+def _radial_roller_static_factor(gamma: NumT) -> NumT:
     """ISO 76:2006 §6.1: the factor 44·(1 − Dwe·cos α/Dpw) in front of i·Z·Lwe·Dwe·cos α."""
     return tables.STATIC_RADIAL_ROLLER_FACTOR * (1 - gamma)
 
 
-def _thrust_roller_static_factor(gamma: Num) -> Num:
+def _thrust_roller_static_factor(gamma: NumT) -> NumT:
     """ISO 76:2006 §8.1: the factor 220·(1 − Dwe·cos α/Dpw) in front of Z·Lwe·Dwe·sin α."""
     return tables.STATIC_THRUST_ROLLER_FACTOR * (1 - gamma)
 
@@ -192,8 +192,8 @@ def _thrust_roller_static_factor(gamma: Num) -> Num:
 
 
 def dynamic_rating_radial_ball(
-    i: Num, z: Num, dw: Num, alpha_deg: Num, dpw: Num, bm: Num = 1.3
-) -> Num:
+    i: NumT, z: NumT, dw: NumT, alpha_deg: NumT, dpw: NumT, bm: float = 1.3
+) -> NumT:
     """Basic dynamic radial rating Cr of a radial ball bearing, N (ISO 281:2007 §5.1.1, Table 2).
 
     Cr = bm·fc·(i·cos α)^0.7·Z^(2/3)·Dw^1.8 for Dw ≤ 25.4 mm,
@@ -209,8 +209,8 @@ def dynamic_rating_radial_ball(
 
 
 def dynamic_rating_radial_roller(
-    i: Num, z: Num, dwe: Num, lwe: Num, alpha_deg: Num, dpw: Num, bm: Num = 1.1
-) -> Num:
+    i: NumT, z: NumT, dwe: NumT, lwe: NumT, alpha_deg: NumT, dpw: NumT, bm: float = 1.1
+) -> NumT:
     """Basic dynamic radial rating Cr of a radial roller bearing, N (ISO 281:2007 §7.1.1, Table 6).
 
     Cr = bm·fc·(i·Lwe·cos α)^(7/9)·Z^(3/4)·Dwe^(29/27), fc by Dwe·cos α/Dpw.
@@ -225,7 +225,7 @@ def dynamic_rating_radial_roller(
     return _radial_roller_c(i, z, dwe, lwe, alpha_deg, bm, fc)
 
 
-def dynamic_rating_thrust_ball(z: Num, dw: Num, alpha_deg: Num, dpw: Num, bm: Num = 1.3) -> Num:
+def dynamic_rating_thrust_ball(z: NumT, dw: NumT, alpha_deg: NumT, dpw: NumT, bm: float = 1.3) -> NumT:
     """Basic dynamic axial rating Ca of a single-row thrust ball bearing, α = 90° only, N.
 
     ISO 281:2007 §6.1.1 (formula from memory): Ca = bm·fc·Z^(2/3)·Dw^1.8 for Dw ≤ 25.4 mm,
@@ -242,8 +242,8 @@ def dynamic_rating_thrust_ball(z: Num, dw: Num, alpha_deg: Num, dpw: Num, bm: Nu
 
 
 def dynamic_rating_thrust_roller(
-    z: Num, dwe: Num, lwe: Num, alpha_deg: Num, dpw: Num, bm: Num = 1.0
-) -> Num:
+    z: NumT, dwe: NumT, lwe: NumT, alpha_deg: NumT, dpw: NumT, bm: float = 1.0
+) -> NumT:
     """Basic dynamic axial rating Ca of a single-row thrust roller bearing, α = 90° only, N.
 
     ISO 281:2007 §8.1.1 (formula and fc table from memory): Ca = bm·fc·Lwe^(7/9)·Z^(3/4)·Dwe^(29/27),
@@ -261,8 +261,8 @@ def dynamic_rating_thrust_roller(
 
 
 def static_rating_radial_ball(
-    i: Num, z: Num, dw: Num, alpha_deg: Num, dpw: Num, f0: Num | None = None
-) -> Num:
+    i: NumT, z: NumT, dw: NumT, alpha_deg: NumT, dpw: NumT, f0: NumT | None = None
+) -> NumT:
     """Basic static radial rating C0r of a radial ball bearing, N (ISO 76:2006 §5.1, Table 1).
 
     C0r = f0·i·Z·Dw²·cos α.  With ``f0`` None it is read from the deep-groove column by
@@ -279,7 +279,7 @@ def static_rating_radial_ball(
     return _radial_ball_c0(i, z, dw, alpha_deg, f0)
 
 
-def static_rating_radial_roller(i: Num, z: Num, dwe: Num, lwe: Num, alpha_deg: Num, dpw: Num) -> Num:
+def static_rating_radial_roller(i: NumT, z: NumT, dwe: NumT, lwe: NumT, alpha_deg: NumT, dpw: NumT) -> NumT:
     """Basic static radial rating C0r of a radial roller bearing, N (ISO 76:2006 §6.1).
 
     C0r = 44·(1 − Dwe·cos α/Dpw)·i·Z·Lwe·Dwe·cos α.
@@ -294,7 +294,7 @@ def static_rating_radial_roller(i: Num, z: Num, dwe: Num, lwe: Num, alpha_deg: N
     return _radial_roller_c0(i, z, dwe, lwe, alpha_deg, static_factor)
 
 
-def static_rating_thrust_ball(z: Num, dw: Num, alpha_deg: Num, f0: Num | None = None) -> Num:
+def static_rating_thrust_ball(z: NumT, dw: NumT, alpha_deg: NumT, f0: NumT | None = None) -> NumT:
     """Basic static axial rating C0a of a thrust ball bearing, N (ISO 76:2006 §7.1).
 
     C0a = f0·Z·Dw²·sin α, 45° < α ≤ 90°.  The ISO 76 thrust-ball f0 column is not carried here,
@@ -308,7 +308,7 @@ def static_rating_thrust_ball(z: Num, dw: Num, alpha_deg: Num, f0: Num | None = 
     return _thrust_ball_c0(z, dw, alpha_deg, _positive("f0", f0, "the static factor f0"))
 
 
-def static_rating_thrust_roller(z: Num, dwe: Num, lwe: Num, alpha_deg: Num, dpw: Num) -> Num:
+def static_rating_thrust_roller(z: NumT, dwe: NumT, lwe: NumT, alpha_deg: NumT, dpw: NumT) -> NumT:
     """Basic static axial rating C0a of a thrust roller bearing, N (ISO 76:2006 §8.1).
 
     C0a = 220·(1 − Dwe·cos α/Dpw)·Z·Lwe·Dwe·sin α, 45° < α ≤ 90°.
@@ -475,7 +475,8 @@ def _rate_radial_ball(record: Derivation, g: BearingGeometry, gamma: float, bm: 
 
 def _rate_radial_roller(record: Derivation, g: BearingGeometry, gamma: float, bm: float, fc: float) -> None:
     """Steps Cr, f0 (the ISO 76 factor 44·(1 − γ)), C0r of a radial roller bearing."""
-    lwe = float(g.lwe)  # type: ignore[arg-type]  # present: checked by _check_layout
+    assert g.lwe is not None  # checked by _check_layout
+    lwe = float(g.lwe)
     record.add("C", _radial_roller_c(g.i, g.z, g.dw, lwe, g.alpha_deg, bm, fc), symbol="Cr",
                label="basic dynamic radial load rating",
                formula="Cr = bm·fc·(i·Lwe·cos α)^(7/9)·Z^(3/4)·Dwe^(29/27)",
@@ -494,7 +495,8 @@ def _rate_radial_roller(record: Derivation, g: BearingGeometry, gamma: float, bm
 
 def _rate_thrust_ball(record: Derivation, g: BearingGeometry, gamma: float, bm: float, fc: float) -> None:
     """Steps Ca, f0 (given), C0a of a thrust ball bearing, α = 90°."""
-    f0 = float(g.f0)  # type: ignore[arg-type]  # present: checked by _check_layout
+    assert g.f0 is not None  # checked by _check_layout
+    f0 = float(g.f0)
     if g.dw <= tables.BALL_DIAMETER_SWITCH_MM:
         formula = "Ca = bm·fc·Z^(2/3)·Dw^1.8  (α = 90°, Dw ≤ 25.4 mm)"
         template = "Ca = {0}·{1}·{2}^(2/3)·{3}^1.8"
@@ -514,7 +516,8 @@ def _rate_thrust_ball(record: Derivation, g: BearingGeometry, gamma: float, bm: 
 
 def _rate_thrust_roller(record: Derivation, g: BearingGeometry, gamma: float, bm: float, fc: float) -> None:
     """Steps Ca, f0 (the ISO 76 factor 220·(1 − Dwe·cos α/Dpw)), C0a of a thrust roller bearing."""
-    lwe = float(g.lwe)  # type: ignore[arg-type]  # present: checked by _check_layout
+    assert g.lwe is not None  # checked by _check_layout
+    lwe = float(g.lwe)
     record.add("C", _thrust_roller_c(g.z, g.dw, lwe, bm, fc), symbol="Ca",
                label="basic dynamic axial load rating",
                formula="Ca = bm·fc·Lwe^(7/9)·Z^(3/4)·Dwe^(29/27)  (α = 90°)",

@@ -88,7 +88,8 @@ class BearingArrays:
     @property
     def dm_mm(self) -> np.ndarray:
         """Mean diameter (d + D)/2, the dpw the engine's aISO and Cu estimate take (ISO 281:2007 §9.3)."""
-        return 0.5 * (self.d_mm + self.D_mm)
+        mean: np.ndarray = 0.5 * (self.d_mm + self.D_mm)
+        return mean
 
     def take(self, rows: np.ndarray) -> BearingArrays:
         """The bearings at ``rows``, as a smaller table."""
@@ -483,7 +484,8 @@ class _Refusals:
         if not self.table:
             return np.zeros(self.code.shape[0], dtype=np.int16)
         first = np.argmax(self.code > 0, axis=1)
-        return self.code[np.arange(self.code.shape[0]), first]
+        codes: np.ndarray = self.code[np.arange(self.code.shape[0]), first]
+        return codes
 
 
 @dataclass

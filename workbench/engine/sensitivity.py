@@ -88,7 +88,6 @@ _INPUTS: tuple[_Input, ...] = (
 
 _FIELD_NAMES: tuple[str, ...] = tuple(f.name for f in fields(CaseInputs))
 _SLOT: dict[str, int] = {name: i for i, name in enumerate(_FIELD_NAMES)}
-_UNSEEN = object()  # memo marker: None already means "outside the valid range"
 
 
 @dataclass(frozen=True, slots=True)
@@ -149,7 +148,8 @@ def _input_value(case: CaseInputs, name: str) -> float | None:
         return float(f"{1.0 - case.reliability:.12g}")  # F without the float residue
     if name == "temp" and (case.nu is not None or case.vg is None):
         return None  # temperature only acts through an ISO VG oil's viscosity
-    return getattr(case, name)
+    value: float | None = getattr(case, name)
+    return value
 
 
 class _Runner:
@@ -179,11 +179,9 @@ class _Runner:
         else:
             values[_SLOT[name]] *= factor
         key = tuple(values)
-        point = self.memo.get(key, _UNSEEN)
-        if point is _UNSEEN:
-            point = self._reliability(key) if name == "reliability" else self._run(key)
-            self.memo[key] = point
-        return point
+        if key not in self.memo:  # a point may be None: outside the valid range
+            self.memo[key] = self._reliability(key) if name == "reliability" else self._run(key)
+        return self.memo[key]
 
     def _run(self, values: tuple[Any, ...]) -> _Point | None:
         case = CaseInputs(*values)

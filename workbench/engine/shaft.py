@@ -17,7 +17,7 @@ from __future__ import annotations
 import math
 from collections.abc import Sequence
 from dataclasses import dataclass
-from typing import Literal
+from typing import Literal, TypeVar
 
 from .gears import (
     BELT_PULL_FACTORS, V_BELT_PULL_FACTOR, belt_pull, bevel_axial_load, checked, helical_forces,
@@ -237,6 +237,17 @@ def shaft_torque(d: Derivation, *, power_W: float | None, torque_Nm: float | Non
                  args=(power_W, speed_rpm), unit="N·m", source=TORQUE_SOURCE)
 
 
+_Input = TypeVar("_Input")
+
+
+def _gear_input(value: _Input | None, field_name: str, kind: ElementKind) -> _Input:
+    """An input ``kind`` needs (the model's shaft table checks it is there); an InputError
+    naming it where it is not."""
+    if value is None:
+        raise InputError(field_name, f"a {kind} gear needs its {field_name.replace('_', ' ')}")
+    return value
+
+
 def element_load(d: Derivation, element: ShaftElement, torque_Nm: float, *,
                  rotation: int) -> PointLoad:
     """The force of a gear mesh or a belt on the shaft as a point load, with its steps.
@@ -254,24 +265,27 @@ def element_load(d: Derivation, element: ShaftElement, torque_Nm: float, *,
                        args=(element.share, torque_Nm), unit="N·m", source="input", result=False)
     if element.kind == "pulley":
         return _pulley_load(d, element, torque)
+    pressure_angle = _gear_input(element.pressure_angle_deg, "pressure_angle", element.kind)
     if element.kind == "spur":
-        forces = spur_forces(torque, element.diameter_mm, element.pressure_angle_deg)
+        forces = spur_forces(torque, element.diameter_mm, pressure_angle)
         source, fx = SPUR_SOURCE, 0.0
         radial_formula, radial_template = "Wt·tan φ", "{0} × tan {1}°"
-        angles: tuple[float, ...] = (element.pressure_angle_deg,)
+        angles: tuple[float, ...] = (pressure_angle,)
     elif element.kind == "helical":
-        forces = helical_forces(torque, element.diameter_mm, element.pressure_angle_deg,
-                                element.helix_angle_deg, element.hand, element.driving,
-                                rotation=rotation)
+        helix_angle = _gear_input(element.helix_angle_deg, "helix_angle", element.kind)
+        forces = helical_forces(torque, element.diameter_mm, pressure_angle, helix_angle,
+                                _gear_input(element.hand, "hand", element.kind),
+                                bool(element.driving), rotation=rotation)
         source, fx = HELICAL_SOURCE, forces.axial
         radial_formula, radial_template = "Wt·tan φn/cos ψ", "{0} × tan {1}° / cos {2}°"
-        angles = (element.pressure_angle_deg, element.helix_angle_deg)
+        angles = (pressure_angle, helix_angle)
     else:
-        forces = straight_bevel_forces(torque, element.diameter_mm, element.pressure_angle_deg,
-                                       element.pitch_cone_angle_deg)
-        source, fx = BEVEL_SOURCE, bevel_axial_load(forces.axial, element.apex)
+        cone_angle = _gear_input(element.pitch_cone_angle_deg, "pitch_cone_angle", element.kind)
+        forces = straight_bevel_forces(torque, element.diameter_mm, pressure_angle, cone_angle)
+        source, fx = BEVEL_SOURCE, bevel_axial_load(forces.axial,
+                                                    _gear_input(element.apex, "apex", element.kind))
         radial_formula, radial_template = "Wt·tan φ·cos γ", "{0} × tan {1}° × cos {2}°"
-        angles = (element.pressure_angle_deg, element.pitch_cone_angle_deg)
+        angles = (pressure_angle, cone_angle)
     d.add(f"Wt[{name}]", forces.tangential, symbol=f"Wt,{name}",
           label=f"Tangential load of {name}", formula="Wt = 2T/d", template="2 × {0} / {1}",
           args=(torque, element.diameter_mm), unit="N", source=source, result=False)
@@ -282,7 +296,7 @@ def element_load(d: Derivation, element: ShaftElement, torque_Nm: float, *,
         role = "driving" if element.driving else "driven"
         d.add(f"Wa[{name}]", fx, symbol=f"Wa,{name}", label=f"Axial load of {name}, + toward B",
               formula="±Wt·tan ψ", template="({2}) × {0} × tan {1}°",
-              args=(forces.tangential, element.helix_angle_deg, math.copysign(1.0, fx)),
+              args=(forces.tangential, helix_angle, math.copysign(1.0, fx)),
               unit="N", source=source,
               note=f"{element.hand} hand, {role}, rotation {'+' if rotation > 0 else '−'}: "
                    f"thrust toward {'B' if fx >= 0 else 'A'}",

@@ -19,15 +19,16 @@ from functools import lru_cache
 
 import math
 
-from workbench.engine.num import Num, all_true, interp, isfinite, log10, power
+from workbench.engine.num import NumT, all_true, interp, isfinite, log10, power
 from workbench.engine.record import InputError
 
 ISO_3448 = "ISO 3448 (ISO viscosity classification)"
 ASTM_D341 = "ASTM D341 (Walther equation)"
 ASTM_D2270 = "ASTM D2270 (viscosity index)"
 
-# ISO 3448: grade → midpoint kinematic viscosity at 40 °C, mm²/s.
-ISO_VG_MIDPOINTS: dict[int, float] = {
+# ISO 3448: grade → midpoint kinematic viscosity at 40 °C, mm²/s.  Keyed by number, so a typed
+# grade (68.0) finds its row.
+ISO_VG_MIDPOINTS: dict[float, float] = {
     2: 2.2, 3: 3.2, 5: 4.6, 7: 6.8, 10: 10.0, 15: 15.0, 22: 22.0, 32: 32.0, 46: 46.0,
     68: 68.0, 100: 100.0, 150: 150.0, 220: 220.0, 320: 320.0, 460: 460.0, 680: 680.0,
     1000: 1000.0, 1500: 1500.0,
@@ -136,12 +137,12 @@ def _finite_positive(name: str, value: float, what: str) -> None:
 
 
 # ---- ISO 3448 -------------------------------------------------------------------------------
-def iso_vg_grades() -> tuple[int, ...]:
+def iso_vg_grades() -> tuple[float, ...]:
     """The ISO 3448 viscosity grades, ISO VG 2 … ISO VG 1500, in ascending order."""
     return tuple(ISO_VG_MIDPOINTS)
 
 
-def nu40_of_grade(vg: int) -> float:
+def nu40_of_grade(vg: float) -> float:
     """Midpoint kinematic viscosity at 40 °C (mm²/s) of grade ISO VG ``vg`` (ISO 3448)."""
     try:
         return ISO_VG_MIDPOINTS[vg]
@@ -150,7 +151,7 @@ def nu40_of_grade(vg: int) -> float:
         raise InputError("vg", f"ISO VG {vg} is not an ISO 3448 grade ({grades})") from None
 
 
-def nu40_limits_of_grade(vg: int) -> tuple[float, float]:
+def nu40_limits_of_grade(vg: float) -> tuple[float, float]:
     """(minimum, maximum) kinematic viscosity at 40 °C (mm²/s) of ISO VG ``vg``: midpoint ±10 %
     (ISO 3448)."""
     midpoint = nu40_of_grade(vg)
@@ -182,7 +183,7 @@ def walther_constants(nu40: float, nu100: float) -> tuple[float, float]:
 _TOO_COLD = "too cold for the ASTM D341 line: the viscosity overflows"
 
 
-def viscosity_at_temperature(nu40: float, nu100: float, temp_c: Num) -> Num:
+def viscosity_at_temperature(nu40: float, nu100: float, temp_c: NumT) -> NumT:
     """Kinematic viscosity (mm²/s) at ``temp_c`` (°C, float or array) of an oil with ν40 and ν100,
     by the ASTM D341 Walther line through the two points: ν = 10^(10^(A − B·log10 T)) − 0.7."""
     a, b = walther_constants(nu40, nu100)
@@ -216,7 +217,8 @@ def viscosity_index(nu40: float, nu100: float) -> float:
     if nu40 >= high:
         return 100.0 * (low - nu40) / (low - high)
     n = (math.log10(high) - math.log10(nu40)) / math.log10(nu100)
-    return (10.0**n - 1.0) / D2270_HIGH_VI_DIVISOR + 100.0
+    vi: float = (10.0**n - 1.0) / D2270_HIGH_VI_DIVISOR + 100.0  # float ** float is Any to typeshed
+    return vi
 
 
 @lru_cache(maxsize=512)  # a session re-derives the same oil on every keystroke

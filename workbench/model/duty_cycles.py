@@ -43,14 +43,13 @@ from ..engine import duty
 from ..engine.derive import MODIFIED_LIFE_SOURCE
 from ..engine.kinds import ROLLER_KINDS, life_clause, parse_kind
 from ..engine.life import life_hours
+from ..engine.pairs import SIDES
 from ..engine.record import Derivation, InputError
 from .fields import FieldError
 from .quantities import QuantityError, parse
 from .session import CaseResult, LoadCase, Session, evaluate_case
 from .toml_tables import checked_table, named_tables, required_name, table_list, table_text
-from .shafts import (
-    SIDES, Shaft, case_name, shaft_cases,
-)
+from .shafts import Shaft, case_name, shaft_cases
 from .user_text import quoted
 
 BASES = ("time", "revolutions")

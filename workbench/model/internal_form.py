@@ -134,7 +134,7 @@ def inputs_from_texts(texts: Mapping[str, str]) -> InternalInputs:
         if math.isnan(ec):
             ec = float(contamination_factor(text, dpw)[0])
     moment = values.get("moment")
-    number = {name: float(value) for name, value in values.items()  # type: ignore[arg-type]
+    number = {name: float(value) for name, value in values.items()
               if isinstance(value, (int, float))}
     return InternalInputs(
         kind=kind, z=int(number["elements"]), dw=number["dw"], dpw=dpw,

@@ -83,6 +83,7 @@ from typing import Any, Callable, Collection, Mapping, TypeVar
 
 import platformdirs
 
+from ..engine.pairs import SIDES
 from ..engine.solve import UNKNOWNS
 from .duty_cycles import duty_cycles_from_tables
 from .fields import BEARING_FIELDS, CASE_FIELDS, FieldError, parse_field
@@ -96,7 +97,7 @@ from .safe_write import (
 from .session import (
     SCHEMA_VERSION, UNIT_SYSTEMS, Bearing, LoadCase, Session, SolverSetup, Targets, parse_target,
 )
-from .shafts import SIDES, Shaft, case_name, shafts_from_tables
+from .shafts import Shaft, case_name, shafts_from_tables
 from .targets import parse_target_text
 from .toml_tables import checked_table, required_name, table_list, table_text, type_words
 from .user_text import clipped, clipped_path, quoted

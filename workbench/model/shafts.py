@@ -62,7 +62,7 @@ the very Y (or e) the bearing's own derivation shows on the Fa/Fr > e branch.
 from __future__ import annotations
 
 import math
-from collections.abc import Iterator, Mapping, Sequence
+from collections.abc import Callable, Iterator, Mapping, Sequence
 from contextlib import contextmanager
 from dataclasses import dataclass, field, fields
 from typing import Any
@@ -254,7 +254,7 @@ def _share(key: str, text: str) -> float:
     return value
 
 
-_ELEMENT_PARSERS = {
+_ELEMENT_PARSERS: dict[str, Callable[[str, str], float | str | bool]] = {
     "position": lambda k, t: _quantity(k, t, "length", "mm"),
     "diameter": lambda k, t: _quantity(k, t, "length", "mm"),
     "pressure_angle": lambda k, t: _quantity(k, t, "angle", "deg"),
@@ -343,15 +343,14 @@ def _parsed_state(state: OperatingState, key: str) -> tuple[float | None, float 
                          if has_power else "give the power or the torque")
     if not state.speed.strip():
         raise FieldError(f"{key}.speed", "give the shaft speed, e.g. 1480 rpm")
-    values = {"power": _quantity(f"{key}.power", state.power, "power", None) if has_power else None,
-              "torque": _quantity(f"{key}.torque", state.torque, "torque", "N·m")
-              if has_torque else None,
-              "speed": _quantity(f"{key}.speed", state.speed, "speed", "rpm")}
-    for name, value in values.items():
+    power = _quantity(f"{key}.power", state.power, "power", None) if has_power else None
+    torque = _quantity(f"{key}.torque", state.torque, "torque", "N·m") if has_torque else None
+    speed = _quantity(f"{key}.speed", state.speed, "speed", "rpm")
+    for name, value in (("power", power), ("torque", torque), ("speed", speed)):
         if value is not None and value < 0.0:
             raise FieldError(f"{key}.{name}", "must not be negative (the shaft's rotation gives "
                                               "the sense of turning)")
-    return values["power"], values["torque"], values["speed"], _share(f"{key}.share", state.share)
+    return power, torque, speed, _share(f"{key}.share", state.share)
 
 
 @contextmanager

@@ -363,7 +363,8 @@ class Row:
             sa = float(self.axial0[0]) + offset
             s = math.hypot(sr, sa)
             delta = max(s - self.free_distance, 0.0)
-            return self.inputs.z * k * delta ** 1.5 * sa / s
+            reaction: float = self.inputs.z * k * delta ** 1.5 * sa / s
+            return reaction
         sin_a = float(self.gradient[0, 1])
         per_slice = np.maximum(self.base[:self.slices] + sin_a * offset, 0.0) ** self.exponent
         return self.inputs.z * k * float(np.sum(per_slice)) * sin_a
@@ -446,8 +447,9 @@ def preload_offset(inputs: InternalInputs, stiffness: float) -> float:
         high *= 2.0
         if high > APPROACH_LIMIT_RATIO * inputs.dw * 10.0:
             raise NoEquilibrium("preload", "the axial preload is beyond what the geometry can carry")
-    return brentq(lambda offset: row.axial_reaction(offset) - inputs.preload, 0.0, high,
-                  xtol=1e-12 * inputs.dw, rtol=1e-12)
+    offset: float = brentq(lambda offset: row.axial_reaction(offset) - inputs.preload, 0.0, high,
+                           xtol=1e-12 * inputs.dw, rtol=1e-12)
+    return offset
 
 
 @dataclass(frozen=True, slots=True)
@@ -578,6 +580,7 @@ def solve_equilibrium(inputs: InternalInputs, *, stiffness: float | None = None,
     per_row = [row.reactions(q) for row in rows]
     force = sum(f for f, _ in per_row)
     jacobian = sum(j for _, j in per_row)
+    assert isinstance(force, np.ndarray) and isinstance(jacobian, np.ndarray)  # rows is not empty
     return Equilibrium(q, force, jacobian, states, evaluations, error, method, offset,
                        [f for f, _ in per_row])
 
@@ -706,7 +709,8 @@ def sjovall_integrals(epsilon: float, exponent: float) -> tuple[float, float]:
     limit = math.pi if epsilon >= 1.0 else math.acos(1.0 - 2.0 * epsilon)
 
     def shape(psi: float) -> float:
-        return max(1.0 - (1.0 - math.cos(psi)) / (2.0 * epsilon), 0.0) ** exponent
+        share: float = max(1.0 - (1.0 - math.cos(psi)) / (2.0 * epsilon), 0.0) ** exponent
+        return share
 
     radial = quad(lambda p: shape(p) * math.cos(p), -limit, limit, epsabs=1e-13, epsrel=1e-12)[0]
     axial = quad(shape, -limit, limit, epsabs=1e-13, epsrel=1e-12)[0]

@@ -120,7 +120,8 @@ def point_contact(load: float, curvature: Curvature, ellipse: Ellipse,
 def approach_factor(ellipse: Ellipse) -> float:
     """δ* = (2K/π)·(π/(2k²E))^(1/3), the dimensionless approach of Harris & Kotzalas."""
     k, first, second = ellipse.k, ellipse.first_kind, ellipse.second_kind
-    return 2.0 * first / math.pi * (math.pi / (2.0 * k * k * second)) ** (1.0 / 3.0)
+    factor: float = 2.0 * first / math.pi * (math.pi / (2.0 * k * k * second)) ** (1.0 / 3.0)
+    return factor
 
 
 def point_contact_constant(curvature: Curvature, ellipse: Ellipse,
@@ -128,19 +129,22 @@ def point_contact_constant(curvature: Curvature, ellipse: Ellipse,
     """K in Q = K·δ^(3/2) for one point contact (N/mm^1.5): the inverse of :func:`point_contact`'s
     δ(Q), K = Σρ·E'/3·(2/(δ*·Σρ))^(3/2)."""
     rho = curvature.curvature_sum
-    return rho * modulus / 3.0 * (2.0 / (approach_factor(ellipse) * rho)) ** 1.5
+    constant: float = rho * modulus / 3.0 * (2.0 / (approach_factor(ellipse) * rho)) ** 1.5
+    return constant
 
 
 def line_contact_constant(length: float) -> float:
     """K in Q = K·δ^(10/9) for one steel line contact of length ``length`` (N/mm^(10/9)):
     Palmgren's δ = 3.84·10⁻⁵·Q^0.9/l^0.8 inverted, K = l^(8/9)/(3.84·10⁻⁵)^(10/9)."""
-    return length ** (8.0 / 9.0) / PALMGREN_LINE_APPROACH ** (10.0 / 9.0)
+    constant: float = length ** (8.0 / 9.0) / PALMGREN_LINE_APPROACH ** (10.0 / 9.0)
+    return constant
 
 
 def series_constant(inner: float, outer: float, exponent: float) -> float:
     """K of the inner and outer contacts in series, each Q = K·δ^n and one load through both:
     K = [(1/Ki)^(1/n) + (1/Ke)^(1/n)]^(−n) (Harris & Kotzalas)."""
-    return ((1.0 / inner) ** (1.0 / exponent) + (1.0 / outer) ** (1.0 / exponent)) ** (-exponent)
+    constant: float = ((1.0 / inner) ** (1.0 / exponent) + (1.0 / outer) ** (1.0 / exponent)) ** (-exponent)
+    return constant
 
 
 def roller_raceway_curvature_sum(dwe: float, dpw: float, alpha_deg: float, *, inner: bool) -> float:

@@ -43,8 +43,9 @@ def ball_raceway_capacity(dw: float, dpw: float, alpha_deg: float, z: int, oscul
     γ = Dw·cos α/Dpw (γ/cos α = Dw/Dpw)."""
     gamma = dw * cosd(alpha_deg) / dpw
     near, far = (1.0 - gamma, 1.0 + gamma) if inner else (1.0 + gamma, 1.0 - gamma)
-    return (bm * BALL_CAPACITY_CONSTANT * (2.0 * osculation / (2.0 * osculation - 1.0)) ** 0.41
-            * near ** 1.39 / far ** (1.0 / 3.0) * (dw / dpw) ** 0.3 * dw ** 1.8 * z ** (-1.0 / 3.0))
+    capacity: float = (bm * BALL_CAPACITY_CONSTANT * (2.0 * osculation / (2.0 * osculation - 1.0)) ** 0.41
+                       * near ** 1.39 / far ** (1.0 / 3.0) * (dw / dpw) ** 0.3 * dw ** 1.8 * z ** (-1.0 / 3.0))
+    return capacity
 
 
 def roller_raceway_capacity(dwe: float, dpw: float, alpha_deg: float, z: int, lwe: float,
@@ -53,9 +54,10 @@ def roller_raceway_capacity(dwe: float, dpw: float, alpha_deg: float, z: int, lw
     Qc = bm·λν·552·(1 ∓ γ)^(29/27)/(1 ± γ)^(1/4)·(γ/cos α)^(2/9)·Dwe^(29/27)·Lwe^(7/9)·Z^(−1/4)."""
     gamma = dwe * cosd(alpha_deg) / dpw
     near, far = (1.0 - gamma, 1.0 + gamma) if inner else (1.0 + gamma, 1.0 - gamma)
-    return (bm * ROLLER_LAMBDA_NU * ROLLER_CAPACITY_CONSTANT * near ** (29.0 / 27.0)
-            / far ** 0.25 * (dwe / dpw) ** (2.0 / 9.0) * dwe ** (29.0 / 27.0)
-            * lwe ** (7.0 / 9.0) * z ** -0.25)
+    capacity: float = (bm * ROLLER_LAMBDA_NU * ROLLER_CAPACITY_CONSTANT * near ** (29.0 / 27.0)
+                       / far ** 0.25 * (dwe / dpw) ** (2.0 / 9.0) * dwe ** (29.0 / 27.0)
+                       * lwe ** (7.0 / 9.0) * z ** -0.25)
+    return capacity
 
 
 def equivalent_load(loads: np.ndarray, *, rotating: bool, ball: bool) -> np.ndarray:
@@ -66,7 +68,8 @@ def equivalent_load(loads: np.ndarray, *, rotating: bool, ball: bool) -> np.ndar
         power = 3.0 if rotating else 10.0 / 3.0
     else:
         power = 4.0 if rotating else 4.5
-    return np.mean(np.asarray(loads, dtype=float) ** power, axis=0) ** (1.0 / power)
+    mean: np.ndarray = np.mean(np.asarray(loads, dtype=float) ** power, axis=0) ** (1.0 / power)
+    return mean
 
 
 @dataclass(frozen=True, slots=True)
