@@ -262,3 +262,24 @@ async def test_derivation_keeps_its_scroll_place_when_redrawn(make_app) -> None:
         await retype(pilot, app, "fa", "1.2 kN")
         assert app.document.session.cases[0].texts["fa"] == "1.2 kN"
         assert pane.scroll_y == 30
+
+
+async def test_keys_typed_ahead_of_the_screen_are_kept(make_app) -> None:
+    """A key that reaches the field before the screen has answered the one before it stays:
+    loading the form (as the answer to the earlier key does) never puts an older text back."""
+    app = make_app()
+    async with app.run_test(size=(80, 24)) as pilot:
+        await retype(pilot, app, "fr", "4 kN")
+        box = app.workbench_screen.query_one("#field-fr")
+        box.value = "4.5 kN"  # typed; its change has not reached the form yet
+        editor(app).load()  # the screen answers an earlier edit: the form loads
+        assert box.value == "4.5 kN"
+        box.cursor_position = 3
+        box.insert_text_at_cursor("0")  # and the next key lands on the newer text
+        for _ in range(3):
+            await pilot.pause()
+        assert box.value == "4.50 kN"
+        assert app.document.session.cases[0].texts["fr"] == "4.50 kN"
+        await pilot.press("ctrl+z")  # an undo still shows in the field it changes
+        await pilot.pause()
+        assert box.value == app.document.session.cases[0].texts["fr"] != "4.50 kN"

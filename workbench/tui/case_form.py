@@ -169,7 +169,10 @@ class CaseForm(VerticalScroll):
         self._shown_case: tuple[int, str] | None = None
         """The case on show, by its place in the list and its name."""
         self._loaded: dict[str, str] = {}
-        """What each choice and switch was last loaded with (its text in the document)."""
+        """What each field last showed of the document's: the text loaded into it, or for a
+        typed field the text last announced from it."""
+        self._unanswered: dict[str, int] = {}
+        """Typed texts announced per field that the screen has not answered yet."""
         self._controls: dict[str, Widget] = {}
         self._case_note = ""
         self._wide = False
@@ -246,6 +249,8 @@ class CaseForm(VerticalScroll):
         if shown != self._shown_case:  # by place and name: a shaft makes its cases anew on each edit
             self._shown_case = shown
             self._notes.clear()
+            self._unanswered.clear()
+            self._loaded.clear()
             self.query(".field-note").set(display=False)
         texts = document.texts(index)
         bearings = [(b.name, b.name) for b in document.session.bearings]
@@ -291,9 +296,22 @@ class CaseForm(VerticalScroll):
             self._loaded[name] = "yes" if on else "no"
             if control.value != on:
                 control.value = on
-        elif isinstance(control, Input) and control.value != texts.get(name, ""):
-            control.value = texts.get(name, "")
-            control.cursor_position = len(control.value)
+        elif isinstance(control, Input):
+            if control.value != self._loaded.get(name, control.value) or \
+                    self._unanswered.get(name):
+                return  # typed ahead of the screen: the newer text is on its way to it
+            text = self._loaded[name] = texts.get(name, "")
+            if control.value != text:
+                control.value = text
+                control.cursor_position = len(text)
+
+    def answer(self, name: str, message: str | None) -> None:
+        """The screen's answer to a typed text of field ``name``: the message to show under it
+        (None: it was taken).  Until every typed text is answered, loading the form leaves the
+        field as typed, so keys that come faster than the screen answers are never lost."""
+        if self._unanswered.get(name):
+            self._unanswered[name] -= 1
+        self.show_note(name, message)
 
     def show_note(self, name: str, message: str | None) -> None:
         """Show ``message`` under field ``name`` (None: clear it)."""
@@ -357,7 +375,10 @@ class CaseForm(VerticalScroll):
     @on(Input.Changed)
     def _typed(self, event: Input.Changed) -> None:
         event.stop()
-        self.post_message(self.Edited(self._field_of(event.input), event.value, done=False))
+        name = self._field_of(event.input)
+        self._loaded[name] = event.value
+        self._unanswered[name] = self._unanswered.get(name, 0) + 1
+        self.post_message(self.Edited(name, event.value, done=False))
 
     @on(Input.Submitted)
     def _submitted(self, event: Input.Submitted) -> None:

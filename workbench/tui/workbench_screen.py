@@ -170,9 +170,9 @@ class WorkbenchScreen(Screen[None]):
             document.end_run()
         if problem is not None:
             in_force = document.texts(self.selected).get(event.field, "")
-            form.show_note(event.field, f"{problem} · in force: {in_force or '(blank)'}")
+            form.answer(event.field, f"{problem} · in force: {in_force or '(blank)'}")
         else:
-            form.show_note(event.field, None)
+            form.answer(event.field, None)
         self._changed()
 
     @on(CaseForm.TypingDone)
