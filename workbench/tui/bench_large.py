@@ -69,7 +69,7 @@ SETTLED_LIMIT_S = 60.0
 
 def _pending(app: App[object]) -> int:
     """How many cases of the app's document wait for their derivation."""
-    return len(getattr(app.document, "pending", ()))  # type: ignore[attr-defined]
+    return len(app.document.pending)  # type: ignore[attr-defined]
 
 
 def _rows(app: App[object]) -> int:
