@@ -382,9 +382,11 @@ class Document:
         """Keep the results of a :meth:`rederivation` that are still current (the case is
         pending and its inputs have not changed since it was asked for); how many were kept."""
         cases = self.session.cases
-        kept = [(item.index, replace(item.result, case=cases[item.index])) for item in derived
+        kept = [item for item in derived
                 if item.index in self._pending and self._case_revision[item.index] == item.stamp]
-        self._keep(kept)
+        for item in kept:
+            item.result.case = cases[item.index]  # the session's own, not the worker's copy
+        self._keep((item.index, item.result) for item in kept)
         return len(kept)
 
     def _extras_reach(self, touch: Touch) -> bool:

@@ -160,7 +160,7 @@ class WorkbenchScreen(Screen[None]):
         if job is not None:
             self._rederive(job)
 
-    @work(thread=True, exclusive=True, group="rederive")
+    @work(thread=True, exclusive=True, group="rederive", description="pending cases")
     def _rederive(self, job: Rederivation) -> None:
         """Derive ``job``'s cases away from the screen's thread, :data:`DERIVE_PART` at a time,
         handing what is done to the list every :data:`HAND_OVER_S`."""
