@@ -39,7 +39,6 @@ import statistics
 import subprocess
 import sys
 import tempfile
-import threading
 import time
 from collections.abc import Sequence
 from pathlib import Path
