@@ -155,6 +155,9 @@ def run_benchmarks(quick: bool = False) -> dict[str, Any]:
         screen.QUICK_TYPING_KEYS if quick else screen.TYPING_KEYS))
     figures["startup_ratio"] = screen.measure_startup_ratio(
         screen.QUICK_STARTUP_ROUNDS if quick else screen.STARTUP_ROUNDS)
+    from ..tui import bench_large
+
+    figures.update(bench_large.measure_large(quick))
     return figures
 
 

@@ -10,6 +10,15 @@ to date for what the edit touches, and no more:
   can reach them (a bearing a shaft carries, a case a duty cycle names, a table, a target);
 - the display system changes nothing but the revision.
 
+In a large session one edit can reach thousands of cases (a bearing field, a target).  With
+:attr:`Document.defer_over` set (the screen sets it), an edit that reaches more cases than that
+derives only the case it was made in and leaves the others :attr:`~Document.pending`: they keep
+their last result, marked out of date, until :meth:`Document.rederivation` (a snapshot, derived
+on another thread) hands its results back through :meth:`Document.take`, which keeps only those
+still current (each case carries the revision of its inputs).  :meth:`Document.result` is always
+current: it derives a pending case on the spot.  Sessions with shafts or duty cycles an edit
+reaches are derived at once (their results are built from the cases').
+
 The cases are derived without their steps (results and warnings only: ISO 281:2007 life,
 ISO 76:2006 static safety); :meth:`Document.with_steps` derives the one case a person reads
 with every step, once per revision of that case.  Nothing here knows about the screen: the
@@ -25,6 +34,7 @@ from __future__ import annotations
 import copy
 import math
 import unicodedata
+from collections.abc import Iterable, Set
 from dataclasses import dataclass, field, replace
 from pathlib import Path
 from typing import Any, NamedTuple
@@ -144,6 +154,38 @@ def _cases_named_by(cycles: object) -> set[str] | None:
     return named
 
 
+@dataclass(frozen=True)
+class Derived:
+    """One case derived away from the screen's thread: its index, the revision of its inputs
+    when it was asked for, and the result."""
+
+    index: int
+    stamp: int
+    result: CaseResult
+
+
+@dataclass(frozen=True)
+class Rederivation:
+    """The pending cases of a document at one moment, with what deriving them needs, so they can
+    be derived on any thread: ``session`` holds copies of the bearings and targets; ``cases``
+    is (index, revision of its inputs, the case) in the order to derive them."""
+
+    session: Session
+    cases: tuple[tuple[int, int, LoadCase], ...]
+
+    def derive(self, start: int, stop: int) -> list[Derived]:
+        """Cases ``start`` to ``stop`` of :attr:`cases` derived (results and warnings only).
+
+        A case's texts are copied first (an edit on the screen's thread may change them
+        meanwhile; its result then no longer matches the case's revision and is dropped)."""
+        derived = []
+        for index, stamp, case in self.cases[start:stop]:
+            copied = LoadCase(case.name, case.bearing, dict(case.texts), case.notes)
+            derived.append(Derived(index, stamp,
+                                   evaluate_case(self.session, copied, keep_steps=False)))
+        return derived
+
+
 @dataclass
 class Document:
     """A session under edit: its file, revision, undo and redo, and its analysis."""
@@ -160,6 +202,10 @@ class Document:
     _extras: SessionAnalysis | None = field(default=None, repr=False)
     _with_steps: dict[int, tuple[int, CaseResult]] = field(default_factory=dict, repr=False)
     _case_revision: list[int] = field(default_factory=list, repr=False)
+    _pending: set[int] = field(default_factory=set, repr=False)
+    defer_over: int | None = None
+    """An edit derives at most this many cases at once; past it the others are left
+    :attr:`pending`.  None: every case at once (the command line, reports, tests)."""
 
     def __post_init__(self) -> None:
         self._derive_all()
@@ -177,7 +223,8 @@ class Document:
 
     @property
     def analysis(self) -> SessionAnalysis:
-        """Every case (own, then generated), every shaft and duty cycle, for this revision."""
+        """Every case (own, then generated), every shaft and duty cycle, for this revision; an
+        own case in :attr:`pending` holds its last result until it is derived again."""
         if self._extras is None:
             self._extras = analyse_extras(self.session, self._own, keep_steps=False)
         return self._extras
@@ -187,15 +234,30 @@ class Document:
         """Every case evaluated (without steps): the session's own, then the generated ones."""
         return self.analysis.cases
 
+    @property
+    def pending(self) -> Set[int]:
+        """The own cases whose listed result is out of date (see :attr:`defer_over`)."""
+        return self._pending
+
     def result(self, index: int) -> CaseResult | None:
-        """Case ``index`` of :attr:`results`, or None outside the list."""
+        """Case ``index`` of :attr:`results`, current (a pending case is derived now), or None
+        outside the list."""
         results = self.results
-        return results[index] if 0 <= index < len(results) else None
+        if not 0 <= index < len(results):
+            return None
+        if index in self._pending:
+            self._derive_now([index])
+        return results[index]
+
+    def current_results(self) -> list[CaseResult]:
+        """:attr:`results` with every pending case derived first (on this thread)."""
+        self._derive_now(sorted(self._pending))
+        return self.results
 
     def case(self, index: int) -> LoadCase | None:
         """The load case at ``index`` (own or generated), or None."""
-        result = self.result(index)
-        return None if result is None else result.case
+        results = self.results
+        return results[index].case if 0 <= index < len(results) else None
 
     def with_steps(self, index: int) -> CaseResult | None:
         """Case ``index`` derived with every step, for a person to read; derived once per
@@ -252,11 +314,11 @@ class Document:
         if merge_key is None or top is None or top.merge_key != merge_key:
             self._undo.append(Step(label, inverse, case_index, merge_key))
             del self._undo[:-UNDO_DEPTH]
-        self._changed(edit.touch)
+        self._changed(edit.touch, case_index)
 
-    def _changed(self, touch: Touch) -> None:
+    def _changed(self, touch: Touch, case_index: int | None = None) -> None:
         self.revision += 1
-        self._refresh(touch)
+        self._refresh(touch, case_index)
 
     def _derive_all(self) -> None:
         self._own = [evaluate_case(self.session, case, keep_steps=False)
@@ -264,31 +326,96 @@ class Document:
         self._case_revision = [self.revision] * len(self._own)
         self._extras = None
         self._with_steps.clear()
+        self._pending.clear()
 
-    def _refresh(self, touch: Touch) -> None:
-        """Derive again what ``touch`` reaches (see the module notes)."""
+    def _refresh(self, touch: Touch, case_index: int | None) -> None:
+        """Derive again what ``touch`` reaches (see the module notes); past
+        :attr:`defer_over` cases, only the one the edit was made in (``case_index``)."""
         cases = self.session.cases
+        reach = self._extras_reach(touch)
+        fresh: set[int] = set()
         if touch.everything or len(cases) != len(self._own):
-            self._derive_all()
-            return
-        again = set(touch.cases) | {index for index, case in enumerate(cases)
-                                    if case.bearing in touch.bearings}
+            if self.defer_over is None or reach or len(cases) <= self.defer_over:
+                self._derive_all()
+                return
+            fresh = self._realign()
+            again = set(range(len(cases)))
+        else:
+            again = set(touch.cases) | {index for index, case in enumerate(cases)
+                                        if case.bearing in touch.bearings}
+        now = again
+        if self.defer_over is not None and len(again) > self.defer_over and not reach:
+            now = again & (set(touch.cases) | {case_index})
         for index in again:
-            self._own[index] = evaluate_case(self.session, cases[index], keep_steps=False)
             self._case_revision[index] = self.revision
-        if (again or touch.bearings) and self._extras_reach(touch):  # a shaft's bearing may have no own case
+        self._pending |= again - fresh
+        self._derive_now(now - fresh)
+        if (again or touch.bearings) and reach:  # a shaft's bearing may have no own case
             self._extras = None
-        elif self._extras is not None:
-            own = len(self._own)
-            self._extras = replace(self._extras, cases=self._own + self._extras.cases[own:])
+
+    def _realign(self) -> set[int]:
+        """Bring the own results into line with the session's cases after cases were added,
+        removed or moved: each case keeps its last result, a new one is derived now (its
+        index is returned)."""
+        known = {id(result.case): result for result in self._own}
+        kept = [known.get(id(case)) for case in self.session.cases]
+        self._own = [result if result is not None
+                     else evaluate_case(self.session, case, keep_steps=False)
+                     for result, case in zip(kept, self.session.cases)]
+        self._case_revision = [self.revision] * len(self._own)
+        self._extras = None
+        self._with_steps.clear()
+        self._pending.clear()
+        return {index for index, result in enumerate(kept) if result is None}
+
+    def _derive_now(self, indices: Iterable[int]) -> None:
+        """Derive the own cases ``indices`` on this thread."""
+        cases = self.session.cases
+        self._keep((index, evaluate_case(self.session, cases[index], keep_steps=False))
+                   for index in indices)
+
+    def _keep(self, results: Iterable[tuple[int, CaseResult]]) -> None:
+        """Put current results of own cases in place (in the analysis too, when worked out)."""
+        listed = self._extras.cases if self._extras is not None else None
+        for index, result in results:
+            self._own[index] = result
+            if listed is not None:
+                listed[index] = result
+            self._pending.discard(index)
+
+    def rederivation(self, near: int = 0) -> Rederivation | None:
+        """The pending cases to derive on another thread, nearest to case ``near`` first (the
+        rows on show), or None when nothing is pending; hand the results to :meth:`take`."""
+        if not self._pending:
+            return None
+        session = self.session
+        snapshot = Session(targets=replace(session.targets),
+                           bearings=[replace(bearing, texts=dict(bearing.texts))
+                                     for bearing in session.bearings])
+        order = sorted(self._pending, key=lambda index: (abs(index - near), index))
+        return Rederivation(snapshot, tuple((index, self._case_revision[index],
+                                             session.cases[index]) for index in order))
+
+    def take(self, derived: Iterable[Derived]) -> int:
+        """Keep the results of a :meth:`rederivation` that are still current (the case is
+        pending and its inputs have not changed since it was asked for); how many were kept."""
+        cases = self.session.cases
+        kept = [item for item in derived
+                if item.index in self._pending and self._case_revision[item.index] == item.stamp]
+        for item in kept:
+            item.result.case = cases[item.index]  # the session's own, not the worker's copy
+        self._keep((item.index, item.result) for item in kept)
+        return len(kept)
 
     def _extras_reach(self, touch: Touch) -> bool:
         """Whether shafts, generated cases or duty cycles can depend on what ``touch`` names:
-        a shaft carried on a touched bearing, or a duty cycle naming a touched case (a case
-        touched itself or through its bearing).  Tables that do not read as written are
-        worked out again on any change."""
+        any of them after a change to everything, a shaft carried on a touched bearing, or a
+        duty cycle naming a touched case (a case touched itself or through its bearing).
+        Tables that do not read as written are worked out again on any change."""
         reserved = self.session.reserved
-        shafts = reserved.get("shafts")
+        shafts, cycles = reserved.get("shafts"), reserved.get("duty_cycles")
+        if touch.everything:
+            return bool(shafts or cycles)
         if shafts:
             if not isinstance(shafts, list):
                 return True
@@ -296,7 +423,6 @@ class Document:
                        for side in ("bearing_a", "bearing_b")}
             if carried & set(touch.bearings):
                 return True
-        cycles = reserved.get("duty_cycles")
         if not cycles:
             return False
         named = _cases_named_by(cycles)
@@ -316,7 +442,7 @@ class Document:
         target.append(Step(step.label, inverse, step.case_index, None))
         self.solved = None
         self._run = None
-        self._changed(step.inverse.touch)
+        self._changed(step.inverse.touch, step.case_index)
         return Undone(step.label, step.case_index)
 
     def undo(self) -> Undone | None:
@@ -391,7 +517,7 @@ class Document:
         if top is not None and top.merge_key == ("edit", run.case_index, run.field):
             self._undo.pop()
             top.inverse.apply(self.session)
-            self._changed(top.inverse.touch)
+            self._changed(top.inverse.touch, run.case_index)
         self._run = run
 
     def nudge(self, index: int, name: str, factor: float) -> str | None:
@@ -784,4 +910,5 @@ class Document:
         self._derive_all()
 
 
-__all__ = ["Document", "Question", "Solved", "Undone", "input_field", "name_problem"]
+__all__ = ["Derived", "Document", "Question", "Rederivation", "Solved", "Undone",
+           "input_field", "name_problem"]

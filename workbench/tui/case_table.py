@@ -2,8 +2,13 @@
 
 Cells are given as plain ``Text``, so a name is shown as written, never read as markup.
 
-It follows :attr:`CaseTable.view` (bound to the screen's): on a new revision it rewrites only
-the cells that changed, and it keeps its cursor on the selected case.  Moving the cursor posts
+It follows :attr:`CaseTable.view` (bound to the screen's) and keeps its cursor on the selected
+case.  Only the rows on show are written: a large session has thousands of rows, and one key in
+a bearing field changes them all.  Each row remembers the result its cells were made from; on a
+new revision, a scroll or a resize, the rows on show whose result changed are written again
+(only their changed cells), each from :meth:`~workbench.model.document.Document.result`, which
+derives a case the document left pending on the spot.  So a row on show is always current, and
+the others are written when they come into view.  Moving the cursor posts
 :class:`CaseTable.Chosen`.  The name column takes the room the other columns leave, so wide
 screens show whole names; a name that does not fit is cut between words (its full text is in
 the help line and the derivation's heading).
@@ -12,6 +17,8 @@ the help line and the derivation's heading).
 from __future__ import annotations
 
 import math
+from collections.abc import Iterable, Sequence
+from typing import overload
 
 from rich.text import Text
 from textual.binding import Binding
@@ -19,6 +26,7 @@ from textual.events import Resize
 from textual.message import Message
 from textual.reactive import var
 from textual.widgets import DataTable
+from textual.widgets.data_table import Row, RowKey
 
 from ..engine.record import fmt
 from ..model.document import Document
@@ -64,6 +72,33 @@ def row_cells(result: CaseResult, system: str) -> tuple[str, ...]:
             life_text(values.get("Lnm", math.nan)), fmt(values["s0"], 3), checks_text(result))
 
 
+class _RowLines(Sequence[tuple[RowKey, int]]):
+    """The table's lines as Textual's ``DataTable._y_offsets`` gives them ((row key, line in
+    the row) per line), for a table whose rows are all one line: read from the rows in order
+    instead of a list rebuilt after every cell update."""
+
+    def __init__(self, table: CaseTable) -> None:
+        self._table = table
+
+    def __len__(self) -> int:
+        return self._table.row_count
+
+    @overload
+    def __getitem__(self, line: int) -> tuple[RowKey, int]: ...
+
+    @overload
+    def __getitem__(self, line: slice) -> Sequence[tuple[RowKey, int]]: ...
+
+    def __getitem__(self, line: int | slice) -> tuple[RowKey, int] | Sequence[tuple[RowKey, int]]:
+        rows = self._table.ordered_rows
+        if isinstance(line, slice):
+            return [(row.key, 0) for row in rows[line]]
+        return (rows[line].key, 0)
+
+    def clear(self) -> None:
+        """Nothing is kept (``DataTable.clear`` clears the list it would keep)."""
+
+
 class CaseTable(DataTable[Text]):
     """Every load case with its equivalent load, life, static safety and verdicts; home and
     end go to the first and last case (the table's own home/end scroll sideways, and this
@@ -89,10 +124,39 @@ class CaseTable(DataTable[Text]):
             self.index = index
 
     def __init__(self, document: Document, *, id: str | None = None) -> None:
+        self._generation = 0
+        """Counts the times the table was cleared (see :attr:`ordered_rows`)."""
+        self._ordered: tuple[tuple[int, int], list[Row]] = ((-1, -1), [])
         super().__init__(id=id, cursor_type="row", zebra_stripes=True)
         self.document = document
         self._rows: list[tuple[str, ...]] = []
+        self._made_from: list[tuple[CaseResult, str, str] | None] = []
+        """Per row, what its cells were made from (result, name, unit system); None: not yet."""
         self._name_width = MIN_NAME
+
+    @property
+    def ordered_rows(self) -> list[Row]:
+        """The rows in order.  Textual's ``DataTable`` builds this list again after every cell
+        update, and ``_y_offsets`` a list per row from it (about 50 ms a frame at 10,000 rows);
+        these rows are never sorted and only added or removed at the end, so the list is kept
+        until the row count changes or the table is cleared."""
+        key = (self.row_count, self._generation)
+        if self._ordered[0] != key:
+            locations = self._row_locations
+            self._ordered = (key, [self.rows[locations.get_key(index)]
+                                   for index in range(self.row_count)])
+        return self._ordered[1]
+
+    @property
+    def _y_offsets(self) -> _RowLines:  # type: ignore[override]
+        """Every row is one line high: the lines are the rows (see :attr:`ordered_rows`)."""
+        return _RowLines(self)
+
+    def _update_dimensions(self, new_rows: Iterable[RowKey]) -> None:
+        """The scrollable size, without measuring the new rows' cells: Textual measures every
+        cell of a new row to widen its column (0.3 ms a row, seconds at 10,000 rows), and
+        these columns have fixed widths and rows one line high."""
+        super()._update_dimensions(())
 
     def on_mount(self) -> None:
         """The columns, sized to the screen's width (the list spans it) until laid out."""
@@ -106,16 +170,23 @@ class CaseTable(DataTable[Text]):
         if name_width == self._name_width and self.columns:
             return
         self._name_width = name_width
+        self._generation += 1
         self.clear(columns=True)
         self.add_column(NAME_HEADING, width=name_width, key="name")
         for heading, column_width in COLUMNS:
             self.add_column(heading, width=column_width, key=heading)
-        self._rows = []
+        self._rows, self._made_from = [], []
         self._show(self.view)
 
     def on_resize(self, event: Resize) -> None:
-        """Give the name column the room the other columns leave."""
+        """Give the name column the room the other columns leave; write the rows now on show."""
         self._columns_for(event.size.width)
+        self._write_on_show()
+
+    def watch_scroll_y(self, old_value: float, new_value: float) -> None:
+        """Write the rows that came into view."""
+        super().watch_scroll_y(old_value, new_value)
+        self._write_on_show()
 
     def watch_view(self, view: View) -> None:
         """Rewrite what changed, and keep the cursor on the selected case."""
@@ -125,28 +196,52 @@ class CaseTable(DataTable[Text]):
         if not self.columns:
             self._columns_for(self.size.width or self.app.size.width)
             return
-        document = self.document
-        system = document.units
-        rows = [(fit_words(result.case.name, self._name_width), *row_cells(result, system))
-                for result in document.results]
-        if len(rows) != len(self._rows):
-            with self.prevent(DataTable.RowHighlighted):  # the cursor is put back below
-                self.clear()
-                for number, row in enumerate(rows):
-                    self.add_row(*map(Text, row), key=str(number))
-        else:
-            keys = [column.key for column in self.ordered_columns]
-            for number, (old, new) in enumerate(zip(self._rows, rows)):
-                for key, before, after in zip(keys, old, new):
-                    if before != after:
-                        self.update_cell(str(number), key, Text(after))
-        self._rows = rows
-        if rows and 0 <= view.selected < len(rows) and self.cursor_row != view.selected:
-            with self.prevent(DataTable.RowHighlighted):
+        count = len(self.document.results)
+        rows = self._rows
+        with self.prevent(DataTable.RowHighlighted):  # the cursor is put back below
+            while len(rows) > count:
+                rows.pop()
+                self._made_from.pop()
+                self.remove_row(str(len(rows)))
+            blank = ("",) * (len(COLUMNS) + 1)
+            for number in range(len(rows), count):  # written when they come into view
+                self.add_row(*map(Text, blank), key=str(number))
+                rows.append(blank)
+                self._made_from.append(None)
+            if rows and 0 <= view.selected < len(rows) and self.cursor_row != view.selected:
                 self.move_cursor(row=view.selected, animate=False)
+        self._write_on_show()
+
+    def _on_show_range(self) -> range:
+        """The rows on show (with a row to spare either side)."""
+        top = int(self.scroll_y)
+        height = self.size.height or self.app.size.height  # before the first layout: at most the screen
+        return range(max(top - 1, 0), min(top + height + 1, len(self._rows)))
+
+    def _write_on_show(self) -> None:
+        for number in self._on_show_range():
+            self._write(number)
+
+    def _write(self, number: int) -> None:
+        """Write the cells of row ``number`` that differ from its case's current result."""
+        document = self.document
+        result = document.result(number)
+        if result is None:
+            return
+        made = (result, result.case.name, document.units)
+        before = self._made_from[number]
+        if before is not None and before[0] is result and before[1:] == made[1:]:
+            return
+        row = (fit_words(made[1], self._name_width), *row_cells(result, made[2]))
+        for key, old, new in zip((column.key for column in self.ordered_columns),
+                                 self._rows[number], row):
+            if old != new:
+                self.update_cell(str(number), key, Text(new))
+        self._rows[number], self._made_from[number] = row, made
 
     def row_texts(self, index: int) -> tuple[str, ...]:
-        """The cells of row ``index`` as shown."""
+        """The cells of row ``index`` as they are (or will be, once in view) shown."""
+        self._write(index)
         return self._rows[index]
 
     def on_data_table_row_highlighted(self, event: DataTable.RowHighlighted) -> None:

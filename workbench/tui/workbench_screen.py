@@ -5,10 +5,18 @@ The screen holds one :class:`~workbench.tui.view.View` (the document's revision 
 case); the list, the form and the panes follow it through ``data_bind`` and redraw themselves
 from the document.  Every action here edits the document (:mod:`workbench.model.document`) and
 then sets the view once: there is no list of panes to redraw by hand.
+
+In a large session an edit that reaches more than :data:`DEFER_OVER` cases derives at once only
+the case in the form and the rows on show (the list asks for each); the rest are derived by a
+thread worker (:meth:`WorkbenchScreen._rederive`) once typing pauses for :data:`DERIVE_DELAY_S`,
+so it never competes with drawing a key.  It hands results to the document every
+:data:`HAND_OVER_S` and is cancelled by the next edit (results for an older revision of a case
+are dropped by the document).  Nothing on show waits for it.
 """
 
 from __future__ import annotations
 
+import time
 from collections.abc import Callable
 from pathlib import Path
 from typing import TYPE_CHECKING
@@ -23,11 +31,12 @@ from textual.reactive import var
 from textual.screen import Screen
 from textual.timer import Timer
 from textual.widgets import DataTable, Header, Static, TabbedContent, TabPane
+from textual.worker import get_current_worker
 
 from ..engine.record import InputError
 from ..engine.solve import NoSolution, Solution
 from ..model import files
-from ..model.document import Document, Question
+from ..model.document import Derived, Document, Question, Rederivation
 from ..model.fields import FieldError
 from ..model.session import Session
 from ..model.shafts import GENERATED_NOTE
@@ -47,6 +56,15 @@ DEFAULT_SAVE_NAME = "session.toml"
 PANES = ("derivation", "solver", "whatif")
 """The right column's panes (their tab ids); the first is on show at start."""
 APP_NAME = "Bearing workbench"
+DEFER_OVER = 200
+"""An edit derives at most this many cases before the screen draws again (about 10 ms); a
+larger one leaves the rest to :meth:`WorkbenchScreen._rederive`."""
+DERIVE_PART = 16
+"""Cases the worker derives between two looks at whether it is still wanted (about 1 ms)."""
+HAND_OVER_S = 0.05
+"""How often the worker hands its results to the document."""
+DERIVE_DELAY_S = 0.2
+"""The pause in editing after which the worker starts (a key's frames are drawn by then)."""
 
 
 class WorkbenchScreen(Screen[None]):
@@ -69,8 +87,10 @@ class WorkbenchScreen(Screen[None]):
         wide = self.app.size.width >= WIDE
         super().__init__(id="workbench", classes="-wide" if wide else "-narrow")
         self.document = document
+        document.defer_over = DEFER_OVER
         self._autosave_delay = autosave_delay
         self._autosave_timer: Timer | None = None
+        self._derive_timer: Timer | None = None
         self._autosave_failed = False
 
     def compose(self) -> ComposeResult:
@@ -118,8 +138,50 @@ class WorkbenchScreen(Screen[None]):
     def watch_view(self, old: View, new: View) -> None:
         """The title follows; a change to the document schedules the recovery copy."""
         self._title()
-        if new.revision != old.revision and self.document.dirty:
-            self._schedule_autosave()
+        if new.revision != old.revision:
+            self._derive_pending()
+            if self.document.dirty:
+                self._schedule_autosave()
+
+    # ---- cases left pending by a large edit -------------------------------------------------
+    def _derive_pending(self) -> None:
+        """After an edit: stop a run of the worker, and start one on what is pending once
+        editing pauses for :data:`DERIVE_DELAY_S`."""
+        self.workers.cancel_group(self, "rederive")
+        if self._derive_timer is not None:
+            self._derive_timer.stop()
+            self._derive_timer = None
+        if self.document.pending:
+            self._derive_timer = self.set_timer(DERIVE_DELAY_S, self._start_rederive)
+
+    def _start_rederive(self) -> None:
+        self._derive_timer = None
+        job = self.document.rederivation(near=max(self.view.selected, 0))
+        if job is not None:
+            self._rederive(job)
+
+    @work(thread=True, exclusive=True, group="rederive", description="pending cases")
+    def _rederive(self, job: Rederivation) -> None:
+        """Derive ``job``'s cases away from the screen's thread, :data:`DERIVE_PART` at a time,
+        handing what is done to the list every :data:`HAND_OVER_S`."""
+        worker = get_current_worker()
+        done: list[Derived] = []
+        handed = time.monotonic()
+        for start in range(0, len(job.cases), DERIVE_PART):
+            if worker.is_cancelled:
+                return
+            done += job.derive(start, start + DERIVE_PART)
+            time.sleep(0)  # the screen's thread may take the interpreter between parts
+            last = start + DERIVE_PART >= len(job.cases)
+            if last or time.monotonic() - handed >= HAND_OVER_S:
+                if worker.is_cancelled:
+                    return
+                self.app.call_from_thread(self._take, done)
+                done, handed = [], time.monotonic()
+
+    def _take(self, derived: list[Derived]) -> None:
+        """Keep what the worker derived that is still current."""
+        self.document.take(derived)
 
     def _title(self) -> None:
         document = self.document
@@ -391,7 +453,8 @@ class WorkbenchScreen(Screen[None]):
             self.notify(f"Bearing {bearing} now has the data of {choice.designation} "
                         "(ctrl+z undoes it)")
 
-        users = [result for result in document.results if result.case.bearing == bearing]
+        users = [result for result in document.current_results()
+                 if result.case.bearing == bearing]
         held = document.session.bearing(bearing)
         self.app.push_screen(SelectionScreen(bearing, users,
                                              bearing_texts=held.texts if held else None,
