@@ -52,14 +52,31 @@ async def test_quit_guard_can_save_then_quit(make_app, no_disk, tmp_path: Path) 
     assert app.return_value == 0
 
 
-async def test_autosave_writes_recovery_after_a_quiet_spell(make_app, no_disk) -> None:
-    app = make_app(autosave_delay=2.0)  # well beyond the gaps between keys, even on a busy machine
+class _HeldTimer:
+    """A timer that fires only when told: the quiet spell without waiting for the clock."""
+
+    def __init__(self, delay: float, callback) -> None:
+        self.delay, self.callback, self.stopped = delay, callback, False
+
+    def stop(self) -> None:
+        self.stopped = True
+
+
+async def test_autosave_writes_recovery_after_a_quiet_spell(make_app, no_disk,
+                                                            monkeypatch) -> None:
+    app = make_app(autosave_delay=2.0)
     async with app.run_test(size=(80, 24)) as pilot:
+        timers: list[_HeldTimer] = []
+        screen = app.workbench_screen
+        monkeypatch.setattr(screen, "set_timer", lambda delay, callback, **kw: (
+            timers.append(_HeldTimer(delay, callback)), timers[-1])[1])
         await retype(pilot, app, "fr", "4 kN")
         await retype(pilot, app, "fa", "2 kN")
         assert not [c for c in no_disk if c[0] == "recovery"]
-        await pilot.pause(2.5)
-        # Debounced: one recovery write for the burst of keystrokes.
+        # Debounced: each change puts the quiet spell off; only the last timer still runs.
+        live = [timer for timer in timers if not timer.stopped and timer.delay == 2.0]
+        assert len(timers) > 2 and len(live) == 1
+        live[0].callback()  # the quiet spell ends
         assert [c for c in no_disk if c[0] == "recovery"] == [("recovery", None)]
 
 
