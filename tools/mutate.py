@@ -7,6 +7,7 @@ that constant is not guarded by any check against an outside source.
 
     python -m tools.mutate                      # every module, two workers
     python -m tools.mutate --modules life kinds # some modules
+    python -m tools.mutate --modules internal.hertz   # a sub-package's module by dotted name
     python -m tools.mutate --limit 20 --json out.json
 
 Not a pytest test (a full run takes tens of minutes).  It never edits the working tree: each
@@ -63,6 +64,10 @@ _OWN_TESTS: dict[str, tuple[str, ...]] = {
     "viscosity": ("test_viscosity.py",),
     "life": ("test_life.py",),
     "derive": ("test_derive.py",),
+    "internal.hertz": ("test_internal_hertz.py",),
+    "internal.distribution": ("test_internal_distribution.py",),
+    "internal.reference_life": ("test_internal_life.py",),
+    "internal.analysis": ("test_internal_life.py", "test_internal_distribution.py"),
 }
 TIMEOUT_S = 300.0
 
@@ -126,9 +131,15 @@ def _mutated_text(value: float, delta: float) -> str:
     return repr(float(value) * (1.0 + delta))
 
 
+def module_path(root: Path, module: str) -> Path:
+    """The file of engine module ``module`` (``internal.hertz`` is ``internal/hertz.py``) under
+    the engine folder ``root``."""
+    return root.joinpath(*module.split(".")).with_suffix(".py")
+
+
 def mutants_of(module: str, delta: float, path: Path | None = None) -> list[Mutant]:
     """Every mutable numeric constant of engine module ``module``, in source order."""
-    source = (path or ENGINE / f"{module}.py").read_text(encoding="utf-8")
+    source = (path or module_path(ENGINE, module)).read_text(encoding="utf-8")
     tree = ast.parse(source)
     parents = _parents(tree)
     lines = source.encode("utf-8").splitlines()
@@ -230,7 +241,7 @@ def _run_one(task: tuple[Mutant, bool]) -> Outcome:
     rest, stopping at the first failure; put the constant back."""
     mutant, quick = task
     assert _WORK is not None
-    target = _WORK / "workbench" / "engine" / f"{mutant.module}.py"
+    target = module_path(_WORK / "workbench" / "engine", mutant.module)
     original = target.read_bytes()
     target.write_bytes(_apply(original, mutant))
     start = time.monotonic()
@@ -283,8 +294,10 @@ def run(modules: list[str], delta: float, workers: int, limit: int | None,
 
 
 def engine_modules() -> list[str]:
-    """The engine modules the check covers (all but ``SKIPPED_MODULES``)."""
-    return sorted(p.stem for p in ENGINE.glob("*.py") if p.stem not in SKIPPED_MODULES)
+    """The engine modules the check covers (all but ``SKIPPED_MODULES``), those of its
+    sub-packages by dotted name (``internal.hertz``)."""
+    names = (".".join(p.relative_to(ENGINE).with_suffix("").parts) for p in ENGINE.rglob("*.py"))
+    return sorted(name for name in names if name.rsplit(".", 1)[-1] not in SKIPPED_MODULES)
 
 
 def main(argv: list[str] | None = None) -> int:
@@ -300,7 +313,7 @@ def main(argv: list[str] | None = None) -> int:
     parser.add_argument("--json", type=Path, help="write every outcome to this file")
     args = parser.parse_args(argv)
     modules = args.modules or engine_modules()
-    unknown = [m for m in modules if not (ENGINE / f"{m}.py").exists()]
+    unknown = [m for m in modules if not module_path(ENGINE, m).exists()]
     if unknown:
         parser.error(f"no engine module {', '.join(unknown)}")
     signal.signal(signal.SIGTERM, lambda *_: sys.exit(1))  # so the pool and its folder go too

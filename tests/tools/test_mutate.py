@@ -30,4 +30,8 @@ def test_every_engine_module_but_numerics_and_display_is_covered() -> None:
     modules = engine_modules()
     assert {"tables", "kinds", "life", "viscosity", "derive", "ratings"} <= set(modules)
     assert not {"solve", "sensitivity", "record", "num", "explain"} & set(modules)
+    # the internal analysis (Hertz, ISO/TS 16281) is physics too, named by its dotted path
+    assert {"internal.hertz", "internal.distribution", "internal.reference_life"} <= set(modules)
+    assert not {"__init__", "internal.__init__"} & set(modules)
     assert mutants_of("pairs", 0.03)  # a real module parses and yields its constants
+    assert mutants_of("internal.hertz", 0.03)
