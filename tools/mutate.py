@@ -202,7 +202,9 @@ def _test_files(module: str) -> tuple[list[str], list[str]]:
     return own, rest
 
 
-_PYTEST_OPTIONS = ["-x", "-q", "-p", "no:cacheprovider", "--no-header", "-W", "ignore"]
+# "-n 0": in this process, not pytest-xdist's (pyproject's addopts asks for two workers, each a
+# fresh interpreter importing numpy and scipy again: four test processes on two cores per mutant).
+_PYTEST_OPTIONS = ["-x", "-q", "-n", "0", "-p", "no:cacheprovider", "--no-header", "-W", "ignore"]
 
 
 def _pytest_in_child(files: list[str], deadline: float) -> str:
