@@ -348,6 +348,11 @@ def test_steps_show_only_the_factors_in_play() -> None:
     weibull_one = derive(replace(BASE, reliability_model="weibull"))
     assert weibull_one.step("L10").formula == "(C/P)^p"
     assert CaseInputs().rating_life_mrev == 1.0 and CaseInputs().af == 1.0
+    cylindrical = CaseInputs(kind="cylindrical", fr=5000.0, c=50000.0, c0=60000.0, speed=500.0)
+    plain_v = derive(cylindrical).step("P")
+    assert (plain_v.formula, plain_v.substituted) == ("P = Fr (α = 0)", "5000")
+    turned = derive(replace(cylindrical, outer_ring_rotates=True)).step("P")
+    assert (turned.formula, turned.substituted) == ("P = V·Fr (α = 0)", "1.2 × 5000")
 
 
 def test_index_step_names_its_column() -> None:

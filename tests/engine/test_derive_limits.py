@@ -60,3 +60,24 @@ def test_load_scale_solve_with_tiny_af_ends_in_an_answer_not_a_crash() -> None:
     """A load-scale solve with af = 5e-324 ends in InputError (NoSolution), not ZeroDivisionError."""
     with pytest.raises(InputError):
         solve(replace(CASE, af=5e-324), "load_scale", "Lnm", 20000.0)
+
+
+def test_load_rounding_to_zero_without_af_names_a_load_not_af() -> None:
+    """With af = 1 (no application factor) a P that rounds to zero is the loads' fault, not af's
+    (issue 15 item 8: bad input names the input). Fr = 0, Fa = 5e-324 on a tapered bearing with
+    the maker's Y = 0.4 (below one half): Fa/Fr > e, P = 0.4·0 + 0.4·5e-324 rounds to 0.0."""
+    assert 0.4 * 5e-324 == 0.0
+    case = CaseInputs(kind="tapered", fr=0.0, fa=5e-324, c=33000.0, c0=19000.0, speed=100.0,
+                      e_given=1.5, y_given=0.4)
+    assert _refused(case).field in ("fr", "fa")
+    assert _refused(replace(case, af=0.5)).field == "af"
+
+
+@pytest.mark.parametrize("angle", [90.5, 91.0])
+def test_thrust_contact_angle_past_90_degrees_is_refused(angle: float) -> None:
+    """A contact angle is measured from the radial plane; past 90° it is not an angle of a thrust
+    bearing (ISO 281:2007 §3 definition of the nominal contact angle, closed geometry)."""
+    case = CaseInputs(kind="thrust-ball", fr=0.0, fa=5000.0, c=50000.0, c0=90000.0, speed=100.0,
+                      contact_angle=angle)
+    assert _refused(case).field == "contact_angle"
+    assert derive(replace(case, contact_angle=90.0)).results["P"] == pytest.approx(5000.0)
