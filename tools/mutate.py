@@ -35,6 +35,7 @@ import signal
 import sys
 import tempfile
 import time
+from collections.abc import Sequence
 from dataclasses import asdict, dataclass
 from pathlib import Path
 
@@ -263,33 +264,62 @@ def _run_one(task: tuple[Mutant, bool]) -> Outcome:
     return Outcome(mutant, how != "survived", how, time.monotonic() - start)
 
 
+def read_outcomes(path: Path) -> list[Outcome]:
+    """The outcomes an earlier ``--json`` file holds."""
+    rows = json.loads(path.read_text(encoding="utf-8"))
+    return [Outcome(Mutant(r["module"], r["line"], r["col"], r["end_col"], r["original"],
+                           r["mutated"]), r["killed"], r["how"], r["seconds"]) for r in rows]
+
+
+def write_outcomes(path: Path, outcomes: list[Outcome]) -> None:
+    """Every outcome as JSON, replacing ``path`` whole (a stopped run keeps what it did)."""
+    temporary = path.with_name(path.name + ".part")
+    temporary.write_text(json.dumps([{**asdict(o.mutant), "killed": o.killed, "how": o.how,
+                                      "seconds": round(o.seconds, 2)} for o in outcomes],
+                                    indent=1, ensure_ascii=False), encoding="utf-8")
+    temporary.replace(path)
+
+
 def run(modules: list[str], delta: float, workers: int, limit: int | None,
-        quick: bool = False, sample: int | None = None, seed: int = 15) -> list[Outcome]:
+        quick: bool = False, sample: int | None = None, seed: int = 15,
+        done: Sequence[Outcome] = (), only: set[Mutant] | None = None,
+        json_path: Path | None = None) -> list[Outcome]:
     """Mutate, test and collect the outcomes (printing one line per survivor as it is found).
 
     ``sample`` draws that many mutants at random (seeded) from all of them: an estimate of the
-    kill rate when a full run would take too long.
+    kill rate when a full run would take too long. ``done`` are outcomes of an earlier run kept
+    as they are (``--resume``): their mutants are not tested again; ``only`` tests just those
+    mutants (``--survivors``). With ``json_path`` every outcome so far is written after each one.
     """
     mutants = [m for module in modules for m in mutants_of(module, delta)]
     total = len(mutants)
     if sample is not None and sample < total:
         mutants = sorted(random.Random(seed).sample(mutants, sample),
                          key=lambda m: (m.module, m.line, m.col))
+    if only is not None:
+        mutants = [m for m in mutants if m in only]
     if limit is not None:
         mutants = mutants[:limit]
-    drawn = f" (a seeded sample of {total})" if len(mutants) < total and sample else ""
-    print(f"{len(mutants)} mutants{drawn} in {', '.join(modules)} (×{1 + delta:g}), "
+    wanted = set(mutants)
+    outcomes: list[Outcome] = [o for o in done if o.mutant in wanted]
+    kept = {o.mutant for o in outcomes}
+    mutants = [m for m in mutants if m not in kept]
+    drawn = f" (a seeded sample of {total})" if sample is not None and sample < total else ""
+    resumed = f", {len(outcomes)} kept from the earlier run" if outcomes else ""
+    print(f"{len(mutants)} mutants{drawn} in {', '.join(modules)} (×{1 + delta:g}){resumed}, "
           f"{workers} workers", flush=True)
-    outcomes: list[Outcome] = []
     context = multiprocessing.get_context("fork")
     base = tempfile.mkdtemp(prefix="workbench-mutate-")
     try:
         with context.Pool(workers, initializer=_prepare_worker, initargs=(base,)) as pool:
             for outcome in pool.imap_unordered(_run_one, [(m, quick) for m in mutants]):
                 outcomes.append(outcome)
+                if json_path is not None:
+                    write_outcomes(json_path, outcomes)
                 if len(outcomes) % 50 == 0:
                     killed = sum(o.killed for o in outcomes)
-                    print(f"… {len(outcomes)} of {len(mutants)}, {killed} killed", flush=True)
+                    print(f"… {len(outcomes)} of {len(mutants) + len(kept)}, {killed} killed",
+                          flush=True)
                 if not outcome.killed:
                     m = outcome.mutant
                     print(f"survived {m.module}.py:{m.line}: {m.original} → {m.mutated}", flush=True)
@@ -315,15 +345,27 @@ def main(argv: list[str] | None = None) -> int:
                         help="run only the module's own test files (faster, may kill fewer)")
     parser.add_argument("--sample", type=int, help="test only N mutants drawn at random (seeded)")
     parser.add_argument("--seed", type=int, default=15, help="seed of --sample (default 15)")
-    parser.add_argument("--json", type=Path, help="write every outcome to this file")
+    parser.add_argument("--json", type=Path,
+                        help="write every outcome to this file (rewritten after each one)")
+    parser.add_argument("--resume", action="store_true",
+                        help="keep the outcomes already in --json FILE and test only the rest "
+                             "(a full run in several sittings)")
+    parser.add_argument("--survivors", type=Path, metavar="FILE",
+                        help="test again only the mutants that survived in this earlier --json file")
     args = parser.parse_args(argv)
+    if args.resume and args.json is None:
+        parser.error("--resume needs --json FILE")
+    done = read_outcomes(args.json) if args.resume and args.json.exists() else []
+    only = ({o.mutant for o in read_outcomes(args.survivors) if not o.killed}
+            if args.survivors else None)
     modules = args.modules or engine_modules()
     unknown = [m for m in modules if not module_path(ENGINE, m).exists()]
     if unknown:
         parser.error(f"no engine module {', '.join(unknown)}")
     signal.signal(signal.SIGTERM, lambda *_: sys.exit(1))  # so the pool and its folder go too
     started = time.monotonic()
-    outcomes = run(modules, args.delta, args.workers, args.limit, args.quick, args.sample, args.seed)
+    outcomes = run(modules, args.delta, args.workers, args.limit, args.quick, args.sample, args.seed,
+                   done=done, only=only, json_path=args.json)
     killed = sum(o.killed for o in outcomes)
     total = len(outcomes)
     print(f"\nkilled {killed} of {total} ({100.0 * killed / max(total, 1):.1f} %) "
@@ -336,9 +378,7 @@ def main(argv: list[str] | None = None) -> int:
     for module, (k, n) in sorted(by_module.items()):
         print(f"  {module:14} {k:4} / {n:4}")
     if args.json:
-        args.json.write_text(json.dumps([{**asdict(o.mutant), "killed": o.killed, "how": o.how,
-                                          "seconds": round(o.seconds, 2)} for o in outcomes],
-                                        indent=1, ensure_ascii=False), encoding="utf-8")
+        write_outcomes(args.json, outcomes)
     return 0
 
 

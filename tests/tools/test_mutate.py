@@ -35,3 +35,17 @@ def test_every_engine_module_but_numerics_and_display_is_covered() -> None:
     assert not {"__init__", "internal.__init__"} & set(modules)
     assert mutants_of("pairs", 0.03)  # a real module parses and yields its constants
     assert mutants_of("internal.hertz", 0.03)
+
+
+def test_outcomes_round_trip_through_the_json_file(tmp_path: Path) -> None:
+    """--resume and --survivors read back what --json wrote: the same mutants, compared equal."""
+    from tools.mutate import Outcome, read_outcomes, write_outcomes
+
+    found = mutants_of("pairs", 0.03)[:3]
+    outcomes = [Outcome(m, killed, how, 1.25) for m, (killed, how) in
+                zip(found, [(True, "failed"), (False, "survived"), (True, "timeout")])]
+    path = tmp_path / "run.json"
+    write_outcomes(path, outcomes)
+    again = read_outcomes(path)
+    assert again == outcomes
+    assert {o.mutant for o in again if not o.killed} == {found[1]}
