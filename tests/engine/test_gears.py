@@ -143,6 +143,13 @@ def test_arrays_match_floats() -> None:
     (lambda: torque_from_power(1000.0, 0.0), "speed"),
     (lambda: belt_pull(10.0, 100.0, 0.8), "belt_pull_factor"),
     (lambda: spur_forces(np.array([1.0, math.inf]), 80.0, 20.0), "torque"),
+    # geometry: a pressure, helix or pitch-cone angle lies below 90° (tan 90° is infinite, and past
+    # it the tooth or cone turns over); just past 90° is refused, not read as a steep angle
+    (lambda: spur_forces(10.0, 80.0, 90.5), "pressure_angle"),
+    (lambda: helical_forces(10.0, 80.0, 90.5, 20.0, "right", True), "normal_pressure_angle"),
+    (lambda: helical_forces(10.0, 80.0, 20.0, 90.5, "right", True), "helix_angle"),
+    (lambda: straight_bevel_forces(10.0, 80.0, 90.5, 45.0), "pressure_angle"),
+    (lambda: straight_bevel_forces(10.0, 80.0, 20.0, 90.5), "pitch_cone_angle"),
 ])
 def test_bad_input_names_its_field(call, field: str) -> None:
     with pytest.raises(InputError) as caught:
