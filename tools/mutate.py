@@ -17,7 +17,8 @@ hypothesis already, so a mutant costs the engine's own imports and its tests).
 
 Constants that are not physics are left alone, by rule (see :func:`_skipped`): zero (a few per
 cent of nothing is nothing), tolerances below 1e-6, subscripts, the arguments of ``range``,
-``round`` and ``lru_cache``, functions that make synthetic data or time things (``random_*``,
+``round`` and ``lru_cache``, numbers inside f-strings (text), integer bounds on ``len(…)`` by
+``>`` or ``<=`` (a count is whole: ``len(rows) > 1.03`` is ``len(rows) > 1``), functions that make synthetic data or time things (``random_*``,
 ``benchmark*``), and the modules of numerical method and display (``SKIPPED_MODULES``):
 a solver grid of 64 points or a difference step of 1e-4 may change without changing an answer.
 """
@@ -109,14 +110,33 @@ def _call_name(node: ast.Call) -> str:
     return ""
 
 
+def _count_bound(node: ast.Constant, parent: ast.AST | None) -> bool:
+    """An integer bound on ``len(…)`` by ``>`` or ``<=`` (``len(rows) > 1``): a count is an
+    integer, so n·(1 + δ) below n + 1 gives the same answer, a mutant no test can kill."""
+    if not (isinstance(parent, ast.Compare) and len(parent.ops) == 1 and type(node.value) is int):
+        return False
+    left, right, op = parent.left, parent.comparators[0], parent.ops[0]
+    if right is node and isinstance(op, ast.Gt | ast.LtE):
+        other = left
+    elif left is node and isinstance(op, ast.Lt | ast.GtE):
+        other = right
+    else:
+        return False
+    return isinstance(other, ast.Call) and _call_name(other) == "len"
+
+
 def _skipped(node: ast.Constant, parents: dict[ast.AST, ast.AST]) -> bool:
     """True for constants that are not physics (see the module docstring)."""
     value = node.value
     if value == 0 or abs(value) < 1e-6:
         return True
+    if _count_bound(node, parents.get(node)):
+        return True
     child: ast.AST = node
     parent = parents.get(node)
     while parent is not None:
+        if isinstance(parent, ast.JoinedStr):  # a number inside an f-string only makes text
+            return True
         if isinstance(parent, ast.Subscript) and child is parent.slice:
             return True
         if isinstance(parent, ast.keyword) and parent.arg in ("maxsize", "digits"):

@@ -110,6 +110,11 @@ def test_belt_pull_factor_and_direction() -> None:
     assert belt_pull(30.0, 150.0).force == pytest.approx(BELT_PULL_FACTORS["v_belt"][0] * effective)
     for default, (low, high) in BELT_PULL_FACTORS.values():
         assert 1.0 <= low <= default <= high
+    # f = 1 is the bare tangential pull 2T/D (a drive with no slack-side tension, closed form):
+    # the smallest factor accepted; below it the pull would be less than the torque transmits
+    assert belt_pull(30.0, 150.0, 1.0).force == pytest.approx(effective, rel=1e-12)
+    with pytest.raises(InputError):
+        belt_pull(30.0, 150.0, 0.99)
 
 
 def test_belt_pull_factors_are_the_common_practice_values() -> None:

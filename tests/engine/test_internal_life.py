@@ -149,3 +149,20 @@ def test_cylindrical_axial_load_is_left_to_the_ribs() -> None:
     assert any("ribs" in w for w in result.derivation.warnings)
     with pytest.raises(NoEquilibrium):
         analyse_internal(replace(ROLLER, fr=0.0, fa=1000.0))
+
+
+def test_static_rating_without_f0_is_the_load_reaching_4200_mpa() -> None:
+    # ISO 76:2006 §4 (from memory): C0 of a ball bearing is the load at which the most loaded
+    # ball's inner contact reaches 4 200 MPa; with Stribeck's classic allowance Qmax =
+    # 5·C0/(i·Z·cos α) (machine-design texts, REFERENCE.md §8). Typed here: 5 and 4 200 MPa.
+    from workbench.engine.internal import hertz
+    from workbench.engine.internal.distribution import ball_contacts
+
+    bearing = InternalInputs("angular-contact", 12, 12.7, 65.0, alpha_deg=40.0, fr=3000.0,
+                             fa=3000.0)
+    assert bearing.f0 is None  # no f0: C0 from the contact pressure (deep-groove reads ISO 76's f0)
+    c0 = analyse_internal(bearing).results["C0"]
+    q_max = 5.0 * c0 / (1 * 12 * math.cos(math.radians(40.0)))
+    contacts = ball_contacts(bearing)
+    p_max = hertz.point_contact(q_max, contacts.inner, contacts.inner_ellipse).p_max
+    assert p_max == pytest.approx(4200.0, rel=1e-9)

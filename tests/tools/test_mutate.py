@@ -21,6 +21,15 @@ def test_only_physics_constants_are_mutated(tmp_path: Path) -> None:
         encoding="utf-8")
     found = mutants_of("sample", 0.03, path=source)
     assert [(m.line, m.original) for m in found] == [(1, "0.56"), (6, "2.3"), (6, "0.83")]
+    more = tmp_path / "more.py"
+    more.write_text(
+        "def g(rows, i):\n"
+        "    label = f'term {i + 1}'\n"                        # text: left alone
+        "    if len(rows) > 1 or 2 >= len(rows) or len(rows) == 3:\n"  # == 3 is mutated
+        "        return 1.5\n",
+        encoding="utf-8")
+    assert [(m.line, m.original) for m in mutants_of("more", 0.03, path=more)] == [(3, "3"),
+                                                                                     (4, "1.5")]
     changed = _apply(source.read_bytes(), found[1]).decode("utf-8")
     ast.parse(changed)
     assert changed.splitlines()[5].startswith(f"    return {2.3 * 1.03!r} * a ** -0.83  # ° ·")
