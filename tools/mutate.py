@@ -215,6 +215,10 @@ def _prepare_worker(base: str) -> None:
     import scipy.optimize  # noqa: F401
     import scipy.special  # noqa: F401
     import scipy.stats  # noqa: F401
+    try:  # the ASTM D2270 reference of test_viscosity (about a second to import, once per worker)
+        import chemicals.viscosity  # noqa: F401
+    except ImportError:
+        pass
 
 
 def _test_files(module: str) -> tuple[list[str], list[str]]:
