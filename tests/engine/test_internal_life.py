@@ -166,3 +166,21 @@ def test_static_rating_without_f0_is_the_load_reaching_4200_mpa() -> None:
     contacts = ball_contacts(bearing)
     p_max = hertz.point_contact(q_max, contacts.inner, contacts.inner_ellipse).p_max
     assert p_max == pytest.approx(4200.0, rel=1e-9)
+
+
+@pytest.mark.parametrize("bearing, p", [(BALL, 3.0), (ROLLER, 10.0 / 3.0)])
+def test_reference_load_inverts_the_life_relation(bearing: InternalInputs, p: float) -> None:
+    # ISO/TS 16281:2008 (from memory): Pref is the load that gives L10r through L10 = (C/P)^p,
+    # with ISO 281:2007 §7's life exponent p = 3 for ball and 10/3 for roller bearings (typed).
+    r = analyse_internal(bearing).results
+    assert r["P_ref"] == pytest.approx(r["C"] * r["L10r"] ** (-1.0 / p), rel=1e-12)
+    # without ν, eC and a speed aISO is not evaluated: the factor stays 1 (ISO 281:2007 §9.3)
+    assert r["aISO"] == 1.0
+
+
+def test_modified_reference_life_and_hours() -> None:
+    # Lnmr = aISO·L10r (ISO/TS 16281, from memory) and hours = 10⁶·L/(60·n) (ISO 281:2007 §5.3)
+    r = analyse_internal(replace(BALL, speed=1500.0, nu=20.0, ec=0.5)).results
+    assert r["Lnmr"] == pytest.approx(r["aISO"] * r["L10r"], rel=1e-12)
+    assert r["L10rh"] == pytest.approx(r["L10r"] * 1e6 / (60.0 * 1500.0), rel=1e-12)
+    assert r["aISO"] != 1.0
