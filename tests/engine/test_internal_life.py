@@ -184,3 +184,20 @@ def test_modified_reference_life_and_hours() -> None:
     assert r["Lnmr"] == pytest.approx(r["aISO"] * r["L10r"], rel=1e-12)
     assert r["L10rh"] == pytest.approx(r["L10r"] * 1e6 / (60.0 * 1500.0), rel=1e-12)
     assert r["aISO"] != 1.0
+
+
+def test_pair_rule_beside_a_tapered_pair_takes_y_as_0_4_cot_alpha() -> None:
+    # ISO 281:2007 Table 3 (single-row radial roller, α ≠ 0, Fa/Fr > e): Y = 0.4·cot α (from
+    # memory, REFERENCE.md §2); induced thrust Fi = Fr/(2Y) = Fr·tan α/0.8 (ISO form, REFERENCE.md
+    # §7). The rule's bearing that is not pushed carries exactly its own Fi; the other Fi + Ka.
+    inputs = InternalInputs("tapered", 18, 9.0, 70.0, lwe=14.0, alpha_deg=15.0,
+                            arrangement="back-to-back", fr=8000.0, fa=1500.0)
+    result = analyse_internal(inputs)
+    rows = {row.name: row for row in result.rows}
+    induced = {name: row.radial_load / (2.0 * 0.4 / math.tan(math.radians(15.0)))
+               for name, row in rows.items()}
+    r = result.results
+    # back-to-back, Ka toward B: bearing A resists it; Fi,B + Ka ≥ Fi,A here
+    assert induced["B"] + 1500.0 >= induced["A"]
+    assert r["Fa_rule_B"] == pytest.approx(induced["B"], rel=1e-9)
+    assert r["Fa_rule_A"] == pytest.approx(induced["B"] + 1500.0, rel=1e-9)
