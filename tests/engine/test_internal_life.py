@@ -201,3 +201,69 @@ def test_pair_rule_beside_a_tapered_pair_takes_y_as_0_4_cot_alpha() -> None:
     assert induced["B"] + 1500.0 >= induced["A"]
     assert r["Fa_rule_B"] == pytest.approx(induced["B"], rel=1e-9)
     assert r["Fa_rule_A"] == pytest.approx(induced["B"] + 1500.0, rel=1e-9)
+
+
+def test_outer_ball_raceway_capacity_formula() -> None:
+    # Lundberg–Palmgren Qc of the outer raceway (REFERENCE.md §8, from memory): the lower signs,
+    # (1 + γ)^1.39/(1 − γ)^(1/3), with fe = 0.53; bm = 1.3 (ISO 281, deep groove, from memory).
+    gamma = 12.7 / 65.0
+    expected = (1.3 * 98.1 * (1.06 / 0.06) ** 0.41 * (1 + gamma) ** 1.39 / (1 - gamma) ** (1 / 3)
+                * gamma ** 0.3 * 12.7 ** 1.8 * 9 ** (-1 / 3))
+    assert raceway_capacities(BALL)[1] == pytest.approx(expected, rel=1e-12)
+
+
+@pytest.mark.parametrize("alpha", [0.0, 12.0])
+def test_roller_raceway_capacity_formula(alpha: float) -> None:
+    # Lundberg–Palmgren line contact (ISO/TS 16281 form, from memory): Qc = bm·λν·552·
+    # (1 ∓ γ)^(29/27)/(1 ± γ)^(1/4)·(γ/cos α)^(2/9)·Dwe^(29/27)·Lwe^(7/9)·Z^(−1/4), upper signs
+    # inner; λν = 0.83 (edge stresses and manufacture), bm = 1.1 cylindrical and tapered (ISO
+    # 281, from memory). Dwe = 11, Dpw = 70, Lwe = 11, Z = 14.
+    kind = "cylindrical" if alpha == 0.0 else "tapered"
+    bearing = replace(ROLLER, kind=kind, alpha_deg=alpha)
+    gamma = 11.0 * math.cos(math.radians(alpha)) / 70.0
+    common = (1.1 * 0.83 * 552.0 * (11.0 / 70.0) ** (2 / 9) * 11.0 ** (29 / 27) * 11.0 ** (7 / 9)
+              * 14 ** -0.25)
+    inner, outer = raceway_capacities(bearing)
+    assert inner == pytest.approx(common * (1 - gamma) ** (29 / 27) / (1 + gamma) ** 0.25, rel=1e-12)
+    assert outer == pytest.approx(common * (1 + gamma) ** (29 / 27) / (1 - gamma) ** 0.25, rel=1e-12)
+
+
+@pytest.mark.parametrize("inner_rotates", [True, False])
+def test_ball_row_life_written_out(inner_rotates: bool) -> None:
+    # Lundberg–Palmgren, ISO/TS 16281 (from memory; REFERENCE.md §8): the rotating raceway takes
+    # the cubic mean of the element loads, the stationary one the 10/3 mean; each raceway lives
+    # (Qc/Qe)³, the row (Li^(−10/9) + Le^(−10/9))^(−9/10).
+    loads = np.array([3000.0, 2200.0, 800.0, 0.0, 0.0, 0.0, 0.0, 900.0, 2300.0])
+    q_ci, q_ce = 21000.0, 24000.0
+    cubic = np.mean(loads ** 3) ** (1 / 3)
+    ten_thirds = np.mean(loads ** (10 / 3)) ** (3 / 10)
+    q_i, q_e = (cubic, ten_thirds) if inner_rotates else (ten_thirds, cubic)
+    li, le = (q_ci / q_i) ** 3, (q_ce / q_e) ** 3
+    lives = reference_life.ball_row_life(loads, q_ci, q_ce, inner_rotates=inner_rotates)
+    assert (lives.load_inner, lives.load_outer) == pytest.approx((q_i, q_e), rel=1e-12)
+    assert (lives.inner, lives.outer) == pytest.approx((li, le), rel=1e-12)
+    assert lives.row == pytest.approx((li ** (-10 / 9) + le ** (-10 / 9)) ** (-9 / 10), rel=1e-12)
+
+
+@pytest.mark.parametrize("inner_rotates", [True, False])
+def test_roller_row_life_written_out(inner_rotates: bool) -> None:
+    # Line contact, sliced (ISO/TS 16281 form, from memory; REFERENCE.md §8): per slice k the
+    # capacity qck = Qc·ns^(−7/9); the rotating raceway takes the 4th-power mean of the slice loads
+    # over the elements, the stationary one the 4.5th; L = [Σk (qek/qck)^4.5]^(−8/9) per raceway,
+    # the row (Li^(−9/8) + Le^(−9/8))^(−8/9).
+    slices = np.array([[400.0, 600.0, 500.0], [300.0, 350.0, 200.0], [0.0, 0.0, 0.0],
+                       [100.0, 150.0, 120.0]])
+    q_ci, q_ce = 30000.0, 33000.0
+    share = 3 ** (-7 / 9)
+    fourth = np.mean(slices ** 4, axis=0) ** (1 / 4)
+    four_half = np.mean(slices ** 4.5, axis=0) ** (1 / 4.5)
+    q_i, q_e = (fourth, four_half) if inner_rotates else (four_half, fourth)
+    li = np.sum((q_i / (q_ci * share)) ** 4.5) ** (-8 / 9)
+    le = np.sum((q_e / (q_ce * share)) ** 4.5) ** (-8 / 9)
+    lives = reference_life.roller_row_life(slices, q_ci, q_ce, inner_rotates=inner_rotates)
+    assert (lives.inner, lives.outer) == pytest.approx((li, le), rel=1e-12)
+    assert (lives.load_inner, lives.load_outer) == pytest.approx((q_i.max(), q_e.max()), rel=1e-12)
+    assert lives.row == pytest.approx((li ** (-9 / 8) + le ** (-9 / 8)) ** (-8 / 9), rel=1e-12)
+    # one slice of the whole length: the raceway lives (Qc/Qe)^4 (line contact, closed form)
+    whole = reference_life.roller_row_life(slices[:, :1], q_ci, q_ce, inner_rotates=True)
+    assert whole.inner == pytest.approx((q_ci / np.mean(slices[:, 0] ** 4) ** 0.25) ** 4, rel=1e-12)
