@@ -273,6 +273,15 @@ def test_bad_inputs_name_the_input(changes: dict[str, object], field: str) -> No
     assert info.value.field == field
 
 
+def test_three_elements_are_enough() -> None:
+    # Three contacts are the fewest that hold a ring in the plane (closed geometry): Z = 3 is
+    # taken, Z = 2 refused (above); the three loads balance Fr.
+    row = solve_equilibrium(replace(BALL, z=3, fr=500.0)).rows[0]
+    assert len(row.load) == 3
+    radial = np.sum(row.load * np.cos(row.azimuth) * np.cos(np.radians(row.contact_angle_deg)))
+    assert radial == pytest.approx(500.0, rel=1e-6)
+
+
 @settings(max_examples=40, derandomize=True, deadline=None)
 @given(kind=st.sampled_from(["deep-groove", "angular-contact", "cylindrical", "tapered"]),
        pair=st.booleans(), fr=st.floats(0.0, 0.4), fa=st.floats(-0.2, 0.4),
