@@ -2,13 +2,17 @@
 
 Each numeric constant of the engine's physics modules is changed, one at a time, by a
 transcription-sized amount (``--delta``, 3 % by default: 0.56 becomes 0.5768), and the engine
-tests run with ``-x`` against the changed copy.  A change that no test notices is a *survivor*:
-that constant is not guarded by any check against an outside source.
+tests run with ``-x`` against the changed copy: the module's own test files first, then the other
+engine test files that import it (directly or through other modules; a file that never imports
+it cannot notice).  A change that no test notices is a *survivor*: that constant is not guarded
+by any check against an outside source.
 
     python -m tools.mutate                      # every module, two workers
     python -m tools.mutate --modules life kinds # some modules
     python -m tools.mutate --modules internal.hertz   # a sub-package's module by dotted name
     python -m tools.mutate --limit 20 --json out.json
+    python -m tools.mutate --json full.json --resume   # go on with a stopped run
+    python -m tools.mutate --survivors full.json       # after new tests: the survivors again
 
 Not a pytest test (a full run takes tens of minutes).  It never edits the working tree: each
 worker copies ``workbench/``, ``tests/`` and ``pyproject.toml`` to a temporary folder, changes the
@@ -221,12 +225,72 @@ def _prepare_worker(base: str) -> None:
         pass
 
 
+def _imported(path: Path, package: str, known: set[str]) -> set[str]:
+    """The names in ``known`` (engine modules by dotted name, and the test folder's own helper
+    modules) that the file at ``path`` imports anywhere in it. ``package`` is the file's dotted
+    package inside the engine, for relative imports ("" for the engine's top level and tests)."""
+    found: set[str] = set()
+    prefix = "workbench.engine."
+    for node in ast.walk(ast.parse(path.read_text(encoding="utf-8"))):
+        if isinstance(node, ast.Import):
+            bases = [alias.name for alias in node.names]
+            names: list[str] = []
+        elif isinstance(node, ast.ImportFrom):
+            if node.level:
+                parts = package.split(".") if package else []
+                parts = parts[:len(parts) - (node.level - 1)] if node.level > 1 else parts
+                base = ".".join([*parts, *([node.module] if node.module else [])])
+            else:
+                base = node.module or ""
+                base = base[len(prefix):] if base.startswith(prefix) else (
+                    "" if base == "workbench.engine" else base)
+            bases, names = [base], [alias.name for alias in node.names]
+        else:
+            continue
+        for base in bases:
+            base = base[len(prefix):] if base.startswith(prefix) else base
+            if base in known:
+                found.add(base)
+            found.update(f"{base}.{name}".lstrip(".") for name in names
+                         if f"{base}.{name}".lstrip(".") in known)
+    return found
+
+
+def relevant_tests(module: str, root: Path = ROOT) -> list[str]:
+    """The engine test files that import ``module``, directly or through other engine modules or
+    the tests' helper modules: only those can see its constants (a file that never imports it
+    cannot fail because a number in it changed)."""
+    engine, tests = root / "workbench" / "engine", root / "tests" / "engine"
+    graph: dict[str, set[str]] = {}
+    engine_files = {".".join(p.relative_to(engine).with_suffix("").parts): p
+                    for p in engine.rglob("*.py")}
+    helpers = {p.stem: p for p in tests.glob("*.py") if not p.stem.startswith("test_")}
+    known = set(engine_files) | set(helpers)
+    for name, path in engine_files.items():
+        graph[name] = _imported(path, name.rpartition(".")[0], known)
+    for name, path in helpers.items():
+        graph[name] = _imported(path, "", known)
+
+    def reaches(start: set[str]) -> bool:
+        seen, todo = set(), list(start)
+        while todo:
+            name = todo.pop()
+            if name == module:
+                return True
+            if name not in seen:
+                seen.add(name)
+                todo.extend(graph.get(name, ()))
+        return False
+
+    return sorted(f"tests/engine/{p.name}" for p in tests.glob("test_*.py")
+                  if reaches(_imported(p, "", known)))
+
+
 def _test_files(module: str) -> tuple[list[str], list[str]]:
-    """The module's own engine test files, then the other engine test files."""
+    """The module's own engine test files, then the other engine test files that import it."""
     assert _WORK is not None
     own = [f"tests/engine/{name}" for name in _OWN_TESTS.get(module, ())]
-    rest = sorted(f"tests/engine/{p.name}" for p in (_WORK / "tests" / "engine").glob("test_*.py")
-                  if f"tests/engine/{p.name}" not in own)
+    rest = [name for name in relevant_tests(module, _WORK) if name not in own]
     return own, rest
 
 

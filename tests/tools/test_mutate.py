@@ -58,3 +58,21 @@ def test_outcomes_round_trip_through_the_json_file(tmp_path: Path) -> None:
     again = read_outcomes(path)
     assert again == outcomes
     assert {o.mutant for o in again if not o.killed} == {found[1]}
+
+
+def test_only_the_test_files_that_import_a_module_run_for_it() -> None:
+    """A mutant runs the engine test files that import its module, directly, through other engine
+    modules (relative imports too) or through the tests' helper modules — and no others."""
+    from tools.mutate import relevant_tests
+
+    hertz = relevant_tests("internal.hertz")
+    # test_internal_life reaches hertz through internal_examples → distribution → hertz
+    assert {"tests/engine/test_internal_hertz.py", "tests/engine/test_internal_distribution.py",
+            "tests/engine/test_internal_life.py"} <= set(hertz)
+    assert "tests/engine/test_solve.py" not in hertz
+    # derive is reached from the solver's tests, and from the internal analysis (life beside)
+    assert {"tests/engine/test_solve.py", "tests/engine/test_internal_life.py"} <= set(
+        relevant_tests("derive"))
+    every = {name for module in engine_modules() for name in relevant_tests(module)}
+    on_disk = {f"tests/engine/{p.name}" for p in Path("tests/engine").glob("test_*.py")}
+    assert every == on_disk  # every engine test file guards some covered module
