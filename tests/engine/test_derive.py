@@ -496,3 +496,19 @@ def test_static_safety_minimums(duty: str, ball: float, roller: float) -> None:
                              static_duty=duty)
     assert derive(cylindrical).results["s0_min"] == roller
     assert derive(replace(cylindrical, s0_min=4.0)).results["s0_min"] == 4.0
+
+
+def test_closed_form_factor_steps_show_their_own_values() -> None:
+    """e, Y (and a double row's Y for Fa/Fr ≤ e) from the closed forms of ISO 281:2007 Table 3 for
+    radial rollers (e = 1.5·tan α; Y = 0.4·cot α single row, 0.45·cot α double row ≤ e; from
+    memory): each step shows the value it holds, not a neighbour's."""
+    single = derive(CaseInputs(kind="tapered", fr=5000.0, fa=2500.0, c=50000.0, c0=60000.0,
+                               contact_angle=15.0, speed=100.0))
+    double = derive(CaseInputs(kind="tapered", arrangement="double-row", fr=5000.0, fa=200.0,
+                               c=50000.0, c0=60000.0, contact_angle=15.0, speed=100.0))
+    cot = 1.0 / math.tan(math.radians(15.0))
+    expected = [(single, "e", 1.5 / cot), (single, "Y", 0.4 * cot), (double, "Y", 0.45 * cot)]
+    for d, key, value in expected:
+        step = d.step(key)
+        assert step.value == pytest.approx(value, rel=1e-12)
+        assert float(step.substituted) == pytest.approx(value, rel=1e-3)

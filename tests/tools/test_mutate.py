@@ -26,7 +26,9 @@ def test_only_physics_constants_are_mutated(tmp_path: Path) -> None:
         "def g(rows, i):\n"
         "    label = f'term {i + 1}'\n"                        # text: left alone
         "    if len(rows) > 1 or 2 >= len(rows) or len(rows) == 3:\n"  # == 3 is mutated
-        "        return 1.5\n",
+        "        return 1.5\n"
+        "def _first_guess(x):\n"
+        "    return 0.5 * x\n",
         encoding="utf-8")
     assert [(m.line, m.original) for m in mutants_of("more", 0.03, path=more)] == [(3, "3"),
                                                                                      (4, "1.5")]
