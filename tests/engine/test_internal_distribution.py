@@ -308,3 +308,24 @@ def test_either_balanced_or_a_named_cause(kind: str, pair: bool, fr: float, fa: 
     scale = max(inputs.fr, abs(inputs.fa), 1.0)
     assert np.allclose(eq.reactions * [1, 1, 1 / (0.5 * dpw)], target * [1, 1, 1 / (0.5 * dpw)],
                        atol=1e-8 * scale)
+
+
+@pytest.mark.parametrize(("delta0", "delta1", "epsilon", "half_angle"), [
+    (0.5, 1.0, 0.75, 120.0),      # ψl = arccos(−δ0/δ1) = arccos(−0.5)
+    (-0.5, 1.0, 0.25, 60.0),      # clearance: fewer than half the elements carry load
+    (2.0, 1.0, 1.5, 180.0),       # ε > 1: every element loaded, the whole circle
+    (1.0, 0.0, math.inf, 180.0),  # no variation round the ring (pure thrust): all loaded
+])
+def test_load_zone_from_the_approaches(delta0: float, delta1: float, epsilon: float,
+                                       half_angle: float) -> None:
+    # Rigid rings: δψ = δ0 + δ1·cos ψ; ε = (δ0 + δ1)/(2δ1) and ψl = arccos(−δ0/δ1), the whole
+    # circle (180°) once every element is loaded (Sjövall; Harris & Kotzalas; closed form).
+    from workbench.engine.internal.distribution import RowState
+
+    psi = np.linspace(0.0, 2.0 * math.pi, 24, endpoint=False)
+    approach = delta0 + delta1 * np.cos(psi)
+    state = RowState(psi, np.maximum(approach, 0.0) ** 1.5, np.zeros(24), approach,
+                     np.maximum(approach, 0.0)[:, None] ** 1.5, 1.0)
+    zone = load_zone(state)
+    assert zone.epsilon == pytest.approx(epsilon, rel=1e-12)
+    assert zone.half_angle_deg == pytest.approx(half_angle, rel=1e-12)

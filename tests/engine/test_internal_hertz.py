@@ -111,3 +111,17 @@ def test_line_contact_pressure_closed_form() -> None:
     e2 = hertz.REDUCED_MODULUS_STEEL
     assert hertz.line_contact_pressure(load, length, rho) == pytest.approx(
         math.sqrt(load * e2 * rho / (2.0 * math.pi * length)), rel=1e-12)
+
+
+@pytest.mark.parametrize("difference", [2e-3, 1e-2])
+def test_nearly_circular_contact(difference: float) -> None:
+    # A ball on a nearly flat, nearly conforming pair has F(ρ) near 0 and k near 1 (a circle):
+    # the same closed form F(k) = [(k²+1)E − 2K]/[(k²−1)E] (scipy's ellipk/ellipe, m = 1 − 1/k²)
+    # solved from just above 1.
+    def f_of_k(k: float) -> float:
+        m = 1.0 - 1.0 / k ** 2
+        return ((k ** 2 + 1.0) * ellipe(m) - 2.0 * ellipk(m)) / ((k ** 2 - 1.0) * ellipe(m))
+
+    k = brentq(lambda x: f_of_k(x) - difference, 1.0 + 1e-6, 2.0, xtol=1e-15)
+    assert k < 1.03
+    assert hertz.ellipse_of(difference).k == pytest.approx(k, rel=1e-9)

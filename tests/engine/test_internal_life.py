@@ -267,3 +267,18 @@ def test_roller_row_life_written_out(inner_rotates: bool) -> None:
     # one slice of the whole length: the raceway lives (Qc/Qe)^4 (line contact, closed form)
     whole = reference_life.roller_row_life(slices[:, :1], q_ci, q_ce, inner_rotates=True)
     assert whole.inner == pytest.approx((q_ci / np.mean(slices[:, 0] ** 4) ** 0.25) ** 4, rel=1e-12)
+
+
+def test_raceway_capacities_without_bm_are_lundberg_palmgren_s_own() -> None:
+    # Lundberg & Palmgren's capacities carry no ISO 281 bm: called without one, bm = 1
+    # (REFERENCE.md §8 formulas, from memory), α = 20° (γ/cos α = Dw/Dpw).
+    gamma = 12.7 * math.cos(math.radians(20.0)) / 65.0
+    ball = reference_life.ball_raceway_capacity(12.7, 65.0, 20.0, 9, 0.52, inner=True)
+    assert ball == pytest.approx(98.1 * (1.04 / 0.04) ** 0.41 * (1 - gamma) ** 1.39
+                                 / (1 + gamma) ** (1 / 3) * (12.7 / 65.0) ** 0.3 * 12.7 ** 1.8
+                                 * 9 ** (-1 / 3), rel=1e-12)
+    roller = reference_life.roller_raceway_capacity(11.0, 70.0, 0.0, 14, 11.0, inner=False)
+    g = 11.0 / 70.0
+    assert roller == pytest.approx(0.83 * 552.0 * (1 + g) ** (29 / 27) / (1 - g) ** 0.25
+                                   * g ** (2 / 9) * 11.0 ** (29 / 27) * 11.0 ** (7 / 9)
+                                   * 14 ** -0.25, rel=1e-12)
