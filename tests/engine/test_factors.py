@@ -213,6 +213,9 @@ def test_roller_closed_forms(alpha: float) -> None:
     assert (single.x_low, single.y_low, single.x_high, single.y_high) == pytest.approx((1, 0, 0.4, 0.4 / t))
     assert (double.x_low, double.y_low, double.x_high, double.y_high) == pytest.approx((1, 0.45 / t, 0.67, 0.67 / t))
     assert (ball.x_low, ball.y_low, ball.x_high, ball.y_high) == pytest.approx((1, 0.42 / t, 0.65, 0.65 / t))
+    # the maker's e read back as an angle: α = arctan(e/1.5), the inverse of e = 1.5·tan α
+    from workbench.engine.kinds import contact_angle_from_e
+    assert contact_angle_from_e(1.5 * t) == pytest.approx(alpha, rel=1e-12)
 
 
 def test_makers_e_and_y_override_the_angle() -> None:
