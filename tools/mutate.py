@@ -21,8 +21,8 @@ hypothesis already, so a mutant costs the engine's own imports and its tests).
 
 Constants that are not physics are left alone, by rule (see :func:`_skipped`): zero (a few per
 cent of nothing is nothing), tolerances below 1e-6, subscripts, the arguments of ``range``,
-``round`` and ``lru_cache``, a solver's starting point (functions named ``*guess*``), numbers
-inside f-strings (text), integer bounds on ``len(…)`` by
+``round`` and ``lru_cache``, the equilibrium solver's starting point and continuation
+(``_NUMERICAL_METHOD_FUNCTIONS``), numbers inside f-strings (text), integer bounds on ``len(…)`` by
 ``>`` or ``<=`` (a count is whole: ``len(rows) > 1.03`` is ``len(rows) > 1``), functions that make synthetic data or time things (``random_*``,
 ``benchmark*``), and the modules of numerical method and display (``SKIPPED_MODULES``):
 a solver grid of 64 points or a difference step of 1e-4 may change without changing an answer.
@@ -57,9 +57,10 @@ SKIPPED_MODULES = frozenset({"__init__", "num", "record", "explain", "solve", "s
 # Functions that make synthetic data or time things (select.random_catalog, benchmark_select):
 # their numbers are sizes and seeds, not physics.
 _SKIPPED_FUNCTION_PREFIXES = ("benchmark", "random_")
-# Starting points of an iterative solver (distribution._first_guess): numerical method, the
-# answer does not depend on them (a guess that loses the root fails the equilibrium tests).
-_SKIPPED_FUNCTION_WORDS = ("guess",)
+# Numerical method inside physics modules: the equilibrium solver's starting point, its growth
+# until an element touches, and the continuation in steps of a moment. The answer does not
+# depend on them (a start that loses the root fails the equilibrium tests instead).
+_NUMERICAL_METHOD_FUNCTIONS = frozenset({"_first_guess", "_in_contact", "_moment_in_steps"})
 # Calls whose numeric arguments are counts, digits or cache sizes.
 _SKIPPED_CALLS = frozenset({"range", "round", "lru_cache", "fmt"})
 # Which engine test file checks a module first (the rest follow): a killed mutant stops early.
@@ -153,7 +154,7 @@ def _skipped(node: ast.Constant, parents: dict[ast.AST, ast.AST]) -> bool:
             return True
         if isinstance(parent, ast.FunctionDef) and (
                 parent.name.startswith(_SKIPPED_FUNCTION_PREFIXES)
-                or any(word in parent.name for word in _SKIPPED_FUNCTION_WORDS)):
+                or parent.name in _NUMERICAL_METHOD_FUNCTIONS):
             return True
         if isinstance(parent, ast.Module):
             return False
