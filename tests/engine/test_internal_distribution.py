@@ -329,3 +329,26 @@ def test_load_zone_from_the_approaches(delta0: float, delta1: float, epsilon: fl
     zone = load_zone(state)
     assert zone.epsilon == pytest.approx(epsilon, rel=1e-12)
     assert zone.half_angle_deg == pytest.approx(half_angle, rel=1e-12)
+
+
+@pytest.mark.parametrize(("base", "field", "inside", "outside"), [
+    # physics: a groove radius above the ball's (f > 0.5, closed geometry); eC from 0 to 1
+    # (ISO 281:2007 §9.3, from memory)
+    (BALL, "fi", 0.505, 0.5),
+    (BALL, "ec", 1.0, 1.01),
+    # the model's own stated range (our choice, said in each refusal; no published value):
+    # α ≤ 45°, f ≤ 0.6, 1–200 slices, |clearance| < 5 % of the element diameter, |tilt| ≤ 0.01 rad
+    (replace(BALL, kind="angular-contact", alpha_deg=30.0), "alpha_deg", 45.0, 45.5),
+    (BALL, "fe", 0.6, 0.61),
+    (ROLLER, "slices", 200, 201),
+    (BALL, "clearance", 0.0495 * 12.7, 0.05 * 12.7),
+    (BALL, "tilt", 0.01, 0.0101),
+])
+def test_the_range_at_its_edges(base: InternalInputs, field: str, inside: float,
+                                outside: float) -> None:
+    from workbench.engine.internal.distribution import validate
+
+    validate(replace(base, **{field: inside}))
+    with pytest.raises(InputError) as info:
+        validate(replace(base, **{field: outside}))
+    assert info.value.field == field
