@@ -282,3 +282,13 @@ def test_raceway_capacities_without_bm_are_lundberg_palmgren_s_own() -> None:
     assert roller == pytest.approx(0.83 * 552.0 * (1 + g) ** (29 / 27) / (1 - g) ** 0.25
                                    * g ** (2 / 9) * 11.0 ** (29 / 27) * 11.0 ** (7 / 9)
                                    * 14 ** -0.25, rel=1e-12)
+
+
+@pytest.mark.parametrize(("bearing", "limit"), [(BALL, "4200 MPa"), (ROLLER, "4000 MPa")])
+def test_contact_pressure_steps_name_the_iso76_reference(bearing: InternalInputs, limit: str) -> None:
+    # ISO 76:2006 §4 (from memory; REFERENCE.md §8): the largest contact pressure at C0 is
+    # 4 200 MPa for ball bearings (other than self-aligning) and 4 000 MPa for roller bearings.
+    d = analyse_internal(bearing).derivation
+    for side in ("inner", "outer"):
+        note = d.step(f"p_max_{side}").note
+        assert f"reference at C0: {limit}" in note
