@@ -125,3 +125,28 @@ def test_nearly_circular_contact(difference: float) -> None:
     k = brentq(lambda x: f_of_k(x) - difference, 1.0 + 1e-6, 2.0, xtol=1e-15)
     assert k < 1.03
     assert hertz.ellipse_of(difference).k == pytest.approx(k, rel=1e-9)
+
+
+@pytest.mark.parametrize("alpha", [0.0, 12.0])
+def test_roller_raceway_curvature_from_the_radii(alpha: float) -> None:
+    # A roller of radius Dwe/2 on a raceway whose radius normal to the contact is
+    # (Dpw/cos α − Dwe)/2 inside, (Dpw/cos α + Dwe)/2 outside (concave): Σρ = 1/r1 ± 1/r2
+    # (closed geometry).
+    dwe, dpw = 11.0, 70.0
+    lever = dpw / math.cos(math.radians(alpha))
+    inner = 2.0 / dwe + 2.0 / (lever - dwe)
+    outer = 2.0 / dwe - 2.0 / (lever + dwe)
+    assert hertz.roller_raceway_curvature_sum(dwe, dpw, alpha, inner=True) == pytest.approx(inner, rel=1e-12)
+    assert hertz.roller_raceway_curvature_sum(dwe, dpw, alpha, inner=False) == pytest.approx(outer, rel=1e-12)
+
+
+def test_line_contact_half_width_for_steel() -> None:
+    # Hertz line contact: b = (8Q·R/(π·l·E'))^(1/2), E' = 2/[2(1 − 0.3²)/207 000 MPa] (steel,
+    # REFERENCE.md §8); pmax = 2Q/(π·b·l).
+    e2 = 2.0 / (2.0 * (1.0 - 0.3 ** 2) / 207000.0)
+    load, length, rho = 4000.0, 12.0, 0.25
+    b = math.sqrt(8.0 * load / (rho * math.pi * length * e2))
+    assert hertz.line_contact_half_width(load, length, rho) == pytest.approx(b, rel=1e-12)
+    assert hertz.line_contact_pressure(load, length, rho) == pytest.approx(
+        2.0 * load / (math.pi * b * length), rel=1e-12)
+    assert hertz.REDUCED_MODULUS_STEEL == pytest.approx(e2, rel=1e-12)
