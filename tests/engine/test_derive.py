@@ -180,6 +180,11 @@ def test_cylindrical_axial_load_warns() -> None:
     d = derive(replace(BASE, kind="cylindrical", fa=3000.0, f0=None))
     assert d.results["P"] == 5200.0
     assert any("ribs" in w for w in d.warnings)
+    # the limit is Fa = 0.4·Fr (common practice, typed): just below it no warning, just above one
+    below = derive(replace(BASE, kind="cylindrical", fa=0.395 * 5200.0, f0=None))
+    above = derive(replace(BASE, kind="cylindrical", fa=0.405 * 5200.0, f0=None))
+    assert not any("ribs" in w for w in below.warnings)
+    assert any("ribs" in w and "exceeds 0.4:" in w for w in above.warnings)
 
 
 @pytest.mark.parametrize("kind", [k.value for k in Kind])
