@@ -80,6 +80,22 @@ def test_sjovall_integral_closed_form_at_half() -> None:
         assert sjovall_integrals(0.5, n)[0] == pytest.approx(closed, rel=1e-9)
 
 
+@pytest.mark.parametrize("epsilon", [0.2, 0.75, 0.98, 1.5])
+def test_sjovall_integrals_from_their_definitions(epsilon: float) -> None:
+    # Jr(ε) = (1/2π)∫ [1 − (1 − cos ψ)/(2ε)]₊^n cos ψ dψ and Ja(ε) = (1/2π)∫ [·]₊^n dψ over the
+    # whole circle, the bracket's positive part marking the load zone (Sjövall; REFERENCE.md §8),
+    # integrated here by scipy.integrate.quad on (−π, π) with the zone's edge as a break point.
+    from scipy.integrate import quad
+
+    def bracket(psi: float) -> float:
+        return max(1.0 - (1.0 - math.cos(psi)) / (2.0 * epsilon), 0.0) ** 1.5
+
+    edge = [math.acos(1.0 - 2.0 * epsilon)] if epsilon < 1.0 else []
+    jr = quad(lambda p: bracket(p) * math.cos(p), 0.0, math.pi, points=edge)[0] / math.pi
+    ja = quad(bracket, 0.0, math.pi, points=edge)[0] / math.pi
+    assert sjovall_integrals(epsilon, 1.5) == pytest.approx((jr, ja), rel=1e-7)
+
+
 @pytest.mark.parametrize("ratio", [1.2, 1.6, 3.0])
 def test_combined_load_follows_sjovall(ratio: float) -> None:
     # Sjövall: with many elements and a fixed contact angle, Fr = Z·Qmax·Jr(ε)·cos α and

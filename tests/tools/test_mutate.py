@@ -78,3 +78,16 @@ def test_only_the_test_files_that_import_a_module_run_for_it() -> None:
     every = {name for module in engine_modules() for name in relevant_tests(module)}
     on_disk = {f"tests/engine/{p.name}" for p in Path("tests/engine").glob("test_*.py")}
     assert every == on_disk  # every engine test file guards some covered module
+
+
+def test_known_equivalent_mutants_name_lines_that_exist() -> None:
+    """Each listed equivalent mutant still matches a line of its module (else the list is stale)
+    and is left out."""
+    from tools.mutate import ENGINE, KNOWN_EQUIVALENT, module_path
+
+    for (module, line), reason in KNOWN_EQUIVALENT.items():
+        source = module_path(ENGINE, module).read_text(encoding="utf-8").splitlines()
+        assert line in [text.strip() for text in source], (module, line)
+        assert reason
+        number = [text.strip() for text in source].index(line) + 1
+        assert all(m.line != number for m in mutants_of(module, 0.03))
