@@ -200,6 +200,9 @@ def test_fatigue_load_limit_estimate() -> None:
     assert fatigue_load_limit_estimate(8200.0, 80.0, True) == pytest.approx(1000.0)
     assert fatigue_load_limit_estimate(22000.0, 400.0, False) == pytest.approx(1000.0 * 0.25 ** 0.5)
     assert fatigue_load_limit_estimate(22000.0, 100.0, False) == pytest.approx(1000.0)
+    # just above 100 mm the reduction already applies (the switch is at dpw = 100 mm)
+    assert fatigue_load_limit_estimate(22000.0, 101.5, False) == pytest.approx(
+        1000.0 * (100.0 / 101.5) ** 0.5, rel=1e-12)
 
 
 def test_a_vanishing_load_gives_an_infinite_life_not_an_overflow() -> None:

@@ -168,6 +168,14 @@ def test_radial_ball_at_exactly_25_4_mm_uses_the_small_ball_branch():
     assert dynamic_rating_radial_ball(1, 10, 25.4, 0, 254.0) == pytest.approx(expected, rel=1e-12)
 
 
+def test_radial_ball_just_above_25_4_mm_uses_the_large_ball_branch():
+    # ISO 281 §6 radial ball, Dw > 25.4 mm: Cr = 3.647·bm·fc·(i·cos α)^0.7·Z^(2/3)·Dw^1.4 (REFERENCE.md
+    # §6 [handbook: Machinery's Handbook 31st ed., the switch at 25.4 mm]; fc 55.5 at γ = 0.10, from
+    # memory). At Dw = 26 mm the small-ball formula would read 0.9 % higher (26^0.4 = 3.68).
+    expected = 3.647 * 1.3 * 55.5 * 10 ** (2 / 3) * 26.0**1.4
+    assert dynamic_rating_radial_ball(1, 10, 26.0, 0, 260.0) == pytest.approx(expected, rel=1e-12)
+
+
 def test_radial_ball_large_ball_branch():
     # ISO 281 §6 radial ball, Dw > 25.4 mm: 3.647·bm·fc·(i·cos α)^0.7·Z^(2/3)·Dw^1.4
     # (REFERENCE.md §6 [handbook]; fc 55.5 at γ = 0.10 from memory).

@@ -114,6 +114,17 @@ def test_select_agrees_with_the_derive_loop(rows, cases, target, s0_min, flanged
                 select_by_loop(bearings, cases, target, s0_min, filters))
 
 
+def test_catalog_case_takes_the_mean_diameter() -> None:
+    # ISO 281:2007 §9.3.3 (from memory, REFERENCE.md §5): dm = (d + D)/2 for ν1; the maker's e
+    # and Y of the case are cleared (a catalog row carries none).
+    from workbench.engine.select import bearing_case
+
+    bearings = table_of([(1, 40.0, 80.0, 18.0, 30000.0, 20000.0, 14.0, NAN, NAN, NAN)])
+    case = bearing_case(CaseInputs(fr=3000.0, speed=1500.0, e_given=0.3, y_given=1.5), bearings, 0)
+    assert case.dm == pytest.approx((40.0 + 80.0) / 2.0, rel=1e-12)
+    assert (case.c, case.c0, case.e_given, case.y_given) == (30000.0, 20000.0, None, None)
+
+
 def test_closed_form_margin_for_pure_radial_load() -> None:
     # ISO 281:2007 §7: L10 = (C/P)^3 with P = Fr for Fa = 0 (X = 1); a1 = 1 at R = 90 %;
     # no lubrication data, so aISO = 1 — Lnm in hours is (C/Fr)^3·10⁶/(60·n), a closed form.
