@@ -125,6 +125,18 @@ def test_catalog_case_takes_the_mean_diameter() -> None:
     assert (case.c, case.c0, case.e_given, case.y_given) == (30000.0, 20000.0, None, None)
 
 
+def test_no_governing_case_without_a_speed() -> None:
+    # At speed 0 there is no life in hours (L10h = 10⁶·L10/(60·n), ISO 281:2007 §5.3): no case
+    # governs the life margin (case index −1, an integer like every other index) and the margin
+    # is unbounded; the bearing still qualifies on static safety.
+    bearings = table_of([(1, 40.0, 80.0, 18.0, 30000.0, 20000.0, 14.0, NAN, NAN, NAN)] * 2)
+    for run in (select, select_by_loop):
+        result = run(bearings, [CaseInputs(fr=3000.0, speed=0.0)], 5000.0)
+        assert result.governing_case.tolist() == [-1, -1]
+        assert result.governing_case.dtype.kind == "i"
+        assert np.all(np.isinf(result.life_margin))
+
+
 def test_closed_form_margin_for_pure_radial_load() -> None:
     # ISO 281:2007 §7: L10 = (C/P)^3 with P = Fr for Fa = 0 (X = 1); a1 = 1 at R = 90 %;
     # no lubrication data, so aISO = 1 — Lnm in hours is (C/Fr)^3·10⁶/(60·n), a closed form.
