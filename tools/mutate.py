@@ -69,6 +69,8 @@ KNOWN_EQUIVALENT: dict[tuple[str, str], str] = {
         "pmax ∝ Q^(1/3): C0 is scaled from a probe load, and any probe load gives the same C0",
     ("internal.distribution", "if high > APPROACH_LIMIT_RATIO * inputs.dw * 10.0:"):
         "the bracket doubles from 1e-3·Dw, and no doubling lands between 0.1·Dw and 0.103·Dw",
+    ("select", "governing=governing if rated.any() else np.full(ng, -1),"):
+        "select() copies it into its integer array of case indices, where −1.03 is −1",
 }
 # Calls whose numeric arguments are counts, digits or cache sizes.
 _SKIPPED_CALLS = frozenset({"range", "round", "lru_cache", "fmt"})
