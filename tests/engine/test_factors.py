@@ -297,6 +297,8 @@ def test_thrust_at_90_degrees_is_pure_axial(kind: Kind) -> None:
     f = dynamic_factors(kind, Arrangement.SINGLE, 90.0)
     p, _, _, possible = dynamic_load(kind, f, 0.0, 3000.0)
     assert (p, possible) == (3000.0, True)
+    # X = 0, Y = 1 on either side of e: no radial term, the axial load whole
+    assert (f.x_low, f.y_low, f.x_high, f.y_high) == (0.0, 1.0, 0.0, 1.0)
     sf = static_factors(kind, Arrangement.SINGLE, 90.0)
     assert equivalent_static_load(sf, 0.0, 3000.0)[0] == 3000.0
 
