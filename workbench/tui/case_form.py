@@ -38,6 +38,7 @@ EDITOR_GROUPS: tuple[tuple[str, tuple[str, ...]], ...] = (
                      "weibull_b", "rating_life_mrev")),
     ("Lubrication", ("vg", "vi", "nu100", "temp", "nu", "cleanliness")),
     ("Static", ("static_duty", "s0_min", "static_only")),
+    ("Fit: inside view (f8)", ("clearance", "preload", "tilt", "moment")),
 )
 BEARING_FIELD = "bearing"
 BEARING_LABEL = "Bearing used"
