@@ -514,3 +514,19 @@ def test_next_line_character_in_notes_is_not_a_line_break() -> None:
     text = dumps_session(session)
     assert not has_comments(text)
     assert loads_session(text) == session
+
+
+def test_the_spindle_pair_keeps_its_geometry_and_fit_through_a_save() -> None:
+    # sessions/spindle-pair.toml carries the pair's geometry and preload (schema 2): they read,
+    # save as schema 2 and read back unchanged.
+    session = load_session(SESSIONS / "spindle-pair.toml")
+    bearing = session.bearings[0]
+    assert bearing.geometry == {"elements": "16", "dw": "11.1 mm", "dpw": "72.5 mm",
+                                "row_spacing": "24 mm"}
+    assert bearing.texts["preload"] == "600 N"
+    text = dumps_session(session)
+    assert text.startswith("schema = 2\n") and "[bearings.geometry]" in text
+    assert loads_session(text) == session
+    bearing.geometry.clear()
+    del bearing.texts["preload"]
+    assert dumps_session(session).startswith("schema = 1\n")  # an older workbench reads it
