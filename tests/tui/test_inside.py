@@ -179,3 +179,24 @@ async def test_whatif_draws_life_against_clearance() -> None:
         assert "vs Pd=0" in text and "L10r at zero clearance" in text
         points = whatif._clearance.points
         assert len(points) == 25 and points[0].clearance < 0.0 < points[-1].clearance
+
+
+async def test_the_spindle_pair_opens_unchanged_and_shows_both_rows() -> None:
+    # The example session (sessions/spindle-pair.toml): opening it writes nothing (a required
+    # choice's first option, set as the form mounts, once overwrote the pair's kind), and the
+    # inside view draws both rows of the preloaded pair.
+    from pathlib import Path
+
+    from workbench.model.sessionfile import load_session
+
+    session = load_session(Path(__file__).parents[2] / "sessions" / "spindle-pair.toml")
+    app = app_on(session)
+    async with app.run_test(size=(80, 24)) as pilot:
+        await pilot.pause()
+        await pilot.press("f8")
+        text = await shown(pilot, app)
+        assert not app.document.dirty and not app.document.can_undo
+        assert app.document.session.bearings[0].texts["kind"] == "angular-contact"
+        assert "row A" in text and "row B" in text and "A↓" in text and "B↓" in text
+        result = pane(app).outcome.result
+        assert result is not None and len(result.rows) == 2
