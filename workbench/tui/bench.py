@@ -340,7 +340,7 @@ def first_frame_process_s(which: str) -> float:
 def measure_clearance_curve(repeats: int) -> dict[str, float]:
     """``whatif_clearance_ms``: the What-if pane's life against operating clearance for the
     spindle-pair example's roughing pass, as its worker makes it (the request from the
-    document, the 25-point sweep, the plot and its words at 40 columns); the median of
+    document, the 25-point sweep, the plot and its words, 30 columns of plot); the median of
     ``repeats`` rounds after one to load scipy.  Goal: ≤ 100 ms."""
     from ..model.document import Document
     from ..model.sessionfile import demo_session_path, load_session
@@ -352,7 +352,7 @@ def measure_clearance_curve(repeats: int) -> dict[str, float]:
     def once() -> None:
         curve = clearance_curve(inside_request(document, 0))
         assert curve.problem is None, curve.problem
-        clearance_section(curve, 40, 8)
+        clearance_section(curve, 30, 8)
 
     once()
     samples = []

@@ -63,12 +63,12 @@ def clearance_curve(request: InsideRequest, count: int = POINTS) -> ClearanceCur
                           if "preload" not in request.fit else None)
 
 
-def clearance_section(curve: ClearanceCurve, width: int, height: int) -> list[str]:
-    """The What-if pane's block: the plot, what it says in words and the legend, or why there
-    is no curve."""
+def clearance_section(curve: ClearanceCurve, width: int, height: int) -> tuple[list[str], list[str]]:
+    """The What-if pane's block: the plot (lines kept whole), and what it says in words with
+    the legend (lines to wrap); or no plot and why there is no curve."""
     if curve.problem is not None:
-        return [curve.problem]
-    return [*plot_lines(curve, width, height, curve.operating), *verdict_lines(curve), LEGEND]
+        return [], [curve.problem]
+    return plot_lines(curve, width, height, curve.operating), [*verdict_lines(curve), LEGEND]
 
 
 def _life_at(points: tuple[SweepPoint, ...], clearance: float) -> float:
