@@ -42,6 +42,9 @@ class ClearanceCurve:
     """The case's own operating clearance (mm), when its bearing gives one."""
 
 
+NO_CURVE = ClearanceCurve(problem="No clearance curve yet.")
+
+
 def clearance_curve(request: InsideRequest, count: int = POINTS) -> ClearanceCurve:
     """The sweep for one inside request (see :mod:`workbench.tui.inside_pane`), in words when
     the case has no geometry or the analysis refuses it."""
