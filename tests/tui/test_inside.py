@@ -175,7 +175,7 @@ async def test_whatif_draws_life_against_clearance() -> None:
             await pilot.pause()
             if whatif.shown == app.workbench_screen.view:
                 break
-        text = whatif.text
+        text = whatif.text.plain
         assert "vs Pd=0" in text and "L10r at zero clearance" in text
         points = whatif._clearance.points
         assert len(points) == 25 and points[0].clearance < 0.0 < points[-1].clearance
