@@ -241,6 +241,46 @@ def test_adopting_keeps_the_designation_and_source() -> None:
     assert (bearing.designation, bearing.source, bearing.texts["c"]) == ("", "", "30 kN")
 
 
+def test_a_rated_bearing_keeps_its_geometry_and_a_catalog_one_clears_it() -> None:
+    document = Document(rig_session())
+    geometry = {"elements": "10", "dw": "7.9 mm", "dpw": "45 mm", "kind": "deep-groove"}
+    document.adopt_bearing("Drive", {"c": "14.9 kN"}, designation="the geometry rating",
+                           source="rated from geometry", geometry=geometry)
+    bearing = document.session.bearing("Drive")
+    assert bearing.geometry == {"elements": "10", "dw": "7.9 mm", "dpw": "45 mm"}
+    document.adopt_bearing("Drive", {"c": "35 kN"}, designation="DG-50-90", source="catalog")
+    assert bearing.geometry == {}  # it described the bearing the catalog row replaces
+    document.undo()
+    assert bearing.geometry["elements"] == "10"
+    document.undo()
+    assert bearing.geometry == {} and bearing.texts["c"] == "30 kN"
+
+
+def test_geometry_and_fit_edits_are_checked_and_undone() -> None:
+    document = Document(rig_session())
+    revision = document.revision
+    assert document.set_geometry("Drive", "dw", "12 kN") is not None  # not a length
+    assert document.set_geometry("Drive", "colour", "red") is not None
+    assert document.revision == revision
+    assert document.set_geometry("Drive", "dw", "7.9 mm") is None
+    assert document.session.bearing("Drive").geometry == {"dw": "7.9 mm"}
+    assert document.revision == revision + 1
+    # clearance is the bearing's (every case on it), tilt the case's; neither reaches ISO 281
+    before = [r.derivation.results for r in document.results]
+    assert document.set_field(1, "clearance", "-0.005 mm") is None
+    document.end_run()
+    assert document.set_field(0, "tilt", "1 mrad") is None
+    document.end_run()
+    assert document.session.bearing("Drive").texts["clearance"] == "-0.005 mm"
+    assert document.session.cases[0].texts["tilt"] == "1 mrad"
+    assert [r.derivation.results for r in document.results] == before
+    for _ in range(3):
+        document.undo()
+    assert document.session.bearing("Drive").geometry == {}
+    assert "clearance" not in document.session.bearing("Drive").texts
+    assert "tilt" not in document.session.cases[0].texts
+
+
 def test_details_and_targets_are_one_step_and_checked() -> None:
     document = Document(rig_session())
     problems = document.set_details({"title": "Rig B"}, {"life": "30000 kg"})

@@ -17,6 +17,7 @@ from workbench.model.internal_form import (
     clearance_curve_for_case,
     inputs_from_texts,
     internal_for_case,
+    session_inside_texts,
 )
 
 TEXTS = {"kind": "angular-contact", "elements": "12", "dw": "12.7 mm", "dpw": "65",
@@ -90,7 +91,8 @@ def test_clearance_curve_for_a_session_case() -> None:
 
 
 def test_the_spindle_pair_example_session() -> None:
-    # The example session's wheel-end pair, geometry as its comments give it: the rows share the
+    # The example session's wheel-end pair, geometry and preload as its bearing carries them
+    # (schema 2), read back by session_inside_texts: the rows share the
     # thrust (shaft equilibrium), and at the finishing pass's light load the 600 N preload, which
     # the catalogue method ignores, governs: the reference life falls below the ISO 281 life.
     from pathlib import Path
@@ -99,12 +101,14 @@ def test_the_spindle_pair_example_session() -> None:
     from workbench.model.sessionfile import load_session
 
     session = load_session(Path(__file__).parents[2] / "sessions" / "spindle-pair.toml")
-    geometry = {"elements": "16", "dw": "11.1 mm", "dpw": "72.5 mm", "row_spacing": "24 mm"}
-    fit = {"preload": "600 N"}
     results = {}
     for case in session.cases:
         inputs = evaluate_case(session, case).inputs
-        assert inputs is not None
+        texts = session_inside_texts(session, case)
+        assert inputs is not None and texts is not None
+        geometry, fit = texts
+        assert geometry == {"elements": "16", "dw": "11.1 mm", "dpw": "72.5 mm",
+                            "row_spacing": "24 mm"} and fit == {"preload": "600 N"}
         results[case.name] = internal_for_case(inputs, geometry, fit)
     rough, finish = results["Roughing pass"], results["Finishing pass"]
     assert rough.rows[0].axial_load - rough.rows[1].axial_load == pytest.approx(500.0, rel=1e-8)

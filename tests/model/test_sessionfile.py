@@ -21,7 +21,8 @@ from hypothesis import strategies as st
 from workbench.engine.solve import TARGETS, UNKNOWNS
 from workbench.model.analysis import session_duty_cycles, session_shafts
 from workbench.model.duty_cycles import DutyCycle, duty_cycle_to_table
-from workbench.model.fields import BEARING_FIELDS, CASE_FIELDS, FIELD_BY_NAME, FieldSpec
+from workbench.model.fields import BEARING_FIELDS, CASE_FIELDS, FIELD_BY_NAME, INSIDE_FIELDS, FieldSpec
+from workbench.engine.internal.distribution import PROFILES
 from workbench.model.session import Bearing, LoadCase, Session, SolverSetup, Targets
 from workbench.model.shafts import Element, OperatingState, Shaft, shaft_to_table
 from workbench.model.sessionfile import (
@@ -50,7 +51,16 @@ UNITS = {
     "revolutions": ("Mrev",),
     "viscosity": ("mm²/s", "cSt"),
     "temperature": ("°C", "degC"),
+    "torque": ("N·m", "N*m"),
 }
+GEOMETRY = st.fixed_dictionaries(
+    {"elements": st.integers(3, 40).map(str),
+     "dw": st.floats(1.0, 50.0).map(lambda v: f"{v:.4g} mm"),
+     "dpw": st.floats(20.0, 400.0).map(lambda v: f"{v:.4g} mm")},
+    optional={"lwe": st.floats(1.0, 50.0).map(lambda v: f"{v:.4g} mm"),
+              "fi": st.sampled_from(("0.515", "0.52")), "profile": st.sampled_from(PROFILES),
+              "slices": st.integers(1, 60).map(str)})
+"""A bearing's internal geometry as `workbench rate` and `internal` take it (schema 2)."""
 free_text = st.text(st.characters(blacklist_categories=("Cs",)), max_size=40)
 name_text = free_text.filter(lambda s: bool(s.strip()))
 
@@ -80,7 +90,8 @@ def texts_of(names: tuple[str, ...]) -> st.SearchStrategy[dict[str, str]]:
 
 @st.composite
 def sessions(draw: st.DrawFn) -> Session:
-    bearings = draw(st.lists(st.builds(Bearing, name_text, texts_of(BEARING_FIELDS), free_text),
+    bearings = draw(st.lists(st.builds(Bearing, name_text, texts_of(BEARING_FIELDS), free_text,
+                                       geometry=st.one_of(st.just({}), GEOMETRY)),
                              max_size=3, unique_by=lambda b: b.name))
     cases: list[LoadCase] = []
     if bearings:
@@ -121,9 +132,13 @@ def sessions(draw: st.DrawFn) -> Session:
 def test_any_valid_session_saves_and_loads_back_equal(session: Session) -> None:
     text = dumps_session(session)
     assert loads_session(text) == session
-    # the file opens with the version, and the standard-library TOML parser reads it
-    assert text.startswith("schema = 1\n")
-    assert tomllib.loads(text)["schema"] == 1
+    # the file opens with the version, and the standard-library TOML parser reads it; the
+    # version is 2 exactly when a bearing has a geometry or a fit field is written
+    schema_two = any(b.geometry for b in session.bearings) or any(
+        name in INSIDE_FIELDS for owner in [*session.bearings, *session.cases] for name in owner.texts)
+    version = 2 if schema_two else 1
+    assert text.startswith(f"schema = {version}\n")
+    assert tomllib.loads(text)["schema"] == version
     # a file the workbench wrote is never mistaken for one holding a person's comments
     assert not has_comments(text)
 
@@ -203,7 +218,16 @@ BAD_FILES: list[tuple[str, str, str | None, int | None]] = [
     ("solver-unknown", 'schema = 1\n[solver]\nunknown = "colour"\n', "solver.unknown", 3),
     ("solver-target", 'schema = 1\n[solver]\ntarget = "Lnm 20000"\n', "solver.target", 3),
     ("solver-case", 'schema = 1\n[solver]\ncase = "nowhere"\n', "solver.case", 3),
-    ("newer-schema", "schema = 2\n", "schema", 1),
+    ("newer-schema", "schema = 3\n", "schema", 1),
+    ("schema-2-key-in-1", 'schema = 1\n[[bearings]]\nname = "b"\nkind = "deep-groove"\n'
+                          'c = "1 kN"\nc0 = "1 kN"\nclearance = "0.01 mm"\n',
+     "bearings[1].clearance", 7),
+    ("geometry-unknown-key", 'schema = 2\n[[bearings]]\nname = "b"\nkind = "deep-groove"\n'
+                             'c = "1 kN"\nc0 = "1 kN"\n[bearings.geometry]\nballs = "9"\n',
+     "bearings[1].geometry.balls", 8),
+    ("geometry-bad-length", 'schema = 2\n[[bearings]]\nname = "b"\nkind = "deep-groove"\n'
+                            'c = "1 kN"\nc0 = "1 kN"\n[bearings.geometry]\ndw = "12 kN"\n',
+     "bearings[1].geometry.dw", 8),
     ("schema-not-number", 'schema = "1"\n', "schema", 1),
     ("no-schema", '[session]\ntitle = "x"\n', "schema", None),
 ]
@@ -490,3 +514,19 @@ def test_next_line_character_in_notes_is_not_a_line_break() -> None:
     text = dumps_session(session)
     assert not has_comments(text)
     assert loads_session(text) == session
+
+
+def test_the_spindle_pair_keeps_its_geometry_and_fit_through_a_save() -> None:
+    # sessions/spindle-pair.toml carries the pair's geometry and preload (schema 2): they read,
+    # save as schema 2 and read back unchanged.
+    session = load_session(SESSIONS / "spindle-pair.toml")
+    bearing = session.bearings[0]
+    assert bearing.geometry == {"elements": "16", "dw": "11.1 mm", "dpw": "72.5 mm",
+                                "row_spacing": "24 mm"}
+    assert bearing.texts["preload"] == "600 N"
+    text = dumps_session(session)
+    assert text.startswith("schema = 2\n") and "[bearings.geometry]" in text
+    assert loads_session(text) == session
+    bearing.geometry.clear()
+    del bearing.texts["preload"]
+    assert dumps_session(session).startswith("schema = 1\n")  # an older workbench reads it

@@ -93,3 +93,10 @@ def test_typing_reaches_input_fields_by_their_ids() -> None:
 def test_startup_ratio_is_a_ratio() -> None:
     ratio = bench.measure_startup_ratio(rounds=1)
     assert ratio > 0
+
+
+def test_the_clearance_curve_figure_runs_on_the_spindle_pair() -> None:
+    # the plumbing only: the example's geometry gives a curve (the function asserts it) and a
+    # positive time; the goal (≤ 100 ms) is for `workbench bench`, never a unit test
+    figures = bench.measure_clearance_curve(repeats=1)
+    assert set(figures) == {"whatif_clearance_ms"} and figures["whatif_clearance_ms"] > 0.0

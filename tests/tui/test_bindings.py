@@ -275,6 +275,7 @@ CHECKS: dict[str, Check] = {
     "view.derivation": _pane_check("view.derivation", "derivation"),
     "view.solver": _pane_check("view.solver", "solver"),
     "view.whatif": _pane_check("view.whatif", "whatif"),
+    "view.inside": _pane_check("view.inside", "inside"),
     "bearing.catalog": check_catalog,
     "view.shafts": check_shafts,
     "focus.cases": check_focus_cases,
@@ -420,6 +421,8 @@ def test_no_alt_key_is_one_the_terminal_parser_takes_for_another() -> None:
     ("case.delete", "\x1b[3;5~"),  # ctrl+delete
     ("whatif.up1", "\x1b[1;6A"),  # ctrl+shift+up
     ("view.whatif", "\x1b[18~"),  # f7
+    ("view.inside", "\x1b[19~"),  # f8
+    ("case.delete", "\x1b[3;2~"),  # shift+delete
 ])
 async def test_keys_arrive_as_a_terminal_sends_them(make_app, action_id: str,
                                                     sequence: str) -> None:

@@ -65,6 +65,17 @@ async def test_typed_geometry_is_rated_and_adopted() -> None:
             C_FORMULA_N, rel=5e-4)
 
 
+async def test_the_form_starts_from_the_bearings_geometry() -> None:
+    geometry = {"elements": "10", "dw": "7.9 mm", "dpw": "46 mm"}
+    app = ScreenHost(lambda: RatingScreen("Drive", DRIVE_BEARING, "SI", geometry_now=geometry))
+    async with app.run_test(size=(80, 24)) as pilot:
+        await pilot.pause()
+        screen = app.screen
+        assert [screen.query_one(f"#rating-{name}", Input).value
+                for name in ("elements", "dw", "dpw")] == ["10", "7.9 mm", "46 mm"]
+        assert screen.adoption is not None and screen.adoption.geometry == geometry
+
+
 async def test_unreadable_input_is_marked_and_nothing_is_adopted() -> None:
     app = host()
     async with app.run_test(size=(80, 24)) as pilot:
@@ -110,8 +121,11 @@ async def test_rated_bearing_is_adopted_through_the_main_screen_and_undone(make_
         assert not isinstance(app.screen, (RatingScreen, SelectionScreen))
         drive = app.document.session.bearing("Drive")
         assert drive.texts["c"] == "32.69 kN" and drive.texts["dm"] == "65 mm"
+        # the geometry stays with the bearing, for the inside view (issue 16)
+        assert drive.geometry == {"elements": "9", "dw": "12.7 mm", "dpw": "65 mm"}
         result = selected_result(app)
         assert result is not None and result.inputs.c == pytest.approx(C_FORMULA_N, rel=5e-4)
         await pilot.press("ctrl+z")
         await pilot.pause()
         assert app.document.session.bearing("Drive").texts["c"] == "30 kN"
+        assert app.document.session.bearing("Drive").geometry == {}

@@ -151,6 +151,7 @@ def run_benchmarks(quick: bool = False) -> dict[str, Any]:
     figures.update(_large_session_figures(repeats=1 if quick else 3))
     from ..tui import bench as screen
 
+    figures.update(screen.measure_clearance_curve(5 if quick else 20))
     figures.update(screen.measure_typing(
         screen.QUICK_TYPING_KEYS if quick else screen.TYPING_KEYS))
     figures["startup_ratio"] = screen.measure_startup_ratio(

@@ -5,7 +5,7 @@ from __future__ import annotations
 import argparse
 from typing import TYPE_CHECKING
 
-from ..model.fields import FIELDS, FieldError, inputs_from_texts
+from ..model.fields import FIELDS, INSIDE_FIELDS, FieldError, inputs_from_texts
 from .common import EXIT_NO_SOLUTION, fail, print_json
 
 if TYPE_CHECKING:
@@ -14,13 +14,16 @@ if TYPE_CHECKING:
 SUMMARY = "derive one load case (and back-solve one input)"
 DESCRIPTION = ("Derive one load case: equivalent loads, rating life, reliability, lubrication and "
                "static safety (ISO 281:2007, ISO 76:2006).")
+CALC_FIELDS = tuple(spec for spec in FIELDS if spec.name not in INSIDE_FIELDS)
+"""The fields ``calc`` takes: the fit (clearance, preload, tilt, moment) is ``workbench
+internal``'s, as the ISO 281 chain does not read it."""
 EPILOG = ("Values take units: \"2 kN\", \"450 lbf\", \"1200 rpm\", \"68 mm^2/s\", \"70 degC\". "
           "Exit codes: 2 bad input, 3 no solution.")
 
 
 def add_arguments(parser: argparse.ArgumentParser) -> None:
-    """A flag per field of :data:`~workbench.model.fields.FIELDS`, then the output and solver."""
-    for spec in FIELDS:
+    """A flag per field of :data:`CALC_FIELDS`, then the output and solver."""
+    for spec in CALC_FIELDS:
         if spec.kind == "switch":
             parser.add_argument(spec.flag, dest=spec.name, action="store_true", help=spec.label)
             continue
@@ -45,7 +48,7 @@ def add_arguments(parser: argparse.ArgumentParser) -> None:
 def _texts_from_args(args: argparse.Namespace) -> dict[str, str]:
     """Typed text per field, as the session files and the screen keep it."""
     texts: dict[str, str] = {}
-    for spec in FIELDS:
+    for spec in CALC_FIELDS:
         value = getattr(args, spec.name)
         if spec.kind == "switch":
             texts[spec.name] = "yes" if value else "no"

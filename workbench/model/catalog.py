@@ -33,7 +33,7 @@ from ..engine.derive import CaseInputs, validate
 from ..engine.kinds import THRUST_KINDS, dynamic_factors, parse_arrangement, parse_kind
 from ..engine.record import InputError
 from ..engine.select import BearingArrays
-from .fields import BEARING_FIELDS
+from .fields import BEARING_FIELDS, INSIDE_FIELDS
 from .guarded_read import FileRefused, csv_cells, csv_rows, parse_toml, read_text
 from .user_text import clipped, quoted
 
@@ -321,6 +321,7 @@ def catalog_bearing_texts(catalog: Catalog, i: int) -> dict[str, str]:
 
     kind, arrangement, c and c0 in kN, f0, contact angle in degrees, dm = (d + D)/2 in mm, cu in
     kN; e and Y blank (a catalog row carries none), so adopting a row clears a maker's e and Y.
+    The fit (clearance, preload) is the mounting's, not the catalog's: adopting keeps it.
     """
     def optional(value: float, text: str) -> str:
         return "" if math.isnan(value) else text
@@ -337,4 +338,4 @@ def catalog_bearing_texts(catalog: Catalog, i: int) -> dict[str, str]:
         "dm": f"{_plain(0.5 * (catalog.d_mm[i] + catalog.D_mm[i]))} mm",
         "cu": optional(catalog.cu_n[i], f"{_plain(catalog.cu_n[i] / KN)} kN"),
     }
-    return {name: texts[name] for name in BEARING_FIELDS}
+    return {name: texts[name] for name in BEARING_FIELDS if name not in INSIDE_FIELDS}

@@ -53,7 +53,7 @@ from .fields import BEARING_FIELDS, FIELD_BY_NAME, FieldError, parse_field
 from .nudge import Rounding, leading_number, number_text, scale_text
 from .quantities import format_quantity
 from .session import (
-    Bearing, CaseResult, LoadCase, Session, UNIT_SYSTEMS, case_texts, evaluate_case,
+    GEOMETRY_KEYS, Bearing, CaseResult, LoadCase, Session, UNIT_SYSTEMS, case_texts, evaluate_case,
 )
 from .shafts import is_generated
 
@@ -638,7 +638,8 @@ class Document:
         name = self._unique(stem, self.bearing_names())
         texts = dict(source.texts) if source else dict(DEFAULT_BEARING_TEXTS)
         bearing = Bearing(name, texts, source.notes if source else "",
-                          source.designation if source else "", source.source if source else "")
+                          source.designation if source else "", source.source if source else "",
+                          dict(source.geometry) if source else {})
         self.apply(Insert("bearings", len(self.session.bearings), bearing), f"add bearing {name}")
         return name
 
@@ -664,16 +665,43 @@ class Document:
         return None
 
     def adopt_bearing(self, bearing_name: str, texts: dict[str, str], *, designation: str,
-                      source: str) -> str | None:
+                      source: str, geometry: dict[str, str] | None = None) -> str | None:
         """Give a bearing the field texts of a catalog or rated bearing, with its designation
-        and source kept (one undo step; a blank text clears the field); None, or why not."""
-        if self.session.bearing(bearing_name) is None:
+        and source kept (one undo step; a blank text clears the field); None, or why not.
+
+        ``geometry`` is the rated bearing's internal geometry; the geometry the bearing held
+        is cleared either way (it described the bearing these data replace)."""
+        held = self.session.bearing(bearing_name)
+        if held is None:
             return f"no bearing called {bearing_name!r} in this session"
         edits: list[Edit] = [SetText("bearing", bearing_name, name, text.strip() or None)
                              for name, text in texts.items()]
+        new_geometry = {name: text.strip() for name, text in (geometry or {}).items()
+                        if name in GEOMETRY_KEYS and text.strip()}
+        edits += [SetText("geometry", bearing_name, name, new_geometry.get(name))
+                  for name in GEOMETRY_KEYS
+                  if held.geometry.get(name) != new_geometry.get(name)]
         edits.append(SetBearingOrigin(bearing_name, designation, source))
         self.apply(Together(tuple(edits)), f"adopt {designation} as bearing {bearing_name}")
         self.end_run()
+        return None
+
+    def set_geometry(self, bearing_name: str, name: str, text: str) -> str | None:
+        """Write one text of a bearing's internal geometry (blank removes it; one undo step);
+        None when written or unchanged, else why not."""
+        from .internal_form import input_problem  # the internal analysis loads on first use
+
+        bearing = self.session.bearing(bearing_name)
+        if bearing is None:
+            return f"no bearing called {bearing_name!r} in this session"
+        if name not in GEOMETRY_KEYS:
+            return f"{name!r} is not a geometry input"
+        if (problem := input_problem(name, text)) is not None:
+            return problem
+        new = text.strip() or None
+        if bearing.geometry.get(name) != new:
+            self.apply(SetText("geometry", bearing_name, name, new),
+                       f"edit the geometry of bearing {bearing_name}")
         return None
 
     # ---- shafts and duty cycles (tables kept as typed) -------------------------------------

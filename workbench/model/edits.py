@@ -17,7 +17,7 @@ from typing import Literal, Protocol
 
 from .session import Bearing, LoadCase, Session
 
-Owner = Literal["case", "bearing"]
+Owner = Literal["case", "bearing", "geometry"]
 Listed = Literal["cases", "bearings"]
 SESSION_TEXTS = ("title", "project", "engineer", "revision", "notes")
 TARGET_TEXTS = ("life", "reliability", "s0")
@@ -61,13 +61,15 @@ def _texts(session: Session, owner: Owner, key: int | str) -> dict[str, str]:
     bearing = session.bearing(str(key))
     if bearing is None:
         raise KeyError(f"no bearing called {key!r}")
-    return bearing.texts
+    return bearing.geometry if owner == "geometry" else bearing.texts
 
 
 @dataclass(frozen=True)
 class SetText:
-    """Set one typed field of a case (``key``: its index) or a bearing (``key``: its name);
-    ``text`` None removes it, so the field falls back to its default."""
+    """Set one typed field of a case (``key``: its index), a bearing or a bearing's internal
+    geometry (``key``: its name); ``text`` None removes it, so the field falls back to its
+    default.  The geometry touches no result of the ISO 281 chain (only the inside view, which
+    follows the revision)."""
 
     owner: Owner
     key: int | str
@@ -78,6 +80,8 @@ class SetText:
     def touch(self) -> Touch:
         if self.owner == "case":
             return Touch(cases=frozenset({int(self.key)}))
+        if self.owner == "geometry":
+            return NOTHING
         return Touch(bearings=frozenset({str(self.key)}))
 
     def apply(self, session: Session) -> Edit:

@@ -63,6 +63,12 @@ FIELDS: tuple[FieldSpec, ...] = (
               short="App. factor af"),
     FieldSpec("outer_ring_rotates", "--outer-ring-rotates", "Outer ring rotates",
               "switch", short="Outer ring turns"),
+    FieldSpec("tilt", "--tilt", "Misalignment θ", "quantity", "angle", "rad",
+              hint="ring tilt held by the shaft, e.g. 1 mrad (inside view; blank: 0)",
+              short="Tilt θ"),
+    FieldSpec("moment", "--moment", "Tilting moment M", "quantity", "torque", "N*m",
+              hint="instead of the tilt: the rings tilt under it (inside view)",
+              short="Moment M"),
     FieldSpec("reliability", "--reliability", "Reliability R", "fraction",
               hint="fraction, e.g. 0.95"),
     FieldSpec("reliability_model", "--reliability-model", "Reliability model", "choice",
@@ -86,6 +92,12 @@ FIELDS: tuple[FieldSpec, ...] = (
     FieldSpec("cu", "--cu", "Fatigue load limit Cu", "quantity", "force", "N",
               hint="blank: estimated from C0", group="bearing",
               short="Fatigue limit Cu"),
+    FieldSpec("clearance", "--clearance", "Operating clearance Pd", "quantity", "length", "mm",
+              hint="mounted, diametral; negative = preload (inside view; blank: 0)",
+              group="bearing", short="Clearance Pd"),
+    FieldSpec("preload", "--preload", "Axial preload of a pair", "quantity", "force", "N",
+              hint="back-to-back or face-to-face pairs (inside view)", group="bearing",
+              short="Pair preload"),
     FieldSpec("cleanliness", "--cleanliness", "Cleanliness (or eC)", "choice",
               choices=CLEANLINESS_CHOICES, hint="a level or a number 0–1 for eC",
               short="Cleanliness eC"),
@@ -95,8 +107,15 @@ FIELDS: tuple[FieldSpec, ...] = (
     FieldSpec("static_only", "--static-only", "Static check only", "switch",
               hint="a start-up or peak case checked for s0 alone: no life verdict"),
 )
-NOT_ENGINE_INPUTS = frozenset({"static_only"})
-"""Fields that say how a case is judged, not what the engine derives from."""
+INSIDE_FIELDS = ("clearance", "preload", "tilt", "moment")
+"""The fit: read only by the inside view (the internal load distribution,
+:mod:`workbench.model.internal_form`); the ISO 281 chain assumes normal clearance, no tilt and
+no preload, so these are no inputs of ``derive`` nor flags of ``calc`` (``workbench internal``
+has its own).  Clearance and preload belong to the bearing (its mounting), tilt and moment to
+the load case."""
+NOT_ENGINE_INPUTS = frozenset({"static_only", *INSIDE_FIELDS})
+"""Fields that say how a case is judged or what the inside view reads, not what the ISO 281
+chain derives from."""
 FIELD_BY_NAME: dict[str, FieldSpec] = {f.name: f for f in FIELDS}
 BEARING_FIELDS: tuple[str, ...] = tuple(f.name for f in FIELDS if f.group == "bearing")
 CASE_FIELDS: tuple[str, ...] = tuple(f.name for f in FIELDS if f.group == "case")

@@ -9,7 +9,8 @@ ball osculations, the roller profile and the lubrication for aISO.  Errors are
 
 For a session's load case, :func:`internal_for_case` takes the case's own loads, speed and
 lubrication (ν and eC as the case's derivation finds them) and the bearing's geometry and fit
-as texts: the session schema carries no internal geometry yet, so the screen keeps those texts.
+as texts; :func:`session_inside_texts` finds those texts in a session (the bearing's
+``geometry`` table and its f0, the bearing's clearance and preload, the case's tilt or moment).
 """
 
 from __future__ import annotations
@@ -23,12 +24,14 @@ from ..engine.internal.analysis import (InternalResult, SweepPoint, analyse_inte
 from ..engine.internal.distribution import ARRANGEMENTS, KINDS, PROFILES, InternalInputs, NoEquilibrium
 from ..engine.record import InputError
 from ..engine import tables as T
-from .fields import FieldError
+from .fields import INSIDE_FIELDS, FieldError
 from .quantities import QuantityError, parse
 from .rating_form import RATING_INPUTS, RatingInput, read_rating_input
+from .session import GEOMETRY_KEYS, LoadCase, Session
 
 __all__ = ["INTERNAL_INPUTS", "INTERNAL_INPUT_BY_NAME", "FIT_INPUTS", "NoEquilibrium",
-           "inputs_from_texts", "analyse_texts", "internal_for_case", "clearance_curve_for_case"]
+           "inputs_from_texts", "analyse_texts", "internal_for_case", "clearance_curve_for_case",
+           "input_problem", "session_inside_texts"]
 
 _GEOMETRY = tuple(spec for spec in RATING_INPUTS)
 INTERNAL_INPUTS: tuple[RatingInput, ...] = (
@@ -60,8 +63,9 @@ INTERNAL_INPUTS: tuple[RatingInput, ...] = (
     RatingInput("cu", "--cu", "Fatigue load limit Cu", "force", "default from C0", required=False),
 )
 INTERNAL_INPUT_BY_NAME = {spec.name: spec for spec in INTERNAL_INPUTS}
-FIT_INPUTS = ("clearance", "preload", "tilt", "moment")
-"""The fit texts the screen keeps beside a session bearing (proposed field names)."""
+FIT_INPUTS = INSIDE_FIELDS
+"""The fit: fields of a session (:data:`workbench.model.fields.INSIDE_FIELDS`), clearance and
+preload on the bearing, tilt and moment on the case."""
 CHOICES: dict[str, tuple[str, ...]] = {"kind": KINDS, "arrangement": ARRANGEMENTS, "profile": PROFILES}
 _ENGINE_NAMES = {"z": "elements", "alpha_deg": "contact_angle", "ec": "cleanliness"}
 _ARRANGEMENT_WORDS = {"single": "single", "back-to-back": "back-to-back", "face-to-face": "face-to-face"}
@@ -95,6 +99,46 @@ def _ec(text: str) -> float:
     if not 0.0 <= value <= 1.0:
         raise FieldError("cleanliness", "eC lies between 0 and 1")
     return value
+
+
+def input_problem(name: str, text: str) -> str | None:
+    """Why ``text`` cannot be read as input ``name`` of this form (None: it can, or it is
+    blank); the session reader and the document check a geometry text with it."""
+    spec = INTERNAL_INPUT_BY_NAME[name]
+    text = text.strip()
+    if not text:
+        return None
+    if spec.kind == "choice":
+        if spec.name == "cleanliness":
+            return None if text in T.CONTAMINATION_LEVELS else _problem(_ec, text)
+        return None if text in CHOICES[spec.name] else f"use one of {', '.join(CHOICES[spec.name])}"
+    return _problem(lambda typed: _value(spec, typed), text)
+
+
+def _problem(read: object, text: str) -> str | None:
+    try:
+        read(text)  # type: ignore[operator]
+    except FieldError as exc:
+        return exc.message
+    return None
+
+
+def session_inside_texts(session: Session, case: LoadCase) -> tuple[dict[str, str], dict[str, str]] | None:
+    """The geometry and fit texts of ``case`` for :func:`internal_for_case`: its bearing's
+    geometry table (with the bearing's f0), the bearing's clearance and preload and the case's
+    tilt and moment; None when the bearing has no geometry (elements, Dw and Dpw are needed)."""
+    bearing = session.bearing(case.bearing)
+    if bearing is None or not all(bearing.geometry.get(key, "").strip()
+                                  for key in ("elements", "dw", "dpw")):
+        return None
+    geometry = {key: text for key, text in bearing.geometry.items()
+                if key in GEOMETRY_KEYS and text.strip()}
+    if bearing.texts.get("f0", "").strip():
+        geometry["f0"] = bearing.texts["f0"]
+    fit = {key: owner.texts.get(key, "") for owner, keys in ((bearing, ("clearance", "preload")),
+                                                            (case, ("tilt", "moment")))
+           for key in keys if owner.texts.get(key, "").strip()}
+    return geometry, fit
 
 
 def inputs_from_texts(texts: Mapping[str, str]) -> InternalInputs:

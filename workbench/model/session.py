@@ -16,8 +16,14 @@ from .quantities import QuantityError, parse
 from .fields import BEARING_FIELDS, CASE_FIELDS, FieldError, inputs_from_values, parse_field
 from .user_text import quoted
 
-SCHEMA_VERSION = 1
+SCHEMA_VERSION = 2
+"""Schema 2 added a bearing's internal geometry (``[bearings.geometry]``) and the fit fields
+(clearance, preload; tilt, moment); a session without them is still written as schema 1."""
 UNIT_SYSTEMS = ("SI", "US")
+GEOMETRY_KEYS = ("rows", "elements", "dw", "dpw", "lwe", "bm", "fi", "fe", "profile",
+                 "crown_drop", "slices", "row_spacing")
+"""A bearing's internal geometry, as the rating form and ``workbench rate``/``internal`` name
+it (:mod:`workbench.model.internal_form`); the kind, contact angle and f0 are bearing fields."""
 
 
 @dataclass
@@ -29,6 +35,9 @@ class Bearing:
     notes: str = ""
     designation: str = ""  # the maker's or catalog's name for it, once one is adopted
     source: str = ""  # where its data came from: "catalog FILE, row N" or "rated from geometry"
+    geometry: dict[str, str] = field(default_factory=dict)
+    """Its internal geometry as typed (keys of :data:`GEOMETRY_KEYS`), for the inside view;
+    empty when unknown."""
 
 
 @dataclass

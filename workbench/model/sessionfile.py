@@ -21,12 +21,18 @@ typed, so a file reads and edits by hand::
     notes = ""
     kind = "deep-groove"         # and every other bearing field of workbench.model.fields
     c = "31 kN"
+    clearance = "0.01 mm"        # schema 2: the fit (clearance, preload) for the inside view
+
+    [bearings.geometry]          # schema 2: its internal geometry, as `workbench rate` names it
+    elements = "9"
+    dw = "12.7 mm"
+    dpw = "60 mm"
 
     [[cases]]
     name = "full load"
     bearing = "DG-40-80"
     notes = ""
-    fr = "5.2 kN"                # and every other case field
+    fr = "5.2 kN"                # and every other case field (schema 2: tilt or moment too)
 
     [solver]
     unknown = "c"
@@ -47,6 +53,11 @@ typed, so a file reads and edits by hand::
     [[duty_cycles.states]]
     case = "full load"           # a case of the file or one generated from a shaft
     share = "0.7"
+
+Schema 2 added the bearing's ``geometry`` table and the fit fields (``clearance``, ``preload``
+on a bearing, ``tilt``, ``moment`` on a case; :data:`~workbench.model.fields.INSIDE_FIELDS`).
+A session that uses none of them is written as schema 1, so an older workbench still reads it;
+a schema-1 file that holds them is refused with a line asking for ``schema = 2``.
 
 The ``[[shafts]]`` and ``[[duty_cycles]]`` arrays are kept in ``Session.reserved`` as read and
 written back unchanged; on reading they are checked with
@@ -86,7 +97,7 @@ import platformdirs
 from ..engine.pairs import SIDES
 from ..engine.solve import UNKNOWNS
 from .duty_cycles import duty_cycles_from_tables
-from .fields import BEARING_FIELDS, CASE_FIELDS, FieldError, parse_field
+from .fields import BEARING_FIELDS, CASE_FIELDS, INSIDE_FIELDS, FieldError, parse_field
 from .guarded_read import (
     MAX_FILE_BYTES, FileRefused, decode_text, parse_toml, read_bytes, read_text,
 )
@@ -95,7 +106,8 @@ from .safe_write import (
     write_atomically,
 )
 from .session import (
-    SCHEMA_VERSION, UNIT_SYSTEMS, Bearing, LoadCase, Session, SolverSetup, Targets, parse_target,
+    GEOMETRY_KEYS, SCHEMA_VERSION, UNIT_SYSTEMS, Bearing, LoadCase, Session, SolverSetup, Targets,
+    parse_target,
 )
 from .shafts import Shaft, case_name, shafts_from_tables
 from .targets import parse_target_text
@@ -109,7 +121,10 @@ TOP_LEVEL_KEYS = ("schema", "session", "targets", "bearings", "cases", "solver")
 SESSION_KEYS = ("title", "project", "engineer", "revision", "notes", "units")
 TARGET_KEYS = ("life", "reliability", "s0")
 SOLVER_KEYS = ("unknown", "target", "case")
-BEARING_KEYS = ("name", "notes", "designation", "source") + BEARING_FIELDS
+BEARING_KEYS = ("name", "notes", "designation", "source", "geometry") + BEARING_FIELDS
+SCHEMA_2_KEYS = frozenset({"geometry", *INSIDE_FIELDS})
+"""Keys of a bearing or case that schema 2 added."""
+FIRST_SCHEMA = 1
 CASE_KEYS = ("name", "bearing", "notes") + CASE_FIELDS
 RECOVERY_STEM_CHARS = 40
 RECOVERY_FILE_MODE = 0o600
@@ -184,6 +199,7 @@ class _Reader:
         self.source = source
         self.check_values = check_values
         self.headers = self._headers()
+        self.version = SCHEMA_VERSION
 
     def _headers(self) -> list[tuple[int, str]]:
         """(line index, dotted table name) of every ``[name]`` and ``[[name]]`` header line."""
@@ -331,8 +347,33 @@ class _Reader:
         if version > SCHEMA_VERSION:
             raise self.fail(("schema",), f"written by a newer workbench (schema {version}); this "
                                          f"one reads schema {SCHEMA_VERSION}: please update it")
-        if version < 1:
+        if version < FIRST_SCHEMA:
             raise self.fail(("schema",), f"unknown schema version {version}")
+        self.version = version
+
+    def newer_keys(self, table: Mapping[str, Any], path: KeyPath) -> None:
+        """A schema-1 file holds none of the keys schema 2 added."""
+        if self.version >= 2:
+            return
+        for key in table:
+            if key in SCHEMA_2_KEYS:
+                raise self.fail(path + (key,), f"{quoted(key)} came with schema 2: write "
+                                               "'schema = 2' at the top of the file")
+
+    def geometry(self, table: Mapping[str, Any], path: KeyPath) -> dict[str, str]:
+        """A bearing's ``geometry`` table: texts under the rating form's names, each readable."""
+        if "geometry" not in table:
+            return {}
+        path = path + ("geometry",)
+        geometry = self.table(table["geometry"], path, GEOMETRY_KEYS)
+        texts = {key: self.text(geometry, path, key) for key in GEOMETRY_KEYS if key in geometry}
+        if self.check_values and texts:
+            from .internal_form import input_problem  # the internal analysis loads only here
+
+            for key, text in texts.items():
+                if (problem := input_problem(key, text)) is not None:
+                    raise self.fail(path + (key,), problem)
+        return texts
 
     def targets(self, doc: Mapping[str, Any]) -> Targets:
         """The [targets] table; life and s0 read as session targets, reliability as a fraction."""
@@ -357,11 +398,13 @@ class _Reader:
         for number, value in enumerate(self.named_list(doc, "bearings"), start=1):
             path: KeyPath = ("bearings", number)
             table = self.table(value, path, BEARING_KEYS)
+            self.newer_keys(table, path)
             name = self.unique_name(table, path, seen, "bearing")
             result.append(Bearing(name, self.texts(table, path, BEARING_FIELDS),
                                   self.text(table, path, "notes"),
                                   self.text(table, path, "designation"),
-                                  self.text(table, path, "source")))
+                                  self.text(table, path, "source"),
+                                  self.geometry(table, path)))
         return result
 
     def cases(self, doc: Mapping[str, Any], bearing_names: set[str]) -> list[LoadCase]:
@@ -371,6 +414,7 @@ class _Reader:
         for number, value in enumerate(self.named_list(doc, "cases"), start=1):
             path: KeyPath = ("cases", number)
             table = self.table(value, path, CASE_KEYS)
+            self.newer_keys(table, path)
             name = self.unique_name(table, path, seen, "case")
             bearing = self.text(table, path, "bearing")
             if self.check_values and bearing not in bearing_names:
@@ -459,7 +503,8 @@ def _field_table(head: dict[str, str], texts: Mapping[str, str], names: tuple[st
 
 
 def dumps_session(session: Session) -> str:
-    """The session as schema-1 TOML text (``tomli_w``); loads back equal with loads_session.
+    """The session as TOML text (``tomli_w``), schema 1 unless it uses what schema 2 added;
+    loads back equal with loads_session.
 
     Raises ValueError when the session holds a key the schema has no place for.
     """
@@ -467,7 +512,7 @@ def dumps_session(session: Session) -> str:
     if stray:
         raise ValueError(f"reserved tables are {', '.join(RESERVED_TABLES)}, not {', '.join(stray)}")
     doc: dict[str, Any] = {
-        "schema": SCHEMA_VERSION,
+        "schema": schema_needed(session),
         "session": {key: getattr(session, key) for key in SESSION_KEYS
                     if getattr(session, key) or key in ("title", "engineer", "notes", "units")},
         "targets": {key: getattr(session.targets, key) for key in TARGET_KEYS},
@@ -478,6 +523,7 @@ def dumps_session(session: Session) -> str:
                          | {key: getattr(b, key) for key in ("designation", "source")
                             if getattr(b, key)}, b.texts, BEARING_FIELDS,
                          f"bearing {quoted(b.name)}")
+            | ({"geometry": _geometry_table(b)} if b.geometry else {})
             for b in session.bearings
         ]
     if session.cases:
@@ -492,6 +538,23 @@ def dumps_session(session: Session) -> str:
 
     # tomli_w writes "\r\n" raw inside a multi-line string, where TOML reads it back as "\n"
     return tomli_w.dumps(doc, multiline_strings=not _holds_carriage_return(doc))
+
+
+def schema_needed(session: Session) -> int:
+    """The oldest schema that holds ``session``: 2 when a bearing has a geometry or a bearing or
+    case a fit text, else 1 (an older workbench still reads it)."""
+    owners: list[Bearing | LoadCase] = [*session.bearings, *session.cases]
+    uses_two = any(isinstance(owner, Bearing) and owner.geometry for owner in owners) or any(
+        key in INSIDE_FIELDS for owner in owners for key in owner.texts)
+    return SCHEMA_VERSION if uses_two else FIRST_SCHEMA
+
+
+def _geometry_table(bearing: Bearing) -> dict[str, str]:
+    stray = [key for key in bearing.geometry if key not in GEOMETRY_KEYS]
+    if stray:
+        raise ValueError(f"bearing {quoted(bearing.name)}'s geometry holds "
+                         f"{', '.join(map(repr, stray))}, not a geometry input")
+    return {key: bearing.geometry[key] for key in GEOMETRY_KEYS if key in bearing.geometry}
 
 
 def _holds_carriage_return(value: object) -> bool:

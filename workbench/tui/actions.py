@@ -21,7 +21,7 @@ Scope = Literal["app", "screen"]
 
 NUDGE_GROUP = Binding.Group("What-if ±5 % / ±1 %", compact=True)
 MOVE_GROUP = Binding.Group("Move case", compact=True)
-PANE_GROUP = Binding.Group("Derivation / Solver / What-if", compact=True)
+PANE_GROUP = Binding.Group("Derivation / Solver / What-if / Inside", compact=True)
 
 
 class Action(NamedTuple):
@@ -56,7 +56,7 @@ ACTIONS: tuple[Action, ...] = (
     Action("case.duplicate", "ctrl+d", "duplicate_case", "Duplicate",
            "Copy the selected load case (a generated one gives an editable copy)"),
     Action("case.rename", "f2", "rename_case", "Rename", "Rename the selected load case"),
-    Action("case.delete", "ctrl+delete,f8", "delete_case", "Delete",
+    Action("case.delete", "ctrl+delete,shift+delete", "delete_case", "Delete",
            "Delete the selected load case (undo brings it back)"),
     Action("case.move_up", "alt+up", "move_case(-1)", "Move case up",
            "Move the selected load case up the list", group=MOVE_GROUP),
@@ -83,6 +83,10 @@ ACTIONS: tuple[Action, ...] = (
     Action("view.whatif", "f7", "show_pane('whatif')", "What-if",
            "Show how strongly the life answers to each input, the life and aISO plots and the "
            "duty cycles' damage shares", group=PANE_GROUP),
+    Action("view.inside", "f8", "show_pane('inside')", "Inside",
+           "Show the bearing from inside: each element's load around the ring, the load zone, "
+           "contact pressures, stiffness and the reference life L10r, with the clearance, "
+           "preload and tilt fields (needs the bearing's internal geometry)", group=PANE_GROUP),
     Action("bearing.catalog", "alt+c", "select_from_catalog", "Bearing from a catalog",
            "List the catalog bearings that meet every case on the selected case's bearing; "
            "adopt one (undoable). There, ctrl+g rates a special bearing from its geometry "

@@ -337,6 +337,32 @@ def first_frame_process_s(which: str) -> float:
     return elapsed
 
 
+def measure_clearance_curve(repeats: int) -> dict[str, float]:
+    """``whatif_clearance_ms``: the What-if pane's life against operating clearance for the
+    spindle-pair example's roughing pass, as its worker makes it (the request from the
+    document, the 25-point sweep, the plot and its words, 30 columns of plot); the median of
+    ``repeats`` rounds after one to load scipy.  Goal: ≤ 100 ms."""
+    from ..model.document import Document
+    from ..model.sessionfile import demo_session_path, load_session
+    from .clearance_plot import clearance_curve, clearance_section
+    from .inside_pane import inside_request
+
+    document = Document(load_session(demo_session_path().with_name("spindle-pair.toml")))
+
+    def once() -> None:
+        curve = clearance_curve(inside_request(document, 0))
+        assert curve.problem is None, curve.problem
+        clearance_section(curve, 30, 8)
+
+    once()
+    samples = []
+    for _ in range(repeats):
+        start = time.perf_counter()
+        once()
+        samples.append(time.perf_counter() - start)
+    return {"whatif_clearance_ms": statistics.median(samples) * 1e3}
+
+
 def measure_startup_ratio(rounds: int | None = None) -> float:
     """Process time to the first full frame of the workbench on the demo session, divided by
     that of a minimal Textual app: the median over ``rounds`` rounds, each timing the minimal

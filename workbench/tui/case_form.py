@@ -38,6 +38,7 @@ EDITOR_GROUPS: tuple[tuple[str, tuple[str, ...]], ...] = (
                      "weibull_b", "rating_life_mrev")),
     ("Lubrication", ("vg", "vi", "nu100", "temp", "nu", "cleanliness")),
     ("Static", ("static_duty", "s0_min", "static_only")),
+    ("Fit: inside view (f8)", ("clearance", "preload", "tilt", "moment")),
 )
 BEARING_FIELD = "bearing"
 BEARING_LABEL = "Bearing used"
@@ -391,7 +392,11 @@ class CaseForm(VerticalScroll):
 
     def _announce(self, name: str, text: str, *, done: bool) -> None:
         """Tell the screen of an edit, unless the field only shows what is in force (a choice
-        settling on its value as it mounts, or a message queued before a load)."""
+        settling on its value as it mounts, or a message queued before a load), or no case is
+        shown (a required choice's first option, set as it mounts before any case is loaded,
+        would otherwise be written into the case selected next)."""
+        if self._shown_case is None:
+            return
         if name in self._loaded and self._loaded[name] != text:
             self._loaded[name] = text
             self.post_message(self.Edited(name, text, done=done))

@@ -24,6 +24,7 @@ from textual.widgets import Input, Label, Select, Static
 from ..engine.kinds import KIND_WORDS, Kind
 from ..engine.ratings import KINDS
 from ..model.fields import FieldError
+from ..model.session import GEOMETRY_KEYS
 from ..model.rating_form import (
     RATING_INPUT_BY_NAME, RATING_INPUTS, bearing_texts, input_problem, rate_texts,
 )
@@ -57,11 +58,14 @@ class RatingScreen(OnceModal[Adoption | None]):
         Binding("f10,ctrl+g", "adopt", "Use ratings", id="rating.adopt"),
     ]
 
-    def __init__(self, bearing: str, bearing_texts_now: Mapping[str, str], system: str) -> None:
+    def __init__(self, bearing: str, bearing_texts_now: Mapping[str, str], system: str, *,
+                 geometry_now: Mapping[str, str] | None = None) -> None:
         super().__init__()
         self.bearing = bearing
         self._start = {name: bearing_texts_now.get(field, "")
                        for name, field in PREFILLED_FROM_BEARING.items()}
+        self._start.update({name: text for name, text in (geometry_now or {}).items()
+                            if name in RATING_INPUT_BY_NAME and text.strip()})
         self._system = system
         self.adoption: Adoption | None = None
         """The texts the inputs give now (None while they cannot be rated)."""
@@ -121,7 +125,9 @@ class RatingScreen(OnceModal[Adoption | None]):
             steps.update("")
             return
         texts = bearing_texts(geometry, derivation)
-        self.adoption = Adoption(RATING_DESIGNATION, texts, RATING_SOURCE)
+        kept = {name: text.strip() for name, text in self.texts().items()
+                if name in GEOMETRY_KEYS and text.strip()}
+        self.adoption = Adoption(RATING_DESIGNATION, texts, RATING_SOURCE, kept)
         message.update(Content.assemble(
             ("C = ", "bold"), texts["c"], ("   C0 = ", "bold"), texts["c0"],
             f"   (dm {texts['dm']}" + (f", f0 {texts['f0']})" if texts["f0"] else ")")))

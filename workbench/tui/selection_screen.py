@@ -20,7 +20,7 @@ from __future__ import annotations
 
 import os
 from collections.abc import Mapping, Sequence
-from dataclasses import dataclass, replace
+from dataclasses import dataclass, field, replace
 from pathlib import Path
 from typing import Any, NamedTuple
 
@@ -66,6 +66,9 @@ class Adoption:
     designation: str
     texts: dict[str, str]
     source: str = ""
+    geometry: dict[str, str] = field(default_factory=dict)
+    """A rated bearing's internal geometry (the session keeps it for the inside view); a
+    catalog row gives none."""
 
 
 class Ranking(NamedTuple):
@@ -153,8 +156,10 @@ class SelectionScreen(OnceModal[Adoption | None]):
 
     def __init__(self, bearing: str, results: Sequence[CaseResult], *,
                  bearing_texts: Mapping[str, str] | None = None, system: str = "SI",
-                 catalog_path: Path | None = None) -> None:
+                 catalog_path: Path | None = None,
+                 bearing_geometry: Mapping[str, str] | None = None) -> None:
         super().__init__()
+        self._bearing_geometry = dict(bearing_geometry or {})
         self.bearing = bearing
         self.results = list(results)
         self._catalog_path = catalog_path or demo_catalog_path()
@@ -425,4 +430,5 @@ class SelectionScreen(OnceModal[Adoption | None]):
             if adoption is not None:
                 self.close(adoption)
 
-        self.app.push_screen(RatingScreen(self.bearing, self._bearing_texts, self._system), rated)
+        self.app.push_screen(RatingScreen(self.bearing, self._bearing_texts, self._system,
+                                          geometry_now=self._bearing_geometry), rated)

@@ -8,7 +8,9 @@ one-sided), the life against a scale on Fr and Fa from
 from :func:`~workbench.engine.curves.aiso_curve` (ISO 281:2007 §9.3.2), drawn by
 :func:`workbench.tui.plot_text.plot_lines` in braille and plain marks so they read in monochrome.
 The Duty block shows each state's share of the Palmgren–Miner damage as a text bar, for the duty
-cycles on the selected case's bearing.
+cycles on the selected case's bearing.  For a bearing whose internal geometry is known, the
+reference life against operating clearance shows where slight preload helps and where it hurts
+(:mod:`workbench.tui.clearance_plot`).
 
 The pane follows :attr:`WhatIfPane.view` (bound to the screen's) while it is on show: the sweep
 and the curves are worked out in a thread worker (a newer revision cancels the older work, and
@@ -31,6 +33,8 @@ from ..model.analysis import DutyOutcome
 from ..model.document import Document
 from ..model.quantities import format_quantity
 from ..model.session import CaseResult
+from .clearance_plot import NO_CURVE, ClearanceCurve, clearance_curve, clearance_section
+from .inside_pane import InsideRequest, inside_request
 from .line_pane import LinePane
 from .plot_text import plot_lines
 from .view import View, view_reactive
@@ -50,6 +54,7 @@ SECTION_STYLE = "bold $text-primary on $boost"
 LIFE_PLOT_TITLE = "Life against a scale on Fr and Fa"
 AISO_PLOT_TITLE = "aISO against κ"
 DUTY_TITLE = "Duty: share of damage by state"
+CLEARANCE_TITLE = "Life against operating clearance"
 MISSING_CURVE = {
     "life": "No life curve: the case cannot be derived.",
     "aiso": "No aISO curve: the case has no lubrication data (ν or an ISO VG grade with its "
@@ -146,6 +151,7 @@ class WhatIfPane(LinePane):
         self.document = document
         self.items = []
         self._curves: dict[str, Curve | None] = {}
+        self._clearance = NO_CURVE
         self._blocks: tuple[list[Content], list[Content]] = ([], [])
         self._busy = False
         self._plot_width = 0
@@ -171,11 +177,11 @@ class WhatIfPane(LinePane):
         shown = duties_on(result.case.bearing, duties) if result is not None else []
         self._busy = True
         self._redraw()
-        self._work(view, result, document.units, shown)
+        self._work(view, result, document.units, shown, inside_request(document, view.selected))
 
     @work(thread=True, exclusive=True, group="whatif")
     def _work(self, view: View, result: CaseResult | None, system: str,
-              duties: Sequence[DutyOutcome]) -> None:
+              duties: Sequence[DutyOutcome], inside: InsideRequest) -> None:
         """The sweep and the curves, away from the screen's thread."""
         items: list[SensitivityItem] = []
         curves: dict[str, Curve | None] = {}
@@ -190,15 +196,18 @@ class WhatIfPane(LinePane):
                 curves["aiso"] = aiso_curve(result.inputs)
             except InputError as exc:
                 error = f"✘ {exc.field}: {exc.message}"
-        self.app.call_from_thread(self._draw, view, items, curves, error, result, system, duties)
+        clearance = clearance_curve(inside)
+        self.app.call_from_thread(self._draw, view, items, curves, error, result, system, duties,
+                                  clearance)
 
     def _draw(self, view: View, items: list[SensitivityItem], curves: dict[str, Curve | None],
               error: str | None, result: CaseResult | None, system: str,
-              duties: Sequence[DutyOutcome]) -> None:
+              duties: Sequence[DutyOutcome], clearance: ClearanceCurve = NO_CURVE) -> None:
         """Draw what the worker found, unless the document has moved on since."""
         if view != self.view:
             return
         self.items, self._curves, self._busy = items, curves, False
+        self._clearance = clearance
         if error is not None:
             sensitivity = [Content.styled(error, ERROR_STYLE)]
         else:
@@ -226,6 +235,10 @@ class WhatIfPane(LinePane):
             if name in self._curves or not self._busy:
                 lines += curve_lines(self._curves.get(name), name, plot_width)
         lines += [Content(""), section_title(DUTY_TITLE, width), *duty]
+        if self._clearance is not NO_CURVE or not self._busy:
+            plot, words = clearance_section(self._clearance, plot_width, PLOT_HEIGHT)
+            lines += [Content(""), section_title(CLEARANCE_TITLE, width),
+                      *map(Content, plot), *map(Content, words)]
         self.show_lines(lines)
 
     def scroll_to_block(self, title: str) -> None:

@@ -1,5 +1,5 @@
 """The workbench screen: the load-case list across the top; under it the case form, and the
-Derivation, Solver and What-if panes beside it.
+Derivation, Solver, What-if and Inside panes beside it.
 
 The screen holds one :class:`~workbench.tui.view.View` (the document's revision and the selected
 case); the list, the form and the panes follow it through ``data_bind`` and redraw themselves
@@ -53,7 +53,7 @@ if TYPE_CHECKING:
 
 AUTOSAVE_DELAY_S = 2.0
 DEFAULT_SAVE_NAME = "session.toml"
-PANES = ("derivation", "solver", "whatif")
+PANES = ("derivation", "solver", "whatif", "inside")
 """The right column's panes (their tab ids); the first is on show at start."""
 APP_NAME = "Bearing workbench"
 DEFER_OVER = 200
@@ -96,6 +96,7 @@ class WorkbenchScreen(Screen[None]):
     def compose(self) -> ComposeResult:
         """The list across the screen; under it the form with its help line (left) and the
         panes as tabs (right)."""
+        from .inside_pane import InsidePane
         from .whatif_pane import WhatIfPane
 
         document = self.document
@@ -114,6 +115,9 @@ class WorkbenchScreen(Screen[None]):
                         WorkbenchScreen.view))
                 with TabPane("What-if", id="whatif"):
                     yield Lazy(WhatIfPane(document, id="whatif-view").data_bind(
+                        WorkbenchScreen.view))
+                with TabPane("Inside", id="inside"):
+                    yield Lazy(InsidePane(document, id="inside-view").data_bind(
                         WorkbenchScreen.view))
         yield KeyFooter()
 
@@ -418,8 +422,8 @@ class WorkbenchScreen(Screen[None]):
     def _focus_pane(self, name: str) -> None:
         if name == "solver" and (pane := self._solver()) is not None:
             pane.focus_first()
-        elif name == "whatif":
-            found = self.query("#whatif-view")
+        elif name in ("whatif", "inside"):
+            found = self.query(f"#{name}-view")
             if found:
                 found.first().focus()
         else:
@@ -445,7 +449,8 @@ class WorkbenchScreen(Screen[None]):
                 return
             problem = document.adopt_bearing(bearing, choice.texts,
                                              designation=choice.designation,
-                                             source=getattr(choice, "source", ""))
+                                             source=getattr(choice, "source", ""),
+                                             geometry=choice.geometry)
             if problem is not None:
                 self.notify(problem, severity="warning")
                 return
@@ -458,7 +463,9 @@ class WorkbenchScreen(Screen[None]):
         held = document.session.bearing(bearing)
         self.app.push_screen(SelectionScreen(bearing, users,
                                              bearing_texts=held.texts if held else None,
-                                             system=document.units), adopted)
+                                             system=document.units,
+                                             bearing_geometry=held.geometry if held else None),
+                             adopted)
 
     def action_manage_bearings(self) -> None:
         """Add, duplicate, rename or delete bearings; enter uses one for the selected case."""
