@@ -18,7 +18,7 @@ from ..model.session import Session
 from ..model import files, settings
 from ..model.document import Document
 from .actions import bindings, check_keymap
-from .commands import WorkbenchCommands
+from .commands import WorkbenchCommands, WorkbenchPalette
 from .theme_files import DEFAULT_THEME, MONOCHROME_THEME, load_theme_files
 from .workbench_screen import AUTOSAVE_DELAY_S, WorkbenchScreen
 
@@ -48,7 +48,8 @@ class WorkbenchApp(App[int]):
         self._theme_folder = theme_folder
         self._our_themes: list[str] = []
         self._remember_theme = False
-        self._theme_problem = self._install_themes()
+        saved, self._settings_problem = settings.load_settings()
+        self._theme_problem = self._install_themes(settings.theme_in(saved))
         self.personal_keymap: dict[str, str] = {}
         """The person's keys in force (action id → keys), from ``keys.toml``."""
         self._keymap_problems = self._install_keymap()
@@ -72,6 +73,9 @@ class WorkbenchApp(App[int]):
 
     def on_mount(self) -> None:
         """Report theme files that failed, then offer a recovery copy if one was left behind."""
+        if self._settings_problem is not None:
+            self.notify(self._settings_problem, title=settings.SETTINGS_FILE, severity="warning",
+                        timeout=12)
         if self._theme_problem is not None:
             self.notify(self._theme_problem, title="Themes", severity="warning", timeout=8)
         if self._keymap_problems:
@@ -83,14 +87,14 @@ class WorkbenchApp(App[int]):
             self._ask_about_recovery()
 
     # ---- themes -----------------------------------------------------------------------------
-    def _install_themes(self) -> str | None:
-        """Register the theme files and choose the theme; the message naming the files that
-        failed, if any."""
+    def _install_themes(self, saved_theme: str | None) -> str | None:
+        """Register the theme files and choose the theme (``saved_theme``, the one remembered,
+        unless NO_COLOR asks for none); the message naming the files that failed, if any."""
         load = load_theme_files(self._theme_folder)
         for theme in load.themes:
             self.register_theme(theme)
         self._our_themes = [theme.name for theme in load.themes]
-        wanted = MONOCHROME_THEME if no_color_requested() else settings.saved_theme()
+        wanted = MONOCHROME_THEME if no_color_requested() else saved_theme
         for name in (wanted, DEFAULT_THEME):
             if name and name in self.available_themes:
                 self.theme = name
@@ -120,6 +124,11 @@ class WorkbenchApp(App[int]):
         self.notify(f"Theme {self.theme}")
 
     # ---- screens ----------------------------------------------------------------------------
+    def action_command_palette(self) -> None:
+        """Show the command palette (one that closes once, see :class:`WorkbenchPalette`)."""
+        if self.use_command_palette and not WorkbenchPalette.is_open(self):
+            self.push_screen(WorkbenchPalette(id="--command-palette"))
+
     def action_help(self) -> None:
         """Show every key and what it does."""
         from .help_screen import HelpScreen  # loaded when first opened, like the about screen
@@ -210,5 +219,25 @@ def run_app(path: str | None) -> int:
     if isinstance(app, str):
         print(f"workbench: {app}", file=sys.stderr)
         return 2
-    result = app.run()
-    return result if isinstance(result, int) else 0
+    return exit_code(app, app.run())
+
+
+def exit_code(app: WorkbenchApp, result: object) -> int:
+    """The process's exit code once ``app`` has stopped with ``result``: its own code, or 1 when
+    it stopped on an error (Textual has printed the traceback), in which case unsaved work is
+    written to the recovery copy first and one line says where."""
+    code = app.return_code or 0
+    if code == 0:
+        return result if isinstance(result, int) else 0
+    document = app.document
+    if document.dirty:
+        problem = files.write_recovery_copy(document.session, document.path)
+        where = files.recovery_for(document.path) if problem is None else None
+        print("workbench: the screen stopped on an error; "
+              + (f"the unsaved work is in {where}: the next start on this file offers it"
+                 if where is not None else problem or "the unsaved work could not be kept"),
+              file=sys.stderr)
+    else:
+        print("workbench: the screen stopped on an error (nothing unsaved was lost)",
+              file=sys.stderr)
+    return code

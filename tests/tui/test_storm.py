@@ -1,0 +1,35 @@
+"""A seeded storm of keys, pastes and resizes across every screen (issue 18, item 5): the screen
+never dies, and the session it holds stays sound.  A modest run here; ``python -m tools.storm``
+runs long ones from chosen seeds."""
+
+from __future__ import annotations
+
+from pathlib import Path
+
+import pytest
+from textual.screen import ModalScreen
+from tui_sessions import rig_session
+
+from storm import StormApp, run_storm, session_round_trips, settle
+
+SEEDS = (18, 1200)
+KEYS = 1000  # two seeds of about 1,000 keys each: a few seconds
+
+
+@pytest.mark.parametrize("seed", SEEDS)
+async def test_storm_leaves_the_app_alive_and_the_session_sound(
+        seed: int, tmp_path: Path, monkeypatch: pytest.MonkeyPatch, no_disk) -> None:
+    monkeypatch.chdir(tmp_path)  # reports and sessions the storm names land here
+    app = StormApp(rig_session(3), tmp_path / "storm.toml", offer_recovery=False,
+                   autosave_delay=None)
+    async with app.run_test(size=(80, 24)) as pilot:
+        await pilot.pause()
+        bursts = await run_storm(app, pilot, seed, KEYS)
+        assert bursts > 0 and app.is_running
+        await settle(app, pilot)
+        assert app.is_running and not isinstance(app.screen, ModalScreen)
+        assert len(app.screen_stack) == 1
+        session_round_trips(app)
+        await pilot.press("ctrl+n")  # the main screen still answers
+        await pilot.pause()
+    assert app.return_code in (None, 0)
