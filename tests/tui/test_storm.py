@@ -10,6 +10,7 @@ from pathlib import Path
 
 import pytest
 from textual.screen import ModalScreen
+from textual.widgets import Input
 from tui_sessions import rig_session
 
 from storm import StormApp, run_storm, session_round_trips, settle
@@ -37,3 +38,21 @@ async def test_storm_leaves_the_app_alive_and_the_session_sound(
         await pilot.press("ctrl+n")  # the main screen still answers
         await pilot.pause()
     assert app.return_code in (None, 0)
+
+
+@pytest.mark.parametrize("keys", ["alt+y", "alt+h"])
+async def test_names_with_markup_brackets_show_as_typed(keys: str, make_app) -> None:
+    """Found by the storm: a duty cycle or shaft named "[a=" stopped the screen (the editor's
+    title read the name as markup)."""
+    app = make_app()
+    async with app.run_test(size=(80, 24)) as pilot:
+        await pilot.press(keys)
+        await pilot.pause()
+        editor = app.screen
+        name_box = next(box for box in editor.query(Input)
+                        if box.value == editor.table.get("name"))  # type: ignore[attr-defined]
+        name_box.focus()
+        await pilot.press("end", "[", "a", "=")
+        await pilot.pause()
+        assert app.is_running and editor.table["name"].endswith("[a=")  # type: ignore[attr-defined]
+        assert "[a=" in str(editor.query_one("#editor-title").render())
