@@ -13,7 +13,7 @@ from textual.screen import ModalScreen
 from textual.widgets import Input
 from tui_sessions import rig_session
 
-from storm import StormApp, run_storm, session_round_trips, settle
+from storm import StormApp, _key_event, run_storm, session_round_trips, settle
 
 SEEDS_VARIABLE, KEYS_VARIABLE = "WORKBENCH_STORM_SEEDS", "WORKBENCH_STORM_KEYS"
 # In the suite: one seed of about 1,200 keys (some 20 s of CPU; more on a loaded machine)
@@ -56,3 +56,25 @@ async def test_names_with_markup_brackets_show_as_typed(keys: str, make_app) -> 
         await pilot.pause()
         assert app.is_running and editor.table["name"].endswith("[a=")  # type: ignore[attr-defined]
         assert "[a=" in str(editor.query_one("#editor-title").render())
+
+
+@pytest.mark.parametrize("under", [None, "f13"])
+@pytest.mark.parametrize("enters", [2, 3])
+async def test_palette_command_and_enters_in_one_burst(under: str | None, enters: int,
+                                                       make_app) -> None:
+    """The issue's crash, 3 of 3 times before: ctrl+p, a command, two enters in one burst popped
+    the main screen (ScreenStackError).  The command runs once and only the palette closes, also
+    with a dialog open under the palette."""
+    app = make_app()
+    async with app.run_test(size=(80, 24)) as pilot:
+        if under:
+            await pilot.press(under)
+            await pilot.pause()
+        below = list(app.screen_stack)
+        for key in ["ctrl+p", *"add case", *["enter"] * enters]:
+            app.post_message(_key_event(key))
+        await pilot.pause()
+        await pilot.pause()
+        assert app.is_running and app.screen_stack[:len(below)] == below
+        # once; over the about box the main screen's commands are not offered
+        assert len(app.document.session.cases) - 3 == (0 if under else 1)
