@@ -51,14 +51,17 @@ def test_hostile_theme_file_is_skipped_with_its_line(tmp_path: Path) -> None:
 
 
 def test_hostile_settings_mean_the_defaults(tmp_path: Path) -> None:
-    """A nested or huge-integer settings.toml cannot stop the start: the defaults apply."""
+    """A nested or huge-integer settings.toml cannot stop the start: the defaults apply, and
+    one short line says the file was ignored."""
     path = tmp_path / "settings.toml"
-    path.write_text("theme = " + "[" * 3000 + "]" * 3000, encoding="utf-8")
-    assert read_settings(path) == {}
-    path.write_text("n = " + "9" * 5000, encoding="utf-8")
-    assert read_settings(path) == {}
+    assert read_settings(path) == ({}, None)  # no file: nothing to say
+    for text in ("theme = " + "[" * 3000 + "]" * 3000, "n = " + "9" * 5000):
+        path.write_text(text, encoding="utf-8")
+        data, problem = read_settings(path)
+        assert data == {} and problem and "\n" not in problem and len(problem) < 200
+        assert "ignored" in problem
     path.write_text('theme = "bench-paper"\n', encoding="utf-8")
-    assert read_settings(path) == {"theme": "bench-paper"}
+    assert read_settings(path) == ({"theme": "bench-paper"}, None)
 
 
 def test_hostile_key_table_is_reported_in_one_line(tmp_path: Path) -> None:

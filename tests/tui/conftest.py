@@ -41,7 +41,7 @@ def no_disk(monkeypatch: pytest.MonkeyPatch) -> list[tuple[str, object]]:
     """Session-file calls recorded instead of touching the disk; returns the record."""
     calls: list[tuple[str, object]] = []
 
-    def fake_save(session: object, path: Path) -> files.FileOutcome:
+    def fake_save(session: object, path: Path, **answers: object) -> files.FileOutcome:
         calls.append(("save", path))
         return files.FileOutcome(path=path, messages=[f"wrote {path.name}"])
 

@@ -402,7 +402,8 @@ async def test_unreadable_key_table_is_reported_and_the_keys_stay(make_app, priv
     app = make_app()
     async with app.run_test(size=(120, 30)) as pilot:
         await pilot.pause()
-        assert any("keys.toml not used" in note.message for note in app._notifications)
+        assert any("keys.toml" in note.message and "not used" in note.message
+                   for note in app._notifications)
         await pilot.press("ctrl+n")
         await pilot.pause()
         assert len(app.document.session.cases) == 4

@@ -29,7 +29,7 @@ async def test_save_shows_the_writers_messages(make_app, no_disk, tmp_path: Path
 
 
 async def test_save_error_is_a_notice(make_app, monkeypatch, tmp_path: Path) -> None:
-    monkeypatch.setattr(files, "save", lambda s, p: files.FileOutcome(error="disk full (test)"))
+    monkeypatch.setattr(files, "save", lambda s, p, **answers: files.FileOutcome(error="disk full (test)"))
     app = make_app(path=tmp_path / "rig.toml")
     async with app.run_test(size=(80, 24)) as pilot:
         await retype(pilot, app, "fr", "4 kN")
@@ -123,7 +123,9 @@ async def test_real_save_reports_kept_comments(make_app, tmp_path: Path) -> None
     path = tmp_path / "rig.toml"
     save_session(rig_session(), path)
     path.write_text("# hand-written note\n" + path.read_text(encoding="utf-8"), encoding="utf-8")
-    app = WorkbenchApp(load_session(path), path, offer_recovery=False, autosave_delay=None)
+    opened = files.open_session(path)
+    app = WorkbenchApp(opened.session, path, offer_recovery=False, autosave_delay=None,
+                       stamp=opened.stamp)
     async with app.run_test(size=(80, 24)) as pilot:
         await retype(pilot, app, "fr", "4 kN")
         await pilot.press("ctrl+s")
@@ -134,17 +136,20 @@ async def test_real_save_reports_kept_comments(make_app, tmp_path: Path) -> None
 
 
 async def test_real_recovery_round_trip(tmp_path: Path) -> None:
-    from workbench.model.sessionfile import find_recovery, load_session, save_session
+    from workbench.model.sessionfile import find_recovery, save_session
 
     path = tmp_path / "rig.toml"
     save_session(rig_session(), path)
-    first = WorkbenchApp(load_session(path), path, offer_recovery=False, autosave_delay=0.2)
+    opened = files.open_session(path)
+    first = WorkbenchApp(opened.session, path, offer_recovery=False, autosave_delay=0.2,
+                         stamp=opened.stamp)
     async with first.run_test(size=(80, 24)) as pilot:
         await retype(pilot, first, "fr", "4.5 kN")
         await pilot.pause(0.6)
         assert find_recovery(path) is not None
         first.exit(0)  # as if the terminal were closed: no save
-    second = WorkbenchApp(load_session(path), path, autosave_delay=None)
+    opened = files.open_session(path)
+    second = WorkbenchApp(opened.session, path, autosave_delay=None, stamp=opened.stamp)
     async with second.run_test(size=(80, 24)) as pilot:
         await pilot.pause()
         assert isinstance(second.screen, ChoiceDialog)

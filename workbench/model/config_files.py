@@ -25,14 +25,17 @@ MAX_KEYS_PER_ACTION = 8
 _CHARACTER_NAME = re.compile(r"[a-z][a-z0-9_]{0,60}")
 
 
-def read_settings(path: str | os.PathLike[str]) -> dict[str, object]:
-    """The settings saved at ``path``, or an empty mapping when there are none or they cannot
-    be read (too large, nested, not TOML, not a regular file …)."""
+def read_settings(path: str | os.PathLike[str]) -> tuple[dict[str, object], str | None]:
+    """The settings saved at ``path`` (empty when there are none) and, when the file is there
+    but cannot be read (too large, nested, not TOML, not a regular file …), one line saying so:
+    the defaults then apply."""
+    if not Path(path).exists():
+        return {}, None
     try:
         _, data = read_toml(path, limit=MAX_CONFIG_BYTES, what="settings file")
-    except FileRefused:
-        return {}
-    return data
+    except FileRefused as exc:
+        return {}, f"{exc} (ignored: the defaults apply)"
+    return data, None
 
 
 def read_key_table(path: str | os.PathLike[str]) -> tuple[dict[str, object], str | None]:

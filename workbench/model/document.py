@@ -37,12 +37,15 @@ import unicodedata
 from collections.abc import Iterable, Set
 from dataclasses import dataclass, field, replace
 from pathlib import Path
-from typing import Any, NamedTuple
+from typing import TYPE_CHECKING, Any, NamedTuple
 
 from ..engine.derive import CaseInputs
 from ..engine.record import InputError
 from ..engine.solve import UNKNOWNS, Solution, solve
 from .analysis import SessionAnalysis, analyse_extras
+
+if TYPE_CHECKING:
+    from .safe_write import FileStamp
 from .edits import (
     Edit, Insert, MoveCase, Remove,
     RenameBearing, RenameCase, SetBearingOrigin, SetCaseBearing, SetSessionText, SetTable,
@@ -195,6 +198,9 @@ class Document:
     revision: int = 0
     saved_revision: int = 0
     solved: Solved | None = None
+    stamp: FileStamp | None = None
+    """What :attr:`path` held when this session was read from it or last saved there (None:
+    never read or written here); a save asks first when the file no longer holds it."""
     _undo: list[Step] = field(default_factory=list, repr=False)
     _redo: list[Step] = field(default_factory=list, repr=False)
     _run: _EditRun | None = field(default=None, repr=False)
@@ -922,9 +928,10 @@ class Document:
         return words + (f" (bearing {case.bearing}, used by {len(users)} cases)" if shared else "")
 
     # ---- files --------------------------------------------------------------------------
-    def mark_saved(self, path: Path) -> None:
-        """Record that the session as it is now was written to ``path``."""
-        self.path = path
+    def mark_saved(self, path: Path, stamp: FileStamp | None = None) -> None:
+        """Record that the session as it is now was written to ``path`` (which then held
+        ``stamp``)."""
+        self.path, self.stamp = path, stamp
         self.saved_revision = self.revision
 
     def replace(self, session: Session, path: Path | None, *, dirty: bool = False) -> None:

@@ -6,57 +6,80 @@ Every function returns a value or a one-line message; nothing here raises into t
 
 from __future__ import annotations
 
+import time
+from collections.abc import Collection
 from dataclasses import dataclass, field
 from pathlib import Path
+from typing import TYPE_CHECKING
 
-from ..model.session import Session
+from .session import Session
 
-
-@dataclass
-class FileOutcome:
-    """What a file operation did: the session read (for open), messages to show, or an error."""
-
-    session: Session | None = None
-    path: Path | None = None
-    messages: list[str] = field(default_factory=list)
-    error: str | None = None
+if TYPE_CHECKING:
+    from .safe_write import FileStamp
 
 
 def _error_text(exc: Exception) -> str:
     return str(exc) or type(exc).__name__
 
 
+QUESTIONS = ("not a session", "exists", "changed on disk")
+"""What a save may ask before it replaces a file (:class:`sessionfile.SaveStatus` values): the
+file there is not a session; it holds another session; it changed on disk since it was read."""
+
+
+@dataclass
+class FileOutcome:
+    """What a file operation did: the session read (for open) and the file's stamp (what it held
+    then, for the next save), messages to show; or an error, or (for a save) a question to ask
+    first (one of :data:`QUESTIONS`, its words in ``error``)."""
+
+    session: Session | None = None
+    path: Path | None = None
+    messages: list[str] = field(default_factory=list)
+    error: str | None = None
+    stamp: FileStamp | None = None
+    question: str | None = None
+
+
 def open_session(path: Path, *, recovered: bool = False) -> FileOutcome:
-    """Read the session at ``path``; a recovery copy is read without checking its values
-    (it may hold a value typed half-way)."""
+    """Read the session at ``path`` and note what the file held; a recovery copy is read without
+    checking its values (it may hold a value typed half-way).  Never raises: a file that cannot
+    be read (hostile, not a regular file, too large …) gives one line in ``error``."""
     try:
-        from ..model.sessionfile import SessionFileError, load_session
+        from .sessionfile import open_session as read_session
     except ImportError as exc:
         return FileOutcome(error=f"session files are not available: {exc}")
-    try:
-        return FileOutcome(session=load_session(path, check_values=not recovered), path=path)
-    except (SessionFileError, OSError, ValueError) as exc:
-        return FileOutcome(error=_error_text(exc))
+    opened = read_session(path, recovered=recovered)
+    if opened.session is None:
+        return FileOutcome(path=path, error=opened.error or f"{path}: not opened")
+    return FileOutcome(session=opened.session, path=path, stamp=opened.stamp)
 
 
-def save(session: Session, path: Path) -> FileOutcome:
-    """Write ``session`` to ``path``; the messages the writer reports (comments kept …)."""
+def save(session: Session, path: Path, *, read_stamp: FileStamp | None = None,
+         confirmed: Collection[str] = ()) -> FileOutcome:
+    """Write ``session`` to ``path`` (through a link to its target), unless something must be
+    asked first: ``question`` then names it and ``error`` words it; call again with the answered
+    question in ``confirmed``.  ``read_stamp`` is what the file held when this session was read
+    or last saved.  A file that must not be written (read-only, a folder or device …) is refused
+    in ``error``.  On success ``stamp`` is what the file holds now, and ``messages`` the
+    writer's notes (comments kept aside …).  Never raises."""
     try:
-        from ..model.sessionfile import SessionFileError, save_session
+        from .sessionfile import SaveStatus, try_save_session
     except ImportError as exc:
         return FileOutcome(error=f"session files are not available: {exc}")
-    try:
-        outcome = save_session(session, path)
-    except (SessionFileError, OSError, ValueError) as exc:
-        return FileOutcome(error=_error_text(exc))
-    messages = [str(m) for m in getattr(outcome, "messages", None) or []]
-    return FileOutcome(path=path, messages=messages)
+    outcome = try_save_session(session, path, read_stamp=read_stamp,
+                               confirmed={SaveStatus(answer) for answer in confirmed})
+    if outcome.status is SaveStatus.SAVED:
+        return FileOutcome(path=path, messages=list(outcome.messages), stamp=outcome.stamp)
+    question = outcome.status.value if outcome.status.value in QUESTIONS else None
+    return FileOutcome(path=path, error=outcome.message or f"{path}: not saved",
+                       question=question)
 
 
 def demo_path() -> Path | None:
     """Where the shipped demo session lives, or None when it cannot be found."""
     try:
-        from ..model.sessionfile import demo_session_path
+        from .sessionfile import demo_session_path
     except ImportError:
         return None
     return Path(demo_session_path())
@@ -65,7 +88,7 @@ def demo_path() -> Path | None:
 def write_recovery_copy(session: Session, path: Path | None) -> str | None:
     """Write the recovery copy of ``session`` (for the file at ``path``); None or why not."""
     try:
-        from ..model.sessionfile import SessionFileError, write_recovery
+        from .sessionfile import SessionFileError, write_recovery
     except ImportError as exc:
         return f"recovery copies are not available: {exc}"
     try:
@@ -78,7 +101,7 @@ def write_recovery_copy(session: Session, path: Path | None) -> str | None:
 def discard_recovery_copy(path: Path | None) -> None:
     """Remove the recovery copy for the file at ``path`` (saved, or declined); quietly."""
     try:
-        from ..model.sessionfile import SessionFileError, discard_recovery
+        from .sessionfile import SessionFileError, discard_recovery
     except ImportError:
         return
     try:
@@ -87,10 +110,32 @@ def discard_recovery_copy(path: Path | None) -> None:
         return
 
 
+def keep_recovery_copy(path: Path | None) -> Path | None:
+    """Set the recovery copy for the file at ``path`` aside, under a name of its own beside it
+    (``NAME-….kept-YYYYMMDD-HHMMSS.toml``), so the next autosave cannot write over it; where it
+    went, or None when there was none or it could not be moved."""
+    try:
+        from .sessionfile import recovery_path
+    except ImportError:
+        return None
+    copy = recovery_path(path)
+    stem = f"{copy.stem}.kept-{time.strftime('%Y%m%d-%H%M%S')}"
+    kept = copy.with_name(stem + copy.suffix)
+    number = 1
+    while kept.exists():  # a rename would replace a copy kept in the same second
+        number += 1
+        kept = copy.with_name(f"{stem}-{number}{copy.suffix}")
+    try:
+        copy.rename(kept)
+    except OSError:
+        return None
+    return kept
+
+
 def recovery_for(path: Path | None) -> Path | None:
     """A recovery copy left behind for ``path`` by a run that did not end cleanly, if any."""
     try:
-        from ..model.sessionfile import SessionFileError, find_recovery
+        from .sessionfile import SessionFileError, find_recovery
     except ImportError:
         return None
     try:

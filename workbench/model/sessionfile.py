@@ -533,7 +533,8 @@ def dumps_session(session: Session) -> str:
             for c in session.cases
         ]
     doc["solver"] = {key: getattr(session.solver, key) for key in SOLVER_KEYS}
-    doc.update(session.reserved)
+    # in one order, however they were added: a file written, read and written again is the same
+    doc.update({name: session.reserved[name] for name in RESERVED_TABLES if name in session.reserved})
     import tomli_w  # imported on the first save, not when the workbench starts
 
     # tomli_w writes "\r\n" raw inside a multi-line string, where TOML reads it back as "\n"

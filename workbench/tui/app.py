@@ -7,18 +7,23 @@ from __future__ import annotations
 
 import os
 import sys
+from collections.abc import Sequence
 from pathlib import Path
 from typing import Any
 
 from textual.app import App
+from textual.command import CommandListItem, SimpleProvider
+from textual.theme import ThemeProvider
+from textual.widget import AwaitMount
 from textual.binding import Binding
 from textual.notifications import SeverityLevel
 
 from ..model.session import Session
 from ..model import files, settings
 from ..model.document import Document
+from ..model.safe_write import FileStamp
 from .actions import bindings, check_keymap
-from .commands import WorkbenchCommands
+from .commands import WorkbenchCommands, WorkbenchPalette
 from .theme_files import DEFAULT_THEME, MONOCHROME_THEME, load_theme_files
 from .workbench_screen import AUTOSAVE_DELAY_S, WorkbenchScreen
 
@@ -39,16 +44,19 @@ class WorkbenchApp(App[int]):
     def __init__(self, session: Session | None = None, path: Path | None = None, *,
                  offer_recovery: bool = True,
                  autosave_delay: float | None = AUTOSAVE_DELAY_S,
-                 theme_folder: Path | None = None, greeting: str = "") -> None:
+                 theme_folder: Path | None = None, greeting: str = "",
+                 stamp: FileStamp | None = None) -> None:
         super().__init__()
         self._greeting = greeting
-        self.document = Document(session if session is not None else Session(), path)
+        self.document = Document(session if session is not None else Session(), path,
+                                 stamp=stamp)
         self._offer_recovery = offer_recovery
         self._autosave_delay = autosave_delay
         self._theme_folder = theme_folder
         self._our_themes: list[str] = []
         self._remember_theme = False
-        self._theme_problem = self._install_themes()
+        saved, self._settings_problem = settings.load_settings()
+        self._theme_problem = self._install_themes(settings.theme_in(saved))
         self.personal_keymap: dict[str, str] = {}
         """The person's keys in force (action id → keys), from ``keys.toml``."""
         self._keymap_problems = self._install_keymap()
@@ -72,6 +80,9 @@ class WorkbenchApp(App[int]):
 
     def on_mount(self) -> None:
         """Report theme files that failed, then offer a recovery copy if one was left behind."""
+        if self._settings_problem is not None:
+            self.notify(self._settings_problem, title=settings.SETTINGS_FILE, severity="warning",
+                        timeout=12)
         if self._theme_problem is not None:
             self.notify(self._theme_problem, title="Themes", severity="warning", timeout=8)
         if self._keymap_problems:
@@ -83,14 +94,14 @@ class WorkbenchApp(App[int]):
             self._ask_about_recovery()
 
     # ---- themes -----------------------------------------------------------------------------
-    def _install_themes(self) -> str | None:
-        """Register the theme files and choose the theme; the message naming the files that
-        failed, if any."""
+    def _install_themes(self, saved_theme: str | None) -> str | None:
+        """Register the theme files and choose the theme (``saved_theme``, the one remembered,
+        unless NO_COLOR asks for none); the message naming the files that failed, if any."""
         load = load_theme_files(self._theme_folder)
         for theme in load.themes:
             self.register_theme(theme)
         self._our_themes = [theme.name for theme in load.themes]
-        wanted = MONOCHROME_THEME if no_color_requested() else settings.saved_theme()
+        wanted = MONOCHROME_THEME if no_color_requested() else saved_theme
         for name in (wanted, DEFAULT_THEME):
             if name and name in self.available_themes:
                 self.theme = name
@@ -120,6 +131,25 @@ class WorkbenchApp(App[int]):
         self.notify(f"Theme {self.theme}")
 
     # ---- screens ----------------------------------------------------------------------------
+    # Every palette is a WorkbenchPalette, which closes once (Textual's own could pop the screen
+    # under it); these three are the places Textual makes one.
+    def action_command_palette(self) -> None:
+        """Show the command palette."""
+        if self.use_command_palette and not WorkbenchPalette.is_open(self):
+            self.push_screen(WorkbenchPalette(id="--command-palette"))
+
+    def search_commands(self, commands: Sequence[CommandListItem],
+                        placeholder: str = "Search for commands…") -> AwaitMount:
+        """A palette of the given commands."""
+        return self.push_screen(WorkbenchPalette(  # type: ignore[return-value]
+            providers=[SimpleProvider(self.screen, commands)], placeholder=placeholder))
+
+    def search_themes(self) -> None:
+        """A palette of the registered themes (Textual's "Theme" command)."""
+        if not WorkbenchPalette.is_open(self):
+            self.push_screen(WorkbenchPalette(providers=[ThemeProvider],
+                                              placeholder="Search for themes…"))
+
     def action_help(self) -> None:
         """Show every key and what it does."""
         from .help_screen import HelpScreen  # loaded when first opened, like the about screen
@@ -158,26 +188,38 @@ class WorkbenchApp(App[int]):
 
     # ---- recovery ---------------------------------------------------------------------------
     def _ask_about_recovery(self) -> None:
+        """Offer the recovery copy a run that did not end cleanly left for this file.  Only an
+        explicit "discard" deletes it; escape or "keep it" sets it aside under a name of its own
+        (named in a notice), so the autosave of this run cannot write over it."""
         found = files.recovery_for(self.document.path)
         if found is None:
             return
         from .dialogs import ChoiceDialog
 
         def answered(answer: str | None) -> None:
-            if answer != "recover":
+            if answer == "discard":
                 files.discard_recovery_copy(self.document.path)
+                return
+            if answer != "recover":
+                kept = files.keep_recovery_copy(self.document.path)
+                self.notify(f"The recovery copy is kept as {kept}: open it with ctrl+o"
+                            if kept is not None else f"The recovery copy stays at {found}",
+                            title="Recovery", timeout=20)
                 return
             outcome = files.open_session(found, recovered=True)
             if outcome.session is None:
                 self.notify(outcome.error or "recovery copy unreadable", severity="error")
                 return
-            self.workbench_screen.open_session(outcome.session, self.document.path, dirty=True)
+            self.workbench_screen.open_session(outcome.session, self.document.path, dirty=True,
+                                               stamp=self.document.stamp)
             self.notify("Recovered the unsaved work: save it to keep it")
 
         self.push_screen(ChoiceDialog(
             "Recover unsaved work?",
-            f"A recovery copy from a run that did not end cleanly was found:\n{found}",
-            [("recover", "Recover it"), ("ignore", "Open the file as saved")]), answered)
+            f"A recovery copy from a run that did not end cleanly was found:\n{found}\n"
+            "Keep it aside: open the file as saved and keep the copy under a new name.",
+            [("recover", "Recover it"), ("keep", "Keep it aside"), ("discard", "Discard it")]),
+            answered)
 
 
 def app_for(path: str | None, **options: Any) -> WorkbenchApp | str:
@@ -201,7 +243,8 @@ def app_for(path: str | None, **options: Any) -> WorkbenchApp | str:
             outcome = files.open_session(file_path)
     if outcome.session is None:
         return outcome.error or "the session could not be opened"
-    return WorkbenchApp(outcome.session, file_path, greeting=" ".join(outcome.messages), **options)
+    return WorkbenchApp(outcome.session, file_path, greeting=" ".join(outcome.messages),
+                        stamp=outcome.stamp if file_path is not None else None, **options)
 
 
 def run_app(path: str | None) -> int:
@@ -210,5 +253,25 @@ def run_app(path: str | None) -> int:
     if isinstance(app, str):
         print(f"workbench: {app}", file=sys.stderr)
         return 2
-    result = app.run()
-    return result if isinstance(result, int) else 0
+    return exit_code(app, app.run())
+
+
+def exit_code(app: WorkbenchApp, result: object) -> int:
+    """The process's exit code once ``app`` has stopped with ``result``: its own code, or 1 when
+    it stopped on an error (Textual has printed the traceback), in which case unsaved work is
+    written to the recovery copy first and one line says where."""
+    code = app.return_code or 0
+    if code == 0:
+        return result if isinstance(result, int) else 0
+    document = app.document
+    if document.dirty:
+        problem = files.write_recovery_copy(document.session, document.path)
+        where = files.recovery_for(document.path) if problem is None else None
+        print("workbench: the screen stopped on an error; "
+              + (f"the unsaved work is in {where}: the next start on this file offers it"
+                 if where is not None else problem or "the unsaved work could not be kept"),
+              file=sys.stderr)
+    else:
+        print("workbench: the screen stopped on an error (nothing unsaved was lost)",
+              file=sys.stderr)
+    return code

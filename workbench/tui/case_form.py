@@ -184,7 +184,7 @@ class CaseForm(VerticalScroll):
         wide or narrow, and its control.  The note line under a field is made the first time it
         has a message (few fields ever have one, and every widget costs the form time)."""
         self._wide = wide = self.app.size.width >= WIDE
-        yield Static(id="case-note")
+        yield Static(id="case-note", markup=False)  # engine messages quote what was typed
         for number, (title, names) in enumerate(EDITOR_GROUPS):
             yield Static(title, classes="group-title" + (" -first" if number == 0 else ""))
             for name in names:

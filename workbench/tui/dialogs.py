@@ -137,7 +137,7 @@ class PathSuggester(Suggester):
             names = [(not entry.is_dir(), not entry.name.endswith(".toml"), entry.name)
                      for entry in folder.iterdir()
                      if entry.name.startswith(start) and not entry.name.startswith(".")]
-        except OSError:
+        except (OSError, ValueError):  # unreadable, a name too long, a NUL typed or pasted
             return None
         if not names:
             return None

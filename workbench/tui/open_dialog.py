@@ -2,8 +2,11 @@
 
 → at the end of the line takes the suggested name (:class:`~.dialogs.PathSuggester`); tab
 completes the path as far as every match agrees, as a shell does; the lines under the box list
-what matches.  Enter opens an existing file; a name that does not exist yet
-asks once, and a second enter starts a new session there (written on the first save).
+what matches.  Enter reads an existing file here: a file that cannot be read (not a session, too
+large, nested, a pipe or device …) is named in the message line and the dialog stays, so the
+session under edit is never touched; a file read closes the dialog with its session.  A name
+that does not exist yet asks once, and a second enter starts a new session there (written on
+the first save).
 """
 
 from __future__ import annotations
@@ -19,6 +22,8 @@ from textual.containers import Vertical
 from textual.screen import ModalScreen
 from textual.widgets import Input, Static
 
+from ..model import files
+from ..model.user_text import clipped_path
 from .dialogs import PathSuggester
 
 SHOWN = 8
@@ -34,7 +39,7 @@ def matches(text: str) -> list[str]:
     where = Path(folder or ".") if folder or not typed.startswith(os.sep) else Path(os.sep)
     try:
         entries = sorted(os.scandir(where), key=lambda entry: entry.name)
-    except OSError:
+    except (OSError, ValueError):  # unreadable, a name too long, a NUL typed or pasted
         return []
     found = []
     for entry in entries:
@@ -61,10 +66,11 @@ def completion(text: str) -> str | None:
 
 
 class Opened(NamedTuple):
-    """The path chosen, and whether it is a new session (no file there yet)."""
+    """The path chosen and the file read there (its session and stamp), or None for a new
+    session (no file there yet)."""
 
     path: Path
-    new: bool
+    outcome: files.FileOutcome | None
 
 
 class OpenDialog(ModalScreen[Opened | None]):
@@ -136,21 +142,30 @@ class OpenDialog(ModalScreen[Opened | None]):
             message.update("Name a file")
             return
         path = Path(text).expanduser()
-        if path.is_dir():
-            message.update(f"{text} is a folder: name a file in it")
+        try:
+            is_folder, exists = path.is_dir(), path.exists() or path.is_symlink()
+        except (OSError, ValueError) as exc:  # a name too long, a NUL byte
+            message.update(f"{clipped_path(text)}: {getattr(exc, 'strerror', None) or exc}")
             return
-        if path.exists():
-            self._close(Opened(path, new=False))
+        if is_folder:
+            message.update(f"{clipped_path(text)} is a folder: name a file in it")
+            return
+        if exists:
+            outcome = files.open_session(path)
+            if outcome.session is None:
+                message.update(f"✘ {outcome.error or 'not opened'}")
+                return
+            self._close(Opened(path, outcome))
             return
         if path.suffix != ".toml":
             message.update("A session file ends in .toml")
             return
         if self._asked_new != text:
             self._asked_new = text
-            message.update(f"No file {text} yet: enter again to start a new session there "
-                           "(ctrl+s writes it)")
+            message.update(f"No file {clipped_path(text)} yet: enter again to start a new "
+                           "session there (ctrl+s writes it)")
             return
-        self._close(Opened(path, new=True))
+        self._close(Opened(path, None))
 
     def _close(self, result: Opened | None) -> None:
         if self.app.screen is self:

@@ -100,7 +100,7 @@ class SessionScreen(ModalScreen[bool]):
                     yield Label(LABELS[name], classes="form-label")
                     yield Input(getattr(session.targets, name), id=f"target-{name}",
                                 compact=True, validators=[TargetValidator(self.document, name)])
-                yield Static("", id=f"target-note-{name}", classes="form-note")
+                yield Static("", id=f"target-note-{name}", classes="form-note", markup=False)
                 yield Static(HINTS[name], classes="form-hint")
             yield Static("enter or ctrl+s keeps · esc cancels · ↑/↓ move", id="session-keys")
 

@@ -140,7 +140,7 @@ class TableEditor(Screen[None]):
 
     def compose(self) -> ComposeResult:
         """The title, the form and the results side by side."""
-        yield Static(id="editor-title")
+        yield Static(id="editor-title", markup=False)  # the name as typed
         with Horizontal():
             yield TableForm(self, id="table-form")
             yield LinePane(id="table-results")

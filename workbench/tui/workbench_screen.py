@@ -49,6 +49,7 @@ from .solver_pane import SolverPane
 from .view import View, fit_words
 
 if TYPE_CHECKING:
+    from ..model.safe_write import FileStamp
     from .selection_screen import Adoption
 
 AUTOSAVE_DELAY_S = 2.0
@@ -582,10 +583,19 @@ class WorkbenchScreen(Screen[None]):
         self.query_one(CaseForm).focus_first()
 
     # ---- files ------------------------------------------------------------------------------
-    def save_to(self, path: Path, then: Callable[[], object] | None = None) -> None:
-        """Write the session to ``path`` and report what the writer said."""
+    def save_to(self, path: Path, then: Callable[[], object] | None = None, *,
+                confirmed: frozenset[str] = frozenset()) -> None:
+        """Write the session to ``path`` and report what the writer said; when the file there
+        is not a session, holds another one or changed on disk since it was read here, ask
+        first (:func:`.save_questions.ask_before_saving`); ``then`` runs once it is saved."""
         document = self.document
-        outcome = files.save(document.session, path)
+        outcome = files.save(document.session, path, read_stamp=document.stamp,
+                             confirmed=confirmed)
+        if outcome.question is not None:
+            from .save_questions import ask_before_saving
+
+            ask_before_saving(self, outcome, then, confirmed)
+            return
         if outcome.error is not None:
             self.notify(outcome.error, title="Not saved", severity="error")
             return
@@ -594,7 +604,7 @@ class WorkbenchScreen(Screen[None]):
         if self._autosave_timer is not None:
             self._autosave_timer.stop()
             self._autosave_timer = None
-        document.mark_saved(path)
+        document.mark_saved(path, outcome.stamp)
         for message in outcome.messages:
             self.notify(message, title="Saved")
         if not outcome.messages:
@@ -610,8 +620,8 @@ class WorkbenchScreen(Screen[None]):
         current = self.document.path
 
         def chosen(text: str | None) -> None:
-            if text:
-                self.save_to(Path(text).expanduser(), then)
+            if text and text.strip():
+                self.save_to(Path(text.strip()).expanduser(), then)
 
         self.app.push_screen(
             TextPrompt("Save session as", str(current) if current else DEFAULT_SAVE_NAME,
@@ -643,15 +653,13 @@ class WorkbenchScreen(Screen[None]):
         def chosen(opened: Opened | None) -> None:
             if opened is None:
                 return
-            if opened.new:
+            if opened.outcome is None:  # a new session: no file there yet
                 self.open_session(Session(title=opened.path.stem), opened.path)
                 self.notify(f"New session {opened.path.name}: ctrl+s writes it")
                 return
-            outcome = files.open_session(opened.path)
-            if outcome.session is None:
-                self.notify(outcome.error or "not opened", title="Not opened", severity="error")
-                return
-            self.open_session(outcome.session, outcome.path)
+            session = opened.outcome.session
+            assert session is not None  # the dialog keeps a file it could not read
+            self.open_session(session, opened.path, stamp=opened.outcome.stamp)
 
         def ask_path(answer: str | None = "discard") -> None:
             if answer == "discard":
@@ -665,9 +673,11 @@ class WorkbenchScreen(Screen[None]):
         else:
             ask_path()
 
-    def open_session(self, session: Session, path: Path | None, dirty: bool = False) -> None:
-        """Put ``session`` under edit and show it."""
+    def open_session(self, session: Session, path: Path | None, dirty: bool = False, *,
+                     stamp: FileStamp | None = None) -> None:
+        """Put ``session`` under edit and show it; ``stamp`` is what its file held when read."""
         self.document.replace(session, path, dirty=dirty)
+        self.document.stamp = stamp
         if (pane := self._solver()) is not None:
             pane.load(session.solver)
             pane.show_note("")
