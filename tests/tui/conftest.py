@@ -5,6 +5,7 @@ from __future__ import annotations
 import sys
 from collections.abc import Callable
 from pathlib import Path
+from types import SimpleNamespace
 
 import pytest
 from textual.widgets import Input
@@ -22,6 +23,22 @@ from workbench.tui.app import WorkbenchApp  # noqa: E402
 def freeze_cursor_blink(monkeypatch: pytest.MonkeyPatch) -> None:
     """Keep the text cursor still, so timing never leaks into a test or a snapshot."""
     monkeypatch.setattr(Input, "_toggle_cursor", lambda self: None)
+
+
+@pytest.fixture(autouse=True)
+def notices_given(monkeypatch: pytest.MonkeyPatch) -> None:
+    """Every notice the app gives is kept in ``app.notices_given`` (message, title, severity)
+    for the test to read: on screen a notice expires after 8–12 s, and a busy machine can take
+    longer than that to reach the check."""
+    real_notify = WorkbenchApp.notify
+
+    def notify(self: WorkbenchApp, message: str, **options: object) -> None:
+        given = self.__dict__.setdefault("notices_given", [])
+        given.append(SimpleNamespace(message=message, title=options.get("title", ""),
+                                     severity=options.get("severity", "information")))
+        real_notify(self, message, **options)  # type: ignore[arg-type]
+
+    monkeypatch.setattr(WorkbenchApp, "notify", notify)
 
 
 @pytest.fixture(autouse=True)

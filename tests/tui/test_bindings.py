@@ -389,7 +389,7 @@ async def test_key_table_moves_an_action_to_the_persons_key(make_app, private_co
         assert len(app.document.session.cases) == 4
         assert "^k Add case" in app.screen.query_one(KeyFooter).text
         assert any("'no.such' is not an action" in note.message
-                   for note in app._notifications)
+                   for note in app.notices_given)
         await pilot.press("f1")
         await pilot.pause()
         assert isinstance(app.screen, HelpScreen)
@@ -403,7 +403,7 @@ async def test_unreadable_key_table_is_reported_and_the_keys_stay(make_app, priv
     async with app.run_test(size=(120, 30)) as pilot:
         await pilot.pause()
         assert any("keys.toml" in note.message and "not used" in note.message
-                   for note in app._notifications)
+                   for note in app.notices_given)
         await pilot.press("ctrl+n")
         await pilot.pause()
         assert len(app.document.session.cases) == 4

@@ -25,7 +25,7 @@ async def test_save_shows_the_writers_messages(make_app, no_disk, tmp_path: Path
         assert ("save", tmp_path / "rig.toml") in no_disk
         assert ("discard", tmp_path / "rig.toml") in no_disk  # the recovery copy goes
         assert not app.document.dirty and "●" not in app.sub_title
-        assert any("wrote rig.toml" in n.message for n in app._notifications)
+        assert any("wrote rig.toml" in n.message for n in app.notices_given)
 
 
 async def test_save_error_is_a_notice(make_app, monkeypatch, tmp_path: Path) -> None:
@@ -36,7 +36,7 @@ async def test_save_error_is_a_notice(make_app, monkeypatch, tmp_path: Path) -> 
         await pilot.press("ctrl+s")
         await pilot.pause()
         assert app.document.dirty
-        assert any("disk full" in n.message for n in app._notifications)
+        assert any("disk full" in n.message for n in app.notices_given)
 
 
 async def test_quit_guard_can_save_then_quit(make_app, no_disk, tmp_path: Path) -> None:
@@ -130,7 +130,7 @@ async def test_real_save_reports_kept_comments(make_app, tmp_path: Path) -> None
         await retype(pilot, app, "fr", "4 kN")
         await pilot.press("ctrl+s")
         await pilot.pause()
-        assert any(".orig" in n.message for n in app._notifications)
+        assert any(".orig" in n.message for n in app.notices_given)
     assert load_session(path).cases[0].texts["fr"] == "4 kN"
     assert (tmp_path / "rig.toml.orig").exists() or list(tmp_path.glob("*.orig"))
 

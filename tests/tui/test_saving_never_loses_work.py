@@ -164,7 +164,7 @@ async def test_read_only_file_is_refused_with_a_message(tmp_path: Path) -> None:
             await pilot.pause()
             assert not isinstance(app.screen, ChoiceDialog)
             assert app.document.dirty
-            assert any("read-only" in n.message for n in app._notifications)
+            assert any("read-only" in n.message for n in app.notices_given)
     finally:
         path.chmod(0o644)
     assert path.read_bytes() == before
@@ -178,7 +178,7 @@ async def test_a_folder_is_refused_with_a_message(tmp_path: Path) -> None:
         app.workbench_screen.save_to(folder)
         await pilot.pause()
         assert not isinstance(app.screen, ChoiceDialog)
-        assert any(n.title == "Not saved" for n in app._notifications)
+        assert any(n.title == "Not saved" for n in app.notices_given)
     assert folder.is_dir()
 
 

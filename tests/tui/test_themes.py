@@ -10,7 +10,6 @@ import pytest
 from textual.color import Color
 
 from workbench.model import settings
-from workbench.tui.app import WorkbenchApp
 from workbench.tui.theme_files import (
     DEFAULT_THEME, MONOCHROME_THEME, ThemeFileError, load_theme_files, theme_from_data,
 )
@@ -83,16 +82,11 @@ def test_bad_files_are_listed_and_the_rest_load(tmp_path: Path) -> None:
     assert message is not None and "broken.toml" in message and "nocolour.toml" in message
 
 
-async def test_app_notifies_once_about_bad_files(make_app, tmp_path: Path,
-                                                 monkeypatch: pytest.MonkeyPatch) -> None:
-    notices: list[str] = []  # recorded as given: a notice on screen expires after 8 s
-    real_notify = WorkbenchApp.notify
-    monkeypatch.setattr(WorkbenchApp, "notify", lambda self, message, **kw: (
-        notices.append(message), real_notify(self, message, **kw))[1])
+async def test_app_notifies_once_about_bad_files(make_app, tmp_path: Path) -> None:
     app = make_app(theme_folder=_folder_with_bad_files(tmp_path))
     async with app.run_test(size=(80, 24)) as pilot:
         await pilot.pause()
-        skipped = [notice for notice in notices if "Theme files skipped" in notice]
+        skipped = [n.message for n in app.notices_given if "Theme files skipped" in n.message]
         assert len(skipped) == 1
         assert "broken.toml" in skipped[0] and "nocolour.toml" in skipped[0]
         assert app.theme == DEFAULT_THEME
