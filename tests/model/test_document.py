@@ -13,7 +13,6 @@ sys.path.insert(0, str(Path(__file__).parents[1] / "tui"))  # the test-rig sessi
 from tui_sessions import rig_session  # noqa: E402
 
 from workbench.engine.record import InputError  # noqa: E402
-from workbench.model import document as document_module  # noqa: E402
 from workbench.model.document import Document  # noqa: E402
 from workbench.model.nudge import number_text, scale_text  # noqa: E402
 from workbench.model.sessionfile import load_session  # noqa: E402
@@ -147,17 +146,6 @@ def test_the_applied_value_meets_its_own_target() -> None:
         achieved = document.result(0).derivation.results[name]
         assert achieved >= float(value.split()[0])  # every target is a least value
         document.undo()
-
-
-@pytest.fixture
-def derived(monkeypatch: pytest.MonkeyPatch) -> list[str]:
-    """The names of the cases the document derives from now on, in order."""
-    names: list[str] = []
-    real = document_module.evaluate_case
-    monkeypatch.setattr(document_module, "evaluate_case",
-                        lambda session, case, **kw: names.append(case.name) or real(
-                            session, case, **kw))
-    return names
 
 
 def test_a_case_field_derives_only_its_case(derived: list[str]) -> None:

@@ -11,7 +11,6 @@ from __future__ import annotations
 
 import pytest
 
-from workbench.model import document as document_module
 from workbench.model.analysis import analyse
 from workbench.model.document import Document
 from workbench.model.sample_sessions import (
@@ -43,17 +42,6 @@ def derive_pending(document: Document) -> int:
     job = document.rederivation()
     assert job is not None
     return document.take(job.derive(0, len(job.cases)))
-
-
-@pytest.fixture
-def derived(monkeypatch: pytest.MonkeyPatch) -> list[str]:
-    """The names of the cases the document derives on its own from now on."""
-    names: list[str] = []
-    real = document_module.evaluate_case
-    monkeypatch.setattr(document_module, "evaluate_case",
-                        lambda session, case, **kw: names.append(case.name) or real(
-                            session, case, **kw))
-    return names
 
 
 def test_a_shared_bearing_edit_derives_its_case_and_leaves_the_rest_pending(

@@ -13,7 +13,7 @@ import math
 from textual.content import Content
 from textual.reactive import var
 
-from ..engine.record import Step, fmt
+from ..engine.record import Derivation, Step, fmt
 from ..model.fields import FIELD_BY_NAME
 from ..model.quantities import ENGINE_UNIT_QUANTITY, format_quantity, step_number_writer
 from ..model.session import CaseResult
@@ -118,10 +118,16 @@ def derivation_lines(result: CaseResult | None, system: str) -> list[Content]:
                 label = FIELD_BY_NAME[name].label if name in FIELD_BY_NAME else name
                 lines.append(Content.styled(f"✘ {label}: {message}", ERROR_STYLE))
         return lines
-    for step in result.derivation.steps:
+    return lines + steps_lines(result.derivation, system)
+
+
+def steps_lines(derivation: Derivation, system: str) -> list[Content]:
+    """Every step of ``derivation``, a blank line before each, then its notes."""
+    lines: list[Content] = []
+    for step in derivation.steps:
         lines.append(Content(""))
         lines.extend(step_content(step, system))
-    for note in result.derivation.notes:
+    for note in derivation.notes:
         lines.append(Content.styled("· " + note, "italic"))
     return lines
 

@@ -36,7 +36,7 @@ from ..model.internal_form import (INTERNAL_INPUT_BY_NAME, NoEquilibrium, intern
                                    session_inside_texts)
 from ..model.quantities import format_quantity
 from .derivation_pane import (ERROR_STYLE, RESULT_STYLE, SOURCE_STYLE, WARNING_STYLE, DerivationPane,
-                              step_content)
+                              steps_lines)
 from .view import View
 
 TITLE_STYLE = "bold $text-primary"
@@ -264,12 +264,7 @@ def inside_lines(outcome: InsideOutcome | None, system: str, *, busy: bool = Fal
         lines.append(Content.styled(f"⚠ {warning}", WARNING_STYLE))
     lines.append(Content(""))
     lines.append(Content.styled("Derivation", TITLE_STYLE))
-    for step in result.derivation.steps:
-        lines.append(Content(""))
-        lines.extend(step_content(step, system))
-    for note in result.derivation.notes:
-        lines.append(Content.styled("· " + note, "italic"))
-    return lines
+    return lines + steps_lines(result.derivation, system)
 
 
 class InsidePane(DerivationPane):
