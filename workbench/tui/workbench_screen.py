@@ -26,7 +26,6 @@ from textual.app import ComposeResult
 from textual.binding import Binding
 from textual.containers import Horizontal, Vertical
 from textual.events import Resize
-from textual.lazy import Lazy
 from textual.reactive import var
 from textual.screen import Screen
 from textual.timer import Timer
@@ -45,6 +44,7 @@ from .case_form import WIDE, CaseForm
 from .case_table import CaseTable
 from .derivation_pane import DerivationPane
 from .key_footer import KeyFooter
+from .pane_lazy import PaneLazy
 from .solver_pane import SolverPane
 from .view import View, fit_words
 
@@ -112,13 +112,13 @@ class WorkbenchScreen(Screen[None]):
                     yield DerivationPane(document, id="derivation-view").data_bind(
                         WorkbenchScreen.view)
                 with TabPane("Solver", id="solver"):
-                    yield Lazy(SolverPane(document.session.solver, id="solver-view").data_bind(
+                    yield PaneLazy(SolverPane(document.session.solver, id="solver-view").data_bind(
                         WorkbenchScreen.view))
                 with TabPane("What-if", id="whatif"):
-                    yield Lazy(WhatIfPane(document, id="whatif-view").data_bind(
+                    yield PaneLazy(WhatIfPane(document, id="whatif-view").data_bind(
                         WorkbenchScreen.view))
                 with TabPane("Inside", id="inside"):
-                    yield Lazy(InsidePane(document, id="inside-view").data_bind(
+                    yield PaneLazy(InsidePane(document, id="inside-view").data_bind(
                         WorkbenchScreen.view))
         yield KeyFooter()
 
