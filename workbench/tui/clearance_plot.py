@@ -25,7 +25,7 @@ from ..model.internal_form import NoEquilibrium, clearance_curve_for_case
 from .inside_pane import InsideRequest, input_label
 
 POINTS = 25
-GUTTER = 10  # as the What-if pane's other plots (workbench.report.plot_text)
+GUTTER = 10  # as the What-if pane's other plots (workbench.model.plot_text)
 HELPS, HURTS, NO_POINT = "+", "-", "x"
 _BRAILLE_BASE = 0x2800
 _DOT_BITS = ((0x01, 0x08), (0x02, 0x10), (0x04, 0x20), (0x40, 0x80))  # [row][column]

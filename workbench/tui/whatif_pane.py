@@ -6,7 +6,7 @@ ranked by |ε|, signs kept, the method named where a piece boundary makes the di
 one-sided), the life against a scale on Fr and Fa from
 :func:`~workbench.engine.curves.life_curve` (target life and e switch marked) and aISO against κ
 from :func:`~workbench.engine.curves.aiso_curve` (ISO 281:2007 §9.3.2), drawn by
-:func:`workbench.tui.plot_text.plot_lines` in braille and plain marks so they read in monochrome.
+:func:`workbench.model.plot_text.plot_lines` in braille and plain marks so they read in monochrome.
 The Duty block shows each state's share of the Palmgren–Miner damage as a text bar, for the duty
 cycles on the selected case's bearing.  For a bearing whose internal geometry is known, the
 reference life against operating clearance shows where slight preload helps and where it hurts
@@ -36,7 +36,7 @@ from ..model.session import CaseResult
 from .clearance_plot import NO_CURVE, ClearanceCurve, clearance_curve, clearance_section
 from .inside_pane import InsideRequest, inside_request
 from .line_pane import LinePane
-from .plot_text import plot_lines
+from ..model.plot_text import plot_lines
 from .view import View, view_reactive
 
 SENSITIVITY_TITLE = "Sensitivity of life"

@@ -6,7 +6,7 @@ import pytest
 
 from workbench.engine.curves import life_curve
 from workbench.engine.derive import CaseInputs
-from workbench.tui.plot_text import plot_lines
+from workbench.model.plot_text import plot_lines
 
 CASE = CaseInputs(kind="deep-groove", fr=5200.0, fa=1300.0, c=33000.0, c0=19000.0, speed=1450.0,
                   nu=20.0, dm=47.5, cleanliness="normal")
