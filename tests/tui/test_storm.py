@@ -9,6 +9,7 @@ import os
 from pathlib import Path
 
 import pytest
+from textual.command import CommandList
 from textual.screen import ModalScreen
 from textual.widgets import Input
 from tui_sessions import rig_session
@@ -71,7 +72,15 @@ async def test_palette_command_and_enters_in_one_burst(under: str | None, enters
             await pilot.press(under)
             await pilot.pause()
         below = list(app.screen_stack)
-        for key in ["ctrl+p", *"add case", *["enter"] * enters]:
+        for key in ["ctrl+p", *"add case"]:
+            app.post_message(_key_event(key))
+        if not under:  # the palette searches in a worker: enters before its answer choose nothing
+            for _ in range(200):
+                await pilot.pause()
+                lists = app.screen.query(CommandList)
+                if lists and lists.first().highlighted is not None:
+                    break
+        for key in ["enter"] * enters:
             app.post_message(_key_event(key))
         await pilot.pause()
         await pilot.pause()

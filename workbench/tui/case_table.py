@@ -20,8 +20,12 @@ import math
 from collections.abc import Iterable, Sequence
 from typing import overload
 
+from rich.segment import Segment
+from rich.style import Style
 from rich.text import Text
 from textual.binding import Binding
+from textual.cache import LRUCache
+from textual.coordinate import Coordinate
 from textual.events import Resize
 from textual.message import Message
 from textual.reactive import var
@@ -34,6 +38,8 @@ from ..model.quantities import format_quantity
 from ..model.session import CaseResult
 from .view import View, fit_words, view_reactive
 
+SegmentLines = list[list[Segment]]
+"""Textual's lines of a row: segments per line."""
 COLUMNS = (("P", 9), ("Lnm h", 7), ("s0", 5), ("Checks", 8))
 """The columns after the name: (heading, width)."""
 NAME_HEADING = "Load case"
@@ -127,6 +133,13 @@ class CaseTable(DataTable[Text]):
         self._generation = 0
         """Counts the times the table was cleared (see :attr:`ordered_rows`)."""
         self._ordered: tuple[tuple[int, int], list[Row]] = ((-1, -1), [])
+        self._row_versions: dict[RowKey, int] = {}
+        """Per row, the count of writes to the whole table when the row was last written."""
+        self._writes = 0
+        self._painted_rows: LRUCache[tuple[object, ...], tuple[SegmentLines, SegmentLines]] = \
+            LRUCache(1024)
+        """A row's painted line, kept until that row is written again (see
+        :meth:`_render_line_in_row`)."""
         super().__init__(id=id, cursor_type="row", zebra_stripes=True)
         self.document = document
         self._rows: list[tuple[str, ...]] = []
@@ -157,6 +170,37 @@ class CaseTable(DataTable[Text]):
         cell of a new row to widen its column (0.3 ms a row, seconds at 10,000 rows), and
         these columns have fixed widths and rows one line high."""
         super()._update_dimensions(())
+
+    def _render_line_in_row(self, row_key: RowKey, line_no: int, base_style: Style,
+                            cursor_location: Coordinate,
+                            hover_location: Coordinate) -> tuple[SegmentLines, SegmentLines]:
+        """A row's line as Textual paints it, painted again only when that row was written.
+
+        Measured problem (``workbench bench``, settle after a key): Textual's ``DataTable``
+        keys its painted rows and cells on a count of updates to the whole table, so one
+        updated cell paints every visible cell again, about a fifth of a key's frame time on
+        the demo; a key changes one row.  Textual's method is kept and its result reused
+        while this row, the cursor, the width and the styles are as they were.  (A private
+        method of ``DataTable``: check it, with :attr:`ordered_rows`, :attr:`_y_offsets` and
+        :meth:`_update_dimensions`, when Textual is upgraded.)"""
+        key = (row_key, self._row_versions.get(row_key, 0), self._generation, line_no,
+               base_style, cursor_location, hover_location, self.cursor_type, self.show_cursor,
+               self._show_hover_cursor, self._pseudo_class_state, self.size.width)
+        painted = self._painted_rows.get(key)
+        if painted is None:
+            painted = super()._render_line_in_row(row_key, line_no, base_style,
+                                                  cursor_location, hover_location)
+            self._painted_rows[key] = painted
+        return painted
+
+    def _clear_caches(self) -> None:
+        super()._clear_caches()
+        self._painted_rows.clear()
+
+    def notify_style_update(self) -> None:
+        """A new theme or class: every row is painted again."""
+        self._painted_rows.clear()
+        super().notify_style_update()
 
     def on_mount(self) -> None:
         """The columns, sized to the screen's width (the list spans it) until laid out."""
@@ -203,6 +247,7 @@ class CaseTable(DataTable[Text]):
                 rows.pop()
                 self._made_from.pop()
                 self.remove_row(str(len(rows)))
+                self._written(len(rows))
             blank = ("",) * (len(COLUMNS) + 1)
             for number in range(len(rows), count):  # written when they come into view
                 self.add_row(*map(Text, blank), key=str(number))
@@ -237,7 +282,13 @@ class CaseTable(DataTable[Text]):
                                  self._rows[number], row):
             if old != new:
                 self.update_cell(str(number), key, Text(new))
+                self._written(number)
         self._rows[number], self._made_from[number] = row, made
+
+    def _written(self, number: int) -> None:
+        """Row ``number`` changed: its painted line is out of date."""
+        self._writes += 1
+        self._row_versions[RowKey(str(number))] = self._writes
 
     def row_texts(self, index: int) -> tuple[str, ...]:
         """The cells of row ``index`` as they are (or will be, once in view) shown."""
