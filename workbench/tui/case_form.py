@@ -14,7 +14,7 @@ from __future__ import annotations
 from textual import on
 from textual.app import ComposeResult
 from textual.binding import Binding
-from textual.containers import Horizontal, VerticalScroll
+from textual.containers import Grid, Horizontal, VerticalScroll
 from textual.events import DescendantFocus
 from textual.message import Message
 from textual.reactive import var
@@ -94,7 +94,14 @@ def field_choices(name: str, texts: dict[str, str]) -> tuple[str, ...]:
 
 
 class FieldRow(Horizontal):
-    """A label and the field's control on one line."""
+    """A label and a control on one line (the solver pane's inputs)."""
+
+
+class FieldGroup(Grid):
+    """One group of the form: two columns, each field's label beside its control, a row a
+    field (a note under a field spans both columns).  A grid rather than a container per
+    field: the form is most of the screen's widgets, and each one costs the screen time to
+    start, to style and to paint on every key."""
 
 
 class CaseForm(VerticalScroll):
@@ -117,14 +124,18 @@ class CaseForm(VerticalScroll):
             margin-top: 1;
         }
         & .group-title.-first { margin-top: 0; }
-        & FieldRow { height: 1; }
+        & FieldGroup {
+            grid-size: 2;
+            grid-columns: 18 1fr;
+            grid-rows: auto;
+            height: auto;
+        }
         & .field-label {
-            width: 18;
             padding: 0 1;
             color: $text-muted;
         }
-        & FieldRow > Input, & FieldRow > Select, & FieldRow > Checkbox { width: 1fr; }
         & .field-note {
+            column-span: 2;
             padding: 0 1 0 3;
             color: $text-error;
             background: $error-muted;
@@ -187,8 +198,8 @@ class CaseForm(VerticalScroll):
         yield Static(id="case-note", markup=False)  # engine messages quote what was typed
         for number, (title, names) in enumerate(EDITOR_GROUPS):
             yield Static(title, classes="group-title" + (" -first" if number == 0 else ""))
-            for name in names:
-                with FieldRow(id=f"row-{name}"):
+            with FieldGroup():
+                for name in names:
                     yield Label(self._label(name, wide=wide), id=f"label-{name}",
                                 classes="field-label")
                     yield self._control(name)
@@ -329,7 +340,7 @@ class CaseForm(VerticalScroll):
             made.set(display=True)
         else:
             self.mount(Static(f"✘ {message}", id=f"note-{name}", classes="field-note",
-                              markup=False), after=f"#row-{name}")
+                              markup=False), after=f"#field-{name}")
 
     def message_for(self, name: str) -> str | None:
         """The message under field ``name`` (a refused text), or None."""
@@ -419,5 +430,4 @@ class CaseForm(VerticalScroll):
         name = self._field_of(event.widget)
         if name in FIELD_ORDER:
             self.post_message(self.HelpShown(field_help(name)))
-            row = self.query_one(f"#row-{name}")
-            self.scroll_to_widget(row, animate=False)
+            self.scroll_to_widget(event.widget, animate=False)
