@@ -127,3 +127,46 @@ def test_whatif_tab_snapshot_night(snap_compare, make_app) -> None:
 def test_whatif_tab_snapshot_monochrome_plot(snap_compare, make_app) -> None:
     assert snap_compare(make_app(), terminal_size=(80, 24),
                         run_before=_theme("bench-mono", LIFE_PLOT_TITLE))
+
+
+async def test_a_slow_answer_is_marked_busy_and_a_quick_one_is_not(make_app, monkeypatch) -> None:
+    """Issue 17 item 4: work off the key path shows that it is busy.  The sweep is held until
+    the mark is on show; a quick answer is drawn without the mark ever being drawn."""
+    import threading
+
+    from workbench.tui import whatif_pane
+
+    app = make_app()
+    async with app.run_test(size=(80, 24)) as pilot:
+        await pilot.press("f7")
+        await worked_out(pilot, app)
+        drawn: list[bool] = []
+        redraw = pane(app)._redraw
+
+        def noting() -> None:
+            drawn.append(pane(app)._busy)
+            redraw()
+
+        monkeypatch.setattr(pane(app), "_redraw", noting)
+        monkeypatch.setattr(whatif_pane, "BUSY_AFTER_S", 60.0)  # every answer quick, however busy the machine
+        await retype(pilot, app, "fr", "4.5 kN")
+        await worked_out(pilot, app)
+        assert drawn and not any(drawn)  # a quick answer: drawn once, never marked busy
+
+        release = threading.Event()
+
+        def held(inputs):
+            release.wait(timeout=30)
+            return sensitivity_of(inputs)
+
+        monkeypatch.setattr(whatif_pane, "sensitivity_of", held)
+        monkeypatch.setattr(whatif_pane, "BUSY_AFTER_S", 0.05)
+        await retype(pilot, app, "fr", "5 kN")
+        for _ in range(200):
+            await pilot.pause(0.02)
+            if whatif_pane.BUSY_MARK in pane(app).text.plain:
+                break
+        assert whatif_pane.BUSY_MARK in pane(app).text.plain
+        release.set()
+        await worked_out(pilot, app)
+        assert whatif_pane.BUSY_MARK not in pane(app).text.plain

@@ -14,7 +14,9 @@ reference life against operating clearance shows where slight preload helps and 
 
 The pane follows :attr:`WhatIfPane.view` (bound to the screen's) while it is on show: the sweep
 and the curves are worked out in a thread worker (a newer revision cancels the older work, and
-an answer that arrives for an older revision is dropped), so typing never waits for them.
+an answer that arrives for an older revision is dropped), so typing never waits for them.  The
+title says "working…" when an answer is slower than :data:`BUSY_AFTER_S`; a quicker one is
+simply drawn (marking every answer busy drew the whole pane twice a key, once only to say so).
 """
 
 from __future__ import annotations
@@ -25,6 +27,7 @@ from collections.abc import Sequence
 from textual import work
 from textual.content import Content
 from textual.reactive import var
+from textual.timer import Timer
 
 from ..engine.curves import Curve, aiso_curve, life_curve
 from ..engine.record import InputError, fmt, percent, signed
@@ -41,6 +44,8 @@ from .view import View, view_reactive
 
 SENSITIVITY_TITLE = "Sensitivity of life"
 BUSY_MARK = " · working…"
+BUSY_AFTER_S = 0.1
+"""An answer slower than this gets the busy mark: a person sees no wait below it."""
 PLOT_HEIGHT = 8
 PLOT_GUTTER = 10  # plot_lines puts the y labels and the axis in the first ten columns
 PLOT_MIN_WIDTH = 16
@@ -156,6 +161,7 @@ class WhatIfPane(LinePane):
         self._busy = False
         self._plot_width = 0
         self._asked: View | None = None
+        self._busy_timer: Timer | None = None
 
     def watch_view(self, view: View) -> None:
         """Work the what-if out again while the pane is on show."""
@@ -175,9 +181,15 @@ class WhatIfPane(LinePane):
         result = document.result(view.selected)
         duties = document.analysis.duties
         shown = duties_on(result.case.bearing, duties) if result is not None else []
+        if self._busy_timer is None:
+            self._busy_timer = self.set_timer(BUSY_AFTER_S, self._show_busy)
+        self._work(view, result, document.units, shown, inside_request(document, view.selected))
+
+    def _show_busy(self) -> None:
+        """The answer is slow in coming: say that the pane is working on it."""
+        self._busy_timer = None
         self._busy = True
         self._redraw()
-        self._work(view, result, document.units, shown, inside_request(document, view.selected))
 
     @work(thread=True, exclusive=True, group="whatif")
     def _work(self, view: View, result: CaseResult | None, system: str,
@@ -206,6 +218,9 @@ class WhatIfPane(LinePane):
         """Draw what the worker found, unless the document has moved on since."""
         if view != self.view:
             return
+        if self._busy_timer is not None:
+            self._busy_timer.stop()
+            self._busy_timer = None
         self.items, self._curves, self._busy = items, curves, False
         self._clearance = clearance
         if error is not None:
@@ -219,8 +234,8 @@ class WhatIfPane(LinePane):
             duty = [Content(f"No duty cycle{where}. A duty cycle or a shaft in the session "
                             "makes one.")]
         self._blocks = (sensitivity, duty)
-        self._redraw()
         self.shown = view
+        self._redraw()
 
     def _redraw(self) -> None:
         """The four blocks under their titles, the plots at the pane's width."""
@@ -229,13 +244,14 @@ class WhatIfPane(LinePane):
             if self.laid_out else PLOT_DEFAULT_WIDTH
         sensitivity, duty = self._blocks
         busy = BUSY_MARK if self._busy else ""
+        missing_known = self.shown is not None and not self._busy  # "no curve" only once answered
         lines = [section_title(SENSITIVITY_TITLE + busy, width), *sensitivity]
         for name, title in (("life", LIFE_PLOT_TITLE), ("aiso", AISO_PLOT_TITLE)):
             lines += [Content(""), section_title(title, width)]
-            if name in self._curves or not self._busy:
+            if name in self._curves or missing_known:
                 lines += curve_lines(self._curves.get(name), name, plot_width)
         lines += [Content(""), section_title(DUTY_TITLE, width), *duty]
-        if self._clearance is not NO_CURVE or not self._busy:
+        if self._clearance is not NO_CURVE or missing_known:
             plot, words = clearance_section(self._clearance, plot_width, PLOT_HEIGHT)
             lines += [Content(""), section_title(CLEARANCE_TITLE, width),
                       *map(Content, plot), *map(Content, words)]
