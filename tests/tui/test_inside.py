@@ -9,10 +9,8 @@ import pytest
 from tui_helpers import retype
 from tui_sessions import rig_session
 
-from workbench.engine.internal.analysis import SweepPoint
 from workbench.tui.app import WorkbenchApp
-from workbench.tui.clearance_plot import ClearanceCurve, HELPS, HURTS, plot_lines, verdict_lines
-from workbench.tui.inside_pane import InsidePane, load_digit, ring_art
+from workbench.tui.inside_pane import InsidePane
 from workbench.tui.whatif_pane import WhatIfPane
 
 # An invented deep-groove bearing: 10 balls of 7.9 mm on a 45 mm pitch circle.
@@ -57,22 +55,6 @@ def stribeck_q_max(fr: float, z: int, exponent: float = 1.5) -> float:
     total = sum(math.cos(2 * math.pi * j / z) ** (exponent + 1) for j in range(z)
                 if math.cos(2 * math.pi * j / z) > 0.0)
     return fr / total
-
-
-def test_load_digits_are_tenths_of_the_largest_load() -> None:
-    assert [load_digit(q, 100.0) for q in (100.0, 95.0, 50.0, 9.9, 0.0)] == \
-        ["9", "9", "5", "0", "·"]
-
-
-def test_ring_art_puts_each_element_at_its_azimuth() -> None:
-    # ψ = 0 at the bottom (where Fr pushes), 90° to the right, 180° at the top.
-    art = ring_art([0.0, 90.0, 180.0, 270.0], [100.0, 50.0, 0.0, 50.0], 100.0,
-                   half_width=4, half_height=2, centre="+")
-    assert art == ["    ·    ",
-                   "         ",
-                   "5   +   5",
-                   "         ",
-                   "    9    "]
 
 
 async def test_zero_clearance_pure_radial_q_max_is_stribecks() -> None:
@@ -146,22 +128,6 @@ async def test_an_answer_for_an_older_view_is_dropped() -> None:
         older = (app.workbench_screen.view._replace(revision=-5), app.document.units)
         pane(app)._draw(older, before.__class__(before.request, None, "stale"))
         assert pane(app).outcome is before
-
-
-def _curve(lives: list[float]) -> ClearanceCurve:
-    step = 4.0 / (len(lives) - 1)
-    return ClearanceCurve(tuple(SweepPoint(-2.0 + i * step, life, 1.0, None)
-                                for i, life in enumerate(lives)))
-
-
-def test_the_band_marks_where_preload_helps_and_where_it_hurts() -> None:
-    # A made-up curve: 10 at zero clearance, 12 at slight preload, 5 at heavy preload.
-    curve = _curve([5.0, 12.0, 10.0, 8.0, 6.0])  # clearances −2, −1, 0, 1, 2
-    lines = plot_lines(curve, width=20, height=4)
-    band = lines[4].split("│")[1]
-    assert band[0] == HURTS and HELPS in band[:10] and set(band[10:]) == {HURTS}
-    words = " ".join(verdict_lines(curve))
-    assert "helps" in words and "hurts" in words
 
 
 async def test_whatif_draws_life_against_clearance() -> None:

@@ -343,9 +343,9 @@ def measure_clearance_curve(repeats: int) -> dict[str, float]:
     document, the 25-point sweep, the plot and its words, 30 columns of plot); the median of
     ``repeats`` rounds after one to load scipy.  Goal: ≤ 100 ms."""
     from ..model.document import Document
+    from ..model.inside_request import clearance_curve, inside_request
+    from ..model.plot_text import clearance_section
     from ..model.sessionfile import demo_session_path, load_session
-    from .clearance_plot import clearance_curve, clearance_section
-    from .inside_pane import inside_request
 
     document = Document(load_session(demo_session_path().with_name("spindle-pair.toml")))
 

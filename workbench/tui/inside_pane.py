@@ -4,11 +4,13 @@ For a bearing whose internal geometry is known (rated from geometry, or given in
 ``[bearings.geometry]`` table), the quasi-static ring-displacement equilibrium of
 :func:`workbench.model.internal_form.internal_for_case` (Hertz; Stribeck and Sjövall's load
 distribution; Jones; Harris and Kotzalas; the reference rating life after ISO/TS 16281) gives
-each rolling element's load.  The pane draws them around the ring in digits (tenths of the
-largest load, so it reads in monochrome), lists them by azimuth with a bar each, gives the
-numbers (Qmax, the load zone, the ring displacements, the largest contact pressures against
-ISO 76's 4 200 / 4 000 MPa, the stiffness, L10r beside the ISO 281 L10) and then every step of
-the same :class:`~workbench.engine.record.Derivation` record the derivation pane reads.
+each rolling element's load; :mod:`workbench.model.inside_request` asks for it and words a
+refusal.  The pane draws the loads around the ring in digits (tenths of the largest load, so it
+reads in monochrome; :func:`workbench.model.plot_text.ring_art`), lists them by azimuth with a
+bar each, gives the numbers (Qmax, the load zone, the ring displacements, the largest contact
+pressures against ISO 76's 4 200 / 4 000 MPa, the stiffness, L10r beside the ISO 281 L10) and
+then every step of the same :class:`~workbench.engine.record.Derivation` record the derivation
+pane reads.
 
 It follows :attr:`view` (bound to the screen's) while it is on show, as the other panes do; the
 analysis runs in a thread worker (a newer view cancels the older work, and an answer for an
@@ -18,22 +20,16 @@ balances the loads it says so with the engine's cause.
 
 from __future__ import annotations
 
-import math
-from collections.abc import Mapping, Sequence
-from dataclasses import dataclass, field
-
 from textual import work
 from textual.content import Content
 
-from ..engine.derive import CaseInputs
 from ..engine.internal.analysis import InternalResult
 from ..engine.internal.distribution import ROLLER_KINDS
 from ..engine.internal.hertz import STATIC_REFERENCE_PRESSURE_BALL, STATIC_REFERENCE_PRESSURE_ROLLER
 from ..engine.record import fmt
 from ..model.document import Document
-from ..model.fields import FIELD_BY_NAME, FieldError
-from ..model.internal_form import (INTERNAL_INPUT_BY_NAME, NoEquilibrium, internal_for_case,
-                                   session_inside_texts)
+from ..model.inside_request import InsideOutcome, InsideRequest, input_label, inside_request, work_out
+from ..model.plot_text import NO_CONTACT, load_bar, ring_art
 from ..model.quantities import format_quantity
 from .derivation_pane import (ERROR_STYLE, RESULT_STYLE, SOURCE_STYLE, WARNING_STYLE, DerivationPane,
                               steps_lines)
@@ -43,120 +39,11 @@ TITLE_STYLE = "bold $text-primary"
 RING_STYLE = "bold $accent"
 IDLE_STYLE = "$foreground 50%"
 BUSY_MARK = " · working…"
-RING_HALF_WIDTH = 8  # columns from the ring's centre to its side (a terminal cell is twice as tall)
-RING_HALF_HEIGHT = 4
-BAR_WIDTH = 12
-BAR_FULL, BAR_EMPTY = "█", "·"
-NO_CONTACT = "·"
 GEOMETRY_HELP = ("Give it one: alt+c, then ctrl+g rates a special bearing from its geometry "
                  "(Z, Dw, Dpw …) and adopting it keeps that geometry here; or add a "
                  "[bearings.geometry] table to the session file (elements, dw, dpw, and lwe for "
                  "rollers; schema = 2). Clearance and preload are bearing fields, tilt and "
                  "moment case fields.")
-
-
-@dataclass(frozen=True)
-class InsideRequest:
-    """What one inside analysis needs, taken from the document on the screen's thread: the
-    case's engine inputs, its bearing's geometry and fit texts (None: no geometry), or why
-    there is nothing to analyse."""
-
-    case: str = ""
-    bearing: str = ""
-    inputs: CaseInputs | None = None
-    geometry: Mapping[str, str] | None = None
-    fit: Mapping[str, str] = field(default_factory=dict)
-    problem: str | None = None
-
-
-@dataclass(frozen=True)
-class InsideOutcome:
-    """The analysis of a request, or the line that says why there is none (``refusal``: the
-    geometry is missing, no equilibrium exists, or an input is refused)."""
-
-    request: InsideRequest
-    result: InternalResult | None = None
-    refusal: str | None = None
-
-
-def inside_request(document: Document, index: int) -> InsideRequest:
-    """The request for case ``index`` of ``document`` as it stands now."""
-    result = document.result(index)
-    if result is None:
-        return InsideRequest(problem="No load case selected.")
-    case = result.case
-    if result.inputs is None or result.derivation is None:
-        return InsideRequest(case.name, case.bearing,
-                             problem="The case cannot be derived: see the derivation tab (f5).")
-    texts = session_inside_texts(document.session, case)
-    if texts is None:
-        return InsideRequest(case.name, case.bearing, result.inputs)
-    geometry, fit = texts
-    return InsideRequest(case.name, case.bearing, result.inputs, geometry, fit)
-
-
-def input_label(name: str) -> str:
-    """The words for an input the internal analysis names (a field, or a geometry input)."""
-    if name in FIELD_BY_NAME:
-        return FIELD_BY_NAME[name].label
-    spec = INTERNAL_INPUT_BY_NAME.get(name)
-    return spec.label if spec is not None else name
-
-
-def work_out(request: InsideRequest) -> InsideOutcome:
-    """The internal analysis of ``request`` with every step (:func:`internal_for_case`), or the
-    refusal in words."""
-    if request.problem is not None or request.inputs is None:
-        return InsideOutcome(request, refusal=request.problem or "No load case selected.")
-    if request.geometry is None:
-        return InsideOutcome(request, refusal=f"Bearing {request.bearing} has no internal "
-                                              "geometry, so its element loads are unknown.")
-    try:
-        return InsideOutcome(request, internal_for_case(request.inputs, request.geometry,
-                                                        request.fit))
-    except NoEquilibrium as exc:
-        return InsideOutcome(request, refusal=f"No equilibrium ({input_label(exc.field)}): "
-                                              f"{exc.message}")
-    except FieldError as exc:
-        return InsideOutcome(request, refusal=f"{input_label(exc.field)}: {exc.message}")
-
-
-def load_digit(load: float, q_max: float) -> str:
-    """An element's load as one character: tenths of ``q_max`` as a digit (0 … 9, the largest
-    load 9), or a dot for an element out of contact."""
-    if not load > 0.0 or not q_max > 0.0:
-        return NO_CONTACT
-    return str(min(9, int(10.0 * load / q_max)))
-
-
-def ring_art(angles_deg: Sequence[float], loads: Sequence[float], q_max: float, *,
-             half_width: int = RING_HALF_WIDTH, half_height: int = RING_HALF_HEIGHT,
-             centre: str = "Fr↓") -> list[str]:
-    """The elements around the ring as text: each at its azimuth ψ on an ellipse (a terminal
-    cell is about twice as tall as wide, so this reads as a circle), ψ = 0 at the bottom where
-    Fr pushes the inner ring, ψ growing counter-clockwise; each drawn by :func:`load_digit`.
-    Two elements falling on one cell show the larger load."""
-    width, height = 2 * half_width + 1, 2 * half_height + 1
-    grid = [[" "] * width for _ in range(height)]
-    drawn: dict[tuple[int, int], float] = {}
-    for angle, load in zip(angles_deg, loads):
-        psi = math.radians(angle)
-        column = half_width + round(half_width * math.sin(psi))
-        row = half_height + round(half_height * math.cos(psi))
-        shown = load if load > 0.0 else -1.0
-        if drawn.get((row, column), -math.inf) < shown:
-            drawn[(row, column)] = shown
-            grid[row][column] = load_digit(load, q_max)
-    start = max(half_width - len(centre) // 2, 0)
-    for offset, character in enumerate(centre[: width]):
-        grid[half_height][start + offset] = character
-    return ["".join(line) for line in grid]
-
-
-def load_bar(load: float, q_max: float, width: int = BAR_WIDTH) -> str:
-    """A load as a bar of ``width`` cells against ``q_max``."""
-    filled = round(width * min(load / q_max, 1.0)) if load > 0.0 and q_max > 0.0 else 0
-    return BAR_FULL * filled + BAR_EMPTY * (width - filled)
 
 
 def _styled_ring(line: str) -> Content:

@@ -10,7 +10,8 @@ from :func:`~workbench.engine.curves.aiso_curve` (ISO 281:2007 §9.3.2), drawn b
 The Duty block shows each state's share of the Palmgren–Miner damage as a text bar, for the duty
 cycles on the selected case's bearing.  For a bearing whose internal geometry is known, the
 reference life against operating clearance shows where slight preload helps and where it hurts
-(:mod:`workbench.tui.clearance_plot`).
+(:func:`workbench.model.inside_request.clearance_curve`, drawn by
+:func:`workbench.model.plot_text.clearance_section`).
 
 The pane follows :attr:`WhatIfPane.view` (bound to the screen's) while it is on show: the sweep
 and the curves are worked out in a thread worker (a newer revision cancels the older work, and
@@ -34,12 +35,11 @@ from ..engine.record import InputError, fmt, percent, signed
 from ..engine.sensitivity import SensitivityItem, sensitivity_of
 from ..model.analysis import DutyOutcome
 from ..model.document import Document
+from ..model.inside_request import NO_CURVE, ClearanceCurve, InsideRequest, clearance_curve, inside_request
+from ..model.plot_text import GUTTER, clearance_section, plot_lines
 from ..model.quantities import format_quantity
 from ..model.session import CaseResult
-from .clearance_plot import NO_CURVE, ClearanceCurve, clearance_curve, clearance_section
-from .inside_pane import InsideRequest, inside_request
 from .line_pane import LinePane
-from ..model.plot_text import plot_lines
 from .view import View, view_reactive
 
 SENSITIVITY_TITLE = "Sensitivity of life"
@@ -47,7 +47,6 @@ BUSY_MARK = " · working…"
 BUSY_AFTER_S = 0.1
 """An answer slower than this gets the busy mark: a person sees no wait below it."""
 PLOT_HEIGHT = 8
-PLOT_GUTTER = 10  # plot_lines puts the y labels and the axis in the first ten columns
 PLOT_MIN_WIDTH = 16
 PLOT_DEFAULT_WIDTH = 24
 BAR_WIDTH = 16
@@ -240,7 +239,7 @@ class WhatIfPane(LinePane):
     def _redraw(self) -> None:
         """The four blocks under their titles, the plots at the pane's width."""
         width = self.text_width
-        self._plot_width = plot_width = max(width - PLOT_GUTTER, PLOT_MIN_WIDTH) \
+        self._plot_width = plot_width = max(width - GUTTER, PLOT_MIN_WIDTH) \
             if self.laid_out else PLOT_DEFAULT_WIDTH
         sensitivity, duty = self._blocks
         busy = BUSY_MARK if self._busy else ""
