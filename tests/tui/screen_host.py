@@ -13,6 +13,8 @@ from typing import Any
 from rich.cells import cell_len
 from rich.text import Text
 from textual.app import App, ComposeResult
+from textual.errors import NoWidget
+from textual.geometry import Region
 from textual.pilot import Pilot
 from textual.screen import Screen
 from textual.widgets import Button, DataTable, Input, Label, Select, Static
@@ -21,6 +23,7 @@ from workbench.model.analysis import analyse
 from workbench.model.session import CaseResult, Session
 from workbench.model.sessionfile import demo_session_path, load_session
 from workbench.tui.theme_files import DEFAULT_THEME, load_theme_files
+from workbench.tui.view import ELLIPSIS
 
 THEMES = ("bench-night", "bench-paper", "bench-floodlit", "bench-mono")
 SIZES = ((80, 24), (120, 40))
@@ -89,15 +92,51 @@ def cut_widgets(screen: Screen[Any]) -> list[str]:
             if cell_len(text) >= width:
                 cut.append(f"input #{widget.id}: {text!r} in {width}")
         elif isinstance(widget, Select):
-            shown = widget.query_one("SelectCurrent Static#label")
-            text = str(shown.render())
-            if cell_len(text) > shown.content_region.width:
-                cut.append(f"choice #{widget.id}: {text!r} in {shown.content_region.width}")
+            shown, whole = painted_choice(screen, widget), choice_text(widget)
+            if shown is not None and shown != whole and not cut_between_words(shown, whole):
+                cut.append(f"choice #{widget.id}: {whole!r} shown {shown!r}")
         elif isinstance(widget, (Label, Button)) and widget.size.height == 1:
             text = str(widget.render()).strip()
             if cell_len(text) > width:
                 cut.append(f"{type(widget).__name__} {text!r} in {width}")
     return cut
+
+
+def choice_text(select: Select[Any]) -> str:
+    """The chosen option's text in full, or the prompt when nothing is chosen."""
+    for prompt, value in select._options:  # Select keeps its options only there
+        if value is not Select.NULL and value == select.value:
+            return prompt.plain if isinstance(prompt, Text) else str(prompt)
+    return select.prompt
+
+
+def painted(screen: Screen[Any], region: Region) -> list[str]:
+    """The text painted in ``region`` of the screen, line by line (trailing blanks dropped)."""
+    strips = screen._compositor.render_strips()
+    return [strips[y].crop(region.x, region.right).text.rstrip()
+            for y in range(region.y, min(region.bottom, len(strips)))]
+
+
+def painted_choice(screen: Screen[Any], select: Select[Any]) -> str | None:
+    """What a choice box paints as its value (None: its box is not on show)."""
+    label = select.query_one("SelectCurrent Static#label")
+    region = label.content_region
+    if region.width == 0 or region.height == 0:
+        return None
+    try:
+        widget, _ = screen.get_widget_at(region.x, region.y)
+    except NoWidget:
+        return None
+    if widget is not label:
+        return None  # scrolled out of view or under an overlay
+    return painted(screen, region.intersection(label.region))[0]
+
+
+def cut_between_words(shown: str, whole: str) -> bool:
+    """Whether ``shown`` is ``whole`` shortened on purpose: an ellipsis marks what was left
+    out, and every word kept is a whole word of ``whole``."""
+    kept = shown.replace(ELLIPSIS, " ").split()
+    return ELLIPSIS in shown and bool(kept) and all(word in whole.split() for word in kept)
 
 
 def screen_lines(screen: Screen[Any]) -> list[str]:

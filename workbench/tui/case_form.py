@@ -116,6 +116,7 @@ class CaseForm(VerticalScroll):
     CaseForm {
         height: 1fr;
         scrollbar-gutter: stable;
+        scrollbar-size-vertical: 1;  /* the cell a choice needs at 80 columns ("angular-contact") */
         & .group-title {
             text-style: bold;
             color: $text-primary;

@@ -1,0 +1,94 @@
+"""The case form's choices at 80×24, the narrowest screen the workbench is made for (issue 17
+item 5: nothing cut mid-word).  What each choice box paints is read off the screen and
+compared with the chosen option's text: a fixed choice is shown whole, a name too long for the
+box is shortened between words with an ellipsis, and the list that enter opens shows it whole."""
+
+from __future__ import annotations
+
+from pathlib import Path
+
+import pytest
+
+from screen_host import ELLIPSIS, choice_text, painted, painted_choice
+from tui_helpers import editor
+
+from workbench.model.fields import FIELD_BY_NAME
+from workbench.model.session import Bearing, LoadCase, Session
+from workbench.model.sessionfile import load_session
+from workbench.tui.app import WorkbenchApp
+from workbench.tui.case_form import FIELD_ORDER, CaseForm, takes_text
+from workbench.tui.choice_box import ChoiceBox
+
+SESSIONS = sorted((Path(__file__).parents[2] / "sessions").glob("*.toml"))
+NARROW = (80, 24)
+CHOICE_FIELDS = [name for name in FIELD_ORDER if not takes_text(name) and
+                 (name == "bearing" or FIELD_BY_NAME[name].kind == "choice")]
+
+
+def _app(session: Session, path: Path | None = None) -> WorkbenchApp:
+    return WorkbenchApp(session, path, offer_recovery=False, autosave_delay=None)
+
+
+async def _shown(pilot, form: CaseForm, name: str) -> tuple[str | None, str]:
+    """(what the box of choice field ``name`` paints, the chosen option's text), the box
+    scrolled into view first."""
+    box = form.query_one(f"#field-{name}", ChoiceBox)
+    form.scroll_to_widget(form.query_one(f"#row-{name}"), animate=False)
+    await pilot.pause()
+    return painted_choice(pilot.app.screen, box), choice_text(box)
+
+
+@pytest.mark.parametrize("path", SESSIONS, ids=lambda p: p.stem)
+async def test_every_case_shows_its_choices_whole_at_80x24(path: Path) -> None:
+    app = _app(load_session(path), path)
+    async with app.run_test(size=NARROW) as pilot:
+        await pilot.pause()
+        form = editor(app)
+        for index in range(len(app.document.results)):
+            await pilot.press("f3", "home", *["down"] * index)
+            await pilot.pause()
+            assert app.workbench_screen.selected == index
+            for name in CHOICE_FIELDS:
+                shown, chosen = await _shown(pilot, form, name)
+                assert shown == chosen, (index, name)
+
+
+async def test_every_fixed_choice_fits_the_narrow_form() -> None:
+    """Every option of every fixed choice, not only those the sessions use: the form is no
+    narrower below 80 columns (its pane's least width), so each fits wherever it is shown."""
+    session = load_session(SESSIONS[0])
+    app = _app(session)
+    async with app.run_test(size=NARROW) as pilot:
+        await pilot.pause()
+        form = editor(app)
+        for name in CHOICE_FIELDS:
+            if name == "bearing":
+                continue
+            box = form.query_one(f"#field-{name}", ChoiceBox)
+            for option in FIELD_BY_NAME[name].choices:
+                if option not in box._legal_values:
+                    box.set_options([(o, o) for o in FIELD_BY_NAME[name].choices])
+                box.value = option
+                shown, chosen = await _shown(pilot, form, name)
+                assert (shown, chosen) == (option, option), name
+
+
+async def test_a_long_bearing_name_is_shortened_between_words_and_listed_whole() -> None:
+    name = "Wheel-end spindle pair, grinding side"
+    session = Session(title="Long names", bearings=[Bearing(name, {
+        "kind": "deep-groove", "c": "30 kN", "c0": "16 kN"})],
+        cases=[LoadCase("Run", name, {"fr": "3 kN", "speed": "1500 rpm"})])
+    app = _app(session)
+    async with app.run_test(size=NARROW) as pilot:
+        await pilot.pause()
+        form = editor(app)
+        shown, chosen = await _shown(pilot, form, "bearing")
+        assert chosen == name
+        assert shown is not None and shown.endswith(ELLIPSIS) and len(shown) < len(name)
+        assert all(word in name.split() for word in shown.replace(ELLIPSIS, " ").split())
+        box = form.query_one("#field-bearing", ChoiceBox)
+        box.focus()
+        await pilot.press("enter")
+        await pilot.pause()
+        listed = " ".join(painted(app.screen, box.query_one("SelectOverlay").content_region))
+        assert name in " ".join(listed.split())
