@@ -9,12 +9,14 @@ import pytest
 from screen_host import SIZES, cut_widgets, settled
 
 from workbench.tui.about_screen import AboutScreen
+from workbench.tui.bearings_screen import BearingsScreen
 from workbench.tui.help_screen import HelpScreen
 from workbench.tui.rating_screen import RatingScreen
 from workbench.tui.selection_screen import SelectionScreen
 from workbench.tui.shafts_screen import ShaftsScreen
 
 OPENED_BY = {
+    BearingsScreen: (("alt+e",), "bearings"),
     SelectionScreen: (("alt+c",), "candidates"),
     RatingScreen: (("alt+c", "ctrl+g"), "rating-elements"),
     ShaftsScreen: (("alt+s",), "shafts-view"),  # the rig session has no shaft: no table

@@ -1,7 +1,8 @@
 """The session's bearings: add, duplicate, rename and delete them, and choose one for the case.
 
-A ``DataTable`` lists each bearing with its kind, ratings, designation, where its data came
-from and how many cases use it.  Deleting a bearing that cases use is refused, naming them.
+A ``DataTable`` lists each bearing with its kind, ratings and how many cases use it; the line
+under it gives the highlighted bearing's origin (designation, where its data came from), which
+can be long and is wrapped there rather than widen the table past 80 columns.  Deleting a bearing that cases use is refused, naming them.
 Every change is one undo step of the document.
 """
 
@@ -16,7 +17,7 @@ from textual.widgets import DataTable, Footer, Input, Static
 
 from ..model.document import Document
 
-COLUMNS = ("Bearing", "Kind", "C", "C0", "Designation", "Data from", "Cases")
+COLUMNS = ("Bearing", "Kind", "C", "C0", "Cases")
 
 
 class BearingsScreen(ModalScreen[str | None]):
@@ -49,6 +50,7 @@ class BearingsScreen(ModalScreen[str | None]):
         & DataTable { height: auto; max-height: 16; }
         & #bearing-name { display: none; }
         & #bearing-name.-shown { display: block; }
+        & #bearing-origin { color: $text-muted; }
         & #bearings-message { color: $text-warning; }
     }
     """
@@ -64,6 +66,7 @@ class BearingsScreen(ModalScreen[str | None]):
         with Vertical(id="bearings-box"):
             yield Static("Bearings of this session", classes="dialog-title")
             yield DataTable(id="bearings", cursor_type="row", zebra_stripes=True)
+            yield Static("", id="bearing-origin", markup=False)
             yield Input(id="bearing-name", compact=True, placeholder="new name, enter keeps")
             yield Static("", id="bearings-message", markup=False)
         yield Footer()
@@ -84,11 +87,22 @@ class BearingsScreen(ModalScreen[str | None]):
             texts = bearing.texts
             users = sum(1 for r in document.results if r.case.bearing == bearing.name)
             table.add_row(bearing.name, texts.get("kind", ""), texts.get("c", ""),
-                          texts.get("c0", ""), bearing.designation or "—",
-                          bearing.source or "typed", str(users), key=bearing.name)
+                          texts.get("c0", ""), str(users), key=bearing.name)
         names = [b.name for b in document.session.bearings]
         if cursor_on in names:
             table.move_cursor(row=names.index(cursor_on))
+        self._show_origin()
+
+    @on(DataTable.RowHighlighted)
+    def _show_origin(self) -> None:
+        """Say where the highlighted bearing comes from."""
+        name = self._selected()
+        bearing = None if name is None else self.document.session.bearing(name)
+        self.query_one("#bearing-origin", Static).update(
+            "" if bearing is None else
+            f"{bearing.name}: "
+            + (f"designation {bearing.designation}" if bearing.designation else "no designation")
+            + f"; data: {bearing.source or 'typed'}")
 
     def _selected(self) -> str | None:
         table = self.query_one(DataTable)

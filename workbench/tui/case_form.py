@@ -239,7 +239,13 @@ class CaseForm(VerticalScroll):
         self.load()
 
     def on_resize(self) -> None:
-        """Write the labels long or short when the screen crosses :data:`WIDE` columns."""
+        """Keep the focused field in view (the help line under the form grows and shrinks with
+        what it says), and write the labels long or short when the screen crosses
+        :data:`WIDE` columns."""
+        name = self.focused_field()
+        if name is not None:  # after the focus has brought the field into view at the old size
+            self.call_after_refresh(self.scroll_to_widget, self.query_one(f"#row-{name}"),
+                                    animate=False)
         wide = self.app.size.width >= WIDE
         if wide != self._wide:
             self._wide = wide

@@ -5,9 +5,6 @@ from __future__ import annotations
 
 from typing import Any, Generic, TypeVar
 
-from rich.cells import cell_len
-from rich.console import Console, ConsoleOptions, RenderResult
-from rich.measure import Measurement
 from rich.text import Text
 from textual.binding import Binding
 from textual.widgets import Select
@@ -18,28 +15,9 @@ from textual.widgets import Select
 # updated here through SelectCurrent.update (the one call Select itself makes for it).
 from textual.widgets._select import SelectCurrent
 
-from .view import fit_words
+from .view import FittedText
 
 T = TypeVar("T")
-
-
-class FittedValue:
-    """A one-line text that fits the width it is drawn in: whole where it fits, else cut
-    between words with an ellipsis (:func:`~workbench.tui.view.fit_words`).  A Rich renderable,
-    so it fits again whenever the box is laid out at another width."""
-
-    def __init__(self, text: str) -> None:
-        self.text = text
-
-    def shown(self, width: int) -> str:
-        """What is shown in ``width`` columns."""
-        return self.text if cell_len(self.text) <= width else fit_words(self.text, width)
-
-    def __rich_console__(self, console: Console, options: ConsoleOptions) -> RenderResult:
-        yield Text(self.shown(options.max_width), no_wrap=True, overflow="crop")
-
-    def __rich_measure__(self, console: Console, options: ConsoleOptions) -> Measurement:
-        return Measurement(min(cell_len(self.text), options.max_width), cell_len(self.text))
 
 
 class ChoiceBox(Select[T], Generic[T], inherit_bindings=False):
@@ -50,7 +28,7 @@ class ChoiceBox(Select[T], Generic[T], inherit_bindings=False):
     The box shows the chosen option whole where it fits; where it does not (a long bearing or
     case name in a narrow column) it is cut between words with an ellipsis, and the list that
     enter opens shows every option whole.  Layouts give the fixed choices the room to be shown
-    whole (tests/tui/test_choices_shown_whole.py)."""
+    whole (tests/tui/test_shown_whole.py)."""
 
     BINDINGS = [
         Binding("enter,space", "show_overlay", "Choose", show=False),
@@ -76,7 +54,7 @@ class ChoiceBox(Select[T], Generic[T], inherit_bindings=False):
         if value is Select.NULL:
             return
         for current in self.query(SelectCurrent):  # none before the box is composed
-            current.update(FittedValue(self.chosen_text()))
+            current.update(FittedText(self.chosen_text()))
 
     def action_step(self, delta: int) -> None:
         """Choose the next (+1) or previous (−1) option, round the end; "no choice" is a step

@@ -74,6 +74,10 @@ def failure_content(message: str, reachable: tuple[float, float] | None, target:
     return Content("\n").join(lines)
 
 
+WHOLE_RANGE = "The range the unknown is searched in; blank: its whole range"
+"""What the two search boxes mean (their placeholders are one word: each has 13 columns at 80)."""
+
+
 class SolverPane(VerticalScroll):
     """Choose the unknown and the target; see the solution or the reason there is none."""
 
@@ -134,8 +138,8 @@ class SolverPane(VerticalScroll):
             yield Input(placeholder="e.g. 20000 h", compact=True, id="solver-value")
         with FieldRow():
             yield Label("searching", classes="field-label")
-            yield Input(placeholder="from (blank: all)", compact=True, id="solver-low")
-            yield Input(placeholder="to", compact=True, id="solver-high")
+            yield Input(placeholder="from", compact=True, id="solver-low", tooltip=WHOLE_RANGE)
+            yield Input(placeholder="to", compact=True, id="solver-high", tooltip=WHOLE_RANGE)
         with Horizontal(id="solver-buttons"):
             yield Button("Solve (f9)", id="solver-solve", compact=True)
             yield Button("Apply (f10)", id="solver-apply", compact=True, disabled=True)

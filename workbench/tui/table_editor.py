@@ -109,14 +109,16 @@ class TableEditor(Screen[None]):
     TableEditor {
         & #editor-title { background: $boost; color: $text-primary; text-style: bold;
                           padding: 0 1; }
-        & #table-form { width: 50%; min-width: 40; border-right: vkey $panel; }
+        & #table-form { width: 50%; min-width: 40; border-right: vkey $panel;
+                        scrollbar-size-vertical: 1; }
         & #table-results { width: 1fr; padding: 0 1; }
         & .group-title { margin-top: 1; background: $boost; color: $text-primary;
                          text-style: bold; padding: 0 1; }
         & .form-row { height: 1; }
-        & .form-label { width: 22; padding: 0 1; color: $text-muted; }
+        /* labels are at most 17 characters: the rest of the row is the value's */
+        & .form-label { width: 19; padding: 0 1; color: $text-muted; }
         & .form-row Input, & .form-row Select { width: 1fr; }
-        & .form-hint { color: $text-muted; padding: 0 1 0 23; }
+        & .form-hint { color: $text-muted; padding: 0 1 0 20; }
     }
     """
 
@@ -192,7 +194,9 @@ class TableEditor(Screen[None]):
     def _control(self, field: Field, where: tuple[str | int, ...], value: str) -> Widget:
         widget_id = control_id(where, field.key)
         if field.choices is None:
-            return FieldBox(value, id=widget_id, compact=True, tooltip=field.hint or None)
+            box = FieldBox(value, id=widget_id, compact=True, tooltip=field.hint or None)
+            box.cursor_position = 0  # a text longer than its box shows its start, not its end
+            return box
         options = self._options(field.choices)
         if value and value not in options:
             options.append(value)

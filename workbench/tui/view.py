@@ -2,8 +2,13 @@
 
 from __future__ import annotations
 
+import textwrap
 from typing import NamedTuple
 
+from rich.cells import cell_len
+from rich.console import Console, ConsoleOptions, RenderResult
+from rich.measure import Measurement
+from rich.text import Text
 from textual.reactive import var
 
 ELLIPSIS = "…"
@@ -44,3 +49,27 @@ def fit_words(text: str, width: int) -> str:
         if head:
             return " ".join(head) + tail
     return text[: max(width - 1, 0)] + ELLIPSIS
+
+
+class FittedText:
+    """A text that fits the width it is drawn in, on at most ``lines`` lines: whole where it
+    fits; else one line cut between words (:func:`fit_words`), or several wrapped between
+    words with an ellipsis ending the last.  A Rich renderable, so it fits again whenever its
+    widget is laid out at another width (a box's chosen value, the help line)."""
+
+    def __init__(self, text: str, *, lines: int = 1) -> None:
+        self.text = text
+        self.lines = lines
+
+    def fitted(self, width: int) -> list[str]:
+        """The lines shown in ``width`` columns."""
+        if self.lines == 1:
+            return [self.text if cell_len(self.text) <= width else fit_words(self.text, width)]
+        return textwrap.wrap(self.text, max(width, 1), max_lines=self.lines,
+                             placeholder=f" {ELLIPSIS}", break_on_hyphens=False) or [""]
+
+    def __rich_console__(self, console: Console, options: ConsoleOptions) -> RenderResult:
+        yield Text("\n".join(self.fitted(options.max_width)), no_wrap=True, overflow="crop")
+
+    def __rich_measure__(self, console: Console, options: ConsoleOptions) -> Measurement:
+        return Measurement(min(cell_len(self.text), options.max_width), cell_len(self.text))

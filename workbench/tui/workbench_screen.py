@@ -46,7 +46,7 @@ from .derivation_pane import DerivationPane
 from .key_footer import KeyFooter
 from .pane_lazy import PaneLazy
 from .solver_pane import SolverPane
-from .view import View, fit_words
+from .view import FittedText, View, fit_words
 
 if TYPE_CHECKING:
     from ..model.safe_write import FileStamp
@@ -55,6 +55,8 @@ if TYPE_CHECKING:
 AUTOSAVE_DELAY_S = 2.0
 DEFAULT_SAVE_NAME = "session.toml"
 PANES = ("derivation", "solver", "whatif", "inside")
+HELP_LINES = 2
+"""The help line's most lines (the longest field help is two at 80 columns)."""
 """The right column's panes (their tab ids); the first is on show at start."""
 APP_NAME = "Bearing workbench"
 DEFER_OVER = 200
@@ -95,8 +97,8 @@ class WorkbenchScreen(Screen[None]):
         self._autosave_failed = False
 
     def compose(self) -> ComposeResult:
-        """The list across the screen; under it the form with its help line (left) and the
-        panes as tabs (right)."""
+        """The list across the screen; under it the form (left) and the panes as tabs (right);
+        under both the help line, saying in full what the focus is on."""
         from .inside_pane import InsidePane
         from .whatif_pane import WhatIfPane
 
@@ -106,7 +108,6 @@ class WorkbenchScreen(Screen[None]):
         with Horizontal(id="body"):
             with Vertical(id="left"):
                 yield CaseForm(document, id="editor").data_bind(WorkbenchScreen.view)
-                yield Static("", id="help-line", markup=False)
             with TabbedContent(id="panes", initial=PANES[0]):
                 with TabPane("Derivation", id="derivation"):
                     yield DerivationPane(document, id="derivation-view").data_bind(
@@ -120,6 +121,7 @@ class WorkbenchScreen(Screen[None]):
                 with TabPane("Inside", id="inside"):
                     yield PaneLazy(InsidePane(document, id="inside-view").data_bind(
                         WorkbenchScreen.view))
+        yield Static("", id="help-line")
         yield KeyFooter()
 
     def on_mount(self) -> None:
@@ -219,11 +221,16 @@ class WorkbenchScreen(Screen[None]):
         case = self.document.case(self.selected)
         text = "" if case is None else f"{case.name} · bearing {case.bearing}" + (
             f" · {case.notes}" if case.notes else "")
-        self.query_one("#help-line", Static).update(text)
+        self._say(text)
 
     @on(CaseForm.HelpShown)
     def _help_shown(self, event: CaseForm.HelpShown) -> None:
-        self.query_one("#help-line", Static).update(event.text)
+        self._say(event.text)
+
+    def _say(self, text: str) -> None:
+        """Put ``text`` on the help line: across the screen, on two lines at most, the words
+        that do not fit left out between words with an ellipsis (case notes can be long)."""
+        self.query_one("#help-line", Static).update(FittedText(text, lines=HELP_LINES))
 
     @on(CaseForm.Edited)
     def _field_edited(self, event: CaseForm.Edited) -> None:

@@ -1,7 +1,8 @@
-"""The case form's choices at 80×24, the narrowest screen the workbench is made for (issue 17
+"""The case form at 80×24, the narrowest screen the workbench is made for, and at 120×40 (issue 17
 item 5: nothing cut mid-word).  What each choice box paints is read off the screen and
 compared with the chosen option's text: a fixed choice is shown whole, a name too long for the
-box is shortened between words with an ellipsis, and the list that enter opens shows it whole."""
+box is shortened between words with an ellipsis, and the list that enter opens shows it whole.
+The help line says the focused field in full."""
 
 from __future__ import annotations
 
@@ -9,14 +10,14 @@ from pathlib import Path
 
 import pytest
 
-from screen_host import ELLIPSIS, choice_text, painted, painted_choice
+from screen_host import ELLIPSIS, choice_text, cut_widgets, painted, painted_choice
 from tui_helpers import editor
 
 from workbench.model.fields import FIELD_BY_NAME
 from workbench.model.session import Bearing, LoadCase, Session
 from workbench.model.sessionfile import load_session
 from workbench.tui.app import WorkbenchApp
-from workbench.tui.case_form import FIELD_ORDER, CaseForm, takes_text
+from workbench.tui.case_form import FIELD_ORDER, CaseForm, field_help, takes_text
 from workbench.tui.choice_box import ChoiceBox
 
 SESSIONS = sorted((Path(__file__).parents[2] / "sessions").glob("*.toml"))
@@ -92,3 +93,31 @@ async def test_a_long_bearing_name_is_shortened_between_words_and_listed_whole()
         await pilot.pause()
         listed = " ".join(painted(app.screen, box.query_one("SelectOverlay").content_region))
         assert name in " ".join(listed.split())
+
+
+@pytest.mark.parametrize("size", [NARROW, (120, 40)], ids=lambda s: f"{s[0]}x{s[1]}")
+async def test_the_help_line_says_each_field_in_full(make_app, size) -> None:
+    """Issue 17 item 5: the full words of a field (its long label and hint) are on the help
+    line when the field has the focus, at 80×24 and 120×40: no hint is cut."""
+    app = make_app()
+    async with app.run_test(size=size) as pilot:
+        await pilot.pause()
+        line = app.workbench_screen.query_one("#help-line")
+        for name in FIELD_ORDER:
+            app.workbench_screen.query_one(f"#field-{name}").focus()
+            await pilot.pause()
+            said = " ".join(painted(app.screen, line.content_region))
+            assert said.split() == field_help(name).split(), name
+
+
+@pytest.mark.parametrize("keys", [(), ("f6",), ("alt+e",)], ids=["main", "solver", "bearings"])
+@pytest.mark.parametrize("path", SESSIONS, ids=lambda p: p.stem)
+async def test_nothing_on_show_is_cut_at_80x24(path: Path, keys: tuple[str, ...]) -> None:
+    """The main screen, its solver pane (whose search boxes had a placeholder of 17 characters
+    in 13 columns) and the bearings list (whose seven columns were wider than 80)."""
+    app = _app(load_session(path), path)
+    async with app.run_test(size=NARROW) as pilot:
+        await pilot.pause()
+        await pilot.press(*keys)
+        await pilot.pause()
+        assert cut_widgets(app.screen) == []
