@@ -34,7 +34,7 @@ async def _shown(pilot, form: CaseForm, name: str) -> tuple[str | None, str]:
     """(what the box of choice field ``name`` paints, the chosen option's text), the box
     scrolled into view first."""
     box = form.query_one(f"#field-{name}", ChoiceBox)
-    form.scroll_to_widget(form.query_one(f"#row-{name}"), animate=False)
+    form.scroll_to_widget(box, animate=False)
     await pilot.pause()
     return painted_choice(pilot.app.screen, box), choice_text(box)
 

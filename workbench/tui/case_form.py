@@ -244,7 +244,7 @@ class CaseForm(VerticalScroll):
         :data:`WIDE` columns."""
         name = self.focused_field()
         if name is not None:  # after the focus has brought the field into view at the old size
-            self.call_after_refresh(self.scroll_to_widget, self.query_one(f"#row-{name}"),
+            self.call_after_refresh(self.scroll_to_widget, self.query_one(f"#field-{name}"),
                                     animate=False)
         wide = self.app.size.width >= WIDE
         if wide != self._wide:

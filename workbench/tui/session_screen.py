@@ -59,8 +59,8 @@ class SessionScreen(ModalScreen[bool]):
         align: center middle;
         background: $background 60%;
         & #session-box {
-            width: 76;
-            max-width: 100%;
+            width: 100%;
+            max-width: 110;  /* the room a long title needs, where the screen has it */
             height: auto;
             max-height: 100%;
             border: round $primary;
