@@ -121,3 +121,23 @@ async def test_nothing_on_show_is_cut_at_80x24(path: Path, keys: tuple[str, ...]
         await pilot.press(*keys)
         await pilot.pause()
         assert cut_widgets(app.screen) == []
+
+
+async def test_the_session_notes_wrap_between_words_and_are_kept_as_they_were() -> None:
+    """The details dialog (alt+i): the notes, several lines of a sentence each, were one text
+    box cut at its edge mid-word; they wrap between words now, and keeping the dialog without
+    an edit changes nothing."""
+    path = next(p for p in SESSIONS if p.stem == "demo")
+    app = _app(load_session(path), path)
+    async with app.run_test(size=NARROW) as pilot:
+        await pilot.pause()
+        before = app.document.revision
+        await pilot.press("alt+i")
+        await pilot.pause()
+        notes = app.screen.query_one("#detail-notes")
+        words = app.document.session.notes.split()
+        shown = " ".join(painted(app.screen, notes.scrollable_content_region)).split()
+        assert len(shown) > 10 and shown == words[:len(shown)]
+        await pilot.press("ctrl+s")
+        await pilot.pause()
+        assert app.screen is app.workbench_screen and app.document.revision == before

@@ -1,7 +1,8 @@
 """The session's details and targets, edited in one dialog: title, project, engineer, revision,
 notes; the life, reliability and static safety every case must meet.
 
-Enter (or ctrl+s) keeps what is typed as one undo step; Esc leaves everything as it was.  A
+Ctrl+s (or enter, but in the notes, which take lines of their own) keeps what is typed as one
+undo step; Esc leaves everything as it was.  A
 target that cannot be read is named under its field and nothing is kept until it is put right.
 """
 
@@ -13,7 +14,7 @@ from textual.binding import Binding
 from textual.containers import Horizontal, VerticalScroll
 from textual.screen import ModalScreen
 from textual.validation import ValidationResult, Validator
-from textual.widgets import Input, Label, Static
+from textual.widgets import Input, Label, Static, TextArea
 
 from ..model.document import Document
 from ..model.edits import SESSION_TEXTS, TARGET_TEXTS
@@ -29,6 +30,26 @@ HINTS = {
     "s0": "overrides each case's static duty minimum; blank: by duty",
     "revision": "your document's revision mark, e.g. B",
 }
+
+
+class NotesArea(TextArea):
+    """The session's notes: lines of their own, wrapped between words (a one-line box cut them
+    at its edge, mid-word, at every width).  ↑/↓ move the cursor through the notes and, where it
+    cannot move further, to the previous or next field, as in every other row of the dialog."""
+
+    def action_cursor_down(self, select: bool = False) -> None:
+        """Down a line; from the end of the notes, to the next field."""
+        before = self.cursor_location
+        super().action_cursor_down(select)
+        if not select and self.cursor_location == before:
+            self.screen.focus_next()
+
+    def action_cursor_up(self, select: bool = False) -> None:
+        """Up a line; from the start of the notes, to the previous field."""
+        before = self.cursor_location
+        super().action_cursor_up(select)
+        if not select and self.cursor_location == before:
+            self.screen.focus_previous()
 
 
 class TargetValidator(Validator):
@@ -72,6 +93,8 @@ class SessionScreen(ModalScreen[bool]):
         & .form-row { height: 1; }
         & .form-label { width: 18; color: $text-muted; }
         & .form-row Input { width: 1fr; }
+        & .form-row.-notes { height: 4; }
+        & NotesArea { width: 1fr; height: 4; padding: 0; scrollbar-size-vertical: 1; }
         & .form-note { color: $text-error; padding-left: 18; display: none; }
         & .form-note.-shown { display: block; }
         & .form-hint { color: $text-muted; padding-left: 18; }
@@ -89,9 +112,13 @@ class SessionScreen(ModalScreen[bool]):
         with VerticalScroll(id="session-box"):
             yield Static("Session details and targets", classes="dialog-title")
             for name in SESSION_TEXTS:
-                with Horizontal(classes="form-row"):
+                with Horizontal(classes="form-row" + (" -notes" if name == "notes" else "")):
                     yield Label(LABELS[name], classes="form-label")
-                    yield Input(getattr(session, name), id=f"detail-{name}", compact=True)
+                    if name == "notes":
+                        yield NotesArea(session.notes, id="detail-notes", compact=True,
+                                        highlight_cursor_line=False)
+                    else:
+                        yield Input(getattr(session, name), id=f"detail-{name}", compact=True)
                 if name in HINTS:
                     yield Static(HINTS[name], classes="form-hint")
             yield Static("Targets", classes="group-title")
@@ -102,7 +129,8 @@ class SessionScreen(ModalScreen[bool]):
                                 compact=True, validators=[TargetValidator(self.document, name)])
                 yield Static("", id=f"target-note-{name}", classes="form-note", markup=False)
                 yield Static(HINTS[name], classes="form-hint")
-            yield Static("enter or ctrl+s keeps · esc cancels · ↑/↓ move", id="session-keys")
+            yield Static("ctrl+s (or enter, but in the notes) keeps · esc cancels · ↑/↓ move",
+                         id="session-keys")
 
     def on_mount(self) -> None:
         """The focus starts on the title."""
@@ -129,7 +157,7 @@ class SessionScreen(ModalScreen[bool]):
         """Keep what is typed (one undo step), unless a target cannot be read."""
         if self.app.screen is not self:
             return
-        details = {name: self.query_one(f"#detail-{name}", Input).value for name in SESSION_TEXTS}
+        details = {name: self._detail(name) for name in SESSION_TEXTS}
         targets = {name: self.query_one(f"#target-{name}", Input).value for name in TARGET_TEXTS}
         before = self.document.revision
         problems = self.document.set_details(details, targets)
@@ -137,6 +165,11 @@ class SessionScreen(ModalScreen[bool]):
             self._note(name, problems.get(name))
         if not problems:
             self.dismiss(self.document.revision != before)
+
+    def _detail(self, name: str) -> str:
+        box = self.query_one(f"#detail-{name}")
+        return box.text if isinstance(box, NotesArea) else self.query_one(
+            f"#detail-{name}", Input).value
 
     def action_close(self) -> None:
         """Leave everything as it was."""
