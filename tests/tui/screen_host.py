@@ -134,9 +134,12 @@ def painted_choice(screen: Screen[Any], select: Select[Any]) -> str | None:
 
 def cut_between_words(shown: str, whole: str) -> bool:
     """Whether ``shown`` is ``whole`` shortened on purpose: an ellipsis marks what was left
-    out, and every word kept is a whole word of ``whole``."""
-    kept = shown.replace(ELLIPSIS, " ").split()
-    return ELLIPSIS in shown and bool(kept) and all(word in whole.split() for word in kept)
+    out, and every word kept is a whole word of ``whole`` (or the leading parts of a hyphened
+    one, "SP-25-100-")."""
+    kept, words = shown.replace(ELLIPSIS, " ").split(), whole.split()
+    return ELLIPSIS in shown and bool(kept) and all(
+        word in words or (word.endswith("-") and any(w.startswith(word) for w in words))
+        for word in kept)
 
 
 def screen_lines(screen: Screen[Any]) -> list[str]:

@@ -102,6 +102,8 @@ async def test_names_fit_whole_words(make_app, size: tuple[int, int], least: int
     ("Locating end, start-up peak", 16, "Locating … peak"),
     ("Locating end, start-up peak", 10, "Locating…"),
     ("Supercalifragilistic", 8, "Superca…"),
+    ("SP-25-100-wheel-end", 12, "SP-25-100-…"),  # between the parts of a compound
+    ("angular-contact", 12, "angular-…"),
 ])
 def test_fit_words(text: str, width: int, expected: str) -> None:
     assert fit_words(text, width) == expected

@@ -32,8 +32,9 @@ def fit_words(text: str, width: int) -> str:
     """``text`` in at most ``width`` columns, cut between words, never inside one.
 
     A long text keeps its first words and its last one ("RM-2 input shaft · full load · A" in
-    20 columns: "RM-2 input … · A"), since case names differ most at their two ends.  Only a
-    first word longer than ``width`` is cut inside.
+    20 columns: "RM-2 input … · A"), since case names differ most at their two ends.  A first
+    word longer than ``width`` is cut after one of its hyphens ("SP-25-100-…"), and only where
+    it has none in reach inside.
     """
     if len(text) <= width:
         return text
@@ -48,7 +49,9 @@ def fit_words(text: str, width: int) -> str:
             head.pop()  # no separator left dangling before the ellipsis
         if head:
             return " ".join(head) + tail
-    return text[: max(width - 1, 0)] + ELLIPSIS
+    room = max(width - 1, 0)
+    hyphen = text.rfind("-", 0, room)
+    return text[: hyphen + 1 if hyphen > 0 else room] + ELLIPSIS
 
 
 class FittedText:
