@@ -2,8 +2,8 @@
 
 A ``DataTable`` lists each bearing with its kind, ratings and how many cases use it; the line
 under it gives the highlighted bearing's origin (designation, where its data came from), which
-can be long and is wrapped there rather than widen the table past 80 columns.  Deleting a bearing that cases use is refused, naming them.
-Every change is one undo step of the document.
+can be long and wraps there rather than widen the table past 80 columns.  Deleting a bearing
+that cases use is refused, naming them.  Every change is one undo step of the document.
 """
 
 from __future__ import annotations

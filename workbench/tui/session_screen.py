@@ -2,8 +2,8 @@
 notes; the life, reliability and static safety every case must meet.
 
 Ctrl+s (or enter, but in the notes, which take lines of their own) keeps what is typed as one
-undo step; Esc leaves everything as it was.  A
-target that cannot be read is named under its field and nothing is kept until it is put right.
+undo step; Esc leaves everything as it was.  A target that cannot be read is named under its
+field and nothing is kept until it is put right.
 """
 
 from __future__ import annotations
@@ -167,9 +167,9 @@ class SessionScreen(ModalScreen[bool]):
             self.dismiss(self.document.revision != before)
 
     def _detail(self, name: str) -> str:
-        box = self.query_one(f"#detail-{name}")
-        return box.text if isinstance(box, NotesArea) else self.query_one(
-            f"#detail-{name}", Input).value
+        if name == "notes":
+            return self.query_one(NotesArea).text
+        return self.query_one(f"#detail-{name}", Input).value
 
     def action_close(self) -> None:
         """Leave everything as it was."""
