@@ -257,8 +257,11 @@ def flange_note(kind_text: str, cases: Sequence[CaseInputs]) -> str:
 
 
 def _notes(bearings: BearingArrays, cases: Sequence[CaseInputs], order: np.ndarray) -> dict[int, str]:
-    notes = {int(i): flange_note(str(bearings.kind[i]), cases) for i in order}
-    return {i: note for i, note in notes.items() if note}
+    """The flange note of each ranked cylindrical roller bearing (one text for them all)."""
+    note = flange_note(Kind.CYLINDRICAL.value, cases)
+    if not note:
+        return {}
+    return {int(i): note for i in order[bearings.kind[order] == Kind.CYLINDRICAL.value]}
 
 
 def _optional(value: float) -> float | None:
