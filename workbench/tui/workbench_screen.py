@@ -125,9 +125,10 @@ class WorkbenchScreen(Screen[None]):
         yield KeyFooter()
 
     def on_mount(self) -> None:
-        """Show the first case, with the focus in the list."""
+        """Show the first case, with the focus in the list and the case named on the help line."""
         self.view = View(self.document.revision, 0 if self.document.results else -1)
         self.query_one(CaseTable).focus()
+        self._help_for_case()
 
     # ---- following the document --------------------------------------------------------------
     @property
