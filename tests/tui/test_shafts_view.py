@@ -57,6 +57,26 @@ async def test_shafts_view_tables_show_what_analyse_gives(size) -> None:
         assert app.answers == [None]
 
 
+async def test_page_keys_scroll_the_overview_from_inside_a_table() -> None:
+    """At 80×24 the duty cycles sit below the fold while the focus is in the first table: the
+    page keys scroll the overview (a table's own page keys left it where it was)."""
+    analysis = analyse(demo_session())
+    app = ScreenHost(lambda: ShaftsScreen(analysis, "SI"))
+    async with app.run_test(size=(80, 24)) as pilot:
+        await pilot.pause()
+        view = app.screen.query_one("#shafts-view")
+        assert isinstance(app.focused, DataTable) and view.scroll_y == 0 and view.max_scroll_y > 0
+        await pilot.press("pagedown")
+        await pilot.pause()
+        assert view.scroll_y > 0
+        await pilot.press("ctrl+end")
+        await pilot.pause()
+        assert view.scroll_y == view.max_scroll_y
+        await pilot.press("ctrl+home")
+        await pilot.pause()
+        assert view.scroll_y == 0
+
+
 async def test_moving_through_the_states_shows_each_free_body() -> None:
     analysis = analyse(demo_session())
     app = ScreenHost(lambda: ShaftsScreen(analysis, "SI"))

@@ -29,12 +29,12 @@ from .derivation_pane import step_content
 from .dialogs import OnceModal
 from .table_fit import fill_fitted, plain
 
-READ_ONLY_NOTE = ("Read-only here: edit [[shafts]] and [[duty_cycles]] in the session file, then "
-                  "open it again. The cases the shafts generate are in the case list.")
+READ_ONLY_NOTE = ("An overview: alt+h edits a shaft and alt+y a duty cycle on the main screen. "
+                  "The cases the shafts generate are in the case list.")
 NO_SHAFTS = "This session has no shaft: a [[shafts]] table in the session file adds one."
 NO_DUTIES = "This session has no duty cycle."
 SHAFTS_HINT = ("tab / shift+tab: next / previous table · ↑/↓ in the states: that state's free "
-               "body · escape: close")
+               "body · pgup/pgdn, ctrl+home/ctrl+end: scroll · escape: close")
 # The element texts worth showing, in plain words (blank texts are left out).
 ELEMENT_WORDS = (("pressure_angle", "pressure angle"), ("helix_angle", "helix angle"),
                  ("hand", "hand"), ("pitch_cone_angle", "pitch-cone angle"), ("apex", "apex"),
@@ -128,7 +128,17 @@ class ShaftsScreen(OnceModal[None]):
     }
     """
 
-    BINDINGS = [Binding("escape,q", "dismiss_none", "Close", id="shafts.close")]
+    BINDINGS = [
+        Binding("escape,q", "dismiss_none", "Close", id="shafts.close"),
+        # Before the focused table's own page keys: the tables are short (at most 12 rows on
+        # show), the overview is long, and a page key in a table left it where it was.
+        Binding("pagedown", "scroll_overview('page_down')", "Page down", show=False,
+                priority=True),
+        Binding("pageup", "scroll_overview('page_up')", "Page up", show=False, priority=True),
+        Binding("ctrl+end", "scroll_overview('scroll_end')", "End", show=False, priority=True),
+        Binding("ctrl+home", "scroll_overview('scroll_home')", "Top", show=False,
+                priority=True),
+    ]
 
     def __init__(self, analysis: SessionAnalysis, system: str) -> None:
         super().__init__()
@@ -171,6 +181,12 @@ class ShaftsScreen(OnceModal[None]):
             yield DataTable(id=f"shaft-{n}-states", cursor_type="row", zebra_stripes=True)
             yield Static(id=f"shaft-{n}-free-body", classes="free-body")
         yield Static(system_life(outcome, self.system))
+
+    def action_scroll_overview(self, how: str) -> None:
+        """Scroll the overview a page up or down, or to its top or end."""
+        view = self.query_one("#shafts-view", VerticalScroll)
+        {"page_down": view.scroll_page_down, "page_up": view.scroll_page_up,
+         "scroll_end": view.scroll_end, "scroll_home": view.scroll_home}[how](animate=False)
 
     def on_mount(self) -> None:
         """Fill the tables and put the focus in the first one."""
