@@ -283,3 +283,19 @@ async def test_keys_typed_ahead_of_the_screen_are_kept(make_app) -> None:
         await pilot.press("ctrl+z")  # an undo still shows in the field it changes
         await pilot.pause()
         assert box.value == app.document.session.cases[0].texts["fr"] != "4.50 kN"
+
+
+@pytest.mark.parametrize("size", [(80, 24), (120, 40)])
+async def test_a_note_under_a_field_leaves_no_blank_rows(make_app, size) -> None:
+    """The message of a refused text spans the group's two columns; the next field follows its
+    last line at once (Textual's grid measured the note at one column's width)."""
+    app = make_app()
+    async with app.run_test(size=size) as pilot:
+        await pilot.pause()
+        await retype(pilot, app, "fr", "abc")
+        await pilot.pause()
+        screen = app.workbench_screen
+        note = screen.query_one("#note-fr")
+        assert note.region.height >= 1
+        assert note.region.width == screen.query_one("#field-fr").parent.region.width
+        assert screen.query_one("#field-fa").region.y == note.region.bottom

@@ -16,6 +16,7 @@ from textual.app import ComposeResult
 from textual.binding import Binding
 from textual.containers import Grid, Horizontal, VerticalScroll
 from textual.events import DescendantFocus
+from textual.geometry import Size
 from textual.message import Message
 from textual.reactive import var
 from textual.suggester import SuggestFromList
@@ -102,6 +103,18 @@ class FieldGroup(Grid):
     field (a note under a field spans both columns).  A grid rather than a container per
     field: the form is most of the screen's widgets, and each one costs the screen time to
     start, to style and to paint on every key."""
+
+
+class FieldNote(Static):
+    """A refused text's message under its field, across both columns of the field's group.
+
+    Textual's grid measures an ``auto`` row at one column's width even for a cell that spans
+    two, so a message that wraps there took more rows than it fills, and blank rows opened under
+    it; here the height is measured at the width the note is given, the grid's."""
+
+    def get_content_height(self, container: Size, viewport: Size, width: int) -> int:
+        return super().get_content_height(container, viewport,
+                                          container.width - self.styles.gutter.width)
 
 
 class CaseForm(VerticalScroll):
@@ -346,7 +359,7 @@ class CaseForm(VerticalScroll):
             made.first(Static).update(f"✘ {message}")
             made.set(display=True)
         else:
-            self.mount(Static(f"✘ {message}", id=f"note-{name}", classes="field-note",
+            self.mount(FieldNote(f"✘ {message}", id=f"note-{name}", classes="field-note",
                               markup=False), after=f"#field-{name}")
 
     def message_for(self, name: str) -> str | None:
