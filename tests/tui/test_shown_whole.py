@@ -110,6 +110,33 @@ async def test_the_help_line_says_each_field_in_full(make_app, size) -> None:
             assert said.split() == field_help(name).split(), name
 
 
+async def test_the_help_line_names_the_case_once_the_focus_leaves_the_form(make_app) -> None:
+    """Esc back to the list, or a pane's key, and the help line names the selected case again,
+    under its new name after a rename (it kept the last field's words, or the old name)."""
+    app = make_app()
+    async with app.run_test(size=NARROW) as pilot:
+        await pilot.pause()
+        screen = app.workbench_screen
+        line = screen.query_one("#help-line")
+
+        def said() -> str:
+            return " ".join(" ".join(painted(app.screen, line.content_region)).split())
+
+        case = app.document.session.cases[0]
+        assert said().startswith(f"{case.name} · bearing {case.bearing}")
+        for leave in ("escape", "f6"):
+            screen.query_one("#field-fr").focus()
+            await pilot.pause()
+            assert said().startswith("Radial load Fr")
+            await pilot.press(leave)
+            await pilot.pause()
+            assert said().startswith(f"{case.name} · bearing {case.bearing}"), leave
+        await pilot.press("escape", "f2", "ctrl+u", *"Renamed run", "enter")
+        await pilot.pause()
+        assert app.document.session.cases[0].name == "Renamed run"
+        assert said().startswith("Renamed run · bearing")
+
+
 @pytest.mark.parametrize("keys", [(), ("f6",), ("alt+e",)], ids=["main", "solver", "bearings"])
 @pytest.mark.parametrize("path", SESSIONS, ids=lambda p: p.stem)
 async def test_nothing_on_show_is_cut_at_80x24(path: Path, keys: tuple[str, ...]) -> None:

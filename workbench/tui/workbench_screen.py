@@ -25,7 +25,7 @@ from textual import on, work
 from textual.app import ComposeResult
 from textual.binding import Binding
 from textual.containers import Horizontal, Vertical
-from textual.events import Resize
+from textual.events import DescendantFocus, Resize
 from textual.reactive import var
 from textual.screen import Screen
 from textual.timer import Timer
@@ -94,6 +94,7 @@ class WorkbenchScreen(Screen[None]):
         self._autosave_delay = autosave_delay
         self._autosave_timer: Timer | None = None
         self._derive_timer: Timer | None = None
+        self._help_text = ""
         self._autosave_failed = False
 
     def compose(self) -> ComposeResult:
@@ -144,8 +145,11 @@ class WorkbenchScreen(Screen[None]):
         self.view = View(self.document.revision, index)
 
     def watch_view(self, old: View, new: View) -> None:
-        """The title follows; a change to the document schedules the recovery copy."""
+        """The title follows, and the help line unless it speaks of the field being typed in;
+        a change to the document schedules the recovery copy."""
         self._title()
+        if self.is_mounted and self.query_one(CaseForm).focused_field() is None:
+            self._help_for_case()
         if new.revision != old.revision:
             self._derive_pending()
             if self.document.dirty:
@@ -224,6 +228,11 @@ class WorkbenchScreen(Screen[None]):
             f" · {case.notes}" if case.notes else "")
         self._say(text)
 
+    def on_descendant_focus(self, event: DescendantFocus) -> None:
+        """The focus left the form: the help line names the selected case again."""
+        if self.query_one(CaseForm).focused_field() is None:
+            self._help_for_case()
+
     @on(CaseForm.HelpShown)
     def _help_shown(self, event: CaseForm.HelpShown) -> None:
         self._say(event.text)
@@ -231,7 +240,9 @@ class WorkbenchScreen(Screen[None]):
     def _say(self, text: str) -> None:
         """Put ``text`` on the help line: across the screen, on two lines at most, the words
         that do not fit left out between words with an ellipsis (case notes can be long)."""
-        self.query_one("#help-line", Static).update(FittedText(text, lines=HELP_LINES))
+        if text != self._help_text:  # an update lays the screen out again: only on a change
+            self._help_text = text
+            self.query_one("#help-line", Static).update(FittedText(text, lines=HELP_LINES))
 
     @on(CaseForm.Edited)
     def _field_edited(self, event: CaseForm.Edited) -> None:
@@ -328,10 +339,10 @@ class WorkbenchScreen(Screen[None]):
         if index is not None:
             self._changed(index)
 
-    def _undo_redo(self, step: Callable[[], object], verb: str) -> None:
+    def _undo_redo(self, step: Callable[[], object], verb: str, *, nothing: str) -> None:
         done = step()
         if done is None:
-            self.notify(f"Nothing to {verb.lower()}", severity="warning")
+            self.notify(nothing, severity="warning")
             return
         self.query_one(CaseForm).drop_notes()
         self._changed(getattr(done, "case_index", None))
@@ -339,11 +350,11 @@ class WorkbenchScreen(Screen[None]):
 
     def action_undo(self) -> None:
         """Undo the last change."""
-        self._undo_redo(self.document.undo, "Undone")
+        self._undo_redo(self.document.undo, "Undone", nothing="Nothing to undo")
 
     def action_redo(self) -> None:
         """Redo what was undone."""
-        self._undo_redo(self.document.redo, "Redone")
+        self._undo_redo(self.document.redo, "Redone", nothing="Nothing to redo")
 
     def action_nudge(self, factor: float) -> None:
         """Scale the focused numeric field by ``factor`` (what-if), its unit kept."""
