@@ -288,6 +288,33 @@ async def test_discard_on_the_recovery_offer_deletes_the_copy(tmp_path: Path) ->
     assert not copy.exists() and not [p for p in copy.parent.iterdir() if ".kept-" in p.name]
 
 
+@pytest.mark.parametrize("open_other", [True, False], ids=["opened", "cancelled"])
+async def test_dropping_the_changes_drops_their_recovery_copy(open_other: bool,
+                                                              tmp_path: Path) -> None:
+    """"Drop changes and open", then another file opened: the dropped changes' recovery copy
+    goes with them (it came back as a crash's on the next start).  Cancelling the open keeps
+    the changes, and their copy."""
+    path, other = _saved_rig(tmp_path / "rig.toml"), tmp_path / "other.toml"
+    save_session(rig_session(1), other)
+    app = _opened_app(path)
+    async with app.run_test(size=(80, 24)) as pilot:
+        await retype(pilot, app, "fr", "4 kN")
+        app.workbench_screen.autosave()
+        assert recovery_path(path).exists()
+        await pilot.press("escape", "ctrl+o")
+        await pilot.pause()
+        await _answer(pilot, app, "discard")
+        assert isinstance(app.screen, OpenDialog)
+        if open_other:
+            app.screen.query_one("#open-path", Input).value = str(other)
+            await pilot.press("enter")
+        else:
+            await pilot.press("escape")
+        await pilot.pause()
+        assert app.document.path == (other if open_other else path)
+    assert recovery_path(path).exists() is not open_other
+
+
 # ---- exit status -----------------------------------------------------------------------------
 
 class Crashing(WorkbenchApp):

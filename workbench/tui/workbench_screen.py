@@ -672,6 +672,8 @@ class WorkbenchScreen(Screen[None]):
         def chosen(opened: Opened | None) -> None:
             if opened is None:
                 return
+            if self.document.dirty:  # the changes were dropped: so is their recovery copy
+                files.discard_recovery_copy(self.document.path)
             if opened.outcome is None:  # a new session: no file there yet
                 self.open_session(Session(title=opened.path.stem), opened.path)
                 self.notify(f"New session {opened.path.name}: ctrl+s writes it")
