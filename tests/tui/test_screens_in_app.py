@@ -43,3 +43,22 @@ async def test_keys_open_the_screen_with_the_focus_in_it(make_app, screen_class,
             await pilot.pause()
         assert app.screen is main
 
+
+
+async def test_a_refused_bearing_delete_leaves_the_cursor_on_that_bearing(make_app) -> None:
+    """Delete on a bearing that cases use is refused, and the cursor stays on it (it went to the
+    first row, where a second delete would act on another bearing)."""
+    app = make_app()
+    async with app.run_test(size=(80, 24)) as pilot:
+        await pilot.pause()
+        await pilot.press("alt+e")
+        await settled(pilot)
+        table = app.screen.query_one("#bearings")
+        used = [b.name for b in app.document.session.bearings]
+        await pilot.press("down")
+        await pilot.pause()
+        assert table.cursor_row == 1
+        await pilot.press("delete")
+        await pilot.pause()
+        assert [b.name for b in app.document.session.bearings] == used  # refused: cases use it
+        assert table.cursor_row == 1

@@ -155,9 +155,12 @@ class BearingsScreen(ModalScreen[str | None]):
         selected = self._selected()
         if selected is None:
             return
+        row = self.query_one(DataTable).cursor_row
         problem = self.document.delete_bearing(selected)
         self._say(problem or f"Deleted {selected} (ctrl+z on the main screen brings it back)")
-        self._fill(None)
+        names = [b.name for b in self.document.session.bearings]
+        # a refused delete leaves the cursor where it was; a done one on the bearing that took its place
+        self._fill(selected if problem else names[min(row, len(names) - 1)] if names else None)
 
     def action_choose(self) -> None:
         """Use the bearing under the cursor for the selected case."""
