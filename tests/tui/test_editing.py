@@ -299,3 +299,21 @@ async def test_a_note_under_a_field_leaves_no_blank_rows(make_app, size) -> None
         assert note.region.height >= 1
         assert note.region.width == screen.query_one("#field-fr").parent.region.width
         assert screen.query_one("#field-fa").region.y == note.region.bottom
+
+
+async def test_a_switch_says_what_is_in_force_on_and_off(make_app) -> None:
+    """The words beside the outer-ring switch follow it (ISO 281's rotation factor: V = 1.2
+    with the outer ring rotating, else 1), so they read right without colour."""
+    app = make_app()
+    async with app.run_test(size=(80, 24)) as pilot:
+        await pilot.pause()
+        box = app.workbench_screen.query_one("#field-outer_ring_rotates")
+        assert not box.value and str(box.label) == "V = 1"
+        await choose(pilot, app, "outer_ring_rotates")
+        await pilot.press("space")
+        await pilot.pause()
+        assert app.document.session.cases[0].texts.get("outer_ring_rotates") in ("yes", "true")
+        assert box.value and str(box.label) == "V = 1.2"
+        await pilot.press("ctrl+z")
+        await pilot.pause()
+        assert not box.value and str(box.label) == "V = 1"

@@ -48,7 +48,16 @@ FIELD_ORDER: tuple[str, ...] = tuple(name for _, names in EDITOR_GROUPS for name
 WIDE = 100
 """From this many columns of screen the labels are written in full (the screen's ``-wide``)."""
 BLANK_CHOICE = "(default)"
-SWITCH_WORDS = {"outer_ring_rotates": "V = 1.2", "static_only": "s0 verdict only"}
+SWITCH_WORDS = {"outer_ring_rotates": ("V = 1", "V = 1.2"),
+                "static_only": ("life and s0", "s0 verdict only")}
+"""What a switch does, off and on: the words beside it follow it, so they read right in
+monochrome too (a fixed "V = 1.2" beside an empty box read as applied)."""
+
+
+def switch_words(name: str, on: bool) -> str:
+    """The words beside switch ``name`` when it is ``on`` or off."""
+    off_words, on_words = SWITCH_WORDS.get(name, ("no", "yes"))
+    return on_words if on else off_words
 
 
 def takes_text(name: str) -> bool:
@@ -233,7 +242,7 @@ class CaseForm(VerticalScroll):
                              tooltip=tooltip)
         spec = FIELD_BY_NAME[name]
         if spec.kind == "switch":
-            return Checkbox(SWITCH_WORDS.get(name, "yes"), id=control_id, compact=True,
+            return Checkbox(switch_words(name, False), id=control_id, compact=True,
                             tooltip=tooltip)
         if not takes_text(name):
             return ChoiceBox([(choice, choice) for choice in spec.choices], id=control_id,
@@ -328,6 +337,7 @@ class CaseForm(VerticalScroll):
             self._loaded[name] = "yes" if on else "no"
             if control.value != on:
                 control.value = on
+                control.label = switch_words(name, on)
         elif isinstance(control, Input):
             if control.value != self._loaded.get(name, control.value) or \
                     self._unanswered.get(name):
@@ -442,6 +452,7 @@ class CaseForm(VerticalScroll):
     @on(Checkbox.Changed)
     def _switched(self, event: Checkbox.Changed) -> None:
         event.stop()
+        event.checkbox.label = switch_words(self._field_of(event.checkbox), event.checkbox.value)
         self._announce(self._field_of(event.checkbox),
                        "yes" if event.checkbox.value else "no", done=True)
 
