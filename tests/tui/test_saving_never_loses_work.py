@@ -24,7 +24,7 @@ from workbench.model.sessionfile import dumps_session, load_session, recovery_pa
 from workbench.tui.app import WorkbenchApp, exit_code
 from workbench.tui.dialogs import ChoiceDialog, TextPrompt
 from workbench.tui.open_dialog import OpenDialog
-from workbench.tui.save_questions import SaveQuestion
+from workbench.tui.dialogs import SaveQuestion
 
 sys.path.insert(0, str(Path(__file__).parents[1] / "hostile"))
 from corpus import REFUSED_SESSIONS, write_files, write_special_files  # noqa: E402

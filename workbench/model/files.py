@@ -25,6 +25,22 @@ def _error_text(exc: Exception) -> str:
 QUESTIONS = ("not a session", "exists", "changed on disk")
 """What a save may ask before it replaces a file (:class:`sessionfile.SaveStatus` values): the
 file there is not a session; it holds another session; it changed on disk since it was read."""
+QUESTION_TITLES = {
+    "changed on disk": "The file changed on disk",
+    "not a session": "Not a session file",
+    "exists": "Another session is there",
+}
+QUESTION_AFTER = {
+    "changed on disk": "Replacing it drops the other version's changes from the file (it is kept "
+                       "as {backup} until the next save). Saving elsewhere keeps both.",
+    "not a session": "Replacing it keeps the file as it was in {backup} until the next save.",
+    "exists": "Replacing it keeps that session in {backup} until the next save.",
+}
+"""What each question says a replace does; ``{backup}`` is where the replaced file is kept."""
+QUESTION_ANSWERS = [("elsewhere", "Save elsewhere…"), ("replace", "Replace it"),
+                    ("cancel", "Cancel")]
+"""The answers to every question, the safe one first so that a stray enter never replaces
+anything: save elsewhere (the save-as prompt), replace it (kept as ``NAME.bak``), or cancel."""
 
 
 @dataclass

@@ -23,6 +23,8 @@ from textual.suggester import Suggester
 from textual.validation import ValidationResult, Validator
 from textual.widgets import Button, Input, Label, Static
 
+from ..model.files import QUESTION_AFTER, QUESTION_ANSWERS, QUESTION_TITLES
+
 ResultType = TypeVar("ResultType")
 
 
@@ -221,3 +223,15 @@ class ChoiceDialog(OnceModal[str | None]):
     def _pressed(self, event: Button.Pressed) -> None:
         event.stop()
         self.close((event.button.id or "").removeprefix("answer-"))
+
+
+class SaveQuestion(ChoiceDialog):
+    """A question before a save replaces a file it must not replace in silence (its kind, one of
+    :data:`workbench.model.files.QUESTIONS`, in :attr:`kind`); answers ``elsewhere``,
+    ``replace`` or ``cancel`` (escape: None, as cancel)."""
+
+    def __init__(self, kind: str, message: str, backup: str) -> None:
+        super().__init__(QUESTION_TITLES[kind],
+                         f"{message}\n{QUESTION_AFTER[kind].format(backup=backup)}",
+                         QUESTION_ANSWERS)
+        self.kind = kind

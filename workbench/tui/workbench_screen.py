@@ -37,8 +37,10 @@ from ..engine.solve import NoSolution, Solution
 from ..model import files
 from ..model.document import Derived, Document, Question, Rederivation
 from ..model.fields import FieldError
+from ..model.files import FileOutcome
 from ..model.session import Session
 from ..model.shafts import GENERATED_NOTE
+from ..model.user_text import clipped_path
 from .actions import bindings
 from .case_form import WIDE, CaseForm
 from .case_table import CaseTable
@@ -606,14 +608,12 @@ class WorkbenchScreen(Screen[None]):
                 confirmed: frozenset[str] = frozenset()) -> None:
         """Write the session to ``path`` and report what the writer said; when the file there
         is not a session, holds another one or changed on disk since it was read here, ask
-        first (:func:`.save_questions.ask_before_saving`); ``then`` runs once it is saved."""
+        first (:meth:`_ask_before_saving`); ``then`` runs once it is saved."""
         document = self.document
         outcome = files.save(document.session, path, read_stamp=document.stamp,
                              confirmed=confirmed)
         if outcome.question is not None:
-            from .save_questions import ask_before_saving
-
-            ask_before_saving(self, outcome, then, confirmed)
+            self._ask_before_saving(outcome, then, confirmed)
             return
         if outcome.error is not None:
             self.notify(outcome.error, title="Not saved", severity="error")
@@ -693,6 +693,25 @@ class WorkbenchScreen(Screen[None]):
                 [("discard", "Drop changes and open"), ("stay", "Stay")]), ask_path)
         else:
             ask_path()
+
+    def _ask_before_saving(self, outcome: FileOutcome, then: Callable[[], object] | None,
+                           confirmed: frozenset[str]) -> None:
+        """Ask the question ``outcome`` holds, then save as answered (``then`` runs once saved)."""
+        from .dialogs import SaveQuestion
+
+        assert outcome.question is not None and outcome.path is not None
+        path, kind = outcome.path, outcome.question
+        if isinstance(self.app.screen, SaveQuestion):
+            return  # a second save in the same burst: the first question is still open
+
+        def answered(answer: str | None) -> None:
+            if answer == "replace":
+                self.save_to(path, then, confirmed=confirmed | {kind})
+            elif answer == "elsewhere":
+                self.save_as(then)
+
+        backup = clipped_path(path.with_name(path.name + ".bak"))
+        self.app.push_screen(SaveQuestion(kind, outcome.error or str(path), backup), answered)
 
     def open_session(self, session: Session, path: Path | None, dirty: bool = False, *,
                      stamp: FileStamp | None = None) -> None:
