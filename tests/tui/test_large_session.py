@@ -12,15 +12,13 @@ from __future__ import annotations
 
 import json
 
-from textual.widgets import Input
-from tui_helpers import retype
+from tui_helpers import retype, write_report
 
 from workbench.model.sample_sessions import (
     SHARED_BEARING, SHARED_SPEED_RPM, shared_bearing_session, shared_fr_kn,
 )
 from workbench.tui.app import WorkbenchApp
 from workbench.tui.case_table import COLUMNS, CaseTable
-from workbench.tui.report_screen import ReportScreen
 from workbench.tui.workbench_screen import DEFER_OVER
 
 CASES = 1000
@@ -45,23 +43,6 @@ async def until_derived(pilot, app: WorkbenchApp) -> None:
         if not app.document.pending:
             return
     raise AssertionError(f"{len(app.document.pending)} cases still pending")
-
-
-async def write_json_report(pilot, app: WorkbenchApp, path) -> None:
-    await pilot.press("alt+r")
-    await pilot.pause()
-    screen = app.screen
-    assert isinstance(screen, ReportScreen)
-    screen.query_one("#report-format").value = "json"
-    await pilot.pause()
-    screen.query_one("#report-path", Input).value = str(path)
-    await pilot.press("enter")
-    for _ in range(400):  # the report is written in a worker
-        await app.workers.wait_for_complete()
-        await pilot.pause()
-        if not isinstance(app.screen, ReportScreen):
-            return
-    raise AssertionError(str(screen.query_one("#report-message").render()))
 
 
 async def test_thousand_cases_open_edit_a_shared_bearing_and_report(tmp_path) -> None:
@@ -100,7 +81,7 @@ async def test_thousand_cases_open_edit_a_shared_bearing_and_report(tmp_path) ->
         await retype(pilot, app, "fr", "5 kN")  # a field of the last case alone
         assert shown_life(table, last) == f"{closed_form_lnm_h(40.0, 5.0):.0f}"
 
-        await write_json_report(pilot, app, tmp_path / "large.json")
+        await write_report(pilot, app, tmp_path / "large.json", "json", rounds=400)
     written = json.loads((tmp_path / "large.json").read_text(encoding="utf-8"))
     assert len(written["cases"]) == CASES
     by_name = {case["name"]: case for case in written["cases"]}

@@ -5,38 +5,21 @@ from __future__ import annotations
 import html
 import json
 
-from textual.widgets import Input
 
-from workbench.tui.report_screen import ReportScreen
+from tui_helpers import write_report
 
-
-async def _write(pilot, app, path, fmt: str) -> None:
-    await pilot.press("alt+r")
-    await pilot.pause()
-    screen = app.screen
-    assert isinstance(screen, ReportScreen)
-    screen.query_one("#report-format").value = fmt
-    await pilot.pause()
-    screen.query_one("#report-path", Input).value = str(path)
-    await pilot.press("enter")
-    for _ in range(200):  # the report is written in a worker
-        await app.workers.wait_for_complete()
-        await pilot.pause()
-        if not isinstance(app.screen, ReportScreen):
-            return
-    raise AssertionError(str(screen.query_one("#report-message").render()))
 
 
 async def test_json_and_html_reports_from_the_screen(make_app, tmp_path) -> None:
     app = make_app()
     async with app.run_test(size=(80, 24)) as pilot:
         await pilot.pause()
-        await _write(pilot, app, tmp_path / "rig.json", "json")
+        await write_report(pilot, app, tmp_path / "rig.json", "json")
         written = json.loads((tmp_path / "rig.json").read_text(encoding="utf-8"))
         p = app.document.result(0).derivation.results["P"]
         case = next(c for c in written["cases"] if c["name"] == "Steady run")
         assert case["results"]["P"] == p  # the engine's number, as the screen shows it
         assert "generated_at" in written["meta"]
-        await _write(pilot, app, tmp_path / "rig.html", "html")
+        await write_report(pilot, app, tmp_path / "rig.html", "html")
         page = (tmp_path / "rig.html").read_text(encoding="utf-8")
         assert "<svg" in page and html.escape("Test-rig gearbox") in page

@@ -13,6 +13,7 @@ from workbench.model.session import CaseResult, LoadCase
 from workbench.tui.app import WorkbenchApp
 from workbench.tui.case_form import CaseForm
 from workbench.tui.derivation_pane import DerivationPane
+from workbench.tui.report_screen import ReportScreen
 
 
 def editor(app: WorkbenchApp) -> CaseForm:
@@ -81,3 +82,23 @@ def reference_derivation(app: WorkbenchApp) -> Derivation:
     if document.session.targets.s0 and not values.get("s0_min"):
         values["s0_min"] = document.session.targets.s0
     return derive(inputs_from_texts(values))
+
+
+async def write_report(pilot: Pilot[int], app: WorkbenchApp, path: object, fmt: str, *,
+                       rounds: int = 200) -> None:
+    """Write the report in ``fmt`` to ``path`` from the report screen (alt+r), and wait while
+    its worker writes it (at most ``rounds`` pauses; a large session needs more)."""
+    await pilot.press("alt+r")
+    await pilot.pause()
+    screen = app.screen
+    assert isinstance(screen, ReportScreen)
+    screen.query_one("#report-format").value = fmt  # type: ignore[attr-defined]
+    await pilot.pause()
+    screen.query_one("#report-path", Input).value = str(path)
+    await pilot.press("enter")
+    for _ in range(rounds):
+        await app.workers.wait_for_complete()
+        await pilot.pause()
+        if not isinstance(app.screen, ReportScreen):
+            return
+    raise AssertionError(str(screen.query_one("#report-message").render()))
