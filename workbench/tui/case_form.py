@@ -405,7 +405,7 @@ class CaseForm(VerticalScroll):
         """The field under the focus, if the focus is in the form."""
         focused = self.screen.focused
         if focused is not None and focused.id and focused.id.startswith("field-") and \
-                focused in self.query("*"):
+                self in focused.ancestors:
             return focused.id.removeprefix("field-")
         return None
 
