@@ -154,8 +154,8 @@ def run_benchmarks(quick: bool = False) -> dict[str, Any]:
     figures.update(screen.measure_clearance_curve(5 if quick else 20))
     figures.update(screen.measure_typing(
         screen.QUICK_TYPING_KEYS if quick else screen.TYPING_KEYS))
-    figures["startup_ratio"] = screen.measure_startup_ratio(
-        screen.QUICK_STARTUP_ROUNDS if quick else screen.STARTUP_ROUNDS)
+    figures.update(screen.measure_startup(
+        screen.QUICK_STARTUP_ROUNDS if quick else screen.STARTUP_ROUNDS))
     from ..tui import bench_large
 
     figures.update(bench_large.measure_large(quick))

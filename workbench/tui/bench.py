@@ -12,12 +12,14 @@ the worst combination, and ``echo_settle`` holds every combination's figures.
 The start-up figure is measured at process level, as a person meets it: from here, the wall time
 of a fresh Python process that imports and runs the workbench headless on the demo session until
 its first full frame is painted (the first update of the main screen handed to the driver) and
-then exits, divided by the same for a minimal one-line Textual app.  The two are run in turn,
-round after round (``python -m workbench.tui.bench --first-frame demo|minimal`` is that
-process), and the figure is the median of the rounds' ratios, so machine speed cancels out.
+then exits, divided by the same for a minimal one-line Textual app.  Beside it,
+``startup_floor_ratio`` times Textual's widgets of the workbench's first screen with nothing of
+ours (:mod:`.bench_floor`) against the same app.  They are run in turn, round after round
+(``python -m workbench.tui.bench --first-frame demo|minimal|widgets`` is that process), and each
+figure is the median of the rounds' ratios, so machine speed cancels out.
 
-This module imports only what the minimal app needs at its top: the workbench is imported by the
-functions that use it, so the minimal process pays for nothing of ours.
+This module imports only what the minimal app needs at its top: the workbench and the floor are
+imported by the functions that use them, so the minimal process pays for nothing else.
 """
 
 from __future__ import annotations
@@ -60,7 +62,9 @@ STARTUP_ROUNDS = 11
 QUICK_STARTUP_ROUNDS = 3
 FIRST_FRAME_LIMIT_S = 120.0
 TERMINAL = (120, 40)
-FIRST_FRAME_APPS = ("demo", "minimal")
+FIRST_FRAME_APPS = ("demo", "minimal", "widgets")
+"""The workbench, the one-line yardstick, and Textual's widgets of the workbench's first screen
+with nothing of ours (:mod:`.bench_floor`)."""
 
 
 def bench_session(cases: int) -> Session:
@@ -296,9 +300,15 @@ def _until_first_frame(base: type[App[object]]) -> type[App[object]]:
 
 
 def first_frame(which: str) -> None:
-    """Run the ``demo`` workbench or the ``minimal`` app headless to its first full frame."""
+    """Run the ``demo`` workbench, the ``minimal`` app or the ``widgets`` floor headless to its
+    first full frame."""
     if which == "minimal":
         _until_first_frame(_MinimalApp)().run(headless=True, size=TERMINAL)
+        return
+    if which == "widgets":
+        from .bench_floor import SameWidgetsApp
+
+        _until_first_frame(SameWidgetsApp)().run(headless=True, size=TERMINAL)
         return
     from .app import WorkbenchApp
 
@@ -363,23 +373,27 @@ def measure_clearance_curve(repeats: int) -> dict[str, float]:
     return {"whatif_clearance_ms": statistics.median(samples) * 1e3}
 
 
-def measure_startup_ratio(rounds: int | None = None) -> float:
-    """Process time to the first full frame of the workbench on the demo session, divided by
-    that of a minimal Textual app: the median over ``rounds`` rounds, each timing the minimal
-    app and then the workbench, after one untimed run of each (compiled files written, the disk
-    cache warm).  Each round's ratio is taken on its own, so a slow spell of the machine weighs
-    on both sides of it."""
+def measure_startup(rounds: int | None = None) -> dict[str, float]:
+    """``startup_ratio``: process time to the first full frame of the workbench on the demo
+    session, divided by that of a minimal Textual app; and ``startup_floor_ratio``: the same for
+    Textual's widgets of the workbench's first screen with nothing of ours (the part of the first
+    figure that is Textual's).  Each is the median over ``rounds`` rounds, each timing the
+    minimal app, then the floor and the workbench, after one untimed run of each (compiled files
+    written, the disk cache warm).  Each round's ratios are taken on their own, so a slow spell
+    of the machine weighs on both sides of them."""
     for which in FIRST_FRAME_APPS:
         first_frame_process_s(which)
-    ratios = []
+    ratios: dict[str, list[float]] = {"startup_ratio": [], "startup_floor_ratio": []}
     for _ in range(STARTUP_ROUNDS if rounds is None else rounds):
         minimal = first_frame_process_s("minimal")
-        ratios.append(first_frame_process_s("demo") / minimal)
-    return statistics.median(ratios)
+        ratios["startup_floor_ratio"].append(first_frame_process_s("widgets") / minimal)
+        ratios["startup_ratio"].append(first_frame_process_s("demo") / minimal)
+    return {name: statistics.median(values) for name, values in ratios.items()}
 
 
 def main(argv: Sequence[str] | None = None) -> int:
-    """``python -m workbench.tui.bench --first-frame demo|minimal``: one start-up to time."""
+    """``python -m workbench.tui.bench --first-frame demo|minimal|widgets``: one start-up to
+    time."""
     parser = argparse.ArgumentParser(prog="python -m workbench.tui.bench",
                                      description="Run one app headless to its first full frame.")
     parser.add_argument("--first-frame", choices=FIRST_FRAME_APPS, required=True)
