@@ -53,8 +53,8 @@ def fmt(value: float, digits: int = 4) -> str:
     if magnitude != 0 and (magnitude >= 1e7 or magnitude < 1e-4):
         return f"{value:.{digits - 1}e}"
     text = f"{value:.{digits}g}"
-    if "e" in text:  # e.g. 1.235e+05 at 4 digits: write it out in full
-        text = f"{value:.0f}"
+    if "e" in text:  # e.g. 1.235e+05 at 4 digits: written out in full, 123500
+        text = f"{float(text):.0f}"
     return text
 
 
