@@ -345,6 +345,18 @@ def test_scale_text_keeps_what_follows_the_number(text: str, factor: float,
     assert scale_text(text, factor) == expected
 
 
+def test_nudges_compound_to_four_significant_figures() -> None:
+    # 1.2 kN × 1.05³ = 1.38915 kN (closed form); each nudge writes four figures
+    document = Document(rig_session())
+    document.set_field(0, "fr", "1.2 kN")
+    for _ in range(3):
+        assert document.nudge(0, "fr", 1.05) is None
+    assert document.session.cases[0].texts["fr"] == "1.389 kN"
+    for _ in range(3):
+        assert document.nudge(0, "fr", 1 / 1.05) is None
+    assert document.session.cases[0].texts["fr"] == "1.2 kN"  # and back again
+
+
 @pytest.mark.parametrize(("value", "rounding", "expected"), [
     (3.7268014, "nearest", "3.726801"),
     (3.7268014, "up", "3.726802"),

@@ -123,19 +123,19 @@ async def test_engine_refusal_is_shown_beside_its_field(make_app) -> None:
 async def test_nudge_keeps_the_unit_and_the_derivation_follows(make_app) -> None:
     app = make_app()
     async with app.run_test(size=(80, 24)) as pilot:
-        await retype(pilot, app, "fr", "3 kN")
+        await retype(pilot, app, "fr", "3.2 kN")
         await pilot.press("ctrl+up")
         await pilot.pause()
-        assert app.document.session.cases[0].texts["fr"] == "3.15 kN"
+        assert app.document.session.cases[0].texts["fr"] == "3.36 kN"
         await pilot.press("ctrl+shift+down")
         await pilot.pause()
-        assert app.document.session.cases[0].texts["fr"] == "3.1185 kN"  # 3.15 × 0.99
+        assert app.document.session.cases[0].texts["fr"] == "3.326 kN"  # 3.36 × 0.99 = 3.3264
         reference = reference_derivation(app)
         assert selected_result(app).derivation.results == reference.results
         assert format_quantity(reference.results["P"], "force", "SI") in derivation_text(app)
         await pilot.press("ctrl+down")
         await pilot.pause()
-        assert app.document.session.cases[0].texts["fr"] == "2.962575 kN"  # × 0.95
+        assert app.document.session.cases[0].texts["fr"] == "3.16 kN"  # × 0.95 = 3.1597
 
 
 async def test_units_switch_formats_results_and_keeps_typed_text(make_app) -> None:

@@ -53,7 +53,7 @@ from .edits import (
     Together, Touch,
 )
 from .fields import BEARING_FIELDS, FIELD_BY_NAME, FieldError, parse_field
-from .nudge import Rounding, leading_number, number_text, scale_text
+from .nudge import NUDGE_DIGITS, Rounding, leading_number, number_text, scale_text
 from .quantities import format_quantity
 from .session import (
     GEOMETRY_KEYS, Bearing, CaseResult, LoadCase, Session, UNIT_SYSTEMS, case_texts, evaluate_case,
@@ -528,9 +528,10 @@ class Document:
 
     def nudge(self, index: int, name: str, factor: float) -> str | None:
         """Scale the number typed in field ``name`` of case ``index`` by ``factor``, its unit
-        kept (one undo step); None when done, else why not."""
+        kept (one undo step), written with four significant figures (:data:`NUDGE_DIGITS`);
+        None when done, else why not."""
         text = self.texts(index).get(name, "")
-        scaled = scale_text(text, factor)
+        scaled = scale_text(text, factor, digits=NUDGE_DIGITS)
         if scaled is None:
             return "no number to change in this field"
         self.end_run()
