@@ -2,6 +2,8 @@
 
 from __future__ import annotations
 
+import html
+
 import pytest
 from textual.widgets import Select
 
@@ -317,3 +319,20 @@ async def test_a_switch_says_what_is_in_force_on_and_off(make_app) -> None:
         await pilot.press("ctrl+z")
         await pilot.pause()
         assert not box.value and str(box.label) == "V = 1"
+
+
+async def test_a_run_of_undos_shows_one_notice_the_last(make_app) -> None:
+    # five undos in a row once stacked five three-line notices over the panes, top to bottom
+    app = make_app()
+    fields = {"fr": "3.1 kN", "fa": "1.1 kN", "speed": "900 rpm", "af": "1.3", "temp": "55 °C"}
+    async with app.run_test(size=(80, 24), notifications=True) as pilot:
+        for name, text in fields.items():
+            assert app.document.set_field(0, name, text) is None
+            app.document.end_run()
+        for _ in fields:
+            await pilot.press("ctrl+z")
+            await pilot.pause()
+        shown = html.unescape(app.export_screenshot()).replace("\xa0", " ")
+    labels = [FIELD_BY_NAME[name].label for name in fields]
+    assert f"Undone: edit {labels[0]}" in shown  # the last undone: the first edit
+    assert sum(f"Undone: edit {label}" in shown for label in labels) == 1

@@ -348,6 +348,7 @@ class WorkbenchScreen(Screen[None]):
             return
         self.query_one(CaseForm).drop_notes()
         self._changed(getattr(done, "case_index", None))
+        self.app.clear_notifications()  # a run of undos shows the last, not a column over the panes
         self.notify(f"{verb}: {getattr(done, 'label', '')}")
 
     def action_undo(self) -> None:
