@@ -6,8 +6,9 @@ from __future__ import annotations
 import pytest
 from textual.widgets import Header
 
-from tui_helpers import retype, selected, selected_case
+from tui_helpers import derivation_text, retype, selected, selected_case
 
+from workbench.engine.record import fmt
 from workbench.model.quantities import format_quantity
 from workbench.model.session import LoadCase
 from workbench.tui.case_table import CaseTable, row_cells
@@ -70,7 +71,9 @@ async def test_rows_show_the_derived_figures(make_app) -> None:
             row = _list(app).row_texts(index)
             assert row[1:] == row_cells(result, "SI")
             assert row[1] == format_quantity(values["P"], "force", "SI")
-            assert row[2] == (f"{values['Lnm']:.0f}" if values["Lnm"] < 1e6 else ">1e6")
+            assert row[2] == (fmt(values["Lnm"]) if values["Lnm"] < 1e6 else ">1e6")
+        first = _list(app).row_texts(app.workbench_screen.selected)
+        assert f"Lnm = {first[2]} h" in derivation_text(app)  # the list and the pane agree
         assert [str(column.label) for column in _list(app).ordered_columns] == [
             "Load case", "P", "Lnm h", "s0", "Checks"]
 

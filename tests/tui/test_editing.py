@@ -57,7 +57,7 @@ async def test_case_list_row_follows_typing(make_app) -> None:
         reference = reference_derivation(app)
         assert row[0] == "Steady run"
         assert row[1] == format_quantity(reference.results["P"], "force", "SI")
-        assert row[2] == f"{reference.results['Lnm']:.0f}"
+        assert row[2] == fmt(reference.results['Lnm'])
         # Lnm below the 20 000 h target, s0 = 16/7 above 2: only the life is marked missed.
         assert reference.results["Lnm"] < 20000
         assert row[4] == "L✘ s0✔"
@@ -226,7 +226,7 @@ async def test_bearing_field_edit_updates_every_case_on_that_bearing(make_app) -
         peak = app.document.results[1]
         assert peak.inputs is not None and peak.inputs.c == pytest.approx(40_000.0)
         row = app.workbench_screen.query_one(CaseTable).row_texts(1)
-        assert row[2] == f"{peak.derivation.results['Lnm']:.0f}"
+        assert row[2] == fmt(peak.derivation.results['Lnm'])
 
 
 async def test_names_that_look_like_markup_are_shown_as_written(make_app) -> None:

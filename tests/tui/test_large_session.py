@@ -14,6 +14,7 @@ import json
 
 from tui_helpers import retype, write_report
 
+from workbench.engine.record import fmt
 from workbench.model.sample_sessions import (
     SHARED_BEARING, SHARED_SPEED_RPM, shared_bearing_session, shared_fr_kn,
 )
@@ -56,14 +57,14 @@ async def test_thousand_cases_open_edit_a_shared_bearing_and_report(tmp_path) ->
         await pilot.pause()
         table = app.workbench_screen.query_one(CaseTable)
         assert table.row_count == CASES
-        assert shown_life(table, 0) == f"{closed_form_lnm_h(33.0, shared_fr_kn(1)):.0f}"
+        assert shown_life(table, 0) == fmt(closed_form_lnm_h(33.0, shared_fr_kn(1)))
 
         await retype(pilot, app, "c", "40 kN")  # the bearing every shared case uses
         assert document.session.bearing(SHARED_BEARING).texts["c"] == "40 kN"
         # the rows on show are current at once, before the worker has run
         for row in range(5):
             assert shown_life(table, row) == \
-                f"{closed_form_lnm_h(40.0, shared_fr_kn(row + 1)):.0f}", row
+                fmt(closed_form_lnm_h(40.0, shared_fr_kn(row + 1))), row
 
         await until_derived(pilot, app)
         for index in shared:
@@ -76,10 +77,10 @@ async def test_thousand_cases_open_edit_a_shared_bearing_and_report(tmp_path) ->
         await pilot.pause()
         assert app.workbench_screen.selected == last
         assert shown_life(table, last) == \
-            f"{closed_form_lnm_h(40.0, shared_fr_kn(last + 1)):.0f}"
+            fmt(closed_form_lnm_h(40.0, shared_fr_kn(last + 1)))
 
         await retype(pilot, app, "fr", "5 kN")  # a field of the last case alone
-        assert shown_life(table, last) == f"{closed_form_lnm_h(40.0, 5.0):.0f}"
+        assert shown_life(table, last) == fmt(closed_form_lnm_h(40.0, 5.0))
 
         await write_report(pilot, app, tmp_path / "large.json", "json", rounds=400)
     written = json.loads((tmp_path / "large.json").read_text(encoding="utf-8"))

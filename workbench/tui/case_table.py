@@ -48,12 +48,14 @@ LIFE_LIMIT_H = 1e6
 
 
 def life_text(hours: float) -> str:
-    """A life in hours for the list: whole hours, ">1e6" past a million, "—" undefined."""
+    """A life in hours for the list: four significant figures as the derivation writes it
+    ("35670", not "35671" beside the derivation's "Lnm = 35670 h"), ">1e6" past a million,
+    "—" undefined."""
     if math.isnan(hours):
         return "—"
     if hours > LIFE_LIMIT_H:
         return ">1e6"
-    return f"{hours:.0f}"
+    return fmt(hours)
 
 
 def checks_text(result: CaseResult) -> str:
