@@ -15,7 +15,8 @@ from tui_sessions import rig_session  # noqa: E402
 from workbench.engine.record import InputError  # noqa: E402
 from workbench.model.document import Document  # noqa: E402
 from workbench.model.nudge import number_text, scale_text  # noqa: E402
-from workbench.model.sessionfile import load_session  # noqa: E402
+from workbench.model.session import Session  # noqa: E402
+from workbench.model.sessionfile import dumps_session, load_session, loads_session  # noqa: E402
 
 DEMO = Path(__file__).parents[2] / "sessions" / "demo.toml"
 
@@ -367,3 +368,43 @@ def test_nudges_compound_to_four_significant_figures() -> None:
 def test_number_text_rounds_at_the_seventh_figure(value: float, rounding: str,
                                                   expected: str) -> None:
     assert number_text(value, rounding) == expected  # type: ignore[arg-type]
+
+
+def _reopened(document: Document) -> Session:
+    """The document's session as a file of it reads back (refused files raise)."""
+    return loads_session(dumps_session(document.session))
+
+
+def test_a_renamed_case_is_renamed_in_its_duty_cycle_and_the_file_opens_again() -> None:
+    # renaming a case a duty cycle names wrote a file that refused to open
+    document = Document(load_session(DEMO))
+    cycle = document.session.reserved["duty_cycles"][0]
+    named = cycle["states"][0]["case"]
+    index = next(i for i, case in enumerate(document.session.cases) if case.name == named)
+    assert document.rename_case(index, "Locating end, rated") is None
+    assert cycle["states"][0]["case"] == "Locating end, rated"
+    assert _reopened(document).reserved["duty_cycles"][0]["states"][0]["case"] == \
+        "Locating end, rated"
+    document.undo()
+    assert cycle["states"][0]["case"] == named
+
+
+def test_a_case_in_a_duty_cycle_is_not_deleted_and_says_why() -> None:
+    document = Document(load_session(DEMO))
+    cycle = document.session.reserved["duty_cycles"][0]
+    named = cycle["states"][0]["case"]
+    index = next(i for i, case in enumerate(document.session.cases) if case.name == named)
+    problem = document.delete_problem(index)
+    assert problem is not None and cycle["name"] in problem
+    assert document.delete_case(index) is None
+    assert named in {case.name for case in _reopened(document).cases}
+
+
+def test_a_solver_question_on_a_deleted_case_is_left_out_of_the_file() -> None:
+    # deleting the case the solver asked about wrote a file that refused to open
+    document = Document(load_session(DEMO))
+    free = next(i for i, case in enumerate(document.session.cases)
+                if document.delete_problem(i) is None)
+    document.session.solver.case = document.session.cases[free].name
+    assert document.delete_case(free) is not None
+    assert _reopened(document).solver.case == ""

@@ -335,6 +335,18 @@ def test_session_with_shafts_and_duty_cycles_round_trips() -> None:
     assert session_duty_cycles(again) == [DutyCycle("D1", [("C1", "1"), ("S2 · fast · A", "0.5")])]
 
 
+def test_a_solver_question_on_a_case_made_from_a_shaft_saves_and_opens_again() -> None:
+    # solving on a shaft's generated case and saving wrote a file that refused to open
+    session = loads_session(SHAFT_FILE)
+    session.solver = replace(session.solver, case="S2 · fast · A")
+    again = loads_session(dumps_session(session))
+    assert again.solver.case == "S2 · fast · A"
+    written = dumps_session(session)
+    assert 'case = "S2 · fast · A"' in written
+    with pytest.raises(SessionFileError, match="nor generated from one of its shafts"):
+        loads_session(written.replace("S2 · fast · A", "S2 · slow · A"))  # a typed slip
+
+
 def test_shaft_values_unchecked_for_a_recovery_copy() -> None:
     text = SHAFT_FILE.replace('helix_angle = "15°"', 'helix_angle = "15 k"')
     assert loads_session(text, check_values=False).reserved["shafts"][1]["elements"][1][

@@ -43,6 +43,7 @@ from ..engine.derive import CaseInputs
 from ..engine.record import InputError
 from ..engine.solve import UNKNOWNS, Solution, solve
 from .analysis import SessionAnalysis, analyse_extras
+from .duty_cycles import state_tables
 
 if TYPE_CHECKING:
     from .safe_write import FileStamp
@@ -600,10 +601,24 @@ class Document:
             self.apply(RenameCase(index, name.strip()), "rename case", case_index=index)
         return None
 
-    def delete_case(self, index: int) -> str | None:
-        """Delete own case ``index`` (undoable); its name, or None for none or a generated one."""
+    def delete_problem(self, index: int) -> str | None:
+        """Why case ``index`` cannot be deleted (a duty cycle has it as a state), or None."""
         case = self.case(index)
-        if case is None or index >= len(self.session.cases):
+        if case is None:
+            return None
+        cycles = sorted({str(cycle.get("name", "")) for cycle, state
+                         in state_tables(self.session.reserved.get("duty_cycles"))
+                         if state.get("case") == case.name})
+        if not cycles:
+            return None
+        return (f"{case.name} is a state of duty cycle {', '.join(cycles)}: take it out of the "
+                "cycle first (alt+y)")
+
+    def delete_case(self, index: int) -> str | None:
+        """Delete own case ``index`` (undoable); its name, or None for none, a generated one or
+        one a duty cycle has as a state (:meth:`delete_problem` says why)."""
+        case = self.case(index)
+        if case is None or index >= len(self.session.cases) or self.delete_problem(index):
             return None
         self.apply(Remove("cases", index), f"delete case {case.name}",
                    case_index=min(index, len(self.session.cases) - 2))

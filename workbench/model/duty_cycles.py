@@ -35,7 +35,7 @@ Table layout (TOML, every value text)::
 from __future__ import annotations
 
 import math
-from collections.abc import Callable, Mapping, Sequence
+from collections.abc import Callable, Iterator, Mapping, Sequence
 from dataclasses import dataclass, field
 from typing import Any
 
@@ -133,6 +133,16 @@ def duty_cycle_to_table(cycle: DutyCycle) -> dict[str, Any]:
 def duty_cycles_from_tables(value: object, key: str = "duty_cycles") -> list[DutyCycle]:
     """Every cycle of a ``[[duty_cycles]]`` array of tables; names must differ."""
     return named_tables(value, key, duty_cycle_from_table, "duty cycle")
+
+
+def state_tables(value: object) -> Iterator[tuple[dict[str, Any], dict[str, Any]]]:
+    """Each state table of a ``[[duty_cycles]]`` array as read, with its cycle's table, to read
+    or change in place; what is not a table is passed over (the file's reader reports it)."""
+    for cycle in value if isinstance(value, list) else ():
+        states = cycle.get("states") if isinstance(cycle, dict) else None
+        for state in states if isinstance(states, list) else ():
+            if isinstance(state, dict):
+                yield cycle, state
 
 
 def duty_cycles_to_tables(cycles: Sequence[DutyCycle]) -> list[dict[str, Any]]:

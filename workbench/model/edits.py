@@ -15,6 +15,7 @@ from __future__ import annotations
 from dataclasses import dataclass, field
 from typing import Literal, Protocol
 
+from .duty_cycles import state_tables
 from .session import Bearing, LoadCase, Session
 
 Owner = Literal["case", "bearing", "geometry"]
@@ -154,7 +155,8 @@ class MoveCase:
 
 @dataclass(frozen=True)
 class RenameCase:
-    """Rename own case ``index``; the solver's question follows the name."""
+    """Rename own case ``index``; the solver's question and the duty cycles' states that name
+    it follow the name (a file whose duty cycle names a case it lacks is refused on opening)."""
 
     index: int
     name: str
@@ -165,6 +167,9 @@ class RenameCase:
         before = case.name
         if session.solver.case == before:
             session.solver.case = self.name
+        for _, state in state_tables(session.reserved.get("duty_cycles")):
+            if state.get("case") == before:
+                state["case"] = self.name
         case.name = self.name
         return RenameCase(self.index, before)
 

@@ -317,11 +317,11 @@ class _Reader:
             raise self.fail(("session", "units"), f"use {' or '.join(UNIT_SYSTEMS)}, not {quoted(units)}")
         bearings = self.bearings(doc)
         cases = self.cases(doc, {b.name for b in bearings})
+        case_names = {c.name for c in cases}
         if self.check_values:
             shafts = self.shafts(doc, {b.name for b in bearings})
-            self.duty_cycles(doc, {c.name for c in cases} | {
-                case_name(shaft, state, side)
-                for shaft in shafts for state in shaft.states for side in SIDES})
+            case_names |= _generated_case_names(shafts)
+            self.duty_cycles(doc, case_names)
         return Session(
             title=self.text(head, ("session",), "title", Session.title),
             project=self.text(head, ("session",), "project"),
@@ -332,7 +332,7 @@ class _Reader:
             targets=self.targets(doc),
             bearings=bearings,
             cases=cases,
-            solver=self.solver(doc, {c.name for c in cases}),
+            solver=self.solver(doc, case_names),
             reserved={name: doc[name] for name in RESERVED_TABLES if name in doc},
         )
 
@@ -456,7 +456,8 @@ class _Reader:
                                     "from one of its shafts")
 
     def solver(self, doc: Mapping[str, Any], case_names: set[str]) -> SolverSetup:
-        """The [solver] table: a known unknown, a readable target, an existing case (or none)."""
+        """The [solver] table: a known unknown, a readable target, a case of the file or one
+        generated from its shafts (or none)."""
         path: KeyPath = ("solver",)
         table = self.table(doc.get("solver", {}), path, SOLVER_KEYS)
         setup = SolverSetup(**{k: self.text(table, path, k, getattr(SolverSetup, k))
@@ -471,7 +472,8 @@ class _Reader:
         except FieldError as exc:
             raise self.fail(path + ("target",), exc.message) from None
         if setup.case and setup.case not in case_names:
-            raise self.fail(path + ("case",), f"no case called {quoted(setup.case)} in this file")
+            raise self.fail(path + ("case",), f"no case called {quoted(setup.case)} in this file, "
+                                              "nor generated from one of its shafts")
         return setup
 
 
@@ -500,6 +502,23 @@ def _field_table(head: dict[str, str], texts: Mapping[str, str], names: tuple[st
     if stray:
         raise ValueError(f"{owner} holds {', '.join(map(repr, stray))}, not a field it can have")
     return head | {name: texts[name] for name in names if name in texts}
+
+
+def _case_names(session: Session) -> set[str]:
+    """Every case a file of ``session`` can name: its own and those its shafts make (the
+    shafts' cases only while its shaft tables read)."""
+    own = {case.name for case in session.cases}
+    try:
+        shafts = shafts_from_tables(session.reserved.get("shafts", []))
+    except FieldError:
+        return own
+    return own | _generated_case_names(shafts)
+
+
+def _generated_case_names(shafts: list[Shaft]) -> set[str]:
+    """The names of the cases ``shafts`` make: one per state and bearing side."""
+    return {case_name(shaft, state, side)
+            for shaft in shafts for state in shaft.states for side in SIDES}
 
 
 def dumps_session(session: Session) -> str:
@@ -533,6 +552,10 @@ def dumps_session(session: Session) -> str:
             for c in session.cases
         ]
     doc["solver"] = {key: getattr(session.solver, key) for key in SOLVER_KEYS}
+    if session.solver.case not in _case_names(session):
+        # the question's case was deleted or renamed with its shaft: the file is written
+        # without it, since a file naming a case it lacks is refused on opening
+        doc["solver"]["case"] = ""
     # in one order, however they were added: a file written, read and written again is the same
     doc.update({name: session.reserved[name] for name in RESERVED_TABLES if name in session.reserved})
     import tomli_w  # imported on the first save, not when the workbench starts

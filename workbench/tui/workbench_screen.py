@@ -326,6 +326,10 @@ class WorkbenchScreen(Screen[None]):
         """Delete the selected case (ctrl+z brings it back)."""
         if self._refuse_generated():
             return
+        problem = self.document.delete_problem(self.selected)
+        if problem is not None:
+            self.notify(problem, severity="warning")
+            return
         name = self.document.delete_case(self.selected)
         if name is None:
             self.notify("No case to delete", severity="warning")
