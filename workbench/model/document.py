@@ -816,13 +816,14 @@ class Document:
                  between: tuple[str, str] = ("", "")) -> Question:
         """The reverse question for case ``index``: back-solve ``unknown`` for a target like
         "Lnm=20000 h", searching the unknown's whole range or ``between`` two typed values;
-        kept in the session as its solver setup.
+        kept in the session as its solver setup (a target that was following the session's life
+        target and is that target still follows it).
 
         Raises FieldError for a target that cannot be read and InputError when the case cannot
         be derived.  Solve it with :meth:`Question.solve` (on any thread) and hand the answer
         to :meth:`answer`.
         """
-        from .targets import parse_between, parse_target_text
+        from .targets import kept_solver_target, parse_between, parse_target_text
 
         result = self.result(index)
         if result is None:
@@ -832,7 +833,8 @@ class Document:
         target, value = parse_target_text(target_text)
         search = parse_between(unknown, between)
         solver = self.session.solver
-        solver.unknown, solver.target, solver.case = unknown, target_text.strip(), result.case.name
+        solver.target = kept_solver_target(self.session, target_text)
+        solver.unknown, solver.case = unknown, result.case.name
         return Question(result.case.name, self.revision, result.inputs, unknown, target, value,
                         search)
 

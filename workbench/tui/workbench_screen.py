@@ -116,7 +116,7 @@ class WorkbenchScreen(Screen[None]):
                     yield DerivationPane(document, id="derivation-view").data_bind(
                         WorkbenchScreen.view)
                 with TabPane("Solver", id="solver"):
-                    yield PaneLazy(SolverPane(document.session.solver, id="solver-view").data_bind(
+                    yield PaneLazy(SolverPane(document, id="solver-view").data_bind(
                         WorkbenchScreen.view))
                 with TabPane("What-if", id="whatif"):
                     yield PaneLazy(WhatIfPane(document, id="whatif-view").data_bind(
@@ -720,7 +720,7 @@ class WorkbenchScreen(Screen[None]):
         self.document.replace(session, path, dirty=dirty)
         self.document.stamp = stamp
         if (pane := self._solver()) is not None:
-            pane.load(session.solver)
+            pane.load()
             pane.show_note("")
         self.query_one(CaseForm).drop_notes()
         self._changed(0)
