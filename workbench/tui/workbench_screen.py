@@ -285,10 +285,19 @@ class WorkbenchScreen(Screen[None]):
         return problem is not None
 
     def action_add_case(self) -> None:
-        """Add an empty load case after the selected one."""
-        index = self.document.add_case(self.selected)
+        """Add an empty load case after the selected one (after the session's own cases when
+        a generated one is selected: those follow their shafts), and select it."""
+        document = self.document
+        on_generated = document.generated_problem(self.selected) is not None
+        index = document.add_case(self.selected)
         self._changed(index)
-        self.notify(f"Added {self.document.case(index).name}: give its loads in the form")
+        name = document.case(index).name
+        if on_generated:  # it cannot go among them: say where it went
+            after = f"after {document.case(index - 1).name}" if index else "first"
+            self.notify(f"Added {name} {after}, above the cases made from shafts: give its "
+                        "loads in the form")
+        else:
+            self.notify(f"Added {name}: give its loads in the form")
 
     def action_duplicate_case(self) -> None:
         """Copy the selected load case."""
