@@ -92,6 +92,18 @@ def test_structural_edits_and_their_undo() -> None:
     assert [c.name for c in document.session.cases] == ["Steady run", "Peak torque", "Idler end"]
 
 
+def test_move_problem_says_why_a_case_cannot_move() -> None:
+    document = Document(rig_session())
+    assert document.move_problem(0, -1) == "Steady run is the first case already"
+    assert document.move_problem(2, 1) == "Idler end is the last case already"
+    assert document.move_problem(1, 1) is None and document.move_problem(1, -1) is None
+    assert document.move_problem(5, 1) == "no load case is selected"
+    demo = Document(load_session(DEMO))
+    last_own = len(demo.session.cases) - 1
+    assert "the cases made from shafts stay below" in demo.move_problem(last_own, 1)
+    assert demo.move_problem(last_own + 1, -1) == demo.generated_problem(last_own + 1)
+
+
 def test_empty_session_is_safe() -> None:
     document = Document(rig_session(0))
     assert document.case(0) is None and document.result(0) is None

@@ -157,3 +157,31 @@ async def test_a_case_added_on_a_generated_case_comes_after_the_own_cases_in_vie
         top = round(table.scroll_y)
         assert top <= own - 1 and own + 1 < top + table.scrollable_content_region.height - 1
         assert f"Added {added.name} after {last_own}" in app.notices_given[-1].message
+
+
+async def test_a_case_that_cannot_move_says_why() -> None:
+    """alt+↑ on the first case, alt+↓ on the last of the session's own cases (the cases made
+    from shafts stay below them) and either on a generated case move nothing and say why in a
+    notice; they used to say nothing."""
+    session = load_session(SESSIONS / "demo.toml")
+    own = len(session.cases)
+    names = [case.name for case in session.cases]
+    app = WorkbenchApp(session, None, offer_recovery=False, autosave_delay=None)
+    async with app.run_test(size=(80, 24)) as pilot:
+        app.workbench_screen.query_one(CaseTable).focus()
+
+        async def press(*keys: str) -> str:
+            given = len(app.__dict__.setdefault("notices_given", []))
+            await pilot.press(*keys)
+            await pilot.pause()
+            notices = app.notices_given[given:]
+            assert [case.name for case in app.document.session.cases] == names
+            assert len(notices) == 1 and notices[0].severity == "warning"
+            return notices[0].message
+
+        assert await press("alt+up") == f"{names[0]} is the first case already"
+        assert "last of the session's own cases" in await press(*["down"] * (own - 1),
+                                                                 "alt+down")
+        assert app.workbench_screen.selected == own - 1
+        assert "edit the shaft, not the case" in await press("down", "alt+up")
+        assert not app.document.dirty

@@ -609,6 +609,23 @@ class Document:
                    case_index=min(index, len(self.session.cases) - 2))
         return case.name
 
+    def move_problem(self, index: int, delta: int) -> str | None:
+        """Why case ``index`` cannot move up (−1) or down (+1), or None when it can."""
+        case = self.case(index)
+        if case is None:
+            return "no load case is selected"
+        if (generated := self.generated_problem(index)) is not None:
+            return generated
+        own = len(self.session.cases)
+        if 0 <= index + delta < own:
+            return None
+        if delta < 0:
+            return f"{case.name} is the first case already"
+        if own < len(self.results):
+            return (f"{case.name} is the last of the session's own cases; the cases made from "
+                    "shafts stay below them")
+        return f"{case.name} is the last case already"
+
     def move_case(self, index: int, delta: int) -> int | None:
         """Move own case ``index`` up (−1) or down (+1); its new index, or None at the end."""
         target = index + delta

@@ -343,8 +343,10 @@ class WorkbenchScreen(Screen[None]):
         self.notify(f"Deleted {name} (ctrl+z brings it back)")
 
     def action_move_case(self, delta: int) -> None:
-        """Move the selected case up or down the list."""
-        if self._refuse_generated():
+        """Move the selected case up or down the list, or say why it cannot move."""
+        problem = self.document.move_problem(self.selected, delta)
+        if problem is not None:
+            self.notify(problem, severity="warning")
             return
         index = self.document.move_case(self.selected, delta)
         if index is not None:
