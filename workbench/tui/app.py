@@ -181,10 +181,7 @@ class WorkbenchApp(App[int]):
             elif answer == "save":
                 self.workbench_screen.save(then=lambda: self.exit(0))
 
-        self.push_screen(ChoiceDialog(
-            "Unsaved changes", "This session has changes that are not saved.",
-            [("save", "Save and quit"), ("quit", "Quit without saving"), ("stay", "Stay")]),
-            answered)
+        self.push_screen(ChoiceDialog(files.UNSAVED_TITLE, *files.UNSAVED_BEFORE_QUIT), answered)
 
     # ---- recovery ---------------------------------------------------------------------------
     def _ask_about_recovery(self) -> None:

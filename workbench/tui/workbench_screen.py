@@ -617,18 +617,20 @@ class WorkbenchScreen(Screen[None]):
 
     # ---- files ------------------------------------------------------------------------------
     def save_to(self, path: Path, then: Callable[[], object] | None = None, *,
-                confirmed: frozenset[str] = frozenset()) -> None:
+                confirmed: frozenset[str] = frozenset(), not_done: str = "") -> None:
         """Write the session to ``path`` and report what the writer said; when the file there
         is not a session, holds another one or changed on disk since it was read here, ask
-        first (:meth:`_ask_before_saving`); ``then`` runs once it is saved."""
+        first (:meth:`_ask_before_saving`); ``then`` runs once it is saved, and a refusal says
+        ``not_done`` (what ``then`` would have done) after its reason."""
         document = self.document
         outcome = files.save(document.session, path, read_stamp=document.stamp,
                              confirmed=confirmed)
         if outcome.question is not None:
-            self._ask_before_saving(outcome, then, confirmed)
+            self._ask_before_saving(outcome, then, confirmed, not_done)
             return
         if outcome.error is not None:
-            self.notify(outcome.error, title="Not saved", severity="error")
+            self.notify(f"{outcome.error}; {not_done}" if not_done else outcome.error,
+                        title="Not saved", severity="error")
             return
         for saved_from in {document.path, path}:
             files.discard_recovery_copy(saved_from)
@@ -644,7 +646,7 @@ class WorkbenchScreen(Screen[None]):
         if then is not None:
             then()
 
-    def save_as(self, then: Callable[[], object] | None = None) -> None:
+    def save_as(self, then: Callable[[], object] | None = None, not_done: str = "") -> None:
         """Ask for a file name and save there."""
         from .dialogs import PathSuggester, TextPrompt
 
@@ -652,7 +654,7 @@ class WorkbenchScreen(Screen[None]):
 
         def chosen(text: str | None) -> None:
             if text and text.strip():
-                self.save_to(Path(text.strip()).expanduser(), then)
+                self.save_to(Path(text.strip()).expanduser(), then, not_done=not_done)
 
         self.app.push_screen(
             TextPrompt("Save session as", str(current) if current else DEFAULT_SAVE_NAME,
@@ -660,12 +662,13 @@ class WorkbenchScreen(Screen[None]):
                        suggester=PathSuggester()),
             chosen)
 
-    def save(self, then: Callable[[], object] | None = None) -> None:
-        """Save to the session's file, asking for one the first time."""
+    def save(self, then: Callable[[], object] | None = None, not_done: str = "") -> None:
+        """Save to the session's file, asking for one the first time; ``then`` runs once it
+        is saved, and a refusal says ``not_done`` after its reason."""
         if self.document.path is None:
-            self.save_as(then)
+            self.save_as(then, not_done)
         else:
-            self.save_to(self.document.path, then)
+            self.save_to(self.document.path, then, not_done=not_done)
 
     def action_save(self) -> None:
         """Save the session."""
@@ -695,20 +698,22 @@ class WorkbenchScreen(Screen[None]):
             self.open_session(session, opened.path, stamp=opened.outcome.stamp)
 
         def ask_path(answer: str | None = "discard") -> None:
-            if answer == "discard":
+            if answer == "save":  # the file to open is chosen once this session is saved
+                self.save(then=ask_path, not_done=files.NOT_OPENED)
+            elif answer == "discard":
                 folder = str(self.document.path.parent) + "/" if self.document.path else ""
                 self.app.push_screen(OpenDialog(folder), chosen)
 
         if self.document.dirty:
-            self.app.push_screen(ChoiceDialog(
-                "Unsaved changes", "Open another file and drop the changes made here?",
-                [("discard", "Drop changes and open"), ("stay", "Stay")]), ask_path)
+            self.app.push_screen(ChoiceDialog(files.UNSAVED_TITLE, *files.UNSAVED_BEFORE_OPEN),
+                                 ask_path)
         else:
             ask_path()
 
     def _ask_before_saving(self, outcome: FileOutcome, then: Callable[[], object] | None,
-                           confirmed: frozenset[str]) -> None:
-        """Ask the question ``outcome`` holds, then save as answered (``then`` runs once saved)."""
+                           confirmed: frozenset[str], not_done: str = "") -> None:
+        """Ask the question ``outcome`` holds, then save as answered (``then`` runs once saved;
+        a refusal says ``not_done``)."""
         from .dialogs import SaveQuestion
 
         assert outcome.question is not None and outcome.path is not None
@@ -718,9 +723,9 @@ class WorkbenchScreen(Screen[None]):
 
         def answered(answer: str | None) -> None:
             if answer == "replace":
-                self.save_to(path, then, confirmed=confirmed | {kind})
+                self.save_to(path, then, confirmed=confirmed | {kind}, not_done=not_done)
             elif answer == "elsewhere":
-                self.save_as(then)
+                self.save_as(then, not_done)
 
         backup = clipped_path(path.with_name(path.name + ".bak"))
         self.app.push_screen(SaveQuestion(kind, outcome.error or str(path), backup), answered)
