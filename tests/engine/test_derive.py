@@ -12,7 +12,7 @@ from hypothesis import given, settings
 from hypothesis import strategies as st
 
 from workbench.engine.derive import CaseInputs, derive
-from workbench.engine.kinds import Kind
+from workbench.engine.kinds import KIND_WORDS, Kind, unread_inputs
 from workbench.engine.record import InputError
 
 BASE = CaseInputs(kind="deep-groove", fr=5200.0, fa=2500.0, c=33000.0, c0=19000.0, f0=14.0,
@@ -203,6 +203,63 @@ def test_every_kind_derives(kind: str) -> None:
     assert all(step.source for step in d.steps)
     assert d.results["L10"] == pytest.approx((60000.0 / d.results["P"]) ** (
         10 / 3 if kind in ("cylindrical", "tapered", "spherical", "thrust-roller") else 3))
+
+
+def _same_results(one: dict[str, float], other: dict[str, float]) -> bool:
+    """Equal results, NaN equal to NaN (a cylindrical bearing's e)."""
+    return one.keys() == other.keys() and all(
+        a == b or (math.isnan(a) and math.isnan(b)) for a, b in
+        ((one[key], other[key]) for key in one))
+
+
+PROBES = {"contact_angle": 14.0, "e_given": 0.45, "y_given": 1.4, "f0": 13.0}
+"""A plausible value of each input the case form may show as not used, other than the base
+case's (a thrust bearing's contact angle: 60°, a tabulated thrust-ball angle)."""
+READ_ELSEWHERE = {("deep-groove", "contact_angle"): "the internal analysis (ball curvature)",
+                  ("angular-contact", "contact_angle"): "the tabulated angles only: 14° is none"}
+"""Inputs a kind reads that a probe cannot show through ``derive`` (said why)."""
+
+
+@pytest.mark.parametrize("kind", [kind.value for kind in Kind])
+def test_inputs_said_unread_change_nothing_and_the_others_do(kind: str) -> None:
+    """``unread_inputs`` against what ``derive`` does: an input said unread for a kind leaves
+    every result and warning as it was; one not said unread changes a result (the base case
+    reads the Table 3 index at 15° for angular-contact, where f0 enters)."""
+    fr, fa, alpha = 4000.0, 1500.0, None
+    if kind in ("thrust-ball", "thrust-roller"):
+        fr = 0.0
+    if kind in ("tapered", "spherical", "self-aligning"):
+        alpha = 12.0
+    if kind == "angular-contact":
+        alpha = 15.0
+    arrangement = "double-row" if kind in ("spherical", "self-aligning") else "single"
+    base = CaseInputs(kind=kind, arrangement=arrangement, fr=fr, fa=fa, c=60000.0, c0=50000.0,
+                      contact_angle=alpha, speed=900.0)
+    plain = derive(base, keep_steps=False)
+    unread = unread_inputs(Kind(kind))
+    for name, probe in PROBES.items():
+        if (kind, name) in READ_ELSEWHERE:
+            assert name not in unread
+            continue
+        if name == "contact_angle" and kind in ("thrust-ball", "thrust-roller"):
+            probe = 60.0
+        given = derive(replace(base, **{name: probe}), keep_steps=False)
+        same = _same_results(plain.results, given.results) and plain.warnings == given.warnings
+        assert same == (name in unread), (name, unread.get(name))
+    assert all(reason.startswith(f"not used for a {KIND_WORDS[Kind(kind)]}: ")
+               for reason in unread.values())
+
+
+def test_a_deep_groove_contact_angle_is_read_by_the_internal_analysis() -> None:
+    """The one input of ``READ_ELSEWHERE`` that ``derive`` ignores: the internal analysis places
+    a deep-groove bearing's balls by it, so the case form keeps it open."""
+    from internal_examples import BALL
+
+    from workbench.engine.internal.analysis import analyse_internal
+
+    angled = analyse_internal(replace(BALL, fa=1000.0, alpha_deg=10.0), keep_steps=False).results
+    level = analyse_internal(replace(BALL, fa=1000.0), keep_steps=False).results
+    assert angled["Q_max"] != pytest.approx(level["Q_max"], rel=1e-6)
 
 
 loads = st.floats(min_value=10.0, max_value=40000.0)

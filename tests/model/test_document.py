@@ -17,6 +17,7 @@ from workbench.model.document import Document  # noqa: E402
 from workbench.model.nudge import number_text, scale_text  # noqa: E402
 from workbench.model.session import Session  # noqa: E402
 from workbench.model.sessionfile import dumps_session, load_session, loads_session  # noqa: E402
+from workbench.model.targets import solver_target  # noqa: E402
 
 DEMO = Path(__file__).parents[2] / "sessions" / "demo.toml"
 
@@ -92,6 +93,18 @@ def test_structural_edits_and_their_undo() -> None:
     assert [c.name for c in document.session.cases] == ["Steady run", "Peak torque", "Idler end"]
 
 
+def test_move_problem_says_why_a_case_cannot_move() -> None:
+    document = Document(rig_session())
+    assert document.move_problem(0, -1) == "Steady run is the first case already"
+    assert document.move_problem(2, 1) == "Idler end is the last case already"
+    assert document.move_problem(1, 1) is None and document.move_problem(1, -1) is None
+    assert document.move_problem(5, 1) == "no load case is selected"
+    demo = Document(load_session(DEMO))
+    last_own = len(demo.session.cases) - 1
+    assert "the cases made from shafts stay below" in demo.move_problem(last_own, 1)
+    assert demo.move_problem(last_own + 1, -1) == demo.generated_problem(last_own + 1)
+
+
 def test_empty_session_is_safe() -> None:
     document = Document(rig_session(0))
     assert document.case(0) is None and document.result(0) is None
@@ -147,6 +160,24 @@ def test_the_applied_value_meets_its_own_target() -> None:
         achieved = document.result(0).derivation.results[name]
         assert achieved >= float(value.split()[0])  # every target is a least value
         document.undo()
+
+
+def test_a_solver_question_follows_the_life_target_until_given_its_own() -> None:
+    """A practising engineer's expectation: the session's life target is the solver's until
+    the solver is given another; a target the solver was given stays when the session's moves."""
+    session = rig_session()
+    session.solver.target = ""
+    document = Document(session)
+    assert solver_target(session) == "Lnm=20000 h"
+    document.question(0, "c", "Lnm=20000 h")  # asked as shown: still following
+    assert session.solver.target == ""
+    document.set_details({}, {"life": "40000 h"})
+    assert solver_target(session) == "Lnm=40000 h"
+    document.question(0, "c", "Lnm=25000 h")  # a target of its own
+    document.set_details({}, {"life": "50000 h"})
+    assert solver_target(session) == "Lnm=25000 h"
+    document.question(0, "c", "Lnm=50000 h")  # its own, now equal to the session's: still its own
+    assert session.solver.target == "Lnm=50000 h"
 
 
 def test_a_case_field_derives_only_its_case(derived: list[str]) -> None:

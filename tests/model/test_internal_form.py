@@ -83,6 +83,17 @@ def test_internal_for_a_session_case_takes_its_loads_and_lubrication() -> None:
     assert "Lnmr" in result.results and math.isfinite(result.results["Lnmr"])
 
 
+def test_a_cylindrical_bearings_stale_contact_angle_is_not_read() -> None:
+    """The case form shows a cylindrical bearing's contact angle as not used (α = 0 by its
+    construction, ISO 281:2007 §7.2), so the inside view must not read one left from another
+    kind either: it used to refuse the case with "a cylindrical roller bearing has α = 0°"."""
+    case = CaseInputs(kind="cylindrical", fr=20000.0, c=90000.0, c0=95000.0, speed=1000.0,
+                      contact_angle=40.0)
+    geometry = {"elements": "14", "dw": "11 mm", "dpw": "70 mm", "lwe": "11 mm"}
+    result = internal_for_case(case, geometry, {})
+    assert result.inputs.alpha_deg == 0.0 and result.results["Q_max"] > 0.0
+
+
 def test_clearance_curve_for_a_session_case() -> None:
     points = clearance_curve_for_case(CASE, GEOMETRY, {"preload": "800 N"}, count=15)
     assert len(points) == 15

@@ -25,6 +25,7 @@ from workbench.model.fields import BEARING_FIELDS, CASE_FIELDS, FIELD_BY_NAME, I
 from workbench.engine.internal.distribution import PROFILES
 from workbench.model.session import Bearing, LoadCase, Session, SolverSetup, Targets
 from workbench.model.shafts import Element, OperatingState, Shaft, shaft_to_table
+from workbench.model.targets import solver_target
 from workbench.model.sessionfile import (
     SessionFileError,
     demo_session_path,
@@ -101,7 +102,8 @@ def sessions(draw: st.DrawFn) -> Session:
     target_value = st.floats(1.0, 1e5).map(lambda v: f"{v:.5g}")
     solver = SolverSetup(
         draw(st.sampled_from(sorted(UNKNOWNS))),
-        f"{draw(st.sampled_from(sorted(TARGETS)))}={draw(target_value)}",
+        draw(st.sampled_from(("",  # blank: the session's life target
+                              f"{draw(st.sampled_from(sorted(TARGETS)))}={draw(target_value)}"))),
         draw(st.sampled_from([""] + [c.name for c in cases])),
     )
     targets = Targets(draw(st.one_of(st.just(""), target_value.map(lambda v: f"{v} h"))),
@@ -158,6 +160,16 @@ def test_demo_session_is_shipped_in_the_package() -> None:
     path = demo_session_path()
     assert path.name == "demo.toml" and path.is_file()
     assert load_session(path).solver.case
+
+
+def test_a_solver_without_a_target_follows_the_life_target_and_is_written_without_one() -> None:
+    session = loads_session('schema = 1\n[targets]\nlife = "30000 h"\n[solver]\nunknown = "c"\n')
+    assert session.solver.target == ""
+    assert solver_target(session) == "Lnm=30000 h"
+    assert "target" not in tomllib.loads(dumps_session(session))["solver"]
+    session.solver.target = "L10h=12000 h"  # its own: kept as given
+    assert solver_target(session) == "L10h=12000 h"
+    assert tomllib.loads(dumps_session(session))["solver"]["target"] == "L10h=12000 h"
 
 
 def test_reserved_tables_are_kept_as_read() -> None:

@@ -137,6 +137,21 @@ def test_solver_section_matches_the_inverted_closed_form() -> None:
     assert "Answer: c = " in text
 
 
+def test_a_solver_without_a_target_aims_at_the_sessions_life_target() -> None:
+    session = radial_session(solver_case="radial")
+    session.targets.life = "30000 h"
+    session.solver.target = ""  # none of its own: the session's life target, on Lnm
+    data = strict_json(render_report(session, "json", "followed"))
+    # no lubrication data and R = 0.90: a1 = aISO = 1, so Lnm = L10h and ISO 281:2007 §7.1
+    # inverted gives C = P·(60·n·Lnm/10⁶)^(1/3)
+    expected = 3000 * (60 * 1000 * 30000 / 1e6) ** (1 / 3)
+    assert data["solver"]["target"] == "Lnm=30000 h"
+    assert data["solver"]["solution"]["value"] == pytest.approx(expected, rel=1e-7)
+    session.targets.life = ""
+    text = render_report(session, "text", "no target")
+    assert "No answer: no target: give the session a life target, or the solver one" in text
+
+
 def test_nan_results_become_null() -> None:
     data = strict_json(render_report(radial_session(speed="0 rpm"), "json", "stopped"))
     results = data["cases"][0]["results"]

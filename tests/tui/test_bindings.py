@@ -50,8 +50,8 @@ async def press(pilot, action_id: str) -> None:
 async def check_help(pilot, app: WorkbenchApp) -> None:
     await press(pilot, "app.help")
     assert isinstance(app.screen, HelpScreen)
-    shown = column_texts(app.screen.query_one("#help-keys"), 1)
-    assert all(action.title in shown for action in ACTIONS)
+    shown = [" ".join(title.split()) for title in column_texts(app.screen.query_one("#help-keys"), 1)]
+    assert all(action.title in shown for action in ACTIONS)  # a long title wraps at 80 columns
 
 
 async def check_about(pilot, app: WorkbenchApp) -> None:
@@ -432,3 +432,22 @@ async def test_keys_arrive_as_a_terminal_sends_them(make_app, action_id: str,
     assert len(keys) == 1
     action = next(a for a in ACTIONS if a.id == action_id)
     assert keys[0].key in [key.strip() for key in action.keys.split(",")]
+
+
+async def test_the_palette_lists_one_theme_command(make_app) -> None:
+    """Textual's own "Theme" (every registered theme) is left out beside the workbench's
+    (alt+t, the project's four themes), and its "Quit" (our guarded quit again): the palette,
+    opened with nothing typed, lists one of each."""
+    app = make_app()
+    async with app.run_test(size=(80, 24)) as pilot:
+        await pilot.pause()
+        screen = app.screen
+        titles = []
+        for provider_type in (*app.COMMANDS, *screen.COMMANDS):
+            provider = (provider_type() if not isinstance(provider_type, type)
+                        else provider_type)(screen)
+            titles += [str(hit.text) async for hit in provider.discover()]
+        names = [title.split("  (")[0] for title in titles]
+        assert titles[names.index("Theme")] == f"Theme  ({first_key('app.theme')})"
+        assert names.count("Theme") == 1 and names.count("Quit") == 1  # Textual's ran ours
+        assert "Screenshot" in names  # Textual's others stay

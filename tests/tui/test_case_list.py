@@ -3,6 +3,8 @@ rows show the engine's figures, names fit the width without a word cut) and the 
 
 from __future__ import annotations
 
+from pathlib import Path
+
 import pytest
 from textual.widgets import Header
 
@@ -11,8 +13,13 @@ from tui_helpers import derivation_text, retype, selected, selected_case
 from workbench.engine.record import fmt
 from workbench.model.quantities import format_quantity
 from workbench.model.session import LoadCase
+from workbench.model.sessionfile import load_session
+from workbench.model.shafts import is_generated
+from workbench.tui.app import WorkbenchApp
 from workbench.tui.case_table import CaseTable, row_cells
 from workbench.tui.view import ELLIPSIS, fit_words
+
+SESSIONS = Path(__file__).parents[2] / "sessions"
 
 
 def _list(app) -> CaseTable:
@@ -122,3 +129,59 @@ async def test_title_keeps_the_save_state_in_view_when_the_title_is_long(make_ap
         assert app.workbench_screen.query(Header)
         await retype(pilot, app, "fr", "4 kN")
         assert app.sub_title == "● not saved yet · SI"
+
+
+async def test_a_case_added_on_a_generated_case_comes_after_the_own_cases_in_view() -> None:
+    """ctrl+n on a case made from a shaft: the new case goes after the session's own cases
+    (the generated ones follow their shafts), is selected, and the list shows the case above
+    it; the notice says where it went.  At 80×24 the list has four rows, and the new case used
+    to come into view as the top one, as if added at the top of the list."""
+    session = load_session(SESSIONS / "demo.toml")
+    own = len(session.cases)
+    last_own = session.cases[-1].name
+    app = WorkbenchApp(session, None, offer_recovery=False, autosave_delay=None)
+    async with app.run_test(size=(80, 24)) as pilot:
+        table = app.workbench_screen.query_one(CaseTable)
+        table.focus()
+        await pilot.press(*["down"] * (own + 3))  # well into the generated cases
+        await pilot.pause()
+        assert is_generated(app.document.case(app.workbench_screen.selected))
+        await pilot.press("ctrl+n")
+        await pilot.pause()
+        document = app.document
+        assert len(document.session.cases) == own + 1
+        assert app.workbench_screen.selected == own == table.cursor_row
+        added = document.case(own)
+        assert added is document.session.cases[own] and not is_generated(added)
+        assert is_generated(document.case(own + 1))
+        top = round(table.scroll_y)
+        assert top <= own - 1 and own + 1 < top + table.scrollable_content_region.height - 1
+        assert f"Added {added.name} after {last_own}" in app.notices_given[-1].message
+
+
+async def test_a_case_that_cannot_move_says_why() -> None:
+    """alt+↑ on the first case, alt+↓ on the last of the session's own cases (the cases made
+    from shafts stay below them) and either on a generated case move nothing and say why in a
+    notice; they used to say nothing."""
+    session = load_session(SESSIONS / "demo.toml")
+    own = len(session.cases)
+    names = [case.name for case in session.cases]
+    app = WorkbenchApp(session, None, offer_recovery=False, autosave_delay=None)
+    async with app.run_test(size=(80, 24)) as pilot:
+        app.workbench_screen.query_one(CaseTable).focus()
+
+        async def press(*keys: str) -> str:
+            given = len(app.__dict__.setdefault("notices_given", []))
+            await pilot.press(*keys)
+            await pilot.pause()
+            notices = app.notices_given[given:]
+            assert [case.name for case in app.document.session.cases] == names
+            assert len(notices) == 1 and notices[0].severity == "warning"
+            return notices[0].message
+
+        assert await press("alt+up") == f"{names[0]} is the first case already"
+        assert "last of the session's own cases" in await press(*["down"] * (own - 1),
+                                                                 "alt+down")
+        assert app.workbench_screen.selected == own - 1
+        assert "edit the shaft, not the case" in await press("down", "alt+up")
+        assert not app.document.dirty

@@ -7,11 +7,13 @@ import html
 import pytest
 from textual.widgets import Select
 
+from screen_host import painted
 from tui_helpers import (choose, derivation_text, editor, paste_into, reference_derivation, retype, selected_result)
 
 from workbench.engine.record import fmt
 from workbench.model.fields import FIELD_BY_NAME
 from workbench.model.quantities import format_quantity
+from workbench.tui.case_form import field_help
 from workbench.tui.case_table import CaseTable
 
 
@@ -336,3 +338,46 @@ async def test_a_run_of_undos_shows_one_notice_the_last(make_app) -> None:
     labels = [FIELD_BY_NAME[name].label for name in fields]
     assert f"Undone: edit {labels[0]}" in shown  # the last undone: the first edit
     assert sum(f"Undone: edit {label}" in shown for label in labels) == 1
+
+
+async def test_fields_a_kind_does_not_read_are_shown_not_used(make_app) -> None:
+    """What the engine reads per kind (``engine.kinds.unread_inputs``, checked against
+    ``derive`` in tests/engine/test_derive.py): a cylindrical roller bearing has α = 0 and
+    P = V·Fr (ISO 281:2007 §7.2), so its contact angle, e, Y and f0 are disabled, with the
+    reason in the tooltip and on the help line while the kind is chosen; a deep-groove bearing
+    reads f0 (Table 3 by f0·Fa/C0r) and its contact angle (the inside view), not e or Y."""
+    app = make_app()
+    async with app.run_test(size=(80, 24)) as pilot:
+        screen = app.workbench_screen
+        inert = ("contact_angle", "e_given", "y_given", "f0")
+
+        def disabled() -> dict[str, bool]:
+            return {name: screen.query_one(f"#field-{name}").disabled for name in inert}
+
+        await pilot.pause()
+        assert disabled() == {"contact_angle": False, "e_given": True, "y_given": True,
+                              "f0": False}
+        assert "not used for a deep-groove ball bearing" in str(
+            screen.query_one("#field-e_given").tooltip)
+        await choose(pilot, app, "kind")
+        kinds = FIELD_BY_NAME["kind"].choices
+        steps = kinds.index("cylindrical") - kinds.index("deep-groove")
+        await pilot.press(*["right"] * steps)
+        await pilot.pause()
+        assert app.document.session.bearing("Drive").texts["kind"] == "cylindrical"
+        assert all(disabled().values())
+        assert "α = 0" in str(screen.query_one("#field-contact_angle").tooltip)
+        assert screen.query_one("#label-f0").has_class("-unread")
+        line = screen.query_one("#help-line")
+        help_line = " ".join(" ".join(painted(app.screen, line.content_region)).split())
+        assert "not used for a cylindrical roller bearing" in help_line
+        assert "Maker's e" in help_line and "f0" in help_line
+        await pilot.press("down")  # the next open field: the arrangement, then C
+        await pilot.press("down", "down", "down")
+        await pilot.pause()
+        assert editor(app).focused_field() == "dm"  # past C0, over the four not used
+        await pilot.press(*["ctrl+z"] * steps)  # each kind chosen was an undo step
+        await pilot.pause()
+        assert app.document.session.bearing("Drive").texts["kind"] == "deep-groove"
+        assert not disabled()["f0"] and not screen.query_one("#label-f0").has_class("-unread")
+        assert str(screen.query_one("#field-f0").tooltip) == field_help("f0")

@@ -21,7 +21,7 @@ async def test_help_lists_every_action_with_the_focus_in_the_table(size) -> None
         screen = app.screen
         table = screen.query_one("#help-keys", DataTable)
         assert app.focused is table
-        titles = column_texts(table, 1)
+        titles = [" ".join(title.split()) for title in column_texts(table, 1)]  # may wrap
         assert [action.title for action in ACTIONS] == titles[:len(ACTIONS)]
         keys = dict(zip(titles, column_texts(table, 0)))
         assert keys["Add case"] == "ctrl+k" and keys["Save"] == "ctrl+s"
@@ -32,6 +32,27 @@ async def test_help_lists_every_action_with_the_focus_in_the_table(size) -> None
         await pilot.press("escape")
         await pilot.pause()
         assert app.answers == [None]
+
+
+async def test_help_descriptions_have_room_at_80_columns() -> None:
+    """At 80 columns the keys column was as wide as its longest list ("ctrl+delete,
+    shift+delete") and the command column as its longest title, which left the descriptions 21
+    cells: 4–6 lines each.  Now those columns wrap (a key list between its keys, a title between
+    words) so that a description has 40 cells: one of up to 75 characters (most of them)
+    reads in 2 lines."""
+    app = ScreenHost(HelpScreen)
+    async with app.run_test(size=(80, 24)) as pilot:
+        await pilot.pause()
+        table = app.screen.query_one("#help-keys", DataTable)
+        keys, helps = column_texts(table, 0), column_texts(table, 2)
+        widths = [column.width for column in table.ordered_columns]
+        longest_key = max(len(key) for cell in keys for key in cell.replace(",", " ").split())
+        assert widths[0] == longest_key and widths[2] >= 40
+        for cell in keys:  # a list wraps only between its keys
+            assert all(line.endswith(",") for line in cell.split("\n")[:-1]), cell
+        short = [text for text in helps if len(text.replace("\n", " ")) <= 75]
+        assert len(short) > len(helps) / 2 and all(text.count("\n") <= 1 for text in short)
+        assert cut_widgets(app.screen) == []
 
 
 async def test_about_shows_the_whole_caution_at_80_by_24() -> None:

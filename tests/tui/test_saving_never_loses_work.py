@@ -16,6 +16,7 @@ from pathlib import Path
 
 import pytest
 from textual.widgets import Input, Static
+from screen_host import cut_widgets
 from tui_helpers import retype
 from tui_sessions import rig_session
 
@@ -313,6 +314,54 @@ async def test_dropping_the_changes_drops_their_recovery_copy(open_other: bool,
         await pilot.pause()
         assert app.document.path == (other if open_other else path)
     assert recovery_path(path).exists() is not open_other
+
+
+async def test_save_and_open_saves_then_opens_the_chosen_file(tmp_path: Path) -> None:
+    """The open dialog's unsaved-changes question offers "Save and open" first: the session is
+    saved, then the file chosen is opened."""
+    path, other = _saved_rig(tmp_path / "rig.toml"), tmp_path / "other.toml"
+    save_session(rig_session(1), other)
+    app = _opened_app(path)
+    async with app.run_test(size=(80, 24)) as pilot:
+        await retype(pilot, app, "fr", "4 kN")
+        await pilot.press("escape", "ctrl+o")
+        await pilot.pause()
+        assert isinstance(app.screen, ChoiceDialog)
+        assert cut_widgets(app.screen) == []
+        assert app.focused is app.screen.query_one("#answer-save")  # the safe answer first
+        await pilot.press("enter")
+        await pilot.pause()
+        assert load_session(path).cases[0].texts["fr"] == "4 kN" and not app.document.dirty
+        assert isinstance(app.screen, OpenDialog)
+        app.screen.query_one("#open-path", Input).value = str(other)
+        await pilot.press("enter")
+        await pilot.pause()
+        assert app.document.path == other and len(app.document.session.cases) == 1
+    assert not recovery_path(path).exists()
+
+
+async def test_save_and_open_opens_nothing_when_the_save_is_refused(tmp_path: Path) -> None:
+    """A read-only session file: "Save and open" says why it was not saved and that nothing
+    else was opened; the changes stay under edit."""
+    path = _saved_rig(tmp_path / "rig.toml")
+    app = _opened_app(path)
+    before = path.read_bytes()
+    path.chmod(0o444)
+    try:
+        async with app.run_test(size=(80, 24)) as pilot:
+            await retype(pilot, app, "fr", "4 kN")
+            await pilot.press("escape", "ctrl+o")
+            await pilot.pause()
+            await _answer(pilot, app, "save")
+            assert not isinstance(app.screen, (OpenDialog, ChoiceDialog))
+            assert app.document.dirty and app.document.path == path
+            assert app.document.session.cases[0].texts["fr"] == "4 kN"
+            refused = app.notices_given[-1]
+            assert refused.title == "Not saved" and "read-only" in refused.message
+            assert refused.message.endswith(files.NOT_OPENED)
+    finally:
+        path.chmod(0o644)
+    assert path.read_bytes() == before
 
 
 # ---- exit status -----------------------------------------------------------------------------

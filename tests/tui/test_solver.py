@@ -2,6 +2,8 @@
 
 from __future__ import annotations
 
+from pathlib import Path
+
 import pytest
 from textual.widgets import Input
 
@@ -10,7 +12,11 @@ from tui_helpers import reference_derivation, selected_result
 from workbench.engine.solve import solve
 from workbench.model.fields import inputs_from_texts
 from workbench.model.session import case_texts
+from workbench.model.sessionfile import load_session
+from workbench.tui.app import WorkbenchApp
 from workbench.tui.choice_box import ChoiceBox
+
+SESSIONS = Path(__file__).parents[2] / "sessions"
 
 
 async def _ask(pilot, app, unknown: str, target: str, value: str) -> None:
@@ -132,3 +138,66 @@ def test_pane_names_every_root() -> None:
     assert "also meets the target at" in shown
     listed = shown.split("also meets the target at ")[1].splitlines()[0]
     assert len(listed.split(", ")) == 3
+
+
+async def _shown_target(pilot, app) -> tuple[object, str]:
+    """(target, value) as the solver pane shows them, the pane brought up with f6."""
+    await pilot.press("f6")
+    await pilot.pause()
+    screen = app.workbench_screen
+    return (screen.query_one("#solver-target", ChoiceBox).value,
+            screen.query_one("#solver-value", Input).value)
+
+
+async def _set_life_target(pilot, app, life: str) -> None:
+    """Set the session's life target as the details dialog (alt+i) does."""
+    assert app.document.set_details({}, {"life": life}) == {}
+    app.workbench_screen._changed()
+    await pilot.pause()
+
+
+async def test_the_solver_starts_from_the_sessions_life_target() -> None:
+    """The conveyor session sets no solver target and a 30 000 h life target: the pane asks for
+    that life (it used to start from the solver's own default, 20 000 h), and follows the
+    session's life target when it changes, while the value is as it was given."""
+    session = load_session(SESSIONS / "conveyor-pulley.toml")
+    assert session.targets.life == "30000 h" and not session.solver.target
+    app = WorkbenchApp(session, None, offer_recovery=False, autosave_delay=None)
+    async with app.run_test(size=(80, 24)) as pilot:
+        assert await _shown_target(pilot, app) == ("Lnm", "30000 h")
+        await _set_life_target(pilot, app, "40000 h")
+        assert await _shown_target(pilot, app) == ("Lnm", "40000 h")
+        app.document.undo()
+        app.workbench_screen._changed()
+        await pilot.pause()
+        assert await _shown_target(pilot, app) == ("Lnm", "30000 h")
+        # a value typed in the pane is the person's: a new life target leaves it alone
+        app.workbench_screen.query_one("#solver-value", Input).value = "12000 h"
+        await _set_life_target(pilot, app, "45000 h")
+        assert await _shown_target(pilot, app) == ("Lnm", "12000 h")
+
+
+async def test_an_explicit_solver_target_stays(make_app) -> None:
+    app = make_app()  # the rig session's solver asks for Lnm = 20 000 h itself
+    async with app.run_test(size=(80, 24)) as pilot:
+        assert app.document.session.solver.target == "Lnm=20000 h"
+        await _set_life_target(pilot, app, "35000 h")
+        assert await _shown_target(pilot, app) == ("Lnm", "20000 h")
+
+
+async def test_solving_the_followed_target_keeps_following() -> None:
+    """Solving with the session's life target as given keeps the question following it (the
+    session written says no target of its own)."""
+    demo = load_session(SESSIONS / "demo.toml")
+    assert not demo.solver.target
+    app = WorkbenchApp(demo, None, offer_recovery=False, autosave_delay=None)
+    async with app.run_test(size=(80, 24)) as pilot:
+        assert await _shown_target(pilot, app) == ("Lnm", demo.targets.life)
+        await pilot.press("f9")
+        for _ in range(50):
+            await app.workers.wait_for_complete()
+            await pilot.pause()
+            if app.document.solved is not None:
+                break
+        assert app.document.solved is not None
+        assert app.document.session.solver.target == ""

@@ -100,6 +100,39 @@ def static_clause(kind: Kind) -> str:
 
 ROLLER_KINDS = frozenset({Kind.CYLINDRICAL, Kind.TAPERED, Kind.SPHERICAL, Kind.THRUST_ROLLER})
 THRUST_KINDS = frozenset({Kind.THRUST_BALL, Kind.THRUST_ROLLER})
+MAKERS_FACTOR_KINDS = frozenset({Kind.SELF_ALIGNING, Kind.TAPERED, Kind.SPHERICAL})
+"""The kinds whose e and Y follow the contact angle's closed form, or the maker's e and Y
+(:func:`dynamic_factors`); every other kind takes them from Table 3 or has none."""
+F0_KINDS = frozenset({Kind.DEEP_GROOVE, Kind.ANGULAR_CONTACT})
+"""The kinds that read f0: the Table 3 index of deep-groove and 15° angular-contact bearings
+(:func:`dynamic_factors`), and C0 from the geometry of a ball bearing in the internal analysis."""
+_FACTORS_ELSEWHERE: dict[Kind, str] = {
+    Kind.DEEP_GROOVE: "e and Y come from ISO 281:2007 Table 3 by Fa/C0r",
+    Kind.ANGULAR_CONTACT: "e and Y come from ISO 281:2007 Table 3 at the contact angle",
+    Kind.CYLINDRICAL: "it has no e or Y, P = V·Fr (ISO 281:2007 §7.2)",
+    Kind.THRUST_BALL: "e and Y follow from the contact angle (ISO 281:2007 §6.2)",
+    Kind.THRUST_ROLLER: "e and Y follow from the contact angle (ISO 281:2007 §8.2)",
+}
+
+
+def unread_inputs(kind: Kind) -> dict[str, str]:
+    """The bearing inputs (:class:`~workbench.engine.derive.CaseInputs` names) that no
+    calculation reads for ``kind`` — not the ISO 281 and ISO 76 chain, a shaft's pair rule nor
+    the internal analysis — each with the reason, as "not used for a … bearing: …".
+
+    The contact angle of a cylindrical roller bearing is 0 by its construction (ISO 281:2007
+    §7.2, P = V·Fr); the maker's e and Y replace the closed forms of
+    :data:`MAKERS_FACTOR_KINDS` only; f0 is read by :data:`F0_KINDS` only."""
+    reasons: dict[str, str] = {}
+    if kind is Kind.CYLINDRICAL:
+        reasons["contact_angle"] = "α = 0 by its construction, P = V·Fr (ISO 281:2007 §7.2)"
+    if kind not in MAKERS_FACTOR_KINDS:
+        reasons["e_given"] = reasons["y_given"] = _FACTORS_ELSEWHERE[kind]
+    if kind not in F0_KINDS:
+        reasons["f0"] = ("f0 enters only the Table 3 look-up of deep-groove and 15° "
+                         "angular-contact ball bearings")
+    return {name: f"not used for a {KIND_WORDS[kind]}: {reason}"
+            for name, reason in reasons.items()}
 
 
 _KIND_BY_NAME: dict[str, Kind] = {k.value: k for k in Kind}

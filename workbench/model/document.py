@@ -624,6 +624,23 @@ class Document:
                    case_index=min(index, len(self.session.cases) - 2))
         return case.name
 
+    def move_problem(self, index: int, delta: int) -> str | None:
+        """Why case ``index`` cannot move up (−1) or down (+1), or None when it can."""
+        case = self.case(index)
+        if case is None:
+            return "no load case is selected"
+        if (generated := self.generated_problem(index)) is not None:
+            return generated
+        own = len(self.session.cases)
+        if 0 <= index + delta < own:
+            return None
+        if delta < 0:
+            return f"{case.name} is the first case already"
+        if own < len(self.results):
+            return (f"{case.name} is the last of the session's own cases; the cases made from "
+                    "shafts stay below them")
+        return f"{case.name} is the last case already"
+
     def move_case(self, index: int, delta: int) -> int | None:
         """Move own case ``index`` up (−1) or down (+1); its new index, or None at the end."""
         target = index + delta
@@ -831,13 +848,14 @@ class Document:
                  between: tuple[str, str] = ("", "")) -> Question:
         """The reverse question for case ``index``: back-solve ``unknown`` for a target like
         "Lnm=20000 h", searching the unknown's whole range or ``between`` two typed values;
-        kept in the session as its solver setup.
+        kept in the session as its solver setup (a target that was following the session's life
+        target and is that target still follows it).
 
         Raises FieldError for a target that cannot be read and InputError when the case cannot
         be derived.  Solve it with :meth:`Question.solve` (on any thread) and hand the answer
         to :meth:`answer`.
         """
-        from .targets import parse_between, parse_target_text
+        from .targets import kept_solver_target, parse_between, parse_target_text
 
         result = self.result(index)
         if result is None:
@@ -847,7 +865,8 @@ class Document:
         target, value = parse_target_text(target_text)
         search = parse_between(unknown, between)
         solver = self.session.solver
-        solver.unknown, solver.target, solver.case = unknown, target_text.strip(), result.case.name
+        solver.target = kept_solver_target(self.session, target_text)
+        solver.unknown, solver.case = unknown, result.case.name
         return Question(result.case.name, self.revision, result.inputs, unknown, target, value,
                         search)
 

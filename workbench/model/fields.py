@@ -14,7 +14,7 @@ from typing import Mapping
 
 from ..engine import tables as T
 from ..engine.derive import RELIABILITY_MODELS, CaseInputs
-from ..engine.kinds import ARRANGEMENTS, Kind
+from ..engine.kinds import ARRANGEMENTS, Kind, unread_inputs
 from .quantities import QuantityError, parse
 
 MAX_TEXT = 200
@@ -119,6 +119,18 @@ chain derives from."""
 FIELD_BY_NAME: dict[str, FieldSpec] = {f.name: f for f in FIELDS}
 BEARING_FIELDS: tuple[str, ...] = tuple(f.name for f in FIELDS if f.group == "bearing")
 CASE_FIELDS: tuple[str, ...] = tuple(f.name for f in FIELDS if f.group == "case")
+
+
+@lru_cache(maxsize=len(Kind) + 1)
+def unread_fields(kind_text: str) -> dict[str, str]:
+    """The bearing fields no calculation reads for the kind named ``kind_text``, each with the
+    reason (:func:`~workbench.engine.kinds.unread_inputs`; the field names are the engine's);
+    none for a kind that cannot be read.  Shared: do not change it."""
+    try:
+        kind = Kind(kind_text.strip())
+    except ValueError:
+        return {}
+    return unread_inputs(kind)
 
 
 class FieldError(ValueError):

@@ -43,6 +43,20 @@ QUESTION_ANSWERS = [("elsewhere", "Save elsewhere…"), ("replace", "Replace it"
 anything: save elsewhere (the save-as prompt), replace it (kept as ``NAME.bak``), or cancel."""
 
 
+UNSAVED_TITLE = "Unsaved changes"
+UNSAVED_BEFORE_QUIT = ("This session has changes that are not saved.",
+                       [("save", "Save and quit"), ("quit", "Quit without saving"),
+                        ("stay", "Stay")])
+UNSAVED_BEFORE_OPEN = ("This session has changes that are not saved. Save them before opening "
+                       "another file, or drop them?",
+                       [("save", "Save and open"), ("discard", "Drop changes and open"),
+                        ("stay", "Stay")])
+"""The question (message, answers) before quitting or opening another file loses unsaved work;
+saving comes first, so a stray enter loses nothing."""
+NOT_OPENED = "nothing else was opened: the changes here are still unsaved"
+"""Added to a refused save's reason when the save was to come before opening another file."""
+
+
 @dataclass
 class FileOutcome:
     """What a file operation did: the session read (for open) and the file's stamp (what it held

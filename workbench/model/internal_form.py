@@ -24,7 +24,7 @@ from ..engine.internal.analysis import (InternalResult, SweepPoint, analyse_inte
 from ..engine.internal.distribution import ARRANGEMENTS, KINDS, PROFILES, InternalInputs, NoEquilibrium
 from ..engine.record import InputError
 from ..engine import tables as T
-from .fields import INSIDE_FIELDS, FieldError
+from .fields import INSIDE_FIELDS, FieldError, unread_fields
 from .quantities import QuantityError, parse
 from .rating_form import RATING_INPUTS, RatingInput, read_rating_input
 from .session import GEOMETRY_KEYS, LoadCase, Session
@@ -219,8 +219,8 @@ def case_texts(case: CaseInputs, geometry_texts: Mapping[str, str],
                              "speed": f"{case.speed!r} rpm"}
     if case.arrangement in _ARRANGEMENT_WORDS:
         texts["arrangement"] = case.arrangement
-    if case.contact_angle is not None:
-        texts["contact_angle"] = f"{case.contact_angle!r}°"
+    if case.contact_angle is not None and "contact_angle" not in unread_fields(case.kind):
+        texts["contact_angle"] = f"{case.contact_angle!r}°"  # not a cylindrical bearing's: α = 0
     try:
         results = derive(case, keep_steps=False).results
     except InputError:

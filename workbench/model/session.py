@@ -61,10 +61,14 @@ class Targets:
 
 @dataclass
 class SolverSetup:
-    """The reverse question: which input is unknown, which result must reach which value."""
+    """The reverse question: which input is unknown, which result must reach which value.
+
+    A blank ``target`` follows the session's life target on Lnm (what every case must meet;
+    :func:`workbench.model.targets.solver_target`): a life target set for the session is the
+    one an engineer expects the solver to aim at until they give it another."""
 
     unknown: str = "c"
-    target: str = "Lnm=20000 h"
+    target: str = ""
     case: str = ""
 
 

@@ -36,7 +36,7 @@ typed, so a file reads and edits by hand::
 
     [solver]
     unknown = "c"
-    target = "Lnm=20000 h"
+    target = "Lnm=20000 h"       # left out: the session's life target, on Lnm
     case = "full load"
 
     [[shafts]]                   # a shaft on two bearings of the file: workbench.model.shafts
@@ -468,7 +468,8 @@ class _Reader:
             raise self.fail(path + ("unknown",), f"cannot solve for {quoted(setup.unknown)}; "
                                                  f"use one of {', '.join(UNKNOWNS)}")
         try:
-            parse_target_text(setup.target)
+            if setup.target:  # blank or left out: the session's life target on Lnm
+                parse_target_text(setup.target)
         except FieldError as exc:
             raise self.fail(path + ("target",), exc.message) from None
         if setup.case and setup.case not in case_names:
@@ -551,7 +552,10 @@ def dumps_session(session: Session) -> str:
                          CASE_FIELDS, f"case {quoted(c.name)}")
             for c in session.cases
         ]
-    doc["solver"] = {key: getattr(session.solver, key) for key in SOLVER_KEYS}
+    # a blank target (following the session's life target) is left out, as an older
+    # workbench, which needs a target there, then reads its own default
+    doc["solver"] = {key: getattr(session.solver, key) for key in SOLVER_KEYS
+                     if key != "target" or session.solver.target}
     if session.solver.case not in _case_names(session):
         # the question's case was deleted or renamed with its shaft: the file is written
         # without it, since a file naming a case it lacks is refused on opening

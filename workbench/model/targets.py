@@ -14,7 +14,11 @@ from collections.abc import Sequence
 from ..engine.solve import TARGETS
 from .fields import FieldError
 from .quantities import QuantityError, parse
+from .session import Session
 from .user_text import quoted
+
+FOLLOWED_RESULT = "Lnm"
+"""The result the session's life target is set on (:class:`~workbench.model.session.Targets`)."""
 
 MILLION_REV_SPELLINGS = ("10⁶ rev", "10^6 rev", "1e6 rev")
 
@@ -31,6 +35,27 @@ def _target_value(name: str, text: str) -> float:
                 break
         return parse(text, "revolutions", default_unit="Mrev")
     return parse(text, "dimensionless", default_unit="")
+
+
+def followed_target(life: str) -> str:
+    """The solver target that follows a session life target ``life`` ("30000 h" →
+    "Lnm=30000 h"); "" when the session has none."""
+    return f"{FOLLOWED_RESULT}={life.strip()}" if life.strip() else ""
+
+
+def solver_target(session: Session) -> str:
+    """The target the session's solver question aims at: its own where one was set, else the
+    session's life target on Lnm; "" when neither is given."""
+    return session.solver.target or followed_target(session.targets.life)
+
+
+def kept_solver_target(session: Session, typed: str) -> str:
+    """What the solver setup keeps of a target ``typed`` for a question: blank (still
+    following the session's life target) when it was following and ``typed`` is that target,
+    else ``typed`` (an explicit target stays explicit)."""
+    typed = typed.strip()
+    following = not session.solver.target and typed == followed_target(session.targets.life)
+    return "" if following else typed
 
 
 def parse_target_text(text: str) -> tuple[str, float]:

@@ -27,7 +27,7 @@ from ..model.caution import SAFETY_CAUTION
 from ..model.fields import FIELD_BY_NAME, FieldError
 from ..model.session import CaseResult, Session, case_texts
 from ..model.shafts import SIDES, is_generated
-from ..model.targets import parse_target_text
+from ..model.targets import parse_target_text, solver_target
 from .meta import Provenance, provenance
 
 UNITS_NOTE = "Values are in the engine's units: N, mm, r/min, h, 10⁶ rev, mm²/s, °C."
@@ -562,20 +562,23 @@ def _solver_section(session: Session, results: list[CaseResult]) -> SolverSectio
     setup = session.solver
     if not setup.case:
         return None
+    target = solver_target(session)
     solution, error = None, None
     match = next((r for r in results if r.case.name == setup.case), None)
     if match is None:
         error = f"no case called {setup.case!r} in this session"
     elif match.inputs is None or match.derivation is None:
         error = f"the case cannot be derived ({_error_text(match)})"
+    elif not target:
+        error = "no target: give the session a life target, or the solver one"
     else:
         try:
-            name, value = parse_target_text(setup.target)
+            name, value = parse_target_text(target)
             solution = solve(match.inputs, setup.unknown, name, value)
         except (InputError, FieldError) as exc:
             error = f"{exc.field}: {exc.message}"
     label = UNKNOWNS[setup.unknown].label if setup.unknown in UNKNOWNS else setup.unknown
-    lines = [f"Question: which {label} gives {setup.target} on case {setup.case!r}?"]
+    lines = [f"Question: which {label} gives {target or 'a target'} on case {setup.case!r}?"]
     step_line = None
     if solution is None:
         lines.append(f"No answer: {error}")
@@ -596,7 +599,7 @@ def _solver_section(session: Session, results: list[CaseResult]) -> SolverSectio
                          "target; the answer above is the smallest")
         step = s.derivation.step("solved")
         step_line = f"Solver step: {step.formula} by {step.substituted} ({step.note})."
-    return SolverSection(setup.case, setup.unknown, setup.target, solution, error, tuple(lines),
+    return SolverSection(setup.case, setup.unknown, target, solution, error, tuple(lines),
                          step_line)
 
 

@@ -7,13 +7,13 @@ from __future__ import annotations
 
 import os
 import sys
-from collections.abc import Sequence
+from collections.abc import Iterable, Sequence
 from pathlib import Path
 from typing import Any
 
-from textual.app import App
+from textual.app import App, SystemCommand
 from textual.command import CommandListItem, SimpleProvider
-from textual.theme import ThemeProvider
+from textual.screen import Screen
 from textual.widget import AwaitMount
 from textual.binding import Binding
 from textual.notifications import SeverityLevel
@@ -22,7 +22,7 @@ from ..model.session import Session
 from ..model import files, settings
 from ..model.document import Document
 from ..model.safe_write import FileStamp
-from .actions import bindings, check_keymap
+from .actions import ACTIONS, bindings, check_keymap
 from .commands import WorkbenchCommands, WorkbenchPalette
 from .theme_files import DEFAULT_THEME, MONOCHROME_THEME, load_theme_files
 from .workbench_screen import AUTOSAVE_DELAY_S, WorkbenchScreen
@@ -130,9 +130,20 @@ class WorkbenchApp(App[int]):
         self.theme = names[(index + 1) % len(names)]
         self.notify(f"Theme {self.theme}")
 
+    def get_system_commands(self, screen: Screen[Any]) -> Iterable[SystemCommand]:
+        """Textual's palette commands, less those the workbench's own table offers: its "Theme"
+        listed every registered theme, Textual's own among them, beside the workbench's
+        "Theme" (alt+t), which goes through the project's four; its "Quit" ran the same
+        action as ours.  Two entries of one name read as one command listed twice."""
+        ours = {self.action_change_theme} | {getattr(self, f"action_{action.action}")
+                                             for action in ACTIONS if action.scope == "app"}
+        for command in super().get_system_commands(screen):
+            if command.callback not in ours:
+                yield command
+
     # ---- screens ----------------------------------------------------------------------------
     # Every palette is a WorkbenchPalette, which closes once (Textual's own could pop the screen
-    # under it); these three are the places Textual makes one.
+    # under it); these two are the places Textual makes one.
     def action_command_palette(self) -> None:
         """Show the command palette."""
         if self.use_command_palette and not WorkbenchPalette.is_open(self):
@@ -143,12 +154,6 @@ class WorkbenchApp(App[int]):
         """A palette of the given commands."""
         return self.push_screen(WorkbenchPalette(  # type: ignore[return-value]
             providers=[SimpleProvider(self.screen, commands)], placeholder=placeholder))
-
-    def search_themes(self) -> None:
-        """A palette of the registered themes (Textual's "Theme" command)."""
-        if not WorkbenchPalette.is_open(self):
-            self.push_screen(WorkbenchPalette(providers=[ThemeProvider],
-                                              placeholder="Search for themes…"))
 
     def action_help(self) -> None:
         """Show every key and what it does."""
@@ -181,10 +186,7 @@ class WorkbenchApp(App[int]):
             elif answer == "save":
                 self.workbench_screen.save(then=lambda: self.exit(0))
 
-        self.push_screen(ChoiceDialog(
-            "Unsaved changes", "This session has changes that are not saved.",
-            [("save", "Save and quit"), ("quit", "Quit without saving"), ("stay", "Stay")]),
-            answered)
+        self.push_screen(ChoiceDialog(files.UNSAVED_TITLE, *files.UNSAVED_BEFORE_QUIT), answered)
 
     # ---- recovery ---------------------------------------------------------------------------
     def _ask_about_recovery(self) -> None:

@@ -25,7 +25,8 @@ from textual.widgets import Checkbox, Input, Label, Select, Static
 
 from ..engine.kinds import ARRANGEMENTS, parse_kind
 from ..model.document import Document
-from ..model.fields import BEARING_FIELDS, FIELD_BY_NAME, FieldError, FieldSpec, parse_field
+from ..model.fields import (BEARING_FIELDS, FIELD_BY_NAME, FieldError, FieldSpec, parse_field,
+                            unread_fields)
 from ..model.quantities import QUANTITIES
 from .choice_box import ChoiceBox
 from .field_box import FieldBox, FieldValidator
@@ -157,6 +158,7 @@ class CaseForm(VerticalScroll):
             padding: 0 1;
             color: $text-muted;
         }
+        & .field-label.-unread { text-style: strike; }
         & .field-note {
             column-span: 2;
             padding: 0 1 0 3;
@@ -209,6 +211,10 @@ class CaseForm(VerticalScroll):
         self._unanswered: dict[str, int] = {}
         """Typed texts announced per field that the screen has not answered yet."""
         self._controls: dict[str, Widget] = {}
+        self._labels: dict[str, Label] = {}
+        self._unread: dict[str, str] = {}
+        """The fields no calculation reads for the shown case's kind, with the reason (shown
+        disabled, the reason in their tooltip and in the kind's help line)."""
         self._case_note = ""
         self._wide = False
 
@@ -258,6 +264,7 @@ class CaseForm(VerticalScroll):
     def on_mount(self) -> None:
         """Keep each field's control at hand (a form is loaded on every keystroke)."""
         self._controls = {name: self.query_one(f"#field-{name}") for name in FIELD_ORDER}
+        self._labels = {name: self.query_one(f"#label-{name}", Label) for name in FIELD_ORDER}
         self.load()
 
     def on_resize(self) -> None:
@@ -271,8 +278,8 @@ class CaseForm(VerticalScroll):
         wide = self.app.size.width >= WIDE
         if wide != self._wide:
             self._wide = wide
-            for name in FIELD_ORDER:
-                self.query_one(f"#label-{name}", Label).update(self._label(name, wide=wide))
+            for name, label in self._labels.items():
+                label.update(self._label(name, wide=wide))
 
     # ---- showing the document ----------------------------------------------------------------
     def watch_view(self, view: View) -> None:
@@ -309,15 +316,44 @@ class CaseForm(VerticalScroll):
             note = self.query_one("#case-note", Static)
             note.update(text)
             note.set_class(bool(text), "-shown")
+        unread = {} if case is None else unread_fields(texts.get("kind", ""))
+        if unread != self._unread:  # a kind changed: only then are tooltips and labels touched
+            self._show_unread(unread)
         for name in FIELD_ORDER:
             control = self._controls[name]
-            disabled = case is None or (read_only is not None and name not in BEARING_FIELDS)
+            disabled = case is None or name in unread or (
+                read_only is not None and name not in BEARING_FIELDS)
             if control.disabled != disabled:
                 control.disabled = disabled
             if name in self._notes:
                 continue
             with control.prevent(Input.Changed, Select.Changed, Checkbox.Changed):
                 self._put(name, control, texts, bearings, case.bearing if case else None)
+
+    def _show_unread(self, unread: dict[str, str]) -> None:
+        """Mark the fields the kind's calculation does not read (their label dimmed, the reason
+        in the tooltip) and say which on the help line when the kind is being chosen."""
+        for name in self._unread.keys() | unread.keys():
+            if (name in unread) != (name in self._unread) or unread.get(name) != \
+                    self._unread.get(name):
+                self._controls[name].tooltip = self.help_for(name, unread)
+                self._labels[name].set_class(name in unread, "-unread")
+        self._unread = unread
+        if self.focused_field() == "kind":
+            self.post_message(self.HelpShown(self.help_for("kind", unread)))
+
+    def help_for(self, name: str, unread: dict[str, str] | None = None) -> str:
+        """What the help line and tooltip say of field ``name``: its full words, and why it is
+        not used where the kind's calculation does not read it; the kind names those fields."""
+        unread = self._unread if unread is None else unread
+        words = field_help(name)
+        if name in unread:
+            return f"{words} · {unread[name]}"
+        if name == "kind" and unread:
+            first = next(iter(unread.values())).partition(":")[0]  # "not used for a … bearing"
+            labels = ", ".join(FIELD_BY_NAME[field].short_label for field in unread)
+            return f"{words} · {first}: {labels}"
+        return words
 
     def _put(self, name: str, control: Widget, texts: dict[str, str],
              bearings: list[tuple[str, str]], bearing: str | None) -> None:
@@ -460,5 +496,5 @@ class CaseForm(VerticalScroll):
         """Say in full what the focused field is, and keep it in view."""
         name = self._field_of(event.widget)
         if name in FIELD_ORDER:
-            self.post_message(self.HelpShown(field_help(name)))
+            self.post_message(self.HelpShown(self.help_for(name)))
             self.scroll_to_widget(event.widget, animate=False)

@@ -27,6 +27,7 @@ from textual.binding import Binding
 from textual.cache import LRUCache
 from textual.coordinate import Coordinate
 from textual.events import Resize
+from textual.geometry import Region
 from textual.message import Message
 from textual.reactive import var
 from textual.widgets import DataTable
@@ -45,6 +46,8 @@ COLUMNS = (("P", 9), ("Lnm h", 7), ("s0", 5), ("Checks", 8))
 NAME_HEADING = "Load case"
 MIN_NAME = 12
 LIFE_LIMIT_H = 1e6
+NEIGHBOUR_ROWS = 1
+"""Rows kept in view either side of the cursor where the list has room for them."""
 
 
 def life_text(hours: float) -> str:
@@ -194,6 +197,25 @@ class CaseTable(DataTable[Text]):
                                                   cursor_location, hover_location)
             self._painted_rows[key] = painted
         return painted
+
+    def _scroll_cursor_into_view(self, animate: bool = False) -> None:
+        """Scroll so the cursor's row is in view with a row either side where the list has
+        room: at 80×24 it shows four rows, and a case added after the session's own cases (or
+        moved, or chosen) came into view as the top row, with nothing above it to say where it
+        stood.  (Textual's ``DataTable`` scrolls the cursor's row alone into view; this is its
+        private method, kept with :attr:`ordered_rows` when Textual is upgraded.)"""
+        if self.cursor_type != "row" or not self.row_count:
+            super()._scroll_cursor_into_view(animate)
+            return
+        offset = self._get_fixed_offset()
+        room = self.scrollable_content_region.height - offset.top
+        around = NEIGHBOUR_ROWS if room >= 2 * NEIGHBOUR_ROWS + 1 else 0
+        first = max(self.cursor_row - around, 0)
+        last = min(self.cursor_row + around, self.row_count - 1)
+        # every row is one line high (see _y_offsets): row n starts n lines under the header
+        region = Region(int(self.scroll_x) + offset.left, offset.top + first,
+                        max(self.size.width - offset.left, 1), last - first + 1)
+        self.scroll_to_region(region, animate=animate, spacing=offset, force=True)
 
     def _clear_caches(self) -> None:
         super()._clear_caches()

@@ -15,6 +15,9 @@ from .dialogs import OnceModal
 from .table_fit import fill_fitted
 
 HELP_HEADINGS = ("Keys", "Command", "What it does")
+READABLE_HELP = 40
+"""The description column's width below which the keys and command columns wrap (at 80
+columns a key list and a long title left it 21 cells, and a description took 4–6 lines)."""
 GENERAL_KEYS = (
     ("tab, shift+tab", "Next, previous", "Move between fields, tables and panes"),
     ("ctrl+p", "Command palette", "Every command by name, with its keys"),
@@ -64,7 +67,8 @@ class HelpScreen(OnceModal[None]):
     def _fit(self) -> None:
         table = self.query_one("#help-keys", DataTable)
         width = table.scrollable_content_region.width or self.app.size.width - 4
-        fill_fitted(table, HELP_HEADINGS, self._rows, width - 1)  # the scroll bar
+        fill_fitted(table, HELP_HEADINGS, self._rows, width - 1,  # the scroll bar
+                    readable=READABLE_HELP)
 
     def on_resize(self) -> None:
         """Wrap the table again for the new width, once it is laid out."""

@@ -20,8 +20,9 @@ from textual.widgets import Button, Input, Label, Select, Static
 
 from ..engine.record import fmt
 from ..engine.solve import TARGETS, UNKNOWNS, Solution
+from ..model.document import Document
 from ..model.quantities import format_quantity
-from ..model.session import SolverSetup
+from ..model.targets import FOLLOWED_RESULT, solver_target
 from .choice_box import ChoiceBox
 from .view import View, view_reactive
 
@@ -76,6 +77,9 @@ def failure_content(message: str, reachable: tuple[float, float] | None, target:
 
 WHOLE_RANGE = "The range the unknown is searched in; blank: its whole range"
 """What the two search boxes mean (their placeholders are one word: each has 13 columns at 80)."""
+FOLLOWS_SESSION = ("The session's life target (alt+i) until you give another; "
+                   "a value typed here is kept with the session when you solve")
+"""What the target value box holds."""
 
 
 class SolverPane(VerticalScroll):
@@ -115,11 +119,14 @@ class SolverPane(VerticalScroll):
     text: Content = Content("")
     """What the result area shows now."""
 
-    def __init__(self, setup: SolverSetup, *, id: str | None = None) -> None:
+    def __init__(self, document: Document, *, id: str | None = None) -> None:
         super().__init__(id=id)
-        self._setup = setup
+        self.document = document
         self._answered_at: int | None = None
         """The revision the answer on show was solved on (None: no answer on show)."""
+        self._followed: str | None = None
+        """The session's life target as the value box was given it, while the question follows
+        that target (None: the session's solver has a target of its own)."""
 
     def compose(self) -> ComposeResult:
         """Unknown, target, value, the two buttons and the result area."""
@@ -135,7 +142,8 @@ class SolverPane(VerticalScroll):
                             allow_blank=False, value="Lnm", compact=True, id="solver-target")
         with FieldRow():
             yield Label("reaches", classes="field-label")
-            yield Input(placeholder="e.g. 20000 h", compact=True, id="solver-value")
+            yield Input(placeholder="e.g. 20000 h", compact=True, id="solver-value",
+                        tooltip=FOLLOWS_SESSION)
         with FieldRow():
             yield Label("searching", classes="field-label")
             yield Input(placeholder="from", compact=True, id="solver-low", tooltip=WHOLE_RANGE)
@@ -148,16 +156,32 @@ class SolverPane(VerticalScroll):
 
     def on_mount(self) -> None:
         """Show the session's solver question."""
-        self.load(self._setup)
+        self.load()
 
-    def load(self, setup: SolverSetup) -> None:
-        """Show the session's solver question (unknown, and "target=value" split for editing)."""
+    def load(self) -> None:
+        """Show the session's solver question (unknown, and "target=value" split for editing):
+        its own target, else the session's life target on Lnm."""
+        session = self.document.session
+        setup = session.solver
         if setup.unknown in UNKNOWNS:
             self.query_one("#solver-unknown", ChoiceBox).value = setup.unknown
-        name, _, value_text = setup.target.partition("=")
-        if name.strip() in TARGETS:
-            self.query_one("#solver-target", ChoiceBox).value = name.strip()
+        name, _, value_text = solver_target(session).partition("=")
+        self.query_one("#solver-target", ChoiceBox).value = \
+            name.strip() if name.strip() in TARGETS else FOLLOWED_RESULT
         self.query_one("#solver-value", Input).value = value_text.strip()
+        self._followed = None if setup.target else session.targets.life.strip()
+
+    def _follow_life_target(self) -> None:
+        """While the question follows the session's life target and its value is as it was
+        given, a new life target (alt+i, undo) becomes the value."""
+        life = self.document.session.targets.life.strip()
+        if self._followed is None or life == self._followed or self.document.session.solver.target:
+            return
+        box = self.query_one("#solver-value", Input)
+        if self.query_one("#solver-target", ChoiceBox).value == FOLLOWED_RESULT and \
+                box.value.strip() == self._followed:
+            box.value = life
+            self._followed = life
 
     def request(self) -> tuple[str, str, tuple[str, str]]:
         """The question as asked now: (unknown, "target=value text", (from, to) as typed)."""
@@ -169,7 +193,9 @@ class SolverPane(VerticalScroll):
         return str(unknown), f"{target}={value_text}", between
 
     def watch_view(self, view: View) -> None:
-        """An answer solved on another revision is out of date: say so, and no applying it."""
+        """An answer solved on another revision is out of date: say so, and no applying it.
+        A question following the session's life target follows a new one."""
+        self._follow_life_target()
         stale = self._answered_at is not None and self._answered_at != view.revision
         note = self.query_one("#solver-stale", Static)
         if note.has_class("-shown") != stale:  # an update lays the screen out: only on a change

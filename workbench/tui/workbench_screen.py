@@ -116,7 +116,7 @@ class WorkbenchScreen(Screen[None]):
                     yield DerivationPane(document, id="derivation-view").data_bind(
                         WorkbenchScreen.view)
                 with TabPane("Solver", id="solver"):
-                    yield PaneLazy(SolverPane(document.session.solver, id="solver-view").data_bind(
+                    yield PaneLazy(SolverPane(document, id="solver-view").data_bind(
                         WorkbenchScreen.view))
                 with TabPane("What-if", id="whatif"):
                     yield PaneLazy(WhatIfPane(document, id="whatif-view").data_bind(
@@ -285,10 +285,19 @@ class WorkbenchScreen(Screen[None]):
         return problem is not None
 
     def action_add_case(self) -> None:
-        """Add an empty load case after the selected one."""
-        index = self.document.add_case(self.selected)
+        """Add an empty load case after the selected one (after the session's own cases when
+        a generated one is selected: those follow their shafts), and select it."""
+        document = self.document
+        on_generated = document.generated_problem(self.selected) is not None
+        index = document.add_case(self.selected)
         self._changed(index)
-        self.notify(f"Added {self.document.case(index).name}: give its loads in the form")
+        name = document.case(index).name
+        if on_generated:  # it cannot go among them: say where it went
+            after = f"after {document.case(index - 1).name}" if index else "first"
+            self.notify(f"Added {name} {after}, above the cases made from shafts: give its "
+                        "loads in the form")
+        else:
+            self.notify(f"Added {name}: give its loads in the form")
 
     def action_duplicate_case(self) -> None:
         """Copy the selected load case."""
@@ -338,8 +347,10 @@ class WorkbenchScreen(Screen[None]):
         self.notify(f"Deleted {name} (ctrl+z brings it back)")
 
     def action_move_case(self, delta: int) -> None:
-        """Move the selected case up or down the list."""
-        if self._refuse_generated():
+        """Move the selected case up or down the list, or say why it cannot move."""
+        problem = self.document.move_problem(self.selected, delta)
+        if problem is not None:
+            self.notify(problem, severity="warning")
             return
         index = self.document.move_case(self.selected, delta)
         if index is not None:
@@ -610,18 +621,20 @@ class WorkbenchScreen(Screen[None]):
 
     # ---- files ------------------------------------------------------------------------------
     def save_to(self, path: Path, then: Callable[[], object] | None = None, *,
-                confirmed: frozenset[str] = frozenset()) -> None:
+                confirmed: frozenset[str] = frozenset(), not_done: str = "") -> None:
         """Write the session to ``path`` and report what the writer said; when the file there
         is not a session, holds another one or changed on disk since it was read here, ask
-        first (:meth:`_ask_before_saving`); ``then`` runs once it is saved."""
+        first (:meth:`_ask_before_saving`); ``then`` runs once it is saved, and a refusal says
+        ``not_done`` (what ``then`` would have done) after its reason."""
         document = self.document
         outcome = files.save(document.session, path, read_stamp=document.stamp,
                              confirmed=confirmed)
         if outcome.question is not None:
-            self._ask_before_saving(outcome, then, confirmed)
+            self._ask_before_saving(outcome, then, confirmed, not_done)
             return
         if outcome.error is not None:
-            self.notify(outcome.error, title="Not saved", severity="error")
+            self.notify(f"{outcome.error}; {not_done}" if not_done else outcome.error,
+                        title="Not saved", severity="error")
             return
         for saved_from in {document.path, path}:
             files.discard_recovery_copy(saved_from)
@@ -637,7 +650,7 @@ class WorkbenchScreen(Screen[None]):
         if then is not None:
             then()
 
-    def save_as(self, then: Callable[[], object] | None = None) -> None:
+    def save_as(self, then: Callable[[], object] | None = None, not_done: str = "") -> None:
         """Ask for a file name and save there."""
         from .dialogs import PathSuggester, TextPrompt
 
@@ -645,7 +658,7 @@ class WorkbenchScreen(Screen[None]):
 
         def chosen(text: str | None) -> None:
             if text and text.strip():
-                self.save_to(Path(text.strip()).expanduser(), then)
+                self.save_to(Path(text.strip()).expanduser(), then, not_done=not_done)
 
         self.app.push_screen(
             TextPrompt("Save session as", str(current) if current else DEFAULT_SAVE_NAME,
@@ -653,12 +666,13 @@ class WorkbenchScreen(Screen[None]):
                        suggester=PathSuggester()),
             chosen)
 
-    def save(self, then: Callable[[], object] | None = None) -> None:
-        """Save to the session's file, asking for one the first time."""
+    def save(self, then: Callable[[], object] | None = None, not_done: str = "") -> None:
+        """Save to the session's file, asking for one the first time; ``then`` runs once it
+        is saved, and a refusal says ``not_done`` after its reason."""
         if self.document.path is None:
-            self.save_as(then)
+            self.save_as(then, not_done)
         else:
-            self.save_to(self.document.path, then)
+            self.save_to(self.document.path, then, not_done=not_done)
 
     def action_save(self) -> None:
         """Save the session."""
@@ -688,20 +702,22 @@ class WorkbenchScreen(Screen[None]):
             self.open_session(session, opened.path, stamp=opened.outcome.stamp)
 
         def ask_path(answer: str | None = "discard") -> None:
-            if answer == "discard":
+            if answer == "save":  # the file to open is chosen once this session is saved
+                self.save(then=ask_path, not_done=files.NOT_OPENED)
+            elif answer == "discard":
                 folder = str(self.document.path.parent) + "/" if self.document.path else ""
                 self.app.push_screen(OpenDialog(folder), chosen)
 
         if self.document.dirty:
-            self.app.push_screen(ChoiceDialog(
-                "Unsaved changes", "Open another file and drop the changes made here?",
-                [("discard", "Drop changes and open"), ("stay", "Stay")]), ask_path)
+            self.app.push_screen(ChoiceDialog(files.UNSAVED_TITLE, *files.UNSAVED_BEFORE_OPEN),
+                                 ask_path)
         else:
             ask_path()
 
     def _ask_before_saving(self, outcome: FileOutcome, then: Callable[[], object] | None,
-                           confirmed: frozenset[str]) -> None:
-        """Ask the question ``outcome`` holds, then save as answered (``then`` runs once saved)."""
+                           confirmed: frozenset[str], not_done: str = "") -> None:
+        """Ask the question ``outcome`` holds, then save as answered (``then`` runs once saved;
+        a refusal says ``not_done``)."""
         from .dialogs import SaveQuestion
 
         assert outcome.question is not None and outcome.path is not None
@@ -711,9 +727,9 @@ class WorkbenchScreen(Screen[None]):
 
         def answered(answer: str | None) -> None:
             if answer == "replace":
-                self.save_to(path, then, confirmed=confirmed | {kind})
+                self.save_to(path, then, confirmed=confirmed | {kind}, not_done=not_done)
             elif answer == "elsewhere":
-                self.save_as(then)
+                self.save_as(then, not_done)
 
         backup = clipped_path(path.with_name(path.name + ".bak"))
         self.app.push_screen(SaveQuestion(kind, outcome.error or str(path), backup), answered)
@@ -724,7 +740,7 @@ class WorkbenchScreen(Screen[None]):
         self.document.replace(session, path, dirty=dirty)
         self.document.stamp = stamp
         if (pane := self._solver()) is not None:
-            pane.load(session.solver)
+            pane.load()
             pane.show_note("")
         self.query_one(CaseForm).drop_notes()
         self._changed(0)
