@@ -126,7 +126,7 @@ def test_speed_zero_leaves_hours_undefined() -> None:
     d = derive(replace(BASE, speed=0.0))
     assert math.isnan(d.results["L10h"]) and math.isnan(d.results["Lnm"])
     assert d.results["L10"] > 0
-    assert any("speed is 0" in w for w in d.warnings)
+    assert any("no speed (n is blank or 0)" in w for w in d.warnings)
 
 
 @pytest.mark.parametrize(

@@ -109,6 +109,8 @@ _POSITIVE = ("c", "c0", "af")
 _OPTIONAL_POSITIVE = ("f0", "e_given", "y_given", "nu", "vg", "nu100", "dm", "cu", "s0_min")
 _OPTIONAL_NON_NEGATIVE = ("vi", "ec", "contact_angle")
 _INF = math.inf
+SPEED_MISSING = "no speed (n is blank or 0)"
+"""What a life in hours lacks at n = 0: a blank speed field reaches the engine as 0."""
 
 
 def _plain(value: object, low_open: bool) -> bool:
@@ -404,7 +406,8 @@ def _finite_life(life_mrev: float, symbol: str, case: CaseInputs) -> float:
 
 def _hours(d: Derivation, key: str, symbol: str, label: str, life_mrev: float, speed: float,
            kind: Kind) -> None:
-    """A life in hours at the case speed, or an undefined value with a warning at speed 0."""
+    """A life in hours at the case speed, or an undefined value with a warning without one
+    (a blank speed field reaches the engine as n = 0, so the words name both)."""
     if speed > 0.0 and not life_hours(life_mrev, speed) < _INF:
         raise InputError("speed", f"{symbol} is beyond the largest number of hours: the speed is "
                                   "too small for this life")
@@ -414,9 +417,10 @@ def _hours(d: Derivation, key: str, symbol: str, label: str, life_mrev: float, s
             args=(life_mrev, speed), unit="h", source=_LIFE_CLAUSE[kind]))
         return
     d.derived(key, NAN, lambda: StepWords(
-        symbol=symbol, label=label, formula="L·10⁶/(60·n)", template="speed is 0", unit="h",
-        source=_LIFE_CLAUSE[kind]),
-        warning=f"speed is 0: {symbol} in hours is undefined (life in revolutions stands)")
+        symbol=symbol, label=label, formula="L·10⁶/(60·n)", template=SPEED_MISSING,
+        unit="h", source=_LIFE_CLAUSE[kind]),
+        warning=f"{SPEED_MISSING}: {symbol} in hours is undefined "
+                "(the life in revolutions stands)")
 
 
 def rating_basis_mrev(case: CaseInputs) -> float:

@@ -34,7 +34,7 @@ from dataclasses import dataclass, replace
 from itertools import pairwise
 from typing import Any, NamedTuple
 
-from .derive import CaseInputs, derive
+from .derive import SPEED_MISSING, CaseInputs, derive
 from .life import AISO_CAP, KAPPA_MAX, KAPPA_MIN, KAPPA_PIECE_LIMITS, NU1_SPEED_SWITCH
 from .record import Derivation, InputError, fmt
 
@@ -456,7 +456,8 @@ def solve(case: CaseInputs, unknown: str, target: str, target_value: float,
     if unknown == "load_scale" and case.fr == 0 and case.fa == 0:
         raise InputError("fr", "scaling needs a load to scale")
     if target in ("L10h", "Lnm") and unknown != "speed" and case.speed <= 0:
-        raise NoSolution("speed", "speed is 0, so a life in hours is undefined: give a speed")
+        raise NoSolution("speed", f"{SPEED_MISSING}, so a life in hours is undefined: "
+                                          "give a speed")
     low, high = search_range(case, unknown, between)
     search = _Search(case, spec, target, target_value, low, high)
     step = (search.u_high - search.u_low) / (GRID_POINTS - 1)
