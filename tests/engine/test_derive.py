@@ -110,7 +110,7 @@ def test_no_lubrication_data_means_aiso_one_and_says_so() -> None:
     """Without viscosity, dm and cleanliness aISO = 1 and the step says what is missing."""
     d = derive(BASE)
     assert d.results["aISO"] == 1.0
-    assert "no viscosity" in d.step("aISO").note
+    assert "it needs the viscosity" in d.step("aISO").note
 
 
 def test_viscosity_from_grade_and_temperature() -> None:

@@ -8,6 +8,8 @@ from __future__ import annotations
 
 import math
 
+import pytest
+
 from workbench.engine.derive import derive
 from workbench.model.fields import inputs_from_texts
 
@@ -26,3 +28,21 @@ def test_a_blank_speed_is_called_missing_not_zero() -> None:
     assert "no speed (n is blank or 0)" == derivation.step("L10h").substituted
     assert any(w.startswith("no speed (n is blank or 0): Lnm in hours is undefined")
                for w in derivation.warnings)
+
+
+@pytest.mark.parametrize(("blank", "needs"), [
+    ({"speed"}, "a speed above 0"),
+    ({"dm"}, "the mean diameter dm"),
+    ({"cleanliness"}, "the cleanliness or eC"),
+    ({"vg"}, "the viscosity (ν, or ISO VG with the temperature)"),
+    ({"speed", "cleanliness"}, "a speed above 0 and the cleanliness or eC"),
+    ({"vg", "dm", "speed", "cleanliness"},
+     "the viscosity (ν, or ISO VG with the temperature), the mean diameter dm, a speed above 0 "
+     "and the cleanliness or eC"),
+])
+def test_aiso_says_what_it_needs_in_a_sentence(blank: set[str], needs: str) -> None:
+    """aISO = 1 names every missing input in one sentence that reads right for each of them
+    (it used to read "no a speed above 0")."""
+    typed = {name: ("" if name in blank else text) for name, text in TYPED.items()}
+    note = derive(inputs_from_texts(typed)).step("aISO").note
+    assert note == f"aISO = 1: it needs {needs}"

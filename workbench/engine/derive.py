@@ -502,17 +502,23 @@ def operating_viscosity(d: Derivation, case: CaseInputs) -> float | None:
 
 
 def lubrication_gaps(case: CaseInputs) -> list[str]:
-    """What the case lacks for aISO (ISO 281:2007 §9.3); empty when aISO can be evaluated."""
+    """What the case lacks for aISO (ISO 281:2007 §9.3), each as what aISO "needs"; empty when
+    aISO can be evaluated."""
     missing = []
     if case.nu is None and (case.vg is None or case.temp is None):
-        missing.append("viscosity (ν, or ISO VG with temperature)")
+        missing.append("the viscosity (ν, or ISO VG with the temperature)")
     if case.dm is None:
-        missing.append("mean diameter dm")
+        missing.append("the mean diameter dm")
     if case.speed <= 0.0:
         missing.append("a speed above 0")
     if case.ec is None and case.cleanliness is None:
-        missing.append("cleanliness or eC")
+        missing.append("the cleanliness or eC")
     return missing
+
+
+def _listed(items: list[str]) -> str:
+    """Items as a sentence lists them: "a", "a and b", "a, b and c"."""
+    return items[0] if len(items) == 1 else f"{', '.join(items[:-1])} and {items[-1]}"
 
 
 def _lubrication(d: Derivation, case: CaseInputs, kind: Kind, p_eff: float) -> float:
@@ -521,7 +527,7 @@ def _lubrication(d: Derivation, case: CaseInputs, kind: Kind, p_eff: float) -> f
     if missing:
         return d.derived("aISO", 1.0, lambda: StepWords(
             symbol="aISO", label="Systems-approach factor", formula="not evaluated", template="1",
-            source="ISO 281:2007 §9.3", note="aISO = 1: no " + ", no ".join(missing)))
+            source="ISO 281:2007 §9.3", note=f"aISO = 1: it needs {_listed(missing)}"))
     nu = operating_viscosity(d, case)
     dm = case.dm
     assert nu is not None and dm is not None
