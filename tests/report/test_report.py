@@ -96,6 +96,16 @@ def test_text_report_shows_every_step_and_source(path: Path) -> None:
             assert f"{step.label}  [{step.source}]" in text
 
 
+@pytest.mark.parametrize("fmt", ["text", "markdown"])
+def test_revolution_lives_are_written_with_a_times_sign(fmt: str) -> None:
+    """A life in millions of revolutions reads "216 × 10⁶ rev" (ISO 80000-1 writes a power of
+    ten before a unit after "×"), never "216 10⁶ rev", which reads as the number 21610⁶."""
+    session = load_session(SESSIONS / "demo.toml")
+    text = render_report(session, fmt, "demo.toml")
+    assert "× 10⁶ rev" in text
+    assert re.search(r"\d 10⁶ rev", text) is None, re.search(r".*\d 10⁶ rev.*", text)
+
+
 @pytest.mark.parametrize("path", EXAMPLES, ids=lambda p: p.name)
 def test_markdown_tables_are_well_formed(path: Path) -> None:
     markdown = render_report(load_session(path), "markdown", path.name)

@@ -34,7 +34,7 @@ async def test_typed_radial_load_changes_the_derivation(make_app) -> None:
         assert result.derivation.results["L10h"] == pytest.approx(421.875e6 / (60 * 1500))
         shown = derivation_text(app)
         assert f"= {format_quantity(4000.0, 'force', 'SI')}" in shown
-        assert f"= {fmt(reference.results['L10'])} 10⁶ rev" in shown
+        assert f"= {fmt(reference.results['L10'])} × 10⁶ rev" in shown  # ISO 80000-1's "×"
         assert "Fa/Fr ≤ e" in shown
 
 

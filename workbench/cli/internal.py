@@ -64,6 +64,8 @@ def _flag(name: str, specs: dict[str, Any]) -> str:
 
 def summary_lines(out: dict[str, Any], fmt: Any) -> list[str]:
     """The headline numbers and one line per element (row, ψ, Q, α, a bar of Q/Qmax in '#')."""
+    from ..engine.record import with_unit
+
     q, k, p = out["displacement"], out["stiffness"], out["p_max_MPa"]
     lines = [
         f"{out['kind']} ({out['arrangement']}):  Qmax {fmt(out['q_max_N'])} N,  ε {fmt(out['epsilon'])},"
@@ -73,7 +75,8 @@ def summary_lines(out: dict[str, Any], fmt: Any) -> list[str]:
         f"pmax: inner {fmt(p['inner'])} MPa, outer {fmt(p['outer'])} MPa",
         f"stiffness: radial {fmt(k['radial_N_per_mm'])} N/mm, axial {fmt(k['axial_N_per_mm'])} N/mm,"
         f" tilt {fmt(k['tilt_Nmm_per_rad'])} N·mm/rad",
-        f"L10r {fmt(out['L10r'])} (10⁶ rev)   L10 ISO 281 {fmt(out['L10_iso281'])} (10⁶ rev)"
+        f"L10r {with_unit(fmt(out['L10r']), '10⁶ rev')}   "
+        f"L10 ISO 281 {with_unit(fmt(out['L10_iso281']), '10⁶ rev')}"
         + (f"   Lnmr {fmt(out['Lnmr'])}" if math.isfinite(out["Lnmr"]) else ""),
         "",
         "row     ψ (°)     Q (N)   α (°)",

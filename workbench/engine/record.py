@@ -30,7 +30,7 @@ NumberWriter: TypeAlias = Callable[[float, str], str]
 def engine_units(value: float, spec: str) -> str:
     """A step's number in the engine's own unit: the number, and the unit where the spec asks."""
     unit = spec.removeprefix("=").removesuffix("+")
-    return f"{fmt(value)} {unit}" if spec.endswith("+") else fmt(value)
+    return with_unit(fmt(value), unit) if spec.endswith("+") else fmt(value)
 
 
 class _SpecFormatter(string.Formatter):
@@ -41,6 +41,15 @@ class _SpecFormatter(string.Formatter):
 
     def format_field(self, value: Any, format_spec: str) -> str:
         return self._write(value, format_spec)
+
+
+def with_unit(number: str, unit: str) -> str:
+    """A written number and its unit, as every display writes a value: "216 h", and a unit that
+    begins with a power of ten after "×" ("216 × 10⁶ rev", ISO 80000-1); the number alone
+    without a unit."""
+    if not unit:
+        return number
+    return f"{number} × {unit}" if unit.startswith("10") else f"{number} {unit}"
 
 
 def fmt(value: float, digits: int = 4) -> str:

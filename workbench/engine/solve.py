@@ -36,7 +36,7 @@ from typing import Any, NamedTuple
 
 from .derive import SPEED_MISSING, CaseInputs, derive
 from .life import AISO_CAP, KAPPA_MAX, KAPPA_MIN, KAPPA_PIECE_LIMITS, NU1_SPEED_SWITCH
-from .record import Derivation, InputError, fmt
+from .record import Derivation, InputError, fmt, with_unit
 
 REL_TOL = 1e-9
 MAX_EVALUATIONS = 3000  # a guard against a runaway search, far above any real question
@@ -533,7 +533,7 @@ def _no_root(search: _Search, points: list[_Point], target_value: float, limited
 
 def _amount(value: float, unit: str) -> str:
     """A number with its unit, if it has one."""
-    return f"{fmt(value)} {unit}" if unit else fmt(value)
+    return with_unit(fmt(value), unit)
 
 
 def _exp(log_value: float) -> float:

@@ -18,7 +18,7 @@ import math
 from collections.abc import Sequence
 from typing import TYPE_CHECKING
 
-from ..engine.record import fmt
+from ..engine.record import fmt, with_unit
 
 if TYPE_CHECKING:  # annotations only
     from ..engine.curves import Curve
@@ -131,7 +131,7 @@ def clearance_verdict_lines(curve: ClearanceCurve) -> list[str]:
     if not lives or not math.isfinite(reference) or reference <= 0.0:
         return ["No life at zero clearance to compare with."]
     best = max(lives, key=lambda p: p.life)
-    lines = [f"L10r at zero clearance {fmt(reference, 4)} 10⁶ rev; the best "
+    lines = [f"L10r at zero clearance {with_unit(fmt(reference, 4), '10⁶ rev')}; the best "
              f"{fmt(best.life, 4)} at Pd = {fmt(1000.0 * best.clearance, 3)} µm "
              f"({fmt(best.life / reference, 3)}×)."]
     preload_side = [p for p in points if p.clearance < 0.0]

@@ -18,7 +18,7 @@ from dataclasses import dataclass
 from typing import Sequence
 
 from ..engine.derive import CaseInputs
-from ..engine.record import Derivation, InputError, percent, signed
+from ..engine.record import Derivation, InputError, percent, signed, with_unit
 from ..engine.record import fmt as number_text
 from ..engine.sensitivity import SensitivityItem, sensitivity_of
 from ..engine.solve import TARGETS, UNKNOWNS, Solution, solve
@@ -273,10 +273,6 @@ class Report:
     caution: str
 
 
-def _with_unit(value: float, unit: str) -> str:
-    return f"{number_text(value)} {unit}" if unit else number_text(value)
-
-
 def _verdict(ok: bool | None) -> str:
     return "no verdict" if ok is None else ("met" if ok else "missed")
 
@@ -299,7 +295,7 @@ def sensitivity_section(items: Sequence[SensitivityItem]) -> SensitivitySection:
         heading=f"Sensitivity of {lives}: ε = d ln L / d ln x; ±10 % = life change for x·0.9 "
                 "and x·1.1",
         table=Table(SENSITIVITY_HEADERS, tuple(
-            (item.label, _with_unit(item.value, item.unit), signed(item.elasticity),
+            (item.label, with_unit(number_text(item.value), item.unit), signed(item.elasticity),
              signed(item.elasticity_s0), percent(item.minus10), percent(item.plus10), item.method)
             for item in items), numeric=(False, True, True, True, True, True, False)),
         notes=tuple((item.label, item.note) for item in items if item.note),
@@ -502,7 +498,7 @@ def _shaft_section(number: int, outcome: ShaftOutcome) -> ShaftSection:
         system_line = f"System life: none ({outcome.system_error})"
     else:
         system_line = (f"System life of the shaft's bearings: L_sys = "
-                       f"{number_text(system.life_mrev)} 10⁶ rev = {number_text(system.life_h)} h "
+                       f"{with_unit(number_text(system.life_mrev), '10⁶ rev')} = {number_text(system.life_h)} h "
                        f"at the mean speed, R = {system.reliability:g} "
                        f"(Weibull slope {number_text(system.weibull_slope)})")
     return ShaftSection(
@@ -549,7 +545,7 @@ def _duty_section(number: int, duty: DutyOutcome) -> DutySection:
         description=f"{origin}; bearing {result.bearing} ({result.kind}); shares typed on a "
                     f"{result.cycle.basis} basis",
         bearing=result.bearing, kind=result.kind, states=states, table=table,
-        life_line=(f"Duty life: L = {number_text(result.life_mrev)} 10⁶ rev = "
+        life_line=(f"Duty life: L = {with_unit(number_text(result.life_mrev), '10⁶ rev')} = "
                    f"{number_text(result.life_h)} h at the mean speed nm = "
                    f"{number_text(result.mean_speed)} r/min, R = {result.reliability:g}"),
         life_mrev=result.life_mrev, mean_speed=result.mean_speed, life_h=result.life_h,
@@ -585,10 +581,9 @@ def _solver_section(session: Session, results: list[CaseResult]) -> SolverSectio
     else:
         s = solution
         unit = f" {s.unit}" if s.unit else ""
-        target_unit = f" {TARGETS[s.target][1]}" if TARGETS[s.target][1] else ""
         lines += [
             f"Answer: {s.unknown} = {number_text(s.value)}{unit}",
-            f"Achieved: {s.target} = {number_text(s.achieved)}{target_unit} "
+            f"Achieved: {s.target} = {with_unit(number_text(s.achieved), TARGETS[s.target][1])} "
             f"(relative residual {s.residual:.1e})",
             f"Found by Brent's method on [{number_text(s.bracket[0])}, "
             f"{number_text(s.bracket[1])}]{unit} in {s.evaluations} evaluations; branch: {s.branch}",

@@ -4,7 +4,7 @@ from __future__ import annotations
 
 from typing import Sequence
 
-from ..engine.record import Derivation
+from ..engine.record import Derivation, with_unit
 from ..engine.record import fmt as number_text
 from ..engine.sensitivity import SensitivityItem
 from .contents import (
@@ -34,9 +34,8 @@ def step_lines(derivation: Derivation, indent: str = "  ") -> list[str]:
     """Numbered steps: symbol, label and source, then formula = numbers = result, notes, warnings."""
     lines: list[str] = []
     for index, step in enumerate(derivation.steps, start=1):
-        unit = f" {step.unit}" if step.unit else ""
         lines.append(f"{indent}{index:2d}. {step.symbol}  {step.label}  [{step.source}]")
-        worked = [step.formula, step.substituted, f"{step.value_text}{unit}"]
+        worked = [step.formula, step.substituted, with_unit(step.value_text, step.unit)]
         lines.append(f"{indent}    " + "  =  ".join(dict.fromkeys(worked)))
         if step.note:
             lines.append(f"{indent}    note: {step.note}")

@@ -13,7 +13,7 @@ import math
 from textual.content import Content
 from textual.reactive import var
 
-from ..engine.record import Derivation, Step, fmt
+from ..engine.record import Derivation, Step, fmt, with_unit
 from ..model.fields import FIELD_BY_NAME
 from ..model.quantities import ENGINE_UNIT_QUANTITY, format_quantity, step_number_writer
 from ..model.session import CaseResult
@@ -34,7 +34,7 @@ def step_result_text(step: Step, system: str) -> str:
     quantity = ENGINE_UNIT_QUANTITY.get(step.unit)
     if quantity is not None and math.isfinite(step.value):
         return format_quantity(step.value, quantity, system)  # type: ignore[arg-type]
-    return f"{step.value_text} {step.unit}".rstrip()
+    return with_unit(step.value_text, step.unit)
 
 
 def branch_text(result: CaseResult) -> str | None:

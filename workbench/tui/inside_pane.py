@@ -26,7 +26,7 @@ from textual.content import Content
 from ..engine.internal.analysis import InternalResult
 from ..engine.internal.distribution import ROLLER_KINDS
 from ..engine.internal.hertz import STATIC_REFERENCE_PRESSURE_BALL, STATIC_REFERENCE_PRESSURE_ROLLER
-from ..engine.record import fmt
+from ..engine.record import fmt, with_unit
 from ..model.document import Document
 from ..model.inside_request import InsideOutcome, InsideRequest, input_label, inside_request, work_out
 from ..model.plot_text import NO_CONTACT, load_bar, ring_art
@@ -83,13 +83,14 @@ def _results(outcome: InsideOutcome, system: str) -> list[Content]:
     lines.append(_number("kr", f"{fmt(r['k_radial'] / 1000.0, 4)} N/µm",
                          f" · ka = {fmt(r['k_axial'] / 1000.0, 4)} N/µm"))
     lines.append(_number("kθ", f"{fmt(r['k_tilt'] / 1.0e6, 4)} N·m/mrad"))
-    lines.append(_number("L10r", f"{fmt(r['L10r'], 4)} 10⁶ rev",
-                         f" · ISO 281 L10 = {fmt(r['L10_iso281'], 4)} 10⁶ rev"))
+    lines.append(_number("L10r", with_unit(fmt(r["L10r"], 4), "10⁶ rev"),
+                         f" · ISO 281 L10 = {with_unit(fmt(r['L10_iso281'], 4), '10⁶ rev')}"))
     if "L10rh" in r:
         hours = format_quantity(r["L10rh"], "time", system)
         lines.append(_number("L10rh", hours))
     if "Lnmr" in r:
-        lines.append(_number("Lnmr", f"{fmt(r['Lnmr'], 4)} 10⁶ rev", f" · aISO = {fmt(r['aISO'], 3)}"))
+        lines.append(_number("Lnmr", with_unit(fmt(r["Lnmr"], 4), "10⁶ rev"),
+                             f" · aISO = {fmt(r['aISO'], 3)}"))
     return lines
 
 

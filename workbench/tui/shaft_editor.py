@@ -16,7 +16,7 @@ from textual.binding import Binding
 from textual.content import Content
 from textual.widgets import Static
 
-from ..engine.record import fmt
+from ..engine.record import fmt, with_unit
 from ..model.fields import FIELD_BY_NAME
 from ..model.quantities import format_quantity
 from ..model.shafts import (
@@ -180,7 +180,7 @@ class DutyEditor(TableEditor):
         if outcome.result is None:
             return [Content.styled(f"✘ {outcome.error}", ERROR_STYLE)]
         result = outcome.result
-        lines = [Content.styled(f"Bearing {result.bearing}: L = {fmt(result.life_mrev)} × 10⁶ rev, "
+        lines = [Content.styled(f"Bearing {result.bearing}: L = {with_unit(fmt(result.life_mrev), '10⁶ rev')}, "
                                 f"{fmt(result.life_h)} h at the mean speed "
                                 f"{fmt(result.mean_speed)} r/min", "bold"),
                  Content("Share of the damage by state (Palmgren–Miner, 1/L = Σ ui/Li):")]

@@ -21,7 +21,7 @@ from textual.content import Content
 from textual.widgets import DataTable, Label, Static
 
 from ..engine.pairs import SIDES
-from ..engine.record import fmt
+from ..engine.record import fmt, with_unit
 from ..model.analysis import DutyOutcome, SessionAnalysis, ShaftOutcome, StateOutcome
 from ..model.quantities import format_quantity
 from ..model.shafts import KIND_WORDS, Element
@@ -91,7 +91,7 @@ def system_life(outcome: ShaftOutcome, system: str) -> Content:
     result = outcome.system
     return Content.assemble("System life of both bearings (in series): ",
                             (_hours(result.life_h, system), "bold"),
-                            f" ({fmt(result.life_mrev)} 10⁶ rev) at R = {fmt(result.reliability, 3)}")
+                            f" ({with_unit(fmt(result.life_mrev), '10⁶ rev')}) at R = {fmt(result.reliability, 3)}")
 
 
 def duty_life(duty: DutyOutcome, system: str) -> Content:
@@ -101,7 +101,7 @@ def duty_life(duty: DutyOutcome, system: str) -> Content:
     result = duty.result
     return Content.assemble(f"Bearing {result.bearing}: Miner life ",
                             (_hours(result.life_h, system), "bold"),
-                            f" ({fmt(result.life_mrev)} 10⁶ rev) at R = {fmt(result.reliability, 3)}")
+                            f" ({with_unit(fmt(result.life_mrev), '10⁶ rev')}) at R = {fmt(result.reliability, 3)}")
 
 
 def duty_rows(duty: DutyOutcome) -> list[list[str]]:

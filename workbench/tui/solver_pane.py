@@ -18,7 +18,7 @@ from textual.message import Message
 from textual.reactive import var
 from textual.widgets import Button, Input, Label, Select, Static
 
-from ..engine.record import fmt
+from ..engine.record import fmt, with_unit
 from ..engine.solve import TARGETS, UNKNOWNS, Solution
 from ..model.document import Document
 from ..model.quantities import format_quantity
@@ -48,7 +48,7 @@ def solution_content(case_name: str, solution: Solution, system: str) -> Content
         Content.assemble(f"{spec.label} = ",
                          (unknown_value_text(solution.unknown, solution.value, system),
                           "bold $text-success")),
-        Content(f"{solution.target} reached: {fmt(solution.achieved, 6)} {unit}".rstrip()),
+        Content(f"{solution.target} reached: {with_unit(fmt(solution.achieved, 6), unit)}"),
         Content(f"relative residual: {solution.residual:.2e}"),
         Content(f"evaluations: {solution.evaluations}"),
         Content(f"bracket: {unknown_value_text(solution.unknown, low, system)} … "
@@ -70,8 +70,8 @@ def failure_content(message: str, reachable: tuple[float, float] | None, target:
     lines = [Content.styled("✘ " + message, "bold $text-error on $error-muted")]
     if reachable is not None and target in TARGETS:
         unit = TARGETS[target][1]
-        lines.append(Content(f"reachable {target}: {fmt(reachable[0])} … {fmt(reachable[1])} "
-                             f"{unit}".rstrip()))
+        lines.append(Content(f"reachable {target}: {fmt(reachable[0])} … "
+                             f"{with_unit(fmt(reachable[1]), unit)}"))
     return Content("\n").join(lines)
 
 

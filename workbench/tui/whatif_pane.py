@@ -31,7 +31,7 @@ from textual.reactive import var
 from textual.timer import Timer
 
 from ..engine.curves import Curve, aiso_curve, life_curve
-from ..engine.record import InputError, fmt, percent, signed
+from ..engine.record import InputError, fmt, percent, signed, with_unit
 from ..engine.sensitivity import SensitivityItem, sensitivity_of
 from ..model.analysis import DutyOutcome
 from ..model.document import Document
@@ -67,7 +67,7 @@ MISSING_CURVE = {
 
 
 def _value_text(item: SensitivityItem) -> str:
-    return f"{fmt(item.value)} {item.unit}".rstrip()
+    return with_unit(fmt(item.value), item.unit)
 
 
 def sensitivity_lines(items: Sequence[SensitivityItem]) -> list[Content]:
@@ -117,7 +117,7 @@ def duty_lines(duties: Sequence[DutyOutcome], system: str) -> list[Content]:
         lines.append(Content.styled(title, "bold"))
         lines.append(Content.assemble(
             f"  bearing {result.bearing}: Miner life ", (life_h, NUMBER_STYLE),
-            f" ({fmt(result.life_mrev)} 10⁶ rev) at R = {fmt(result.reliability, 3)}"))
+            f" ({with_unit(fmt(result.life_mrev), '10⁶ rev')}) at R = {fmt(result.reliability, 3)}"))
         for case_result, damage in zip(result.case_results, result.damage_shares):
             lines.append(Content.assemble(
                 "  ", share_bar(damage), (f" {100.0 * damage:5.1f} %", NUMBER_STYLE),
