@@ -118,7 +118,7 @@ def test_several_roots_exit_3_listing_them(capsys: pytest.CaptureFixture[str]) -
     code, out, err = run(SEVERAL, capsys)
     assert code == 3 and out == ""
     assert len(err.strip().splitlines()) == 1
-    listed = err.split(" h: ")[1].split(" rpm")[0]
+    listed = err.split(" h: ")[1].split(" r/min")[0]
     roots = [float(text) for text in listed.split(", ")]
     assert roots == pytest.approx([21.4, 925.9, 941.8, 1021.6], rel=2e-4)
     assert "--between" in err

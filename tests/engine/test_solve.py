@@ -263,7 +263,7 @@ def test_reachable_range_is_the_true_extremes() -> None:
     _, ys = dense_scan(SPEED_CASE, "speed", "Lnm", 100.0, 5000.0, 20001)
     assert np.nanmax(ys) <= high * (1 + 1e-9) and np.nanmax(ys) == pytest.approx(high, rel=1e-3)
     assert np.nanmin(ys) >= low * (1 - 1e-9) and np.nanmin(ys) == pytest.approx(low, rel=1e-3)
-    assert "from speed n = 100 to 5000 rpm" in caught.value.message
+    assert "from speed n = 100 to 5000 r/min" in caught.value.message
 
 
 def test_result_that_does_not_move_is_not_several_answers() -> None:

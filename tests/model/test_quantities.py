@@ -32,8 +32,13 @@ REFERENCE = pint.UnitRegistry()
 REFERENCE.define("@alias turn = rev")
 
 
+PINT_SPELLING = {"r/min": "rpm"}
+"""pint's own registry has no "r" (the ISO 80000-3 revolution symbol); its "rpm" is r/min."""
+
+
 def pint_value(magnitude: float, unit: str, internal: str) -> float:
     """The conversion as pint itself does it."""
+    unit, internal = PINT_SPELLING.get(unit, unit), PINT_SPELLING.get(internal, internal)
     return float(REFERENCE.Quantity(magnitude, unit).to(internal).magnitude)
 
 
@@ -182,7 +187,7 @@ def test_display_units_per_system() -> None:
     assert si["temperature"] == "°C" and us["temperature"] == "°F"
     assert si["torque"] == "N·m" and us["torque"] == "lbf·ft"
     assert si["power"] == "kW" and us["power"] == "hp"
-    assert si["speed"] == us["speed"] == "rpm"
+    assert si["speed"] == us["speed"] == "r/min"  # ISO 80000-3
 
 
 def test_format_examples() -> None:

@@ -27,3 +27,14 @@ def test_plain_units_do_not_load_pint() -> None:
             "parse('2 kN', 'force'); parse('80 mm', 'length'); print('pint' in sys.modules)")
     out = subprocess.run([sys.executable, "-c", code], capture_output=True, text=True, check=True)
     assert out.stdout.strip() == "False"
+
+
+def test_speed_in_either_spelling_does_not_load_pint() -> None:
+    """The workbench writes r/min (ISO 80000-3) and reads rpm, the spelling older sessions and
+    habits use, as the same unit; neither loads pint (every session has speeds)."""
+    code = ("import sys; from workbench.model.quantities import parse; "
+            "print(parse('1200 r/min', 'speed'), parse('1200 rpm', 'speed'), 'pint' in sys.modules)")
+    out = subprocess.run([sys.executable, "-c", code], capture_output=True, text=True, check=True)
+    assert out.stdout.split() == ["1200.0", "1200.0", "False"]
+    # reference: pint reads rpm as revolutions per minute
+    assert parse("1200 rpm", "speed") == pytest.approx(UREG.Quantity("1200 rpm").to("rpm").magnitude)

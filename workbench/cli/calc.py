@@ -17,7 +17,7 @@ DESCRIPTION = ("Derive one load case: equivalent loads, rating life, reliability
 CALC_FIELDS = tuple(spec for spec in FIELDS if spec.name not in INSIDE_FIELDS)
 """The fields ``calc`` takes: the fit (clearance, preload, tilt, moment) is ``workbench
 internal``'s, as the ISO 281 chain does not read it."""
-EPILOG = ("Values take units: \"2 kN\", \"450 lbf\", \"1200 rpm\", \"68 mm^2/s\", \"70 degC\". "
+EPILOG = ("Values take units: \"2 kN\", \"450 lbf\", \"1200 r/min\", \"68 mm^2/s\", \"70 degC\". "
           "Exit codes: 2 bad input, 3 no solution.")
 
 
@@ -40,7 +40,7 @@ def add_arguments(parser: argparse.ArgumentParser) -> None:
                         help="the result the solved input must meet, e.g. \"Lnm=20000 h\"")
     parser.add_argument("--between", nargs=2, metavar=("LOW", "HIGH"),
                         help="search the solved input only from LOW to HIGH, with units like its "
-                             "own flag, e.g. --between \"500 rpm\" \"2000 rpm\"")
+                             "own flag, e.g. --between \"500 r/min\" \"2000 r/min\"")
     parser.add_argument("--sensitivity", action="store_true",
                         help="add the elasticity of life to each numeric input")
 

@@ -413,7 +413,7 @@ def _hours(d: Derivation, key: str, symbol: str, label: str, life_mrev: float, s
                                   "too small for this life")
     if speed > 0.0:
         d.derived(key, life_hours(life_mrev, speed), lambda: StepWords(
-            symbol=symbol, label=label, formula="L·10⁶/(60·n)", template="{0} × 10⁶ / (60 × {1:rpm})",
+            symbol=symbol, label=label, formula="L·10⁶/(60·n)", template="{0} × 10⁶ / (60 × {1:r/min})",
             args=(life_mrev, speed), unit="h", source=_LIFE_CLAUSE[kind]))
         return
     d.derived(key, NAN, lambda: StepWords(
@@ -552,8 +552,8 @@ def _lubrication(d: Derivation, case: CaseInputs, kind: Kind, p_eff: float) -> f
     d.derived("nu1", nu1, lambda: StepWords(
         symbol="ν1", label="Rated viscosity",
         formula="45000·n^−0.83·dm^−0.5" if slow else "4500·n^−0.5·dm^−0.5",
-        template=("45000 × {0:rpm}^−0.83 × ({1:=mm})^−0.5" if slow
-                  else "4500 × {0:rpm}^−0.5 × ({1:=mm})^−0.5"),
+        template=("45000 × {0:r/min}^−0.83 × ({1:=mm})^−0.5" if slow
+                  else "4500 × {0:r/min}^−0.5 × ({1:=mm})^−0.5"),
         args=(case.speed, dm), unit="mm²/s", source="ISO 281:2007 §9.3.3",
         note=("n < 1000 r/min" if slow else "n ≥ 1000 r/min") + "; the relation is stated in mm"))
     if used == kappa:

@@ -67,7 +67,7 @@ UNKNOWNS: dict[str, Unknown] = {
         Unknown("fr", "radial load Fr", "N", 1e-3, 1e9, True),
         Unknown("fa", "axial load Fa", "N", 1e-3, 1e9, True),
         Unknown("load_scale", "scale on Fr and Fa", "", 1e-6, 1e6, True),
-        Unknown("speed", "speed n", "rpm", 1e-3, 1e7, True),
+        Unknown("speed", "speed n", "r/min", 1e-3, 1e7, True),
         Unknown("reliability", "reliability R", "", 0.0, 1.0, False),
         Unknown("af", "application factor af", "", 1e-3, 1e3, True),
     )
@@ -142,7 +142,7 @@ class Solution:
         }
 
     def roots_text(self) -> str:
-        """Every root with the unknown's unit, e.g. "21.4, 925.9, 941.8, 1022 rpm"."""
+        """Every root with the unknown's unit, e.g. "21.4, 925.9, 941.8, 1022 r/min"."""
         unit = f" {self.unit}" if self.unit else ""
         return ", ".join(fmt(r, 6) for r in self.roots) + unit
 

@@ -58,7 +58,7 @@ FIELDS: tuple[FieldSpec, ...] = (
     FieldSpec("y_given", "--y", "Maker's Y", "number", hint="Y for Fa/Fr > e; one row's for a tapered pair", group="bearing"),
     FieldSpec("fr", "--fr", "Radial load Fr", "quantity", "force", "N"),
     FieldSpec("fa", "--fa", "Axial load Fa", "quantity", "force", "N"),
-    FieldSpec("speed", "--speed", "Speed n", "quantity", "speed", "rpm"),
+    FieldSpec("speed", "--speed", "Speed n", "quantity", "speed", "r/min"),
     FieldSpec("af", "--af", "Application factor af", "number", hint=T.APPLICATION_FACTOR_HINT,
               short="App. factor af"),
     FieldSpec("outer_ring_rotates", "--outer-ring-rotates", "Outer ring rotates",

@@ -85,7 +85,7 @@ def _value(spec: RatingInput, text: str) -> float | int:
     return read_rating_input(spec, text)
 
 
-_DEFAULT_UNITS = {"force": "N", "torque": "N*m", "speed": "rpm", "viscosity": "mm**2/s"}
+_DEFAULT_UNITS = {"force": "N", "torque": "N*m", "speed": "r/min", "viscosity": "mm**2/s"}
 
 
 def _ec(text: str) -> float:
@@ -216,7 +216,7 @@ def case_texts(case: CaseInputs, geometry_texts: Mapping[str, str],
     geometry gives one), loads and speed, and its lubrication as the case's derivation finds it
     (ν, eC, Cu), with the bearing's geometry and fit texts over them."""
     texts: dict[str, str] = {"kind": case.kind, "fr": f"{case.fr!r} N", "fa": f"{case.fa!r} N",
-                             "speed": f"{case.speed!r} rpm"}
+                             "speed": f"{case.speed!r} r/min"}
     if case.arrangement in _ARRANGEMENT_WORDS:
         texts["arrangement"] = case.arrangement
     if case.contact_angle is not None and "contact_angle" not in unread_fields(case.kind):

@@ -13,7 +13,8 @@ the first pint lookup and repeated parses never touch pint.  pint itself, and it
 ``UnitRegistry``, are loaded only on the first cache miss, so importing this module stays cheap.
 A unit written exactly as the quantity's internal unit (x1), or as that unit with the SI prefix
 k or M (ISO 80000-1: x10³, x10⁶) where the internal unit is one SI symbol, is converted without
-pint, so a session in the internal units ("2 kN", "1200 rpm", "70 °C") opens without loading pint.
+pint, so a session in the internal units ("2 kN", "1200 r/min", "70 °C", or a spelling the table
+lists beside its internal unit, "1200 rpm") opens without loading pint.
 
 Dimension checks compare pint's root units *including the radian*, which pint treats as a
 dimensionless base unit: that keeps angles and revolutions apart from plain numbers, and a
@@ -59,7 +60,9 @@ class QuantitySpec:
 
     Units are written as labels that pint also reads (``mm²/s``, ``N·m``, ``°C``), so the label a
     value is printed with is the unit text it parses back from.  ``si_large`` is an optional
-    larger SI display unit used by ``format_quantity`` from ``KILO_FROM_N`` of the base unit.
+    larger SI display unit used by ``format_quantity`` from ``KILO_FROM_N`` of the base unit;
+    ``aliases`` other spellings of the internal unit itself, read without pint (typed text and
+    older sessions use them; the workbench never writes them).
     """
 
     noun: str  # "a force", used in "5 kg is a mass, not a force"
@@ -68,12 +71,15 @@ class QuantitySpec:
     us: str
     example: str  # shown when a unit is missing
     si_large: str | None = None
+    aliases: tuple[str, ...] = ()
 
 
 QUANTITIES: dict[str, QuantitySpec] = {
     "force": QuantitySpec("a force", "N", "N", "lbf", "2 kN", si_large="kN"),
     "length": QuantitySpec("a length", "mm", "mm", "in", "25 mm"),
-    "speed": QuantitySpec("a rotational speed", "rpm", "rpm", "rpm", "1200 rpm"),
+    # r/min: the ISO 80000-3 spelling, shown everywhere; "rpm" is read as the same unit
+    "speed": QuantitySpec("a rotational speed", "r/min", "r/min", "r/min", "1200 r/min",
+                          aliases=("rpm",)),
     "time": QuantitySpec("a time", "h", "h", "h", "20000 h"),
     # cSt = mm²/s exactly; the US display uses the name common on US lubricant data sheets.
     "viscosity": QuantitySpec("a kinematic viscosity", "mm²/s", "mm²/s", "cSt", "68 mm²/s"),
@@ -151,8 +157,9 @@ def _noun_for(units: pint.Unit) -> str | None:
 
 
 def _exact_conversion(unit_text: str, spec: QuantitySpec) -> tuple[float, float] | None:
-    """(a, 0) for the internal unit itself or its k/M-prefixed form (ISO 80000-1); else None."""
-    if unit_text == spec.internal:
+    """(a, 0) for the internal unit itself (or one of its aliases) or its k/M-prefixed form
+    (ISO 80000-1); else None."""
+    if unit_text == spec.internal or unit_text in spec.aliases:
         return 1.0, 0.0
     prefix, rest = unit_text[:1], unit_text[1:]
     if prefix in _SI_PREFIXES and rest == spec.internal and rest in _PREFIXABLE_INTERNAL:
@@ -197,7 +204,7 @@ def _pint_conversion(unit_text: str, quantity: str, spec: QuantitySpec,
     if _root(units) != _root(internal):
         other = _noun_for(units)
         what = f"is {other}, not" if other else f"has dimension {units.dimensionality}, not"
-        hint = ": write r/min, r/s or rad/s, e.g. 1200 rpm" if quantity == "speed" else ""
+        hint = ": write r/min, r/s or rad/s, e.g. 1200 r/min" if quantity == "speed" else ""
         raise QuantityError(f"{shown} {what} {spec.noun}{hint}")
     try:
         offset = float(ureg.Quantity(0.0, units).to(internal).magnitude)
@@ -282,7 +289,7 @@ def from_display(value: float, quantity: str, system: System) -> float:
 # The engine's units as derivation steps name them (the unit spec of a step's placeholder, see
 # ``engine.record.Step``), and the quantity each is.
 ENGINE_UNIT_QUANTITY: dict[str, str] = {
-    "N": "force", "mm": "length", "rpm": "speed", "h": "time", "mm²/s": "viscosity",
+    "N": "force", "mm": "length", "r/min": "speed", "h": "time", "mm²/s": "viscosity",
     "°C": "temperature", "N·m": "torque", "W": "power", "kg": "mass",
 }
 

@@ -38,13 +38,13 @@ def shared_bearing_session(cases: int, *, pure_radial: bool = False) -> Session:
     shared_cases = cases - len(others)
     made = []
     for number in range(1, shared_cases + 1):
-        texts = {"fr": f"{shared_fr_kn(number):.3f} kN", "speed": f"{SHARED_SPEED_RPM:g} rpm"}
+        texts = {"fr": f"{shared_fr_kn(number):.3f} kN", "speed": f"{SHARED_SPEED_RPM:g} r/min"}
         if not pure_radial:
             texts.update({"fa": f"{0.4 + 0.001 * number:.3f} kN", "reliability": "0.95",
                           "vg": "68", "temp": "70 °C", "cleanliness": "normal"})
         made.append(LoadCase(f"case {number}", SHARED_BEARING, texts))
     made += [LoadCase(f"{bearing.name} run", bearing.name,
-                      {"fr": "8 kN", "speed": "900 rpm", "vg": "46", "temp": "60 °C"})
+                      {"fr": "8 kN", "speed": "900 r/min", "vg": "46", "temp": "60 °C"})
              for bearing in others]
     return Session(title=f"{cases} cases on one bearing", bearings=[shared, *others],
                    cases=made)

@@ -48,7 +48,7 @@ Table layout (TOML, an array of tables; every value is text)::
     [[shafts.states]]
     name = "full load"
     power = "15 kW"                  # or torque = "97 N·m"
-    speed = "1480 rpm"
+    speed = "1480 r/min"
     share = "0.7"                    # of the time
 
 Errors are :class:`~workbench.model.fields.FieldError` naming the key, counted from 1 like the
@@ -342,10 +342,10 @@ def _parsed_state(state: OperatingState, key: str) -> tuple[float | None, float 
         raise FieldError(f"{key}.power", "give either the power or the torque, not both"
                          if has_power else "give the power or the torque")
     if not state.speed.strip():
-        raise FieldError(f"{key}.speed", "give the shaft speed, e.g. 1480 rpm")
+        raise FieldError(f"{key}.speed", "give the shaft speed, e.g. 1480 r/min")
     power = _quantity(f"{key}.power", state.power, "power", None) if has_power else None
     torque = _quantity(f"{key}.torque", state.torque, "torque", "N·m") if has_torque else None
-    speed = _quantity(f"{key}.speed", state.speed, "speed", "rpm")
+    speed = _quantity(f"{key}.speed", state.speed, "speed", "r/min")
     for name, value in (("power", power), ("torque", torque), ("speed", speed)):
         if value is not None and value < 0.0:
             raise FieldError(f"{key}.{name}", "must not be negative (the shaft's rotation gives "
@@ -504,7 +504,7 @@ def shaft_cases(session: Session, shaft: Shaft, *, key: str = "shaft",
             taken.add(name)
             fr, fa = solution.bearing_loads[side]
             texts = dict(shaft.case_fields) | {
-                "fr": _force_text(fr), "fa": _force_text(fa), "speed": f"{solution.speed:.6g} rpm"}
+                "fr": _force_text(fr), "fa": _force_text(fa), "speed": f"{solution.speed:.6g} r/min"}
             result.append(LoadCase(name, getattr(shaft, f"bearing_{side.lower()}"), texts,
                                    f"{GENERATED_NOTE}{shaft.name}"))
     return result

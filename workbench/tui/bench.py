@@ -74,7 +74,7 @@ def bench_session(cases: int) -> Session:
     bearing = Bearing("Bench bearing", {"kind": "deep-groove", "c": "30 kN", "c0": "16 kN",
                                         "dm": "45 mm"})
     made = [LoadCase(f"Case {i + 1}", bearing.name,
-                     {"fr": f"{2 + 0.1 * i:g} kN", "fa": "0.8 kN", "speed": "1200 rpm",
+                     {"fr": f"{2 + 0.1 * i:g} kN", "fa": "0.8 kN", "speed": "1200 r/min",
                       "vg": "68", "temp": "60 degC", "cleanliness": "normal"})
             for i in range(cases)]
     return Session(title="Bench", targets=Targets(life="20000 h", s0="2"),

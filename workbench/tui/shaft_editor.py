@@ -71,7 +71,7 @@ class ShaftEditor(TableEditor):
              (Field("name", "Name"), Field("power", "Power", hint="e.g. 15 kW; or a torque"),
               Field("torque", "or torque", hint="e.g. 97 N·m"), Field("speed", "Speed"),
               Field("share", "Share of time")),
-             {"name": "state", "power": "10 kW", "speed": "1500 rpm", "share": "1"}),
+             {"name": "state", "power": "10 kW", "speed": "1500 r/min", "share": "1"}),
     )
     BINDINGS = [
         Binding("f2", "add_element", "Add gear or pulley"),
@@ -198,7 +198,7 @@ def new_shaft(bearings: list[str]) -> dict[str, Any]:
     second = bearings[1] if len(bearings) > 1 else first
     return {"name": "Shaft", "bearing_a": first, "bearing_b": second, "position_a": "0 mm",
             "position_b": "200 mm", "locating": "B", "rotation": "+",
-            "states": [{"name": "full load", "power": "10 kW", "speed": "1500 rpm", "share": "1"}]}
+            "states": [{"name": "full load", "power": "10 kW", "speed": "1500 r/min", "share": "1"}]}
 
 
 def new_duty_cycle(cases: list[str]) -> dict[str, Any]:

@@ -26,7 +26,7 @@ from ..model.targets import FOLLOWED_RESULT, solver_target
 from .choice_box import ChoiceBox
 from .view import View, view_reactive
 
-UNKNOWN_QUANTITY = {"N": "force", "rpm": "speed"}
+UNKNOWN_QUANTITY = {"N": "force", "r/min": "speed"}
 TARGET_EXAMPLE = {"h": "20000 h", "10⁶ rev": "900 Mrev", "": "2"}
 
 

@@ -1,0 +1,50 @@
+"""Words a newcomer reads on the screen, on the shipped demo session: the speed's unit, the
+shaft editor's messages and headings, a refused text's value in force."""
+
+from __future__ import annotations
+
+import pytest
+from textual.widgets import Input
+
+from tui_helpers import derivation_text, retype, selected_result
+
+from workbench.model import files
+from workbench.model.analysis import analyse
+from workbench.model.session import Session
+from workbench.tui.app import WorkbenchApp
+
+
+def demo_session() -> Session:
+    session = files.open_session(files.demo_path()).session
+    assert session is not None
+    return session
+
+
+def demo_app() -> WorkbenchApp:
+    return WorkbenchApp(demo_session(), None, offer_recovery=False, autosave_delay=None)
+
+
+def test_the_demo_session_spells_every_speed_r_min() -> None:
+    """Every speed the demo's cases hold, its own and those its shaft generates, reads r/min."""
+    speeds = [evaluated.case.texts["speed"] for evaluated in analyse(demo_session()).cases]
+    assert speeds and all(text.endswith(" r/min") for text in speeds), speeds
+
+
+async def test_the_speed_unit_reads_r_min_on_screen_and_rpm_is_still_read() -> None:
+    """The speed box, its example and the derivation pane all write r/min (ISO 80000-3), the
+    spelling the panes use; typed "rpm" is still read as the same unit."""
+    app = demo_app()
+    async with app.run_test(size=(120, 40)) as pilot:
+        await pilot.pause()
+        box = app.workbench_screen.query_one("#field-speed", Input)
+        assert box.value == "1480 r/min"
+        assert box.placeholder == "e.g. 1200 r/min"
+        shown = derivation_text(app)
+        assert "r/min" in shown and "rpm" not in shown
+        await retype(pilot, app, "speed", "740 rpm")
+        result = selected_result(app)
+        assert result is not None and result.derivation is not None
+        # ISO 281:2007 §5.3 (and §7.3): L10h = 10⁶·L10/(60·n), n = 740 r/min
+        assert result.derivation.results["L10h"] == pytest.approx(
+            result.derivation.results["L10"] * 1e6 / (60 * 740.0), rel=1e-12)
+        assert "rpm" not in derivation_text(app)
