@@ -12,6 +12,8 @@ from workbench.model import files
 from workbench.model.analysis import analyse
 from workbench.model.session import Session
 from workbench.tui.app import WorkbenchApp
+from workbench.tui.line_pane import LinePane
+from workbench.tui.shaft_editor import ShaftEditor
 
 
 def demo_session() -> Session:
@@ -48,3 +50,49 @@ async def test_the_speed_unit_reads_r_min_on_screen_and_rpm_is_still_read() -> N
         assert result.derivation.results["L10h"] == pytest.approx(
             result.derivation.results["L10"] * 1e6 / (60 * 740.0), rel=1e-12)
         assert "rpm" not in derivation_text(app)
+
+
+def results_text(app: WorkbenchApp) -> str:
+    """What the shaft editor's results pane shows, as plain text."""
+    return app.screen.query_one("#table-results", LinePane).text.plain
+
+
+async def open_shaft_editor(pilot) -> None:
+    await pilot.pause()
+    await pilot.press("alt+h")
+    await pilot.pause()
+    assert isinstance(pilot.app.screen, ShaftEditor)
+
+
+async def type_into(pilot, widget_id: str, text: str) -> None:
+    box = pilot.app.screen.query_one(f"#{widget_id}", Input)
+    box.focus()
+    await pilot.pause()
+    await pilot.press("end", "ctrl+u", *text)
+    await pilot.pause()
+
+
+async def test_the_shaft_editor_names_a_bad_text_in_its_own_words() -> None:
+    """A refused power of the first state is named by the shaft's name, the state's number and
+    name and the field's label, never by its key in the file ("shafts[1].states[1].power")."""
+    app = demo_app()
+    async with app.run_test(size=(120, 40)) as pilot:
+        await open_shaft_editor(pilot)
+        await type_into(pilot, "t--states--0--power", "xx")
+        shown = " ".join(results_text(app).split())  # as one line: the pane wraps it
+        assert ("Shaft 'RM-2 input shaft', operating state 1 'full load', Power: xx: a unit "
+                "with no number") in shown
+        assert "shafts[" not in shown and "states[" not in shown
+
+
+async def test_the_shaft_editor_names_a_generated_case_that_cannot_be_derived() -> None:
+    """A case input the engine refuses (R = 0.5, outside ISO 281 Table 12) stops the system
+    life; the message names the state and the case input by its label, not by keys."""
+    app = demo_app()
+    async with app.run_test(size=(120, 40)) as pilot:
+        await open_shaft_editor(pilot)
+        await type_into(pilot, "t--case_fields--reliability", "0.5")
+        shown = " ".join(results_text(app).split())
+        assert ("system life: Shaft 'RM-2 input shaft', operating state 1 'full load', its "
+                "generated case: case 'RM-2 input shaft · full load · A': Reliability R:") in shown
+        assert "shafts[" not in shown and "states[" not in shown and "reliability:" not in shown

@@ -37,6 +37,12 @@ def clipped(text: str, limit: int = QUOTE_LIMIT) -> str:
     return text if len(text) <= limit else text[: limit - 1] + ELLIPSIS
 
 
+def sentence(text: str) -> str:
+    """``text`` beginning with a capital, as a sentence or heading begins (the rest as typed:
+    ``str.capitalize`` would lower "RM-2")."""
+    return text[:1].upper() + text[1:]
+
+
 def quoted(text: object, limit: int = QUOTE_LIMIT) -> str:
     """``text`` in quotes for a message, clipped as :func:`clipped` does: ``'abc…'``."""
     return f"'{clipped(str(text), limit)}'"

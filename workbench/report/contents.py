@@ -28,6 +28,7 @@ from ..model.fields import FIELD_BY_NAME, FieldError
 from ..model.session import CaseResult, Session, case_texts
 from ..model.shafts import SIDES, is_generated
 from ..model.targets import parse_target_text, solver_target
+from ..model.user_text import sentence
 from .meta import Provenance, provenance
 
 UNITS_NOTE = "Values are in the engine's units: N, mm, r/min, h, 10⁶ rev, mm²/s, °C."
@@ -403,7 +404,7 @@ def _case_section(session: Session, number: int, result: CaseResult) -> CaseSect
     return CaseSection(
         number=number, name=case.name, bearing=_bearing_info(session, case.bearing),
         notes=case.notes,
-        generated_note=(f"{case.notes[:1].upper()}{case.notes[1:]}: its Fr, Fa and speed are those "
+        generated_note=(f"{sentence(case.notes)}: its Fr, Fa and speed are those "
                         "of the Shafts section") if is_generated(case) else None,
         inputs=tuple(InputText(name, FIELD_BY_NAME[name].label, text)
                      for name, text in texts.items() if text.strip()),

@@ -73,6 +73,7 @@ class ShaftEditor(TableEditor):
               Field("share", "Share of time")),
              {"name": "state", "power": "10 kW", "speed": "1500 r/min", "share": "1"}),
     )
+    MORE_LABELS = {"states": {"case": "its generated case"}}  # a state of the bearings' duty cycles
     BINDINGS = [
         Binding("f2", "add_element", "Add gear or pulley"),
         Binding("f3", "add_state", "Add state"),
@@ -119,11 +120,11 @@ class ShaftEditor(TableEditor):
         outcome = outcomes[self.index]
         lines: list[Content] = []
         if outcome.error:
-            lines.append(Content.styled(f"✘ {outcome.error}", ERROR_STYLE))
+            lines.append(Content.styled(f"✘ {self.in_words(outcome.error)}", ERROR_STYLE))
         for state in outcome.states:
             lines.append(Content.styled(f"State {state.state.name}", "bold"))
             if state.error or state.solution is None:
-                lines.append(Content.styled(f"  ✘ {state.error}", ERROR_STYLE))
+                lines.append(Content.styled(f"  ✘ {self.in_words(state.error or '')}", ERROR_STYLE))
                 continue
             for side, (fr, fa) in state.solution.bearing_loads.items():
                 lines.append(Content(
@@ -145,7 +146,8 @@ class ShaftEditor(TableEditor):
                 f"System life of A and B: {fmt(outcome.system.life_h)} h "
                 f"(R = {fmt(outcome.system.reliability)})", "bold"))
         elif outcome.system_error:
-            lines.append(Content.styled(f"✘ system life: {outcome.system_error}", ERROR_STYLE))
+            lines.append(Content.styled(f"✘ system life: {self.in_words(outcome.system_error)}",
+                                        ERROR_STYLE))
         first = next((s.solution for s in outcome.states if s.solution is not None), None)
         if first is not None:
             lines.append(Content(""))
@@ -178,7 +180,7 @@ class DutyEditor(TableEditor):
         if outcome is None:
             return [Content("No results yet.")]
         if outcome.result is None:
-            return [Content.styled(f"✘ {outcome.error}", ERROR_STYLE)]
+            return [Content.styled(f"✘ {self.in_words(outcome.error or '')}", ERROR_STYLE)]
         result = outcome.result
         lines = [Content.styled(f"Bearing {result.bearing}: L = {with_unit(fmt(result.life_mrev), '10⁶ rev')}, "
                                 f"{fmt(result.life_h)} h at the mean speed "

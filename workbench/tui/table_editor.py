@@ -23,6 +23,7 @@ from textual.widget import Widget
 from textual.widgets import Input, Label, Select, Static
 
 from ..model.document import Document
+from ..model.table_words import TableWords, error_in_words
 from .choice_box import ChoiceBox
 from .line_pane import LinePane
 from .field_box import FieldBox
@@ -95,6 +96,8 @@ class TableEditor(Screen[None]):
     TITLE_WORD = ""
     HEAD: tuple[Field, ...] = ()
     ROWS: tuple[Rows, ...] = ()
+    MORE_LABELS: dict[str, dict[str, str]] = {}
+    """Labels of keys the analysis names in a list of rows beyond the form's fields."""
 
     BINDINGS = [
         Binding("escape", "close", "Back"),
@@ -327,6 +330,17 @@ class TableEditor(Screen[None]):
             self._title = title
             self.query_one("#editor-title", Static).update(title)
         self.query_one("#table-results", LinePane).show_lines(self.results())
+
+    def in_words(self, error: str) -> str:
+        """An analysis error ("shafts[1].states[2].power: …") with its key named as this
+        editor shows it: the table's name, the row's title, number and name, the label."""
+        words = TableWords(
+            self.TITLE_WORD, {f.key: f.label for f in self.HEAD},
+            {rows.key: (rows.title, {f.key: f.label for f in rows.fields}
+                        | self.MORE_LABELS.get(rows.key, {}))
+             for rows in self.ROWS})
+        return error_in_words(error, self.table, words,
+                              bearings=[bearing.name for bearing in self.document.session.bearings])
 
     def results(self) -> list[Content]:
         """What the analysis makes of the table now, line by line."""

@@ -1,0 +1,31 @@
+"""Shaft and duty-cycle keys in a person's words (model.table_words)."""
+
+from __future__ import annotations
+
+import pytest
+
+from workbench.model.table_words import TableWords, error_in_words
+
+WORDS = TableWords("shaft", {"bearing_a": "Bearing at A", "position_b": "Position of B"},
+                   {"states": ("Operating state", {"power": "Power"}),
+                    "elements": ("Gear or pulley", {"helix_angle": "Helix angle"})})
+TABLE = {"name": "Mill shaft", "states": [{"name": "full load"}, {"name": ""}],
+         "elements": [{"name": "pinion"}]}
+
+
+@pytest.mark.parametrize(("error", "said"), [
+    ("shafts[1].states[1].power: xx: a unit with no number",
+     "Shaft 'Mill shaft', operating state 1 'full load', Power: xx: a unit with no number"),
+    ("shafts[1].states[2].power: give the power", "Shaft 'Mill shaft', operating state 2, Power: "
+                                                  "give the power"),
+    ("shafts[1].elements[1].helix_angle: below 45°",
+     "Shaft 'Mill shaft', gear or pulley 1 'pinion', Helix angle: below 45°"),
+    ("shafts[1].position_b: after A", "Shaft 'Mill shaft', Position of B: after A"),
+    ("shafts[1].A: no bearing", "Shaft 'Mill shaft', Bearing at A: no bearing"),
+    ("shafts[1].case_fields.temp: too cold",
+     "Shaft 'Mill shaft', case inputs, Operating temperature: too cold"),
+    ("bearings[2].c: a value is needed", "Bearing 'Idler', Dynamic rating C: a value is needed"),
+    ("no key here: as it is", "no key here: as it is"),
+])
+def test_keys_are_said_with_names_and_labels(error: str, said: str) -> None:
+    assert error_in_words(error, TABLE, WORDS, bearings=["Drive", "Idler"]) == said
