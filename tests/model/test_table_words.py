@@ -1,9 +1,10 @@
-"""Shaft and duty-cycle keys in a person's words (model.table_words)."""
+"""Shaft and duty-cycle keys in a person's words (model.table_words), and state names."""
 
 from __future__ import annotations
 
 import pytest
 
+from workbench.model.shafts import new_state_name, state_words
 from workbench.model.table_words import TableWords, error_in_words
 
 WORDS = TableWords("shaft", {"bearing_a": "Bearing at A", "position_b": "Position of B"},
@@ -29,3 +30,15 @@ TABLE = {"name": "Mill shaft", "states": [{"name": "full load"}, {"name": ""}],
 ])
 def test_keys_are_said_with_names_and_labels(error: str, said: str) -> None:
     assert error_in_words(error, TABLE, WORDS, bearings=["Drive", "Idler"]) == said
+
+
+def test_state_words_never_double_the_word_state() -> None:
+    assert state_words("full load") == "state full load"
+    assert state_words("state 4") == "state 4"
+    assert state_words("Start-up state") == "Start-up state"
+
+
+def test_a_new_state_is_numbered_after_the_others_and_unique() -> None:
+    assert new_state_name([]) == "state 1"
+    assert new_state_name([{"name": "full load"}, {"name": "part load"}]) == "state 3"
+    assert new_state_name([{"name": "state 2"}]) == "state 3"  # 2 is taken: the next one

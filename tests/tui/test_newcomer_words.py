@@ -96,3 +96,21 @@ async def test_the_shaft_editor_names_a_generated_case_that_cannot_be_derived() 
         assert ("system life: Shaft 'RM-2 input shaft', operating state 1 'full load', its "
                 "generated case: case 'RM-2 input shaft · full load · A': Reliability R:") in shown
         assert "shafts[" not in shown and "states[" not in shown and "reliability:" not in shown
+
+
+async def test_a_new_operating_state_has_a_numbered_name_and_no_doubled_heading() -> None:
+    """f3 adds "state 4" after the demo's three states (its number in the list, as the form
+    titles it), then "state 5"; the results head them "State 4", never "State state"."""
+    app = demo_app()
+    async with app.run_test(size=(120, 40)) as pilot:
+        await open_shaft_editor(pilot)
+        await pilot.press("f3")
+        await pilot.pause()
+        await pilot.press("f3")
+        await pilot.pause()
+        names = [app.screen.query_one(f"#t--states--{row}--name", Input).value for row in (3, 4)]
+        assert names == ["state 4", "state 5"]
+        shown = results_text(app)
+        assert "State 4\n" in shown and "State 5\n" in shown
+        assert "State state" not in shown and "state state" not in shown
+        assert "RM-2 input shaft · state 4 · A" in shown

@@ -477,6 +477,24 @@ def case_name(shaft: Shaft, state: OperatingState, side: str) -> str:
     return SEPARATOR.join((shaft.name, state.name, side))
 
 
+def state_words(name: str) -> str:
+    """Operating state ``name`` as a sentence names it: "state full load", or the name alone
+    where it says state already ("state 4", "start-up state"), so no heading doubles the word
+    ("State state 4")."""
+    return name if "state" in name.lower().split() else f"state {name}"
+
+
+def new_state_name(states: Sequence[Mapping[str, Any]]) -> str:
+    """The name of a state added after ``states``: "state N", N its number in the list (as the
+    editor titles it "Operating state N"), or the next number no state uses yet. A placeholder
+    that says which row it is; the generated cases' names ("shaft · state N · A") stay apart."""
+    taken = {str(state.get("name", "")) for state in states}
+    number = len(states) + 1
+    while f"state {number}" in taken:
+        number += 1
+    return f"state {number}"
+
+
 def is_generated(case: LoadCase) -> bool:
     """True for a case made by :func:`generated_cases` (the screen shows it read-only)."""
     return case.notes.startswith(GENERATED_NOTE)

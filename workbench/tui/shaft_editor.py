@@ -21,7 +21,9 @@ from ..model.fields import FIELD_BY_NAME
 from ..model.quantities import format_quantity
 from ..model.shafts import (
     ELEMENT_KINDS, GENERATED_NOTE, HANDS, LOCATING, MOUNTINGS, OPTIONAL_TEXTS, REQUIRED_TEXTS,
+    new_state_name, state_words,
 )
+from ..model.user_text import sentence
 from .derivation_pane import step_content
 from .table_editor import Field, Rows, TableEditor
 
@@ -71,7 +73,7 @@ class ShaftEditor(TableEditor):
              (Field("name", "Name"), Field("power", "Power", hint="e.g. 15 kW; or a torque"),
               Field("torque", "or torque", hint="e.g. 97 N·m"), Field("speed", "Speed"),
               Field("share", "Share of time")),
-             {"name": "state", "power": "10 kW", "speed": "1500 r/min", "share": "1"}),
+             {"power": "10 kW", "speed": "1500 r/min", "share": "1"}),  # named when added
     )
     MORE_LABELS = {"states": {"case": "its generated case"}}  # a state of the bearings' duty cycles
     BINDINGS = [
@@ -106,8 +108,8 @@ class ShaftEditor(TableEditor):
         await self.add_row(self.ROWS[0])
 
     async def action_add_state(self) -> None:
-        """Add an operating state."""
-        await self.add_row(self.ROWS[1])
+        """Add an operating state, named "state N" (see ``shafts.new_state_name``)."""
+        await self.add_row(self.ROWS[1], name=new_state_name(self.table.get("states", [])))
 
     def results(self) -> list[Content]:
         """Each state's bearing loads, the generated cases' lives, the system life and the
@@ -122,7 +124,7 @@ class ShaftEditor(TableEditor):
         if outcome.error:
             lines.append(Content.styled(f"✘ {self.in_words(outcome.error)}", ERROR_STYLE))
         for state in outcome.states:
-            lines.append(Content.styled(f"State {state.state.name}", "bold"))
+            lines.append(Content.styled(sentence(state_words(state.state.name)), "bold"))
             if state.error or state.solution is None:
                 lines.append(Content.styled(f"  ✘ {self.in_words(state.error or '')}", ERROR_STYLE))
                 continue
@@ -151,7 +153,7 @@ class ShaftEditor(TableEditor):
         first = next((s.solution for s in outcome.states if s.solution is not None), None)
         if first is not None:
             lines.append(Content(""))
-            lines.append(Content.styled(f"Free body of state {first.state.name}", "bold"))
+            lines.append(Content.styled(f"Free body of {state_words(first.state.name)}", "bold"))
             for step in first.derivation.steps:
                 lines.extend(step_content(step, system))
         return lines

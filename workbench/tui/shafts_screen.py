@@ -24,7 +24,8 @@ from ..engine.pairs import SIDES
 from ..engine.record import fmt, with_unit
 from ..model.analysis import DutyOutcome, SessionAnalysis, ShaftOutcome, StateOutcome
 from ..model.quantities import format_quantity
-from ..model.shafts import KIND_WORDS, Element
+from ..model.shafts import KIND_WORDS, Element, state_words
+from ..model.user_text import sentence
 from .derivation_pane import step_content
 from .dialogs import OnceModal
 from .table_fit import fill_fitted, plain
@@ -74,7 +75,7 @@ def state_row(state: StateOutcome, system: str) -> list[str]:
 def free_body(state: StateOutcome, system: str) -> Content:
     """What a state asks (power or torque, speed, share) and its free body, step by step."""
     given = state.state.power or state.state.torque
-    lines = [Content.styled(f"State {state.state.name}: {given} at {state.state.speed}, time "
+    lines = [Content.styled(f"{sentence(state_words(state.state.name))}: {given} at {state.state.speed}, time "
                             f"share {state.state.share}", "bold $text-primary")]
     if state.solution is None:
         lines.append(Content.styled(f"✘ {state.error}", "bold $text-error"))

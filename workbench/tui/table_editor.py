@@ -271,12 +271,13 @@ class TableEditor(Screen[None]):
         """Whether choosing a new ``key`` changes which fields show."""
         return False
 
-    async def add_row(self, rows: Rows) -> None:
-        """Add a row to ``rows`` and put the focus on its first field."""
+    async def add_row(self, rows: Rows, **texts: str) -> None:
+        """Add a row to ``rows`` (``rows.new``, with ``texts`` over it) and put the focus on its
+        first field."""
         if self.gone:
             self.action_close()
             return
-        number = self.document.add_row(self.TABLES, self.index, rows.key, dict(rows.new))
+        number = self.document.add_row(self.TABLES, self.index, rows.key, rows.new | texts)
         await self._rebuild(focus=control_id((rows.key, number), rows.fields[0].key))
         self._show()
 
