@@ -1,10 +1,10 @@
-"""Words a newcomer reads on the screen, on the shipped demo session: the speed's unit, the
-shaft editor's messages and headings, a refused text's value in force."""
+"""Words a newcomer reads on the screen (the shipped demo session, or the test rig's): the
+speed's unit, the shaft editor's messages and headings, what a refused text leaves in force."""
 
 from __future__ import annotations
 
 import pytest
-from textual.widgets import Input
+from textual.widgets import Input, Static
 
 from tui_helpers import derivation_text, retype, selected_result
 
@@ -114,3 +114,23 @@ async def test_a_new_operating_state_has_a_numbered_name_and_no_doubled_heading(
         assert "State 4\n" in shown and "State 5\n" in shown
         assert "State state" not in shown and "state state" not in shown
         assert "RM-2 input shaft · state 4 · A" in shown
+
+
+@pytest.mark.parametrize(("field", "in_force", "words"), [
+    ("vi", "", "the calculation still has this field blank (blank means 100)"),
+    ("af", "", "the calculation still has this field blank"),
+    ("fr", "3 kN", "the calculation still uses 3 kN"),
+])
+async def test_a_refused_text_says_what_the_calculation_uses(make_app, field: str,
+                                                             in_force: str, words: str) -> None:
+    """Under a refused text the note says what the calculation uses meanwhile: the value in
+    force, or that the field is blank there (with what blank means, where its hint says);
+    never the obscure "in force: (blank)"."""
+    app = make_app()
+    async with app.run_test(size=(120, 40)) as pilot:
+        await pilot.pause()
+        assert app.document.texts(0).get(field, "") == in_force
+        await retype(pilot, app, field, "abc")
+        note = str(app.workbench_screen.query_one(f"#note-{field}", Static).render())
+        assert note.endswith(f" · {words}"), note
+        assert "(blank)" not in note and "in force:" not in note

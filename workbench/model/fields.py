@@ -8,6 +8,7 @@ files and the case editor all go through :func:`parse_field`, so "2 kN" means on
 from __future__ import annotations
 
 import math
+import re
 from dataclasses import dataclass
 from functools import lru_cache
 from typing import Mapping
@@ -131,6 +132,21 @@ def unread_fields(kind_text: str) -> dict[str, str]:
     except ValueError:
         return {}
     return unread_inputs(kind)
+
+
+_BLANK_MEANS = re.compile(r"blank: (?P<meaning>[^;)]+)")
+
+
+def in_force_words(name: str, text: str) -> str:
+    """What the calculation uses while a refused text stands in field ``name`` and ``text`` is
+    the value in force: that text, or the field left blank with what blank means where its
+    hint says ("blank: 100")."""
+    if text.strip():
+        return f"the calculation still uses {text.strip()}"
+    spec = FIELD_BY_NAME.get(name)
+    found = _BLANK_MEANS.search(spec.hint) if spec is not None else None
+    meaning = f" (blank means {found['meaning'].strip()})" if found else ""
+    return f"the calculation still has this field blank{meaning}"
 
 
 class FieldError(ValueError):

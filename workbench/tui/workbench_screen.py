@@ -36,7 +36,7 @@ from ..engine.record import InputError
 from ..engine.solve import NoSolution, Solution
 from ..model import files
 from ..model.document import Derived, Document, Question, Rederivation
-from ..model.fields import FieldError
+from ..model.fields import FieldError, in_force_words
 from ..model.files import FileOutcome
 from ..model.session import Session
 from ..model.shafts import GENERATED_NOTE
@@ -258,7 +258,7 @@ class WorkbenchScreen(Screen[None]):
             document.end_run()
         if problem is not None:
             in_force = document.texts(self.selected).get(event.field, "")
-            form.answer(event.field, f"{problem} · in force: {in_force or '(blank)'}")
+            form.answer(event.field, f"{problem} · {in_force_words(event.field, in_force)}")
         else:
             form.answer(event.field, None)
         self._changed()
