@@ -63,6 +63,12 @@ def test_outer_ring_rotation_factor() -> None:
     y = d.results["Y"]
     assert d.results["P"] == pytest.approx(0.56 * 1.2 * 5200 + y * 2500)
     assert d.step("V").value == 1.2
+    # the ratio is Fa/(V·Fr): "Fa/V·Fr" reads as (Fa/V)·Fr
+    assert d.step("ratio").symbol == "Fa/(V·Fr)"
+    assert d.step("ratio").note == "branch: Fa/(V·Fr) > e"
+    assert d.step("X").label == "Radial factor (Fa/(V·Fr) > e)"
+    assert all("Fa/V·Fr" not in f"{step.symbol} {step.label} {step.formula} {step.note}"
+               for step in d.steps)
 
 
 def test_rotation_factor_on_a_cylindrical_bearing() -> None:

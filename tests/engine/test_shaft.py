@@ -137,8 +137,8 @@ def test_shaft_torque_given_or_from_power() -> None:
 
 
 def test_helical_element_load_by_hand() -> None:
-    # The hand case of tests/model/test_shafts.py: right-hand driving pinion, d = 100 mm, φn = 20°,
-    # ψ = 15°, T = 100 N·m, mesh point at θ = 0°, + rotation.  Wt = 2000 N,
+    # The hand case of tests/model/test_shafts.py: right-hand driving pinion, d = 100 mm, αn = 20°,
+    # β = 15°, T = 100 N·m, mesh point at θ = 0°, + rotation.  Wt = 2000 N,
     # Wr = 2000·tan 20°/cos 15° = 753.62 N, Wa = 2000·tan 15° = 535.90 N toward +x;
     # Fy = −Wr, Fz = −Wt, Fx acting at y = +50 mm.
     pinion = ShaftElement(name="pinion", kind="helical", position_mm=80.0, diameter_mm=100.0,
@@ -154,6 +154,26 @@ def test_helical_element_load_by_hand() -> None:
     assert [step.key for step in d.steps] == [
         "Wt[pinion]", "Wr[pinion]", "Wa[pinion]", "Fy[pinion]", "Fz[pinion]"]
     assert d.results == {}  # the element's steps are shown, not results of the shaft
+
+
+def test_gear_and_pulley_steps_speak_the_forms_symbols_in_one_unit() -> None:
+    """The steps name the angles as the shaft editor's form does (αn the normal pressure angle,
+    β the helix angle; never φ or ψ), and 2T/d is substituted with T in N·mm against d in mm:
+    2 × 100 000 N·mm / 100 mm = 2000 N (T = 100 N·m), so the numbers shown give the result."""
+    pinion = ShaftElement(name="pinion", kind="helical", position_mm=80.0, diameter_mm=100.0,
+                          mesh_angle_deg=0.0, pressure_angle_deg=20.0, helix_angle_deg=15.0,
+                          hand="right", driving=True)
+    pulley = ShaftElement(name="pulley", kind="pulley", position_mm=-40.0, diameter_mm=200.0,
+                          mesh_angle_deg=90.0)
+    d = Derivation()
+    element_load(d, pinion, 100.0, rotation=1)
+    element_load(d, pulley, 100.0, rotation=1)
+    words = " ".join(f"{step.formula} {step.source}" for step in d.steps)
+    assert "φ" not in words and "ψ" not in words
+    assert d.step("Wr[pinion]").formula == "Wt·tan αn/cos β"
+    assert d.step("Wa[pinion]").formula == "±Wt·tan β"
+    assert d.step("Wt[pinion]").substituted == "2 × 100000 N·mm / 100 mm"
+    assert d.step("F[pulley]").substituted == "2 × 2 × 100000 N·mm / 200 mm"  # F = f·2T/D, f = 2
 
 
 def test_pulley_load_takes_its_share_and_the_v_belt_factor() -> None:

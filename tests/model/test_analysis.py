@@ -1,8 +1,8 @@
 """The whole-session analysis and its report sections: shafts, generated cases, duty cycles.
 
 References outside the module: shaft statics for one gear between two bearings worked in closed
-form (ΣF = 0, ΣM = 0), the helical gear force relations Wt = 2T/d, Wr = Wt·tan φn/cos ψ,
-Wa = Wt·tan ψ and T = P/ω, the Palmgren–Miner rule 1/L = Σ ui/Li with ui = ti·ni/Σ tj·nj, the
+form (ΣF = 0, ΣM = 0), the helical gear force relations Wt = 2T/d, Wr = Wt·tan αn/cos β,
+Wa = Wt·tan β and T = P/ω, the Palmgren–Miner rule 1/L = Σ ui/Li with ui = ti·ni/Σ tj·nj, the
 hours conversion Lh = 10⁶·L/(60·n) of ISO 281:2007, the series-system closed form
 L_sys = (Σ L_i^−e)^(−1/e), and the JSON grammar of RFC 8259 (no NaN) as the standard library's
 ``json`` module enforces it.
@@ -56,9 +56,9 @@ def test_demo_generated_cases_follow_the_session_cases_and_derive() -> None:
 
 def test_demo_full_load_matches_closed_form_statics() -> None:
     # One helical pinion between the bearings (demo: A at 0, B at 190 mm, pinion at x = 118 mm,
-    # d = 56 mm, φn = 20°, ψ = 18°, right hand, driving, rotation +, mesh point at θ = 90°, i.e. on
+    # d = 56 mm, αn = 20°, β = 18°, right hand, driving, rotation +, mesh point at θ = 90°, i.e. on
     # +z at r = 28 mm), P = 30 kW at 1480 r/min, B locating.  Closed form:
-    #   T = P/ω; Wt = 2T/d; Wr = Wt·tan φn/cos ψ; Wa = Wt·tan ψ toward B.
+    #   T = P/ω; Wt = 2T/d; Wr = Wt·tan αn/cos β; Wa = Wt·tan β toward B.
     #   On the shaft at the mesh point: Fy = +Wt (a driving gear is held back against the
     #   motion of the mesh point, which moves along −y there), Fz = −Wr (toward the axis),
     #   Fx = +Wa at z = r.

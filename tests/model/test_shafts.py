@@ -1,7 +1,7 @@
 """Shafts: free bodies worked by hand, generated load cases, paired-bearing thrust, tables.
 
 References outside the module: hand equilibrium (ΣF = 0, ΣM = 0) of shafts worked in the
-comments; the gear-force closed forms (Wt = 2T/d, Wr = Wt·tan φn/cos ψ, Wa = Wt·tan ψ); Newton's
+comments; the gear-force closed forms (Wt = 2T/d, Wr = Wt·tan αn/cos β, Wa = Wt·tan β); Newton's
 third law between meshing gears; T = P/ω; the thrust-sharing rule as ``engine.pairs.share_thrust``
 gives it; ISO 281:2007 Table 3 values quoted in REFERENCE.md §2 (from memory).
 """
@@ -81,7 +81,7 @@ def loads_of(case: LoadCase) -> tuple[float, float, float]:
 # ---- statics worked by hand ----------------------------------------------------------------
 def test_helical_shaft_matches_hand_equilibrium() -> None:
     # By hand.  Bearings A at x = 0, B at x = 200 mm; B locates.  Right-hand helical pinion at
-    # x = 80 mm, d = 100 mm, φn = 20°, ψ = 15°, driving, shaft turning + about x, T = 100 N·m,
+    # x = 80 mm, d = 100 mm, αn = 20°, β = 15°, driving, shaft turning + about x, T = 100 N·m,
     # mesh point at θ = 0° (on +y, r = 50 mm).
     #   Wt = 2T/d = 2·100 000/100 = 2000 N; Wr = 2000·tan 20°/cos 15° = 2000·0.363970/0.965926
     #   = 753.62 N; Wa = 2000·tan 15° = 535.90 N, toward +x (right hand, driving, + rotation).
@@ -176,7 +176,7 @@ def test_mixed_shaft_is_in_equilibrium() -> None:
     total_moment = np.sum(np.cross(points, vectors), axis=0)
     assert np.allclose(total_force, 0.0, atol=1e-8)
     assert np.allclose(total_moment[1:], 0.0, atol=1e-6)
-    # straight bevel closed form: Wa = Wt·tan φ·sin γ, Wt = 2·0.4·100 000/70; apex on the A side
+    # straight bevel closed form: Wa = Wt·tan αn·sin γ, Wt = 2·0.4·100 000/70; apex on the A side
     # pushes the shaft toward B (+x); the pulley pull is f·2T/D = 2.5·2·20 000/160 = 625 N.
     wt = 2 * 40_000 / 70
     assert solution.loads[1].fx == pytest.approx(wt * math.tan(math.radians(20)) * 0.5, rel=1e-12)

@@ -95,8 +95,8 @@ async def test_moving_through_the_states_shows_each_free_body() -> None:
 
 
 def test_locating_bearing_takes_the_helix_thrust() -> None:
-    # Helical gear force relations: T = P/ω, Wt = 2T/d, Wa = Wt·tan ψ; the locating bearing B
-    # carries all the thrust (shaft axial equilibrium). Demo: 30 kW at 1480 rpm, d = 56 mm, ψ = 18°.
+    # Helical gear force relations: T = P/ω, Wt = 2T/d, Wa = Wt·tan β; the locating bearing B
+    # carries all the thrust (shaft axial equilibrium). Demo: 30 kW at 1480 r/min, d = 56 mm, β = 18°.
     torque = 30_000 / (2 * math.pi * 1480 / 60)
     thrust = 2 * torque / 0.056 * math.tan(math.radians(18))
     full_load = analyse(demo_session()).shafts[0].states[0].solution

@@ -291,7 +291,7 @@ def _dynamic_load(d: Derivation, case: CaseInputs, kind: Kind, arrangement: Arra
     if tabulated:
         d.derived("index", factors.index, lambda: _index_words(case, arrangement, factors))
     d.derived("e", factors.e, lambda: _factor_words("e", "Limit ratio e", factors, 1, tabulated))
-    vfr = "V·Fr" if v != 1.0 else "Fr"
+    vfr = "(V·Fr)" if v != 1.0 else "Fr"  # Fa/(V·Fr): V multiplies Fr, not the quotient
     side = f"Fa/{vfr} > e" if high else f"Fa/{vfr} ≤ e"
     d.derived("ratio", ratio, lambda: StepWords(
         symbol=f"Fa/{vfr}", label="Axial-to-radial load ratio",

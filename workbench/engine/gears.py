@@ -15,7 +15,7 @@ driving gear and follows it on a driven one).  The axial load Wa is signed:
 
 * helical gears: Wa > 0 pushes the gear (and its shaft) toward +x.  On a driving gear turning
   positively about +x a right-hand helix is thrust toward +x; a left hand, a driven gear or the
-  opposite rotation each flip the sign once.  So ``Wa = s_hand·s_role·rotation·Wt·tan ψ`` with
+  opposite rotation each flip the sign once.  So ``Wa = s_hand·s_role·rotation·Wt·tan β`` with
   ``s_hand`` = +1 right / −1 left and ``s_role`` = +1 driving / −1 driven.  (This is the tooth normal
   force being perpendicular to the tooth line; the two gears of a mesh come out equal and
   opposite.)
@@ -100,7 +100,7 @@ def torque_from_power(power_W: NumT, speed_rpm: NumT) -> NumT:
 
 
 def spur_forces(torque_Nm: NumT, pitch_diameter_mm: NumT, pressure_angle_deg: NumT) -> MeshForces[NumT]:
-    """Spur gear: Wt = T/(d/2), Wr = Wt·tan φ, Wa = 0 (gear-force relations, spur gears)."""
+    """Spur gear: Wt = T/(d/2), Wr = Wt·tan αn, Wa = 0 (gear-force relations, spur gears)."""
     checked("pressure_angle", pressure_angle_deg, low=0.0, high=90.0, low_open=True, high_open=True)
     wt = tangential_load(torque_Nm, pitch_diameter_mm)
     return MeshForces(wt, wt * tand(pressure_angle_deg), 0.0 * wt)
@@ -109,7 +109,7 @@ def spur_forces(torque_Nm: NumT, pitch_diameter_mm: NumT, pressure_angle_deg: Nu
 def helical_forces(torque_Nm: NumT, pitch_diameter_mm: NumT, normal_pressure_angle_deg: NumT,
                    helix_angle_deg: NumT, hand: Literal["left", "right"], driving: bool,
                    *, rotation: int = 1) -> MeshForces[NumT]:
-    """Helical gear: Wt = T/(d/2), Wr = Wt·tan φn/cos ψ, Wa = ±Wt·tan ψ (helical gear force relations).
+    """Helical gear: Wt = T/(d/2), Wr = Wt·tan αn/cos β, Wa = ±Wt·tan β (helical gear force relations).
 
     ``d`` is the transverse pitch diameter.  The sign of Wa follows the module's shaft-frame
     convention from ``hand``, ``driving`` and ``rotation`` (+1 or −1 about +x).
@@ -129,7 +129,7 @@ def helical_forces(torque_Nm: NumT, pitch_diameter_mm: NumT, normal_pressure_ang
 
 def straight_bevel_forces(torque_Nm: NumT, mean_pitch_diameter_mm: NumT, pressure_angle_deg: NumT,
                           pitch_cone_angle_deg: NumT) -> MeshForces[NumT]:
-    """Straight bevel gear: Wt at the mean pitch radius, Wr = Wt·tan φ·cos γ, Wa = Wt·tan φ·sin γ.
+    """Straight bevel gear: Wt at the mean pitch radius, Wr = Wt·tan αn·cos γ, Wa = Wt·tan αn·sin γ.
 
     Gear-force relations for straight bevel gears; Wa is the magnitude of the thrust, which points
     from the pitch-cone apex toward the back cone.

@@ -29,10 +29,14 @@ from .record import Derivation, InputError
 Locating = Literal["A", "B", "both"]
 ElementKind = Literal["spur", "helical", "bevel", "pulley"]
 SOURCE = "shaft statics, ΣF = 0, ΣM = 0"
-SPUR_SOURCE = "spur gear force relations: Wt = 2T/d, Wr = Wt·tan φ"
-HELICAL_SOURCE = "helical gear force relations: Wt = 2T/d, Wr = Wt·tan φn/cos ψ, Wa = Wt·tan ψ"
-BEVEL_SOURCE = ("straight bevel gear force relations: Wt = 2T/dm, Wr = Wt·tan φ·cos γ, "
-                "Wa = Wt·tan φ·sin γ")
+# αn the (normal) pressure angle, β the helix angle, γ the pitch cone angle: the symbols the
+# shaft editor's form uses (a spur or straight bevel gear's pressure angle is its normal one)
+SPUR_SOURCE = "spur gear force relations: Wt = 2T/d, Wr = Wt·tan αn"
+HELICAL_SOURCE = "helical gear force relations: Wt = 2T/d, Wr = Wt·tan αn/cos β, Wa = Wt·tan β"
+BEVEL_SOURCE = ("straight bevel gear force relations: Wt = 2T/dm, Wr = Wt·tan αn·cos γ, "
+                "Wa = Wt·tan αn·sin γ")
+N_MM_PER_N_M = 1000.0
+"""A torque in N·m written in N·mm, so a substitution against a diameter in mm is in one unit."""
 PULLEY_SOURCE = "belt or chain shaft load F = f·2T/D (factor f: common practice)"
 RESOLVE_SOURCE = "gear-force relations resolved in the shaft frame (x from A toward B)"
 TORQUE_SOURCE = "T = P/ω, ω = 2π·n/60"
@@ -269,7 +273,7 @@ def element_load(d: Derivation, element: ShaftElement, torque_Nm: float, *,
     if element.kind == "spur":
         forces = spur_forces(torque, element.diameter_mm, pressure_angle)
         source, fx = SPUR_SOURCE, 0.0
-        radial_formula, radial_template = "Wt·tan φ", "{0} × tan {1}°"
+        radial_formula, radial_template = "Wt·tan αn", "{0} × tan {1}°"
         angles: tuple[float, ...] = (pressure_angle,)
     elif element.kind == "helical":
         helix_angle = _gear_input(element.helix_angle_deg, "helix_angle", element.kind)
@@ -277,25 +281,26 @@ def element_load(d: Derivation, element: ShaftElement, torque_Nm: float, *,
                                 _gear_input(element.hand, "hand", element.kind),
                                 bool(element.driving), rotation=rotation)
         source, fx = HELICAL_SOURCE, forces.axial
-        radial_formula, radial_template = "Wt·tan φn/cos ψ", "{0} × tan {1}° / cos {2}°"
+        radial_formula, radial_template = "Wt·tan αn/cos β", "{0} × tan {1}° / cos {2}°"
         angles = (pressure_angle, helix_angle)
     else:
         cone_angle = _gear_input(element.pitch_cone_angle_deg, "pitch_cone_angle", element.kind)
         forces = straight_bevel_forces(torque, element.diameter_mm, pressure_angle, cone_angle)
         source, fx = BEVEL_SOURCE, bevel_axial_load(forces.axial,
                                                     _gear_input(element.apex, "apex", element.kind))
-        radial_formula, radial_template = "Wt·tan φ·cos γ", "{0} × tan {1}° × cos {2}°"
+        radial_formula, radial_template = "Wt·tan αn·cos γ", "{0} × tan {1}° × cos {2}°"
         angles = (pressure_angle, cone_angle)
     d.add(f"Wt[{name}]", forces.tangential, symbol=f"Wt,{name}",
-          label=f"Tangential load of {name}", formula="Wt = 2T/d", template="2 × {0} / {1}",
-          args=(torque, element.diameter_mm), unit="N", source=source, result=False)
+          label=f"Tangential load of {name}", formula="Wt = 2T/d",
+          template="2 × {0:=N·mm+} / {1:=mm+}", args=(N_MM_PER_N_M * torque, element.diameter_mm),
+          unit="N", source=source, result=False)
     d.add(f"Wr[{name}]", forces.radial, symbol=f"Wr,{name}", label=f"Radial load of {name}",
           formula=radial_formula, template=radial_template, args=(forces.tangential, *angles),
           unit="N", source=source, note="toward the axis", result=False)
     if element.kind == "helical":
         role = "driving" if element.driving else "driven"
         d.add(f"Wa[{name}]", fx, symbol=f"Wa,{name}", label=f"Axial load of {name}, + toward B",
-              formula="±Wt·tan ψ", template="({2}) × {0} × tan {1}°",
+              formula="±Wt·tan β", template="({2}) × {0} × tan {1}°",
               args=(forces.tangential, helix_angle, math.copysign(1.0, fx)),
               unit="N", source=source,
               note=f"{element.hand} hand, {role}, rotation {'+' if rotation > 0 else '−'}: "
@@ -303,7 +308,7 @@ def element_load(d: Derivation, element: ShaftElement, torque_Nm: float, *,
               result=False)
     elif element.kind == "bevel":
         d.add(f"Wa[{name}]", fx, symbol=f"Wa,{name}", label=f"Axial load of {name}, + toward B",
-              formula="±Wt·tan φ·sin γ", template="({3}) × {0} × tan {1}° × sin {2}°",
+              formula="±Wt·tan αn·sin γ", template="({3}) × {0} × tan {1}° × sin {2}°",
               args=(forces.tangential, *angles, math.copysign(1.0, fx)), unit="N", source=source,
               note=f"apex on the {element.apex} side: thrust away from it", result=False)
     fy, fz = mesh_force_components(forces.tangential, forces.radial, theta, rotation=rotation,
@@ -331,8 +336,8 @@ def _pulley_load(d: Derivation, element: ShaftElement, torque_Nm: float) -> Poin
     note = None if element.pull_factor is not None else (
         f"no pull factor given: the V-belt value {V_BELT_PULL_FACTOR:g} (spread {low:g}–{high:g})")
     d.add(f"F[{name}]", pull.force, symbol=f"F,{name}", label=f"Belt pull of {name}",
-          formula="F = f·2T/D", template="{0} × 2 × {1} / {2}",
-          args=(factor, torque_Nm, element.diameter_mm), unit="N", source=PULLEY_SOURCE,
+          formula="F = f·2T/D", template="{0} × 2 × {1:=N·mm+} / {2:=mm+}",
+          args=(factor, N_MM_PER_N_M * torque_Nm, element.diameter_mm), unit="N", source=PULLEY_SOURCE,
           note=note, result=False)
     d.add(f"Fy[{name}]", pull.fy, symbol=f"Fy,{name}", label=f"Pull of {name}, y",
           formula="F·cos θ", template="{0} × cos {1}°", args=(pull.force, theta), unit="N",
