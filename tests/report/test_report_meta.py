@@ -64,7 +64,8 @@ def shown_meta(fmt: str, text: str) -> dict[str, str | None]:
     found = {}
     for key, label in (("generated_at", "Generated (UTC)"), ("tool_version", "Tool version"),
                        ("session_sha256", "Session SHA-256")):
-        match = re.search(re.escape(label) + r":?[ \t]+(.+)", plain(fmt, text))
+        # the value after its label, or on the next line where the two do not fit one line
+        match = re.search(re.escape(label) + r":?\s+(.+)", plain(fmt, text))
         assert match is not None, (fmt, label)
         found[key] = match.group(1).strip()
     found["tool_version"] = str(found["tool_version"]).removeprefix("bearing-workbench ")
