@@ -116,11 +116,12 @@ def test_every_line_of_the_text_report_fits_74_columns(path: Path) -> None:
 @pytest.mark.parametrize("fmt", ["text", "markdown"])
 def test_revolution_lives_are_written_with_a_times_sign(fmt: str) -> None:
     """A life in millions of revolutions reads "216 × 10⁶ rev" (ISO 80000-1 writes a power of
-    ten before a unit after "×"), never "216 10⁶ rev", which reads as the number 21610⁶."""
+    ten before a unit after "×"), never "216 10⁶ rev", which reads as the number 21610⁶, nor
+    with the unit in a column of its own in the text report's results."""
     session = load_session(SESSIONS / "demo.toml")
     text = render_report(session, fmt, "demo.toml")
     assert "× 10⁶ rev" in text
-    assert re.search(r"\d 10⁶ rev", text) is None, re.search(r".*\d 10⁶ rev.*", text)
+    assert re.search(r"\d\s+10⁶ rev", text) is None, re.search(r".*\d\s+10⁶ rev.*", text)
 
 
 @pytest.mark.parametrize("path", EXAMPLES, ids=lambda p: p.name)

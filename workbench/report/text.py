@@ -165,7 +165,7 @@ def _case(case: CaseSection) -> list[str]:
         return lines + [f"ERROR: {case.error}", ""]
     d = case.derivation
     lines.append("Results:")
-    lines += table_lines(Table((), tuple((r.symbol, r.label, number_text(r.value), r.unit)
+    lines += table_lines(Table((), tuple((r.symbol, r.label, with_unit(number_text(r.value), r.unit))
                                          for r in case.results)), width=TEXT_WIDTH)
     lines += ["Derivation:", *step_lines(d, width=TEXT_WIDTH), "Warnings:" if d.warnings else "Warnings: none"]
     lines += [f"  - {w}" for w in d.warnings]
