@@ -5,7 +5,7 @@ from __future__ import annotations
 import pytest
 
 from workbench.model.shafts import new_state_name, state_words
-from workbench.model.table_words import TableWords, error_in_words
+from workbench.model.table_words import TableWords, error_in_words, session_error_in_words
 
 WORDS = TableWords("shaft", {"bearing_a": "Bearing at A", "position_b": "Position of B"},
                    {"states": ("Operating state", {"power": "Power"}),
@@ -30,6 +30,20 @@ TABLE = {"name": "Mill shaft", "states": [{"name": "full load"}, {"name": ""}],
 ])
 def test_keys_are_said_with_names_and_labels(error: str, said: str) -> None:
     assert error_in_words(error, TABLE, WORDS, bearings=["Drive", "Idler"]) == said
+
+
+def test_a_session_error_is_said_with_the_table_its_key_names() -> None:
+    """shafts[2] is the second shaft table; a duty cycle's key takes the duty-cycle words."""
+    duty_words = TableWords("duty cycle", {"basis": "Shares of"},
+                            {"states": ("State", {"share": "Share"})})
+    tables = {"shafts": [{"name": "First"}, TABLE],
+              "duty_cycles": [{"name": "Week", "states": [{"case": "Peak"}]}]}
+    words = {"shafts": WORDS, "duty_cycles": duty_words}
+    said = session_error_in_words("shafts[2].position_b: after A", tables, words)
+    assert said == "Shaft 'Mill shaft', Position of B: after A"
+    said = session_error_in_words("duty_cycles[1].states[1].share: negative", tables, words)
+    assert said == "Duty cycle 'Week', state 1 'Peak', Share: negative"
+    assert session_error_in_words("shafts[3].name: x", tables, words) == "shafts[3].name: x"
 
 
 def test_state_words_never_double_the_word_state() -> None:

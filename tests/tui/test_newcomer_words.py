@@ -14,6 +14,7 @@ from workbench.model.session import Session
 from workbench.tui.app import WorkbenchApp
 from workbench.tui.line_pane import LinePane
 from workbench.tui.shaft_editor import ShaftEditor
+from workbench.tui.shafts_screen import ShaftsScreen
 
 
 def demo_session() -> Session:
@@ -134,3 +135,20 @@ async def test_a_refused_text_says_what_the_calculation_uses(make_app, field: st
         note = str(app.workbench_screen.query_one(f"#note-{field}", Static).render())
         assert note.endswith(f" · {words}"), note
         assert "(blank)" not in note and "in force:" not in note
+
+
+async def test_the_shafts_view_names_errors_as_the_editors_do() -> None:
+    """The shafts view (alt+s) says a shaft's error in the editor's words too."""
+    app = demo_app()
+    async with app.run_test(size=(120, 40)) as pilot:
+        await open_shaft_editor(pilot)
+        await type_into(pilot, "t--case_fields--reliability", "0.5")
+        await pilot.press("escape")
+        await pilot.pause()
+        await pilot.press("alt+s")
+        await pilot.pause()
+        assert isinstance(app.screen, ShaftsScreen)
+        shown = " ".join(str(static.render()) for static in app.screen.query(Static))
+        assert ("System life: Shaft 'RM-2 input shaft', operating state 1 'full load', its "
+                "generated case: case 'RM-2 input shaft · full load · A': Reliability R:") in shown
+        assert "shafts[" not in shown and "states[" not in shown

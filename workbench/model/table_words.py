@@ -53,6 +53,24 @@ def error_in_words(error: str, table: Mapping[str, Any], words: TableWords, *,
     return f"{named}: {message}"
 
 
+def session_error_in_words(error: str, tables: Mapping[str, Sequence[Mapping[str, Any]]],
+                           words: Mapping[str, TableWords], *, bearings: Sequence[str] = ()) -> str:
+    """:func:`error_in_words` for an error of any of the session's tables: its key names the
+    list and number (``shafts[2]…``) of the table in ``tables``, said with ``words`` of that
+    list; an error in a bearing (``bearings[n]…``) or of no table given, as it is said."""
+    match = _LEADING_KEY.match(error)
+    first = _PART.match(match["key"]) if match is not None else None
+    if first is None:
+        return error
+    if first["name"] == "bearings":
+        return error_in_words(error, {}, next(iter(words.values())), bearings=bearings)
+    listed = tables.get(first["name"], ())
+    number = int(first["number"])
+    if first["name"] not in words or not 0 < number <= len(listed):
+        return error
+    return error_in_words(error, listed[number - 1], words[first["name"]], bearings=bearings)
+
+
 def key_in_words(key: str, table: Mapping[str, Any], words: TableWords, *,
                  bearings: Sequence[str] = ()) -> str:
     """``shafts[1].states[2].power`` as "Shaft 'RM-2 input shaft', operating state 2 'part

@@ -9,6 +9,7 @@ cycle's are its Palmgren–Miner life and each state's share of the damage.
 from __future__ import annotations
 
 import math
+from collections.abc import Callable
 from typing import Any
 
 from textual.app import ComposeResult
@@ -17,12 +18,14 @@ from textual.content import Content
 from textual.widgets import Static
 
 from ..engine.record import fmt, with_unit
+from ..model.document import Document
 from ..model.fields import FIELD_BY_NAME
 from ..model.quantities import format_quantity
 from ..model.shafts import (
     ELEMENT_KINDS, GENERATED_NOTE, HANDS, LOCATING, MOUNTINGS, OPTIONAL_TEXTS, REQUIRED_TEXTS,
     new_state_name, state_words,
 )
+from ..model.table_words import session_error_in_words
 from ..model.user_text import sentence
 from .derivation_pane import step_content
 from .table_editor import Field, Rows, TableEditor
@@ -194,6 +197,16 @@ class DutyEditor(TableEditor):
         for step in result.derivation.steps:
             lines.extend(step_content(step, self.document.units))
         return lines
+
+
+def session_in_words(document: Document) -> Callable[[str], str]:
+    """How the shafts view says an error of any shaft or duty-cycle table of ``document``: as
+    the editors do (``model.table_words``)."""
+    editors = (ShaftEditor, DutyEditor)
+    tables = {editor.TABLES: document.tables(editor.TABLES) for editor in editors}
+    words = {editor.TABLES: editor.table_words() for editor in editors}
+    bearings = [bearing.name for bearing in document.session.bearings]
+    return lambda error: session_error_in_words(error, tables, words, bearings=bearings)
 
 
 def new_shaft(bearings: list[str]) -> dict[str, Any]:

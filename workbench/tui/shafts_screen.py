@@ -12,6 +12,7 @@ from :func:`workbench.model.analysis.analyse`.
 from __future__ import annotations
 
 import math
+from collections.abc import Callable
 
 from textual import on
 from textual.app import ComposeResult
@@ -72,33 +73,35 @@ def state_row(state: StateOutcome, system: str) -> list[str]:
     return [state.state.name, *(_force(value, system) for side in SIDES for value in loads[side])]
 
 
-def free_body(state: StateOutcome, system: str) -> Content:
-    """What a state asks (power or torque, speed, share) and its free body, step by step."""
+def free_body(state: StateOutcome, system: str, in_words: Callable[[str], str] = str) -> Content:
+    """What a state asks (power or torque, speed, share) and its free body, step by step;
+    ``in_words`` says an error's key (see :func:`~workbench.tui.shaft_editor.session_in_words`)."""
     given = state.state.power or state.state.torque
     lines = [Content.styled(f"{sentence(state_words(state.state.name))}: {given} at {state.state.speed}, time "
                             f"share {state.state.share}", "bold $text-primary")]
     if state.solution is None:
-        lines.append(Content.styled(f"✘ {state.error}", "bold $text-error"))
+        lines.append(Content.styled(f"✘ {in_words(state.error or '')}", "bold $text-error"))
     else:
         for step in state.solution.derivation.steps:
             lines.extend(step_content(step, system))
     return Content("\n").join(lines)
 
 
-def system_life(outcome: ShaftOutcome, system: str) -> Content:
+def system_life(outcome: ShaftOutcome, system: str, in_words: Callable[[str], str] = str) -> Content:
     """The series life of the shaft's two bearings, or why there is none."""
     if outcome.system is None:
-        return Content.styled(f"✘ System life: {outcome.system_error}", "bold $text-error")
+        return Content.styled(f"✘ System life: {in_words(outcome.system_error or '')}",
+                              "bold $text-error")
     result = outcome.system
     return Content.assemble("System life of both bearings (in series): ",
                             (_hours(result.life_h, system), "bold"),
                             f" ({with_unit(fmt(result.life_mrev), '10⁶ rev')}) at R = {fmt(result.reliability, 3)}")
 
 
-def duty_life(duty: DutyOutcome, system: str) -> Content:
+def duty_life(duty: DutyOutcome, system: str, in_words: Callable[[str], str] = str) -> Content:
     """A duty cycle's bearing and Palmgren–Miner life, or why there is none."""
     if duty.result is None:
-        return Content.styled(f"✘ {duty.error}", "bold $text-error")
+        return Content.styled(f"✘ {in_words(duty.error or '')}", "bold $text-error")
     result = duty.result
     return Content.assemble(f"Bearing {result.bearing}: Miner life ",
                             (_hours(result.life_h, system), "bold"),
@@ -141,10 +144,14 @@ class ShaftsScreen(OnceModal[None]):
                 priority=True),
     ]
 
-    def __init__(self, analysis: SessionAnalysis, system: str) -> None:
+    def __init__(self, analysis: SessionAnalysis, system: str, *,
+                 in_words: Callable[[str], str] = str) -> None:
+        """``in_words`` says an error's key in words (the screen passes
+        :func:`~workbench.tui.shaft_editor.session_in_words`); as it is by default."""
         super().__init__()
         self.analysis = analysis
         self.system = system
+        self.in_words = in_words
 
     def compose(self) -> ComposeResult:
         """Title, the read-only note, each shaft, each duty cycle, the keys."""
@@ -158,7 +165,7 @@ class ShaftsScreen(OnceModal[None]):
             yield Label("Duty cycles (Palmgren–Miner)", classes="section-title")
             for n, duty in enumerate(self.analysis.duties):
                 yield Label(Content(duty.name or duty.key), classes="subtitle")
-                yield Static(duty_life(duty, self.system))
+                yield Static(duty_life(duty, self.system, self.in_words))
                 if duty.result is not None:
                     yield DataTable(id=f"duty-{n}", cursor_type="row", zebra_stripes=True)
             if not self.analysis.duties:
@@ -169,7 +176,8 @@ class ShaftsScreen(OnceModal[None]):
         yield Label(Content(f"Shaft {outcome.name or outcome.key}"), classes="section-title")
         shaft = outcome.shaft
         if shaft is None:
-            yield Static(Content.styled(f"✘ {outcome.error}", "bold $text-error"))
+            yield Static(Content.styled(f"✘ {self.in_words(outcome.error or '')}",
+                                        "bold $text-error"))
             return
         yield Static(Content(
             f"A = {shaft.bearing_a} at {shaft.position_a}, B = {shaft.bearing_b} at "
@@ -177,11 +185,11 @@ class ShaftsScreen(OnceModal[None]):
             + (f" ({shaft.mounting})" if shaft.mounting else "")))
         yield DataTable(id=f"shaft-{n}-elements", cursor_type="row", zebra_stripes=True)
         if outcome.error is not None:
-            yield Static(Content.styled(f"✘ {outcome.error}", "bold $text-error"))
+            yield Static(Content.styled(f"✘ {self.in_words(outcome.error)}", "bold $text-error"))
         if outcome.states:
             yield DataTable(id=f"shaft-{n}-states", cursor_type="row", zebra_stripes=True)
             yield Static(id=f"shaft-{n}-free-body", classes="free-body")
-        yield Static(system_life(outcome, self.system))
+        yield Static(system_life(outcome, self.system, self.in_words))
 
     def action_scroll_overview(self, how: str) -> None:
         """Scroll the overview a page up or down, or to its top or end."""
@@ -227,7 +235,7 @@ class ShaftsScreen(OnceModal[None]):
         states = self.analysis.shafts[n].states
         if 0 <= row < len(states):
             self.query_one(f"#shaft-{n}-free-body", Static).update(
-                free_body(states[row], self.system))
+                free_body(states[row], self.system, self.in_words))
 
     @on(DataTable.RowHighlighted)
     def _state_highlighted(self, event: DataTable.RowHighlighted) -> None:

@@ -332,15 +332,19 @@ class TableEditor(Screen[None]):
             self.query_one("#editor-title", Static).update(title)
         self.query_one("#table-results", LinePane).show_lines(self.results())
 
+    @classmethod
+    def table_words(cls) -> TableWords:
+        """How this editor names its table's parts: its word, the rows' titles, the labels."""
+        return TableWords(
+            cls.TITLE_WORD, {f.key: f.label for f in cls.HEAD},
+            {rows.key: (rows.title, {f.key: f.label for f in rows.fields}
+                        | cls.MORE_LABELS.get(rows.key, {}))
+             for rows in cls.ROWS})
+
     def in_words(self, error: str) -> str:
         """An analysis error ("shafts[1].states[2].power: …") with its key named as this
         editor shows it: the table's name, the row's title, number and name, the label."""
-        words = TableWords(
-            self.TITLE_WORD, {f.key: f.label for f in self.HEAD},
-            {rows.key: (rows.title, {f.key: f.label for f in rows.fields}
-                        | self.MORE_LABELS.get(rows.key, {}))
-             for rows in self.ROWS})
-        return error_in_words(error, self.table, words,
+        return error_in_words(error, self.table, self.table_words(),
                               bearings=[bearing.name for bearing in self.document.session.bearings])
 
     def results(self) -> list[Content]:

@@ -607,9 +607,11 @@ class WorkbenchScreen(Screen[None]):
 
     def action_show_shafts(self) -> None:
         """Show the shafts, their bearing loads and free bodies, and the duty cycles."""
-        from .shafts_screen import ShaftsScreen  # loaded on first use, not at start
+        from .shaft_editor import session_in_words  # loaded on first use, not at start
+        from .shafts_screen import ShaftsScreen
 
-        self.app.push_screen(ShaftsScreen(self.document.analysis, self.document.units))
+        self.app.push_screen(ShaftsScreen(self.document.analysis, self.document.units,
+                                          in_words=session_in_words(self.document)))
 
     def action_focus_cases(self) -> None:
         """Go to the load-case list."""
