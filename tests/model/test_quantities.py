@@ -25,7 +25,7 @@ from workbench.model.quantities import (
     unit_label,
 )
 from workbench.engine.derive import CaseInputs, derive
-from workbench.engine.record import fmt
+from workbench.engine.record import Step, fmt
 
 # reference: pint's default definitions, plus "rev" as another name for pint's own "turn"
 REFERENCE = pint.UnitRegistry()
@@ -269,20 +269,23 @@ LUBRICATED = CaseInputs(kind="deep-groove", fr=5200.0, fa=2500.0, c=33000.0, c0=
 
 
 def test_derivation_numbers_follow_the_us_display() -> None:
-    """Under a result in lbf the substituted forces are lbf too (pint: 1 N = 0.2248 lbf), a
-    temperature is °F, and a relation stated in mm keeps its mm and says so."""
+    """Under a result in lbf the substituted forces are lbf too (pint: 1 N = 0.2248 lbf), and a
+    relation stated in °C or mm keeps its unit and says so."""
     d = derive(LUBRICATED)
     us = step_number_writer("US")
     lbf = pint_value(1.0, "N", "lbf")
     y = d.results["Y"]
     assert d.step("P").substituted_in(us) == f"0.56 × {fmt(5200 * lbf)} + {fmt(y)} × {fmt(2500 * lbf)}"
     assert d.step("s0").substituted_in(us) == f"{fmt(19000 * lbf)} / {fmt(5200 * lbf)}"
-    assert d.step("T").substituted_in(us) == f"{fmt(pint_value(70.0, 'degC', 'degF'))} °F"
+    # T = t + 273.15 is stated in °C: it keeps °C in any display, so the sum reads true
+    # (it read "158 °F = 343.1 K"); pint: 70 °C is 343.15 K
+    assert d.step("T").substituted_in(us) == "70 °C + 273.15"
+    assert d.step("T").value == pytest.approx(pint_value(70.0, "degC", "K"))
     assert "(60 mm)^−0.5" in d.step("nu1").substituted_in(us)
     si = step_number_writer("SI")
     for step in d.steps:  # in SI the display writes what the engine writes
         assert step.substituted_in(si) == step.substituted, step.key
-    assert d.step("T").substituted == "70 °C"
+    assert d.step("T").substituted == "70 °C + 273.15"
 
 
 @pytest.mark.parametrize("text", ["1 kN**99", "1 kN^99", "1e300 TN", "1 N*kN*MN*GN*TN*PN*EN"])
@@ -321,3 +324,19 @@ def test_a_number_keeps_four_significant_figures_written_out_or_not(value: float
 
 def test_past_ten_million_a_number_takes_an_exponent() -> None:
     assert fmt(60_551_234.0) == "6.055e+07"
+
+
+@pytest.mark.parametrize(("template", "args", "expected"), [
+    ("−{0}/{1}", (-296700.0, 180.0), "−(-296700)/180"),
+    ("√({0}² + {1}²)", (-461.6, -48.1), "√((-461.6)² + (-48.1)²)"),
+    ("−({0}) − ({1})", (-12.5, 4.0), "−(-12.5) − (4)"),
+    ("ΣM = {0}", (-296700.0,), "ΣM = -296700"),
+    ("{0} × {1}", (-2.0, 3.0), "-2 × 3"),
+    ("{0} × {1}", (2.0, -3.0), "2 × (-3)"),
+])
+def test_a_negative_number_bound_by_an_operator_or_a_power_is_bracketed(
+        template: str, args: tuple[float, ...], expected: str) -> None:
+    # "−-296700/180" and "√(-461.6² + …)" (which reads as −(461.6²)) were written before
+    step = Step(key="x", symbol="x", label="x", formula="x", template=template, args=args,
+                value=0.0, unit="", source="")
+    assert step.substituted == expected

@@ -489,7 +489,8 @@ def operating_viscosity(d: Derivation, case: CaseInputs) -> float | None:
             note="VI 100 assumed (no VI given)" if case.vi is None else None))
     d.derived("T", kelvin, lambda: StepWords(
         symbol="T", label="Operating temperature, absolute", formula="T = t + 273.15",
-        template="{0:°C+}", args=(temp_c,), unit="K", source="ASTM D341 (T in kelvin)"))
+        template="{0:=°C+} + 273.15", args=(temp_c,), unit="K",
+        source="ASTM D341 (T in kelvin)"))
     return d.derived("nu", nu, lambda: StepWords(
         symbol="ν", label="Operating viscosity (ASTM D341)",
         formula="ν = 10^(10^(A − B·log10 T)) − 0.7",

@@ -33,14 +33,33 @@ def engine_units(value: float, spec: str) -> str:
     return with_unit(fmt(value), unit) if spec.endswith("+") else fmt(value)
 
 
-class _SpecFormatter(string.Formatter):
-    """``str.format`` that hands each placeholder's spec to a writer instead of ``format()``."""
+OPERATOR_BEFORE = ("−", "-", "+", "×", "/", "·", "^", "√")
+"""Text a substituted number may follow that binds it: a negative number there is bracketed."""
+POWER_AFTER = ("²", "³", "^")
+"""Text a substituted number may precede that binds it: a negative number there is bracketed."""
 
-    def __init__(self, write: NumberWriter) -> None:
-        self._write = write
 
-    def format_field(self, value: Any, format_spec: str) -> str:
-        return self._write(value, format_spec)
+def _substitute(template: str, args: tuple[Any, ...], write: NumberWriter) -> str:
+    """``template`` with each placeholder's number written by ``write(value, spec)``; a
+    negative number that follows an operator or carries a power is put in brackets, so that
+    "−{0}/{1}" reads "−(-296700)/180" and "{0}²" reads "(-461.6)²", never "−-296700" or "-461.6²"
+    (which reads as −(461.6²))."""
+    parsed = list(string.Formatter().parse(template))
+    pieces: list[str] = []
+    auto = 0
+    for number, (literal, field, spec, _) in enumerate(parsed):
+        pieces.append(literal)
+        if field is None:
+            continue
+        index = int(field) if field else auto
+        auto += 1
+        value = args[index]
+        text = write(value, spec or "")
+        following = parsed[number + 1][0] if number + 1 < len(parsed) else ""
+        binds = literal.rstrip().endswith(OPERATOR_BEFORE) or following.startswith(POWER_AFTER)
+        pieces.append(f"({text})" if binds and isinstance(value, float | int) and value < 0
+                      else text)
+    return "".join(pieces)
 
 
 def with_unit(number: str, unit: str) -> str:
@@ -111,7 +130,7 @@ class Step:
         placeholder's unit spec ("" when it has none; see the class notes)."""
         if not self.args:
             return self.template
-        return _SpecFormatter(write).format(self.template, *self.args)
+        return _substitute(self.template, self.args, write)
 
     @property
     def value_text(self) -> str:
