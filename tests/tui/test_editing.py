@@ -5,7 +5,7 @@ from __future__ import annotations
 import html
 
 import pytest
-from textual.widgets import Select
+from textual.widgets import Checkbox, Select
 
 from screen_host import painted
 from tui_helpers import (choose, derivation_text, editor, paste_into, reference_derivation, retype, selected_result)
@@ -381,3 +381,18 @@ async def test_fields_a_kind_does_not_read_are_shown_not_used(make_app) -> None:
         assert app.document.session.bearing("Drive").texts["kind"] == "deep-groove"
         assert not disabled()["f0"] and not screen.query_one("#label-f0").has_class("-unread")
         assert str(screen.query_one("#field-f0").tooltip) == field_help("f0")
+
+
+async def test_a_switch_that_is_off_shows_an_empty_box(make_app) -> None:
+    # Textual draws "▐X▌" on and off alike: "Outer ring rotates ▐X▌ V = 1" read as ticked
+    app = make_app()
+    async with app.run_test(size=(120, 40)) as pilot:
+        await pilot.pause()
+        switch = app.workbench_screen.query_one("#field-outer_ring_rotates", Checkbox)
+        assert not switch.value
+        assert switch.render().plain.startswith("▐ ▌")
+        switch.focus()
+        await pilot.press("space")
+        await pilot.pause()
+        assert switch.value and switch.render().plain.startswith("▐X▌")
+        assert app.document.texts(app.workbench_screen.selected)["outer_ring_rotates"] != ""

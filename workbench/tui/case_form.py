@@ -30,6 +30,7 @@ from ..model.fields import (BEARING_FIELDS, FIELD_BY_NAME, FieldError, FieldSpec
 from ..model.quantities import QUANTITIES
 from .choice_box import ChoiceBox
 from .field_box import FieldBox, FieldValidator
+from .tick_box import TickBox
 from .view import View, view_reactive
 
 EDITOR_GROUPS: tuple[tuple[str, tuple[str, ...]], ...] = (
@@ -248,7 +249,7 @@ class CaseForm(VerticalScroll):
                              tooltip=tooltip)
         spec = FIELD_BY_NAME[name]
         if spec.kind == "switch":
-            return Checkbox(switch_words(name, False), id=control_id, compact=True,
+            return TickBox(switch_words(name, False), id=control_id, compact=True,
                             tooltip=tooltip)
         if not takes_text(name):
             return ChoiceBox([(choice, choice) for choice in spec.choices], id=control_id,

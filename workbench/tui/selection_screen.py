@@ -41,6 +41,7 @@ from ..model.selection import candidate_rows, selection_inputs
 from ..model.session import CaseResult
 from .dialogs import Check, OnceModal
 from .table_fit import CELL_PADDING, natural_width, plain
+from .tick_box import TickBox
 
 SIZE_FILTERS = (("bore_min", "Bore d from"), ("bore_max", "to"), ("outer_max", "Outer D up to"),
                 ("width_max", "Width B up to"))
@@ -184,7 +185,7 @@ class SelectionScreen(OnceModal[Adoption | None]):
                 yield Label("Kind", classes="form-label")
                 yield Select([(words, kind.value) for kind, words in KIND_WORDS.items()],
                              prompt="any kind", compact=True, id=FILTER_PREFIX + "kind")
-                yield Checkbox(FLANGED_WORDS, compact=True, id=FILTER_PREFIX + "flanged")
+                yield TickBox(FLANGED_WORDS, compact=True, id=FILTER_PREFIX + "flanged")
             with Horizontal(classes="form-row"):
                 for name, label in SIZE_FILTERS:
                     yield Label(label, classes="form-label")
