@@ -7,7 +7,7 @@ from pathlib import Path
 import pytest
 from textual.widgets import Input
 
-from tui_helpers import reference_derivation, selected_result
+from tui_helpers import reference_derivation, retype, selected_result
 
 from workbench.engine.solve import solve
 from workbench.model.fields import inputs_from_texts
@@ -111,10 +111,14 @@ async def test_no_solution_shows_the_reachable_range(make_app) -> None:
     async with app.run_test(size=(80, 24)) as pilot:
         await _ask(pilot, app, "reliability", "Lnm", "1e9 h")
         shown = app.workbench_screen.query_one("#solver-view").text.plain
-        assert "✘" in shown and "reachable Lnm" in shown
+        assert "✘" in shown and "life runs from" in shown
+        assert "reachable" not in shown  # the range once, not twice
         await pilot.press("f10")
         await pilot.pause()
         assert app.document.session.cases[0].texts.get("reliability") is None
+        assert not app.workbench_screen.query_one("#solver-stale").has_class("-shown")
+        await retype(pilot, app, "fr", "3.3 kN")  # the case changes: the answer is old
+        assert app.workbench_screen.query_one("#solver-stale").has_class("-shown")
 
 
 async def test_unreadable_target_is_reported_not_raised(make_app) -> None:

@@ -65,14 +65,9 @@ def solution_content(case_name: str, solution: Solution, system: str) -> Content
     return Content("\n").join(lines)
 
 
-def failure_content(message: str, reachable: tuple[float, float] | None, target: str) -> Content:
-    """Why no value was found, with the range the result can reach where known."""
-    lines = [Content.styled("✘ " + message, "bold $text-error on $error-muted")]
-    if reachable is not None and target in TARGETS:
-        unit = TARGETS[target][1]
-        lines.append(Content(f"reachable {target}: {fmt(reachable[0])} … "
-                             f"{with_unit(fmt(reachable[1]), unit)}"))
-    return Content("\n").join(lines)
+def failure_content(message: str) -> Content:
+    """Why no value was found (the engine's message states the range the result can reach)."""
+    return Content.styled("✘ " + message, "bold $text-error on $error-muted")
 
 
 WHOLE_RANGE = "The range the unknown is searched in; blank: its whole range"
@@ -221,10 +216,10 @@ class SolverPane(VerticalScroll):
         """Show what the solver found for ``case_name`` on ``revision``."""
         self._show(solution_content(case_name, solution, system), True, revision)
 
-    def show_failure(self, message: str, reachable: tuple[float, float] | None = None) -> None:
-        """Show why nothing was solved."""
-        target = str(self.query_one("#solver-target", ChoiceBox).value)
-        self._show(failure_content(message, reachable, target), False, None)
+    def show_failure(self, message: str, *, revision: int) -> None:
+        """Show why nothing was solved on ``revision`` (marked out of date, as an answer is,
+        once the session changes)."""
+        self._show(failure_content(message), False, revision)
 
     def show_note(self, message: str) -> None:
         """A plain line in the result area (e.g. after applying)."""

@@ -398,7 +398,7 @@ class WorkbenchScreen(Screen[None]):
         try:
             question = self.document.question(self.selected, unknown, target_text, between)
         except (FieldError, InputError) as exc:
-            pane.show_failure(exc.message)
+            pane.show_failure(exc.message, revision=self.document.revision)
             return
         pane.show_busy()
         self._answer(question)
@@ -416,10 +416,8 @@ class WorkbenchScreen(Screen[None]):
         pane = self._solver()
         if pane is None:
             return
-        if isinstance(outcome, NoSolution):
-            pane.show_failure(outcome.message, outcome.reachable)
-        elif isinstance(outcome, InputError):
-            pane.show_failure(outcome.message)
+        if isinstance(outcome, NoSolution | InputError):
+            pane.show_failure(outcome.message, revision=question.revision)
         elif self.document.answer(question, outcome):
             pane.show_solution(question.case_name, outcome, self.document.units,
                                revision=question.revision)
