@@ -103,6 +103,9 @@ async def test_filters_narrow_the_ranking_as_typed() -> None:
         wanted = Filters("deep-groove", bore_min_mm=40.0, width_max_mm=20.32)
         assert row_indices(table) == expected(wanted)
         assert {catalog.kinds[i] for i in row_indices(table)} <= {"deep-groove"}
+        await pilot.press("down")  # the filters move on with ↓ as the case form's fields do
+        assert app.focused is not None and app.focused.id == "filter-flanged"
+        assert not screen.query_one("#filter-kind", Select).expanded
 
 
 async def test_an_unreadable_limit_is_marked_and_the_last_readable_one_holds() -> None:

@@ -205,3 +205,17 @@ async def test_solving_the_followed_target_keeps_following() -> None:
                 break
         assert app.document.solved is not None
         assert app.document.session.solver.target == ""
+
+
+async def test_down_and_up_move_between_the_solver_fields_as_in_the_form(make_app) -> None:
+    # ↓ on a choice did nothing here, while in the case form it moves to the next field
+    app = make_app()
+    async with app.run_test(size=(80, 24)) as pilot:
+        await pilot.press("f6")
+        await pilot.pause()
+        assert app.focused is not None and app.focused.id == "solver-unknown"
+        await pilot.press("down")
+        assert app.focused is not None and app.focused.id == "solver-target"
+        assert not app.workbench_screen.query_one("#solver-target", ChoiceBox).expanded
+        await pilot.press("up")
+        assert app.focused is not None and app.focused.id == "solver-unknown"

@@ -39,6 +39,7 @@ from ..model.catalog import Catalog, CatalogError, catalog_bearing_texts, demo_c
 from ..model.quantities import QuantityError, parse
 from ..model.selection import candidate_rows, selection_inputs
 from ..model.session import CaseResult
+from .choice_box import ChoiceBox
 from .dialogs import Check, OnceModal
 from .table_fit import CELL_PADDING, natural_width, plain
 from .tick_box import TickBox
@@ -147,6 +148,9 @@ class SelectionScreen(OnceModal[Adoption | None]):
     BINDINGS = [
         Binding("escape", "dismiss_none", "Close", id="selection.close"),
         Binding("ctrl+g", "rate_from_geometry", "Rate from geometry", id="selection.rate"),
+        # the filters move on with ↓/↑ as the case form's fields do (the list keeps its own)
+        Binding("down", "app.focus_next", show=False),
+        Binding("up", "app.focus_previous", show=False),
     ]
 
     catalog: Catalog | None = None
@@ -183,8 +187,8 @@ class SelectionScreen(OnceModal[Adoption | None]):
                             select_on_focus=False)
             with Horizontal(classes="form-row"):
                 yield Label("Kind", classes="form-label")
-                yield Select([(words, kind.value) for kind, words in KIND_WORDS.items()],
-                             prompt="any kind", compact=True, id=FILTER_PREFIX + "kind")
+                yield ChoiceBox([(words, kind.value) for kind, words in KIND_WORDS.items()],
+                                prompt="any kind", compact=True, id=FILTER_PREFIX + "kind")
                 yield TickBox(FLANGED_WORDS, compact=True, id=FILTER_PREFIX + "flanged")
             with Horizontal(classes="form-row"):
                 for name, label in SIZE_FILTERS:

@@ -12,6 +12,7 @@ from __future__ import annotations
 
 from textual import on
 from textual.app import ComposeResult
+from textual.binding import Binding
 from textual.containers import Horizontal, VerticalScroll
 from textual.content import Content
 from textual.message import Message
@@ -78,7 +79,13 @@ FOLLOWS_SESSION = ("The session's life target (alt+i) until you give another; "
 
 
 class SolverPane(VerticalScroll):
-    """Choose the unknown and the target; see the solution or the reason there is none."""
+    """Choose the unknown and the target; see the solution or the reason there is none.
+    ↑/↓ move between its fields as they do in the case form (a choice opens with enter)."""
+
+    BINDINGS = [
+        Binding("down", "app.focus_next", "Next field", show=False),
+        Binding("up", "app.focus_previous", "Previous field", show=False),
+    ]
 
     DEFAULT_CSS = """
     SolverPane {
