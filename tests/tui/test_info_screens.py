@@ -83,3 +83,14 @@ async def test_help_keeps_its_row_when_the_terminal_is_resized() -> None:
         assert table.cursor_row == 3
         assert "\n" not in column_texts(table, 2)[0]  # at 120 columns the first help is one line
         assert cut_widgets(app.screen) == []
+
+
+async def test_about_names_the_methods_the_shaft_and_inside_steps_cite() -> None:
+    # it listed ISO 281/76 and the rest, but not the shaft statics or ISO/TS 16281 and Hertz,
+    # which the shaft and Inside steps cite
+    app = ScreenHost(AboutScreen)
+    async with app.run_test(size=(80, 24)) as pilot:
+        await pilot.pause()
+        shown = str(app.screen.query_one("#about-standards").render())
+        for method in ("Shaft statics", "ISO/TS 16281", "Hertz", "Lundberg–Palmgren"):
+            assert method in shown

@@ -20,6 +20,10 @@ STANDARDS = (
     "ASTM D2270 — viscosity index",
     "Three-parameter Weibull life distribution — reliability beyond the ISO 281 a1 table",
     "Palmgren–Miner rule — the life of a duty cycle",
+    "Shaft statics (ΣF = 0, ΣM = 0) and gear-mesh and belt forces — the loads a shaft puts on "
+    "its bearings",
+    "Hertz contact, Lundberg–Palmgren and ISO/TS 16281:2008 — the Inside pane's load "
+    "distribution, contact pressure and reference rating life",
     "Brent's method — the back-solver's root finding",
 )
 
