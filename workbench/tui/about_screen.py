@@ -20,10 +20,8 @@ STANDARDS = (
     "ASTM D2270 — viscosity index",
     "Three-parameter Weibull life distribution — reliability beyond the ISO 281 a1 table",
     "Palmgren–Miner rule — the life of a duty cycle",
-    "Shaft statics (ΣF = 0, ΣM = 0) and gear-mesh and belt forces — the loads a shaft puts on "
-    "its bearings",
-    "Hertz contact, Lundberg–Palmgren and ISO/TS 16281:2008 — the Inside pane's load "
-    "distribution, contact pressure and reference rating life",
+    "Shaft statics, gear-mesh and belt forces — the loads on a shaft's bearings",
+    "Hertz, Lundberg–Palmgren, ISO/TS 16281:2008 — the Inside pane",
     "Brent's method — the back-solver's root finding",
 )
 
