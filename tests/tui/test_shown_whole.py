@@ -13,11 +13,11 @@ import pytest
 from screen_host import ELLIPSIS, choice_text, cut_widgets, painted, painted_choice
 from tui_helpers import editor
 
-from workbench.model.fields import FIELD_BY_NAME
+from workbench.model.fields import FIELD_BY_NAME, parse_field
 from workbench.model.session import Bearing, LoadCase, Session
 from workbench.model.sessionfile import load_session
 from workbench.tui.app import WorkbenchApp
-from workbench.tui.case_form import FIELD_ORDER, CaseForm, takes_text
+from workbench.tui.case_form import FIELD_ORDER, CaseForm, field_help, takes_text
 from workbench.tui.choice_box import ChoiceBox
 
 SESSIONS = sorted((Path(__file__).parents[2] / "sessions").glob("*.toml"))
@@ -171,3 +171,12 @@ async def test_the_session_notes_wrap_between_words_and_are_kept_as_they_were() 
         await pilot.press("ctrl+s")
         await pilot.pause()
         assert app.screen is app.workbench_screen and app.document.revision == before
+
+
+@pytest.mark.parametrize("name", ["fr", "speed", "temp", "contact_angle", "moment"])
+def test_the_help_says_what_a_number_without_a_unit_means(name: str) -> None:
+    # a newcomer typed "2" in Fr meaning kN and got 2 N with every check green, unwarned
+    said = field_help(name)
+    unit = said.rsplit("no unit means ", 1)[1]
+    assert parse_field(name, "2") == pytest.approx(parse_field(name, f"2 {unit}"))
+    assert parse_field(name, "2") == pytest.approx(parse_field(name, f"2{unit}"))

@@ -77,7 +77,10 @@ def field_help(name: str) -> str:
         return f"{BEARING_LABEL}: {BEARING_HINT}"
     spec = FIELD_BY_NAME[name]
     example = _example(spec)
-    hint = spec.hint or (f"for example {example}" if example else "")
+    hints = [spec.hint or (f"for example {example}" if example else "")]
+    if spec.kind == "quantity" and spec.default_unit:  # "2" typed in Fr is 2 N: say so
+        hints.append(f"no unit means {spec.default_unit}")
+    hint = "; ".join(part for part in hints if part)
     return f"{spec.label}: {hint}" if hint else spec.label
 
 
