@@ -97,6 +97,7 @@ def test_text_report_shows_every_step_and_source(path: Path) -> None:
         for step in evaluated.derivation.steps:
             assert step.label in text
             assert " ".join(f"[{step.source}]".split()) in words
+    assert re.search(r"\bengine\b", words) is None  # a report reader knows no "engine's units"
 
 
 @pytest.mark.parametrize("path", EXAMPLES, ids=lambda p: p.name)

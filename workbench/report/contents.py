@@ -31,7 +31,8 @@ from ..model.targets import parse_target_text, solver_target
 from ..model.user_text import sentence
 from .meta import Provenance, provenance
 
-UNITS_NOTE = "Values are in the engine's units: N, mm, r/min, h, 10⁶ rev, mm²/s, °C."
+UNITS_NOTE = ("Units throughout: forces in N, lengths in mm, speeds in r/min, lives in h or "
+              "10⁶ rev, viscosities in mm²/s, temperatures in °C.")
 SUMMARY_RESULTS = ("P", "L10h", "Lnm", "s0")
 GENERATED_MARK = " *"
 GENERATED_LEGEND = "* generated from a shaft: its loads come from the Shafts section"
