@@ -20,8 +20,9 @@ from .kinds import (
     DEFAULT_CONTACT_ANGLE, KIND_WORDS, ROLLER_KINDS, THRUST_KINDS, Arrangement, DynamicFactors,
     Kind, StaticFactors, aiso_load_divisor, contact_angle_from_e, dynamic_factors, dynamic_load,
     equivalent_static_load, life_clause, life_exponent, load_clause, makers_factor_warnings,
-    makers_y_is_per_row, parse_arrangement, parse_kind, rotation_factor, rotation_factor_refusal,
-    static_factors,
+    is_bearing_set, makers_y_is_per_row, parse_arrangement, parse_kind, rating_clause,
+    rotation_factor, rotation_factor_refusal, set_exponent_words, set_words, static_factors,
+    static_rating_clause,
 )
 from .life import (
     KAPPA_MAX, KAPPA_MIN, a1_iso281, aiso, basic_rating_life, contamination_factor,
@@ -215,7 +216,7 @@ def derive(case: CaseInputs, keep_steps: bool = True) -> Derivation:
     exponent = life_exponent(kind)
     rating_mrev = rating_basis_mrev(case)
     l10 = _finite_life(rating_mrev * basic_rating_life(case.c, p_eff, exponent), "L10", case)
-    d.derived("L10", l10, lambda: _l10_words(case, kind, rating_mrev, p_eff, exponent))
+    d.derived("L10", l10, lambda: _l10_words(case, kind, arrangement, rating_mrev, p_eff, exponent))
     _hours(d, "L10h", "L10h", "Basic rating life in hours", l10, case.speed, kind)
     a_rel = _reliability(d, case)
     a_iso = _lubrication(d, case, kind, p_eff)
@@ -237,19 +238,35 @@ def above_e(results: Mapping[str, float]) -> bool | None:
     return results["ratio"] > results["e"]
 
 
-def _l10_words(case: CaseInputs, kind: Kind, rating_mrev: float, p_eff: float,
-               exponent: float) -> StepWords:
+def set_rating_words(kind: Kind, arrangement: Arrangement, symbol: str) -> str:
+    """Whose rating C or C0 (``symbol``) is for a set of bearings mounted as a unit: the set's,
+    with the relation to one bearing's (ISO 281:2007 §5.1/§7.1, ISO 76:2006 §5.1/§7.1, bearing
+    combinations); "" for a single or double-row bearing, whose rating is its own."""
+    if not is_bearing_set(arrangement):
+        return ""
+    if symbol == "C0":
+        return (f"C0 is the whole {set_words(arrangement)}'s rating: 2 × one bearing's C0 "
+                f"({static_rating_clause(kind)}, bearing combinations)")
+    return (f"C is the whole {set_words(arrangement)}'s rating: 2^{set_exponent_words(kind)} × "
+            "one bearing's C "
+            f"({rating_clause(kind)}, bearing combinations)")
+
+
+def _l10_words(case: CaseInputs, kind: Kind, arrangement: Arrangement, rating_mrev: float,
+               p_eff: float, exponent: float) -> StepWords:
     p_word = "10/3 (roller)" if kind in ROLLER_KINDS else "3 (ball)"
+    whose = set_rating_words(kind, arrangement, "C")
+    whose = f"; {whose}" if whose else ""
     if rating_mrev != 1.0:
         return StepWords(
             symbol="L10", label="Basic rating life", formula="LR·(C/P)^p",
             template="{0} × ({1:N} / {2:N})^{3}", args=(rating_mrev, case.c, p_eff, exponent),
             unit="10⁶ rev", source=_LIFE_CLAUSE[kind],
-            note=f"p = {p_word}; C rated at LR = {rating_mrev:g}·10⁶ revolutions")
+            note=f"p = {p_word}; C rated at LR = {rating_mrev:g}·10⁶ revolutions{whose}")
     return StepWords(
         symbol="L10", label="Basic rating life", formula="(C/P)^p", template="({0:N} / {1:N})^{2}",
         args=(case.c, p_eff, exponent), unit="10⁶ rev", source=_LIFE_CLAUSE[kind],
-        note=f"p = {p_word}")
+        note=f"p = {p_word}{whose}")
 
 
 def _dynamic_load(d: Derivation, case: CaseInputs, kind: Kind, arrangement: Arrangement,
@@ -652,7 +669,8 @@ def _static(d: Derivation, case: CaseInputs, kind: Kind, arrangement: Arrangemen
     d.derived("s0", s0, lambda: StepWords(
         symbol="s0", label="Static safety factor", formula="C0/P0", template="{0:N} / {1:N}",
         args=(case.c0, p0), source="ISO 76:2006 (s0 = C0/P0); minimum: common practice",
-        note=f"minimum {minimum:g}: {why}"),
+        note=f"minimum {minimum:g}: {why}" + (
+            f"; {set_rating_words(kind, arrangement, 'C0')}" if is_bearing_set(arrangement) else "")),
         warning=warning)
     d.results["s0_min"] = minimum
 

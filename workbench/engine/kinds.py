@@ -13,7 +13,7 @@ from enum import StrEnum
 from typing import Generic, NamedTuple, TypeVar, overload
 
 from . import tables as T
-from .num import BoolArray, FloatArray, Num, Truth, interp, safe_ratio, tand, where
+from .num import BoolArray, FloatArray, Num, NumT, Truth, interp, safe_ratio, tand, where
 from .record import InputError
 
 
@@ -93,6 +93,16 @@ def life_clause(kind: Kind) -> str:
     return f"ISO 281:2007 §{_CLAUSE[kind]}.3"
 
 
+def rating_clause(kind: Kind) -> str:
+    """The ISO 281:2007 clause for the basic dynamic load rating of ``kind`` (§n.1)."""
+    return f"ISO 281:2007 §{_CLAUSE[kind]}.1"
+
+
+def static_rating_clause(kind: Kind) -> str:
+    """The ISO 76:2006 clause for the basic static load rating of ``kind`` (§n.1)."""
+    return f"ISO 76:2006 §{_CLAUSE[kind]}.1"
+
+
 def static_clause(kind: Kind) -> str:
     """The ISO 76:2006 clause for the static equivalent load of ``kind`` (same numbering)."""
     return f"ISO 76:2006 §{_CLAUSE[kind]}.2"
@@ -170,6 +180,59 @@ def _arrangement(kind: Kind, text: str) -> Arrangement:
         names = ", ".join(a.value for a in allowed)
         raise InputError("arrangement", f"a {KIND_WORDS[kind]} comes as {names}, not {text!r}")
     return arrangement
+
+
+SET_ARRANGEMENTS = frozenset({Arrangement.TANDEM, Arrangement.BACK_TO_BACK, Arrangement.FACE_TO_FACE})
+"""Sets of identical single-row bearings mounted side by side as a unit (ISO 281:2007 §5.1 and
+§7.1, "bearing combinations"): their C and C0 are the set's, not one bearing's.  A double-row
+bearing is one bearing, rated as made."""
+SET_SIZE = 2
+"""The bearings of a set the workbench rates: a pair (a longer tandem stack is a rating of its own)."""
+_SET_WORDS: dict[Arrangement, str] = {
+    Arrangement.TANDEM: "tandem pair",
+    Arrangement.BACK_TO_BACK: "back-to-back pair",
+    Arrangement.FACE_TO_FACE: "face-to-face pair",
+}
+
+
+def is_bearing_set(arrangement: Arrangement) -> bool:
+    """True for a set of single-row bearings mounted as a unit (tandem, back-to-back, face-to-face)."""
+    return arrangement in SET_ARRANGEMENTS
+
+
+def set_words(arrangement: Arrangement) -> str:
+    """A set in words ("back-to-back pair"); "" for a single or double-row bearing."""
+    return _SET_WORDS.get(arrangement, "")
+
+
+def set_dynamic_rating(kind: Kind, c_one: NumT, count: int = SET_SIZE) -> NumT:
+    """C of ``count`` identical single-row bearings mounted as a unit, from one bearing's C (N).
+
+    C_set = i^0.7·C (ball bearings, ISO 281:2007 §5.1, bearing combinations), i^(7/9)·C (roller
+    bearings, §7.1): the exponents of i in the rating formulas, from memory.
+    """
+    c_set: NumT = count ** set_exponent(kind) * c_one
+    return c_set
+
+
+def set_exponent(kind: Kind) -> float:
+    """The exponent of the number of bearings in a set's C: 7/9 roller, 0.7 ball (ISO 281:2007
+    §5.1/§7.1, the exponent of i in the rating formulas)."""
+    return 7.0 / 9.0 if kind in ROLLER_KINDS else 0.7
+
+
+def set_exponent_words(kind: Kind) -> str:
+    """:func:`set_exponent` as a step writes it after "2^": "0.7" or "(7/9)"."""
+    return "(7/9)" if kind in ROLLER_KINDS else "0.7"
+
+
+def set_static_rating(c0_one: NumT, count: int = SET_SIZE) -> NumT:
+    """C0 of ``count`` identical single-row bearings mounted as a unit, from one bearing's C0 (N).
+
+    C0_set = i·C0 (ISO 76:2006 §5.1 and §7.1, bearing combinations; from memory).
+    """
+    c0_set: NumT = count * c0_one
+    return c0_set
 
 
 def life_exponent(kind: Kind) -> float:

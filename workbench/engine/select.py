@@ -27,7 +27,7 @@ import statistics
 import time
 from collections import Counter
 from dataclasses import dataclass, field, replace
-from typing import Sequence
+from typing import Sequence, TypeVar
 
 import numpy as np
 
@@ -36,8 +36,10 @@ from .derive import (
     reliability_life_factor, static_safety_minimum, validate,
 )
 from .kinds import (
-    DEFAULT_CONTACT_ANGLE, KIND_WORDS, ROLLER_KINDS, THRUST_KINDS, Arrangement, Kind, aiso_load_divisor, dynamic_factors, dynamic_load, equivalent_static_load,
-    life_exponent, parse_arrangement, rotation_factor, static_factors,
+    ARRANGEMENTS, DEFAULT_CONTACT_ANGLE, KIND_WORDS, ROLLER_KINDS, THRUST_KINDS, Arrangement, Kind,
+    aiso_load_divisor, dynamic_factors, dynamic_load, equivalent_static_load, is_bearing_set,
+    life_exponent, parse_arrangement, rotation_factor, set_dynamic_rating, set_static_rating,
+    static_factors,
 )
 from .life import (
     aiso, basic_rating_life, contamination_factor, fatigue_load_limit_estimate, kappa_in_range,
@@ -98,6 +100,43 @@ class BearingArrays:
 
 _COLUMNS = ("kind", "arrangement", "d_mm", "D_mm", "B_mm", "c_n", "c0_n", "f0", "cu_n",
             "contact_angle_deg", "speed_limit_rpm", "mass_kg")
+
+
+BearingsT = TypeVar("BearingsT", bound=BearingArrays)
+
+
+def mounted_as(bearings: BearingsT, arrangement: str) -> tuple[BearingsT, np.ndarray]:
+    """The catalog rated as the position's ``arrangement`` asks, and which rows were mounted so.
+
+    Where ``arrangement`` is a set of bearings mounted as a unit (tandem, back-to-back,
+    face-to-face) and a row's kind comes so, a single-row catalog bearing is rated as a pair of
+    it: C = 2^0.7·C (ball) or 2^(7/9)·C (roller, ISO 281:2007 §5.1/§7.1), C0 = 2·C0 (ISO 76:2006
+    §5.1/§7.1), and a given Cu = 2·Cu (a load limit that adds up as C0 does; our decision).  A
+    row that is a pair already keeps its ratings and takes the arrangement.  Any other row, and
+    every row for a single or double-row position, is rated as the catalog lists it.
+    """
+    n = len(bearings)
+    mounted = np.zeros(n, dtype=bool)
+    try:
+        wanted = Arrangement(arrangement)
+    except ValueError:
+        return bearings, mounted
+    if not is_bearing_set(wanted):
+        return bearings, mounted
+    c, c0, cu = bearings.c_n.copy(), bearings.c0_n.copy(), bearings.cu_n.copy()
+    single = bearings.arrangement == Arrangement.SINGLE.value
+    paired = np.isin(bearings.arrangement, [a.value for a in Arrangement if is_bearing_set(a)])
+    for kind in Kind:
+        if wanted not in ARRANGEMENTS[kind]:
+            continue
+        of_kind = bearings.kind == kind.value
+        doubled = of_kind & single
+        c[doubled] = set_dynamic_rating(kind, bearings.c_n[doubled])
+        c0[doubled] = set_static_rating(bearings.c0_n[doubled])
+        cu[doubled] = set_static_rating(bearings.cu_n[doubled])
+        mounted |= doubled | (of_kind & paired)
+    arrangements = np.where(mounted, wanted.value, bearings.arrangement)
+    return replace(bearings, arrangement=arrangements, c_n=c, c0_n=c0, cu_n=cu), mounted
 
 
 @dataclass(frozen=True)
