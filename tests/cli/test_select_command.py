@@ -64,7 +64,7 @@ def test_select_cli_json(session_file: Path, capsys: pytest.CaptureFixture[str])
     assert {"candidates", "rejected_rows", "session", "targets"} <= set(out)
     assert 1 <= len(out["candidates"]) <= 3
     first = out["candidates"][0]
-    assert set(first) == {"designation", "kind", "d_mm", "D_mm", "B_mm", "mass_kg", "life_margin",
+    assert set(first) == {"designation", "kind", "arrangement", "d_mm", "D_mm", "B_mm", "mass_kg", "life_margin",
                           "governing_case", "min_s0", "note"}
     assert first["life_margin"] >= 1.0 and first["min_s0"] >= 1.5
     assert first["governing_case"] == "running"  # the speed-0 case is a static check only

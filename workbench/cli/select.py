@@ -92,7 +92,10 @@ def run(args: argparse.Namespace) -> int:
     from ..engine.record import InputError
     from ..engine.select import Filters, select
     from ..model.catalog import CatalogError, demo_catalog_path, load_catalog
-    from ..model.selection import candidate_rows, not_qualifying_rows, selection_inputs
+    from ..model.selection import (
+        candidate_rows, catalog_as_position, not_qualifying_rows, position_arrangement,
+        position_words, selection_inputs,
+    )
     from ..model.session import evaluate_case
     from ..model.sessionfile import SessionFileError, load_session
 
@@ -128,20 +131,23 @@ def run(args: argparse.Namespace) -> int:
         inputs, life_target = selection_inputs(results)
     except InputError as exc:
         return fail(f"{args.session}: {exc.message}")
+    catalog = catalog_as_position(catalog, inputs)
     try:
         selection = select(catalog, inputs, life_target, None, filters)
     except InputError as exc:
         return fail(f"{args.session}: {exc.field}: {exc.message}")
     case_names = [case.name for case in cases]
     rows = candidate_rows(catalog, selection, case_names, args.top)
+    position = position_arrangement(inputs)
     if args.json:
         report = _report(args, session, catalog, selection, rows, case_names, life_target,
                          results[0].s0_target)
         report["not_qualifying"] = not_qualifying_rows(catalog, selection, case_names)
+        report["position_arrangement"] = position
         print_json(report)
         return 0
     print(_text(args, session, catalog, selection, rows, case_names, life_target,
-                results[0].s0_target))
+                results[0].s0_target, position_words(position)))
     return 0
 
 
@@ -165,8 +171,9 @@ def _report(args: argparse.Namespace, session: Session, catalog: Catalog, select
 
 def _text(args: argparse.Namespace, session: Session, catalog: Catalog, selection: Selection,
           rows: list[dict[str, Any]], case_names: list[str], life_target: float,
-          s0_target: float | None) -> str:
-    """The readable form: what was asked, the table, and why the others fell out."""
+          s0_target: float | None, rated_as: str = "") -> str:
+    """The readable form: what was asked (with how a pair position rates the catalog), the
+    table, and why the others fell out."""
     s0_words = f", s0 ≥ {s0_target:g}" if s0_target is not None else ""
     lines = [
         f"Session  {session.title} ({args.session})",
@@ -174,6 +181,7 @@ def _text(args: argparse.Namespace, session: Session, catalog: Catalog, selectio
         + (f", {len(catalog.problems)} row(s) rejected (see standard error)" if catalog.problems else ""),
         f"Targets  Lnm ≥ {life_target:g} h at R = {session.targets.reliability}{s0_words}, "
         f"over {len(case_names)} case(s): {', '.join(case_names)}",
+        *([f"Rated    {rated_as}"] if rated_as else []),
         "",
     ]
     if rows:
