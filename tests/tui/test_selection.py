@@ -17,6 +17,7 @@ from tui_sessions import rig_session
 
 from workbench.engine.select import REASON_NO_AXIAL, Candidate, Filters, select
 from workbench.model.catalog import catalog_bearing_texts, demo_catalog_path, load_catalog
+from workbench.model.selection import catalog_as_position
 from workbench.model.session import Session, evaluate_case
 from workbench.tui import selection_screen
 from workbench.tui.app import WorkbenchApp
@@ -263,3 +264,109 @@ async def test_adopting_through_the_main_screen_sets_c_and_undo_restores_it(make
         await pilot.press("ctrl+z")
         await pilot.pause()
         assert app.document.session.bearing("Drive").texts["c"] == "30 kN"
+
+
+PAIR_ROW = "WB-AC40 02-40"  # demo catalog: angular-contact, single, 40°, C 26.02 kN, C0 16.62 kN
+
+
+def pair_session() -> Session:
+    """The newcomer's position: an angular-contact back-to-back pair, one case."""
+    from workbench.model.session import Bearing, LoadCase, Targets
+
+    return Session(
+        title="Pair position", engineer="test",
+        targets=Targets(life="20000 h", reliability="0.90", s0="1"),
+        bearings=[Bearing("DE angular pair", {
+            "kind": "angular-contact", "arrangement": "back-to-back", "contact_angle": "40 deg",
+            "c": "24 kN", "c0": "20 kN"})],
+        cases=[LoadCase("Running", "DE angular pair",
+                        {"fr": "3 kN", "fa": "1 kN", "speed": "1000 r/min"})],
+    )
+
+
+async def adopt_row(pilot, app: WorkbenchApp, designation: str) -> list[str]:
+    """alt+c, move the list's cursor to ``designation`` with the arrow keys, enter; the
+    notices shown."""
+    shown: list[str] = []
+    notify = app.notify
+
+    def recorded(message: str, **options: object) -> None:
+        shown.append(message)
+        notify(message, **options)  # type: ignore[arg-type]
+
+    app.notify = recorded  # type: ignore[method-assign]
+    await pilot.pause()
+    await pilot.press("alt+c")
+    await settled(pilot)
+    screen = app.screen
+    assert isinstance(screen, SelectionScreen)
+    table = screen.query_one("#candidates", DataTable)
+    names = column_texts(table, 0)
+    await pilot.press(*["down"] * names.index(designation))
+    detail = str(screen.query_one("#candidate-detail").render())
+    shown.append(detail)
+    await pilot.press("enter")
+    await pilot.pause()
+    assert not isinstance(app.screen, SelectionScreen)
+    return shown
+
+
+async def test_adopting_a_single_row_into_a_pair_keeps_the_pair_and_says_how_it_was_rated() -> None:
+    """ISO 281:2007 §5.1: the pair of two single-row bearings rates C = 2^0.7·C of one; ISO
+    76:2006 §5.1: C0 = 2·C0. Table 3, 40° pair (REFERENCE §2, from memory): Fa/Fr = 1/3 ≤ e =
+    1.14, X = 1, Y = 0.55, so P = 3 kN + 0.55 × 1 kN = 3550 N; L10 = (C/P)³."""
+    app = WorkbenchApp(pair_session(), offer_recovery=False, autosave_delay=None)
+    async with app.run_test(size=(80, 24)) as pilot:
+        detail, notice = await adopt_row(pilot, app, PAIR_ROW)
+        assert f"{PAIR_ROW}: angular-contact ball bearing, rated as a back-to-back pair of two" \
+            in detail
+        assert notice.startswith(f"Bearing DE angular pair now has the data of {PAIR_ROW}; "
+                                 "rated and adopted as a back-to-back pair of two: "
+                                 "C = 2^0.7 × 26.02 kN = 42.27 kN, C0 = 2 × 16.62 kN = 33.24 kN")
+        bearing = app.document.session.bearing("DE angular pair")
+        assert bearing.texts["arrangement"] == "back-to-back"
+        assert "as a back-to-back pair of two" in bearing.source
+        result = selected_result(app)
+        assert result is not None and result.derivation is not None
+        assert result.inputs.c == pytest.approx(26.02e3 * 2 ** 0.7, rel=1e-11)
+        assert result.inputs.c0 == pytest.approx(2 * 16.62e3, rel=1e-11)
+        results = result.derivation.results
+        assert results["P"] == pytest.approx(3550.0)
+        assert results["L10"] == pytest.approx((26.02e3 * 2 ** 0.7 / 3550.0) ** 3)
+        await pilot.press("ctrl+z")
+        await pilot.pause()
+        texts = app.document.session.bearing("DE angular pair").texts
+        assert (texts["arrangement"], texts["c"], texts["c0"]) == ("back-to-back", "24 kN", "20 kN")
+
+
+async def test_the_ranking_of_a_pair_position_is_the_pairs_life() -> None:
+    """The life margin listed for a single-row row is the pair's: L10h = 10⁶·(2^0.7·C/P)³/(60·n)
+    with P = 3550 N (the closed forms above), no lubrication given (aISO = 1, a1 = 1 at 90 %)."""
+    session = pair_session()
+    app = ScreenHost(lambda: SelectionScreen("DE angular pair", users(session, "DE angular pair")))
+    async with app.run_test(size=(80, 24)) as pilot:
+        await settled(pilot)
+        screen = app.screen
+        table = screen.query_one("#candidates", DataTable)
+        row = column_texts(table, 0).index(PAIR_ROW)
+        margin = float(column_texts(table, 3)[row])
+        hours = 1e6 * (26.02e3 * 2 ** 0.7 / 3550.0) ** 3 / (60 * 1000.0)
+        assert margin == pytest.approx(hours / 20000.0, rel=5e-3)  # the list shows 4 figures
+
+
+async def test_a_row_that_makes_no_such_pair_says_the_arrangement_is_now_single() -> None:
+    app = WorkbenchApp(pair_session(), offer_recovery=False, autosave_delay=None)
+    catalog = load_catalog(demo_catalog_path())
+    async with app.run_test(size=(80, 24)) as pilot:
+        await pilot.pause()
+        session = app.document.session
+        ranked_rows = select(catalog_as_position(catalog, [r.inputs for r in users(
+            session, "DE angular pair")]), [r.inputs for r in users(session, "DE angular pair")],
+            20000.0).candidates
+        deep = next(catalog.designations[c.index] for c in ranked_rows
+                    if catalog.kinds[c.index] == "deep-groove")
+        _, notice = await adopt_row(pilot, app, deep)
+        assert notice.startswith(
+            f"Bearing DE angular pair now has the data of {deep}; arrangement back-to-back → "
+            "single: a deep-groove ball bearing does not come as a back-to-back pair")
+        assert app.document.session.bearing("DE angular pair").texts["arrangement"] == "single"

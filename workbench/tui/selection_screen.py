@@ -32,12 +32,14 @@ from textual.content import Content
 from textual.widgets import Checkbox, DataTable, Input, Label, Select, Static
 from textual.worker import Worker, WorkerState
 
-from ..engine.kinds import KIND_WORDS, Kind
+from ..engine.kinds import KIND_WORDS, Arrangement, Kind, is_bearing_set, set_words
 from ..engine.record import InputError, fmt
 from ..engine.select import REASON_NO_AXIAL, REASON_NO_RADIAL, Filters, Selection, select
 from ..model.catalog import Catalog, CatalogError, catalog_bearing_texts, demo_catalog_path, load_catalog
 from ..model.quantities import QuantityError, parse
-from ..model.selection import candidate_rows, selection_inputs
+from ..model.selection import (
+    candidate_rows, catalog_as_position, mounting_words, position_arrangement, selection_inputs,
+)
 from ..model.session import CaseResult
 from .choice_box import ChoiceBox
 from .dialogs import Check, OnceModal
@@ -71,6 +73,9 @@ class Adoption:
     geometry: dict[str, str] = field(default_factory=dict)
     """A rated bearing's internal geometry (the session keeps it for the inside view); a
     catalog row gives none."""
+    note: str = ""
+    """What adopting it did beyond taking the row's data, in words ("" for nothing): a pair
+    made of a single-row bearing with its ratings' step, or an arrangement the row cannot keep."""
 
 
 class Ranking(NamedTuple):
@@ -79,9 +84,14 @@ class Ranking(NamedTuple):
 
     serial: int
     catalog: Catalog | None = None
+    """The catalog as rated: a pair position's single-row bearings as pairs of them."""
     selection: Selection | None = None
     life_target: float | None = None
     problem: str | None = None
+    listed: Catalog | None = None
+    """The catalog as the file lists it."""
+    position: str = Arrangement.SINGLE.value
+    """The arrangement of the session bearing's position."""
 
 
 def length_limit(text: str) -> float | None:
@@ -104,9 +114,19 @@ def _number_text(value: float | None) -> str:
 def _cells(row: Mapping[str, Any]) -> dict[str, str]:
     """One candidate row's texts by column."""
     return {"designation": row["designation"], "kind": row["kind"],
+            "arrangement": row["arrangement"],
             "size": f"{row['d_mm']:g} × {row['D_mm']:g} × {row['B_mm']:g}",
             "life_margin": _number_text(row["life_margin"]), "min_s0": _number_text(row["min_s0"]),
             "governing_case": row["governing_case"] or "—", "note": row["note"]}
+
+
+def _mounting(arrangement: str) -> str:
+    """", rated as a back-to-back pair of two" for a row rated as a pair; "" otherwise."""
+    try:
+        mounted = Arrangement(arrangement)
+    except ValueError:
+        return ""
+    return f", rated as a {set_words(mounted)} of two" if is_bearing_set(mounted) else ""
 
 
 def _kind_words(kind: str) -> str:
@@ -158,6 +178,8 @@ class SelectionScreen(OnceModal[Adoption | None]):
 
     selection: Selection | None = None
     """The ranking on show."""
+
+    _ranking: Ranking | None = None
 
     def __init__(self, bearing: str, results: Sequence[CaseResult], *,
                  bearing_texts: Mapping[str, str] | None = None, system: str = "SI",
@@ -230,10 +252,12 @@ class SelectionScreen(OnceModal[Adoption | None]):
             inputs, life_target = selection_inputs(self.results)
             if not inputs:
                 raise InputError("case", f"no load case uses bearing {self.bearing!r}")
-            selection = select(catalog, inputs, life_target, None, filters)
+            rated = catalog_as_position(catalog, inputs)
+            selection = select(rated, inputs, life_target, None, filters)
         except InputError as exc:
             return Ranking(serial, catalog, problem=exc.message)
-        return Ranking(serial, catalog, selection, life_target)
+        return Ranking(serial, rated, selection, life_target, listed=catalog,
+                       position=position_arrangement(inputs))
 
     def _catalog(self, path: Path) -> Catalog:
         try:
@@ -333,6 +357,7 @@ class SelectionScreen(OnceModal[Adoption | None]):
         table = self.query_one("#candidates", DataTable)
         table.remove_class(BUSY_CLASS)
         self.catalog, self.selection = ranking.catalog, ranking.selection
+        self._ranking = ranking
         summary = self.query_one("#selection-summary", Static)
         if ranking.selection is None or ranking.catalog is None or ranking.life_target is None:
             self._rows = []
@@ -400,8 +425,9 @@ class SelectionScreen(OnceModal[Adoption | None]):
             return
         row = self._rows[table.cursor_row]
         note = f"; {row['note']}" if row["note"] else ""
+        mounted = _mounting(row["arrangement"])
         lines = [Content(
-            f"{row['designation']}: {_kind_words(row['kind'])}, {row['size']}; least life margin "
+            f"{row['designation']}: {_kind_words(row['kind'])}{mounted}, {row['size']}; least life margin "
             f"{row['life_margin']} (case {row['governing_case']}), least s0 {row['min_s0']}{note}")]
         lines += [Content(f"Not qualifying, {reason}: {examples[reason]}")
                   for reason in LOAD_REASONS if reason in examples]
@@ -420,8 +446,15 @@ class SelectionScreen(OnceModal[Adoption | None]):
                         severity="warning")
             return
         index = int(event.row_key.value)
+        ranking = self._ranking
+        listed = ranking.listed if ranking is not None and ranking.listed is not None else catalog
+        position = ranking.position if ranking is not None else Arrangement.SINGLE.value
+        source = f"{catalog.source}, row {catalog.rows[index]}"
+        arrangement = str(catalog.arrangement[index])
+        if arrangement != str(listed.arrangement[index]):
+            source += f", as a {set_words(Arrangement(arrangement))} of two"
         self.close(Adoption(catalog.designations[index], catalog_bearing_texts(catalog, index),
-                            f"{catalog.source}, row {catalog.rows[index]}"))
+                            source, note=mounting_words(listed, catalog, index, position)))
 
     def action_rate_from_geometry(self) -> None:
         """Rate a bearing no catalog holds from its internal geometry; adopting its ratings

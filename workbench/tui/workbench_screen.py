@@ -491,7 +491,8 @@ class WorkbenchScreen(Screen[None]):
                 self.notify(problem, severity="warning")
                 return
             self._changed()
-            self.notify(f"Bearing {bearing} now has the data of {choice.designation} "
+            note = f"; {choice.note}" if choice.note else ""
+            self.notify(f"Bearing {bearing} now has the data of {choice.designation}{note} "
                         "(ctrl+z undoes it)")
 
         users = [result for result in document.current_results()
