@@ -129,3 +129,33 @@ async def test_rated_bearing_is_adopted_through_the_main_screen_and_undone(make_
         await pilot.pause()
         assert app.document.session.bearing("Drive").texts["c"] == "30 kN"
         assert app.document.session.bearing("Drive").geometry == {}
+
+
+async def test_a_pair_position_adopts_the_pair_of_a_rated_row_and_says_so() -> None:
+    """One angular-contact row rated (i = 1) for a back-to-back position: the session bearing
+    is the pair, C = 2^0.7·C and C0 = 2·C0 of the row (ISO 281:2007 §5.1, ISO 76:2006 §5.1);
+    the rating of the same geometry in a single position is the row's own."""
+    geometry = {"elements": "12", "dw": "12 mm", "dpw": "60 mm", "f0": "13"}
+    pair = {"kind": "angular-contact", "arrangement": "back-to-back", "contact_angle": "40°",
+            "c": "24 kN", "c0": "20 kN"}
+    adopted = []
+    for texts in (dict(pair, arrangement="single"), pair):
+        app = ScreenHost(lambda texts=texts: RatingScreen("DE angular pair", texts, "SI",
+                                                          geometry_now=geometry))
+        async with app.run_test(size=(80, 24)) as pilot:
+            await pilot.pause()
+            screen = app.screen
+            assert screen.adoption is not None
+            message = str(screen.query_one("#rating-message").render())
+            await pilot.press("f10")
+            await pilot.pause()
+            [adoption] = app.answers
+            adopted.append((adoption, message))
+    (single, single_message), (paired, pair_message) = adopted
+    kn = lambda text: float(text.removesuffix(" kN"))  # noqa: E731
+    assert single.note == "" and "pair" not in single_message
+    assert kn(paired.texts["c"]) == pytest.approx(kn(single.texts["c"]) * 2 ** 0.7, rel=5e-4)
+    assert kn(paired.texts["c0"]) == pytest.approx(kn(single.texts["c0"]) * 2, rel=5e-4)
+    assert paired.note.startswith("rated for one bearing and adopted as a back-to-back pair of "
+                                  "two: C = 2^0.7 × ")
+    assert "ISO 281:2007 §5.1" in paired.note and paired.note in pair_message.replace("\n", " ")

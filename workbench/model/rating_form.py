@@ -12,6 +12,7 @@ import math
 from collections.abc import Mapping
 from dataclasses import dataclass
 
+from ..engine.kinds import ARRANGEMENTS, Arrangement, Kind, is_bearing_set, set_dynamic_rating, set_static_rating
 from ..engine.ratings import BALL_KINDS, KINDS, THRUST_KINDS, BearingGeometry, rate_bearing
 from ..engine.record import Derivation, InputError, fmt
 from .fields import FieldError
@@ -132,17 +133,44 @@ def rate_texts(texts: Mapping[str, str]) -> tuple[BearingGeometry, Derivation]:
         raise FieldError(_ENGINE_NAMES.get(exc.field, exc.field), exc.message) from None
 
 
-def bearing_texts(geometry: BearingGeometry, derivation: Derivation) -> dict[str, str]:
+def pair_of_rated(geometry: BearingGeometry, arrangement: str) -> Arrangement | None:
+    """The pair a rated bearing makes in a position of ``arrangement``: where the position is a
+    pair (tandem, back-to-back, face-to-face), the kind comes so and one row was rated (i = 1),
+    the session bearing is a pair of it (ISO 281:2007 §5.1/§7.1); None otherwise (a rating of
+    i rows is the set's already)."""
+    try:
+        wanted, kind = Arrangement(arrangement), Kind(geometry.kind)
+    except ValueError:
+        return None
+    if geometry.i != 1 or not is_bearing_set(wanted) or wanted not in ARRANGEMENTS[kind]:
+        return None
+    return wanted
+
+
+def pair_ratings(geometry: BearingGeometry, derivation: Derivation,
+                 arrangement: str) -> tuple[float, float]:
+    """C and C0 (N) the session bearing takes: the rated bearing's, or its pair's where
+    :func:`pair_of_rated` makes one (C = 2^0.7·C ball, 2^(7/9)·C roller; C0 = 2·C0)."""
+    c, c0 = derivation.results["C"], derivation.results["C0"]
+    if pair_of_rated(geometry, arrangement) is None:
+        return c, c0
+    return set_dynamic_rating(Kind(geometry.kind), c), set_static_rating(c0)
+
+
+def bearing_texts(geometry: BearingGeometry, derivation: Derivation, *,
+                  arrangement: str = "single") -> dict[str, str]:
     """The session bearing's field texts for a rated bearing: kind, C and C0 (kN, four
-    significant figures), mean diameter dm = Dpw, the contact angle, and for ball bearings the
-    ISO 76 f0 (a roller's f0 step is another factor and is not carried over).  A maker's e and
-    Y and a given Cu are cleared, as adopting a catalog bearing clears them: they belonged to
-    the bearing these ratings replace (Cu is then estimated from the new C0)."""
+    significant figures; a pair's in a pair position, :func:`pair_ratings`), mean diameter
+    dm = Dpw, the contact angle, and for ball bearings the ISO 76 f0 (a roller's f0 step is
+    another factor and is not carried over).  A maker's e and Y and a given Cu are cleared, as
+    adopting a catalog bearing clears them: they belonged to the bearing these ratings replace
+    (Cu is then estimated from the new C0)."""
     results = derivation.results
+    c, c0 = pair_ratings(geometry, derivation, arrangement)
     return {
         "kind": geometry.kind,
-        "c": f"{fmt(results['C'] / 1000.0)} kN",
-        "c0": f"{fmt(results['C0'] / 1000.0)} kN",
+        "c": f"{fmt(c / 1000.0)} kN",
+        "c0": f"{fmt(c0 / 1000.0)} kN",
         "dm": f"{fmt(geometry.dpw)} mm",
         "contact_angle": f"{fmt(geometry.alpha_deg)}°",
         "f0": fmt(results["f0"]) if geometry.kind in BALL_KINDS else "",

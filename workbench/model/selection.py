@@ -76,6 +76,17 @@ def position_words(position: str) -> str:
             "(ISO 281:2007 §5.1/§7.1, ISO 76:2006 §5.1/§7.1).")
 
 
+def pair_step_words(kind: Kind, arrangement: Arrangement, *, c_one: float, c_pair: float,
+                    c0_one: float, c0_pair: float) -> str:
+    """The step from one bearing's ratings to its pair's (N in, kN written): "as a back-to-back
+    pair of two: C = 2^0.7 × … kN = … kN, C0 = 2 × … kN = … kN (ISO 281:2007 §5.1, ISO 76:2006
+    §5.1)"."""
+    return (f"as a {set_words(arrangement)} of two: "
+            f"C = 2^{set_exponent_words(kind)} × {fmt(c_one / KN)} kN = {fmt(c_pair / KN)} kN, "
+            f"C0 = 2 × {fmt(c0_one / KN)} kN = {fmt(c0_pair / KN)} kN "
+            f"({rating_clause(kind)}, {static_rating_clause(kind)})")
+
+
 def mounting_words(listed: Catalog, rated: Catalog, i: int, position: str) -> str:
     """What adopting row ``i`` of ``rated`` (``listed`` as the file gives it) does to the
     position's arrangement ``position``, in words; "" when the row is taken as listed into a
@@ -86,13 +97,9 @@ def mounting_words(listed: Catalog, rated: Catalog, i: int, position: str) -> st
     does not come as the position's pair, or the catalog's own arrangement)."""
     arrangement = str(rated.arrangement[i])
     if arrangement != str(listed.arrangement[i]) and rated.c_n[i] != listed.c_n[i]:
-        kind = Kind(str(rated.kind[i]))
-        c_one, c_pair = listed.c_n[i] / KN, rated.c_n[i] / KN
-        c0_one, c0_pair = listed.c0_n[i] / KN, rated.c0_n[i] / KN
-        return (f"rated and adopted as a {set_words(Arrangement(arrangement))} of two: "
-                f"C = 2^{set_exponent_words(kind)} × {fmt(c_one)} kN = {fmt(c_pair)} kN, "
-                f"C0 = 2 × {fmt(c0_one)} kN = {fmt(c0_pair)} kN "
-                f"({rating_clause(kind)}, {static_rating_clause(kind)})")
+        return "rated and adopted " + pair_step_words(
+            Kind(str(rated.kind[i])), Arrangement(arrangement), c_one=float(listed.c_n[i]),
+            c_pair=float(rated.c_n[i]), c0_one=float(listed.c0_n[i]), c0_pair=float(rated.c0_n[i]))
     if position == arrangement:
         return ""
     if _is_set(position) and not _is_set(arrangement):

@@ -24,9 +24,11 @@ from textual.widgets import Input, Label, Select, Static
 from ..engine.kinds import KIND_WORDS, Kind
 from ..engine.ratings import KINDS
 from ..model.fields import FieldError
+from ..model.selection import pair_step_words
 from ..model.session import GEOMETRY_KEYS
 from ..model.rating_form import (
-    RATING_INPUT_BY_NAME, RATING_INPUTS, bearing_texts, input_problem, rate_texts,
+    RATING_INPUT_BY_NAME, RATING_INPUTS, bearing_texts, input_problem, pair_of_rated, pair_ratings,
+    rate_texts,
 )
 from .derivation_pane import step_content
 from .dialogs import Check, OnceModal
@@ -67,6 +69,8 @@ class RatingScreen(OnceModal[Adoption | None]):
         self._start.update({name: text for name, text in (geometry_now or {}).items()
                             if name in RATING_INPUT_BY_NAME and text.strip()})
         self._system = system
+        self._arrangement = (bearing_texts_now.get("arrangement") or "single").strip()
+        """The session bearing's arrangement: a pair position adopts a pair of a rated row."""
         self.adoption: Adoption | None = None
         """The texts the inputs give now (None while they cannot be rated)."""
 
@@ -124,13 +128,21 @@ class RatingScreen(OnceModal[Adoption | None]):
             message.update(Content.styled(f"✘ {label}: {exc.message}", "bold $text-error"))
             steps.update("")
             return
-        texts = bearing_texts(geometry, derivation)
+        texts = bearing_texts(geometry, derivation, arrangement=self._arrangement)
         kept = {name: text.strip() for name, text in self.texts().items()
                 if name in GEOMETRY_KEYS and text.strip()}
-        self.adoption = Adoption(RATING_DESIGNATION, texts, RATING_SOURCE, kept)
+        pair = pair_of_rated(geometry, self._arrangement)
+        note = ""
+        if pair is not None:
+            c_pair, c0_pair = pair_ratings(geometry, derivation, self._arrangement)
+            note = "rated for one bearing and adopted " + pair_step_words(
+                Kind(geometry.kind), pair, c_one=derivation.results["C"], c_pair=c_pair,
+                c0_one=derivation.results["C0"], c0_pair=c0_pair)
+        self.adoption = Adoption(RATING_DESIGNATION, texts, RATING_SOURCE, kept, note=note)
         message.update(Content.assemble(
             ("C = ", "bold"), texts["c"], ("   C0 = ", "bold"), texts["c0"],
-            f"   (dm {texts['dm']}" + (f", f0 {texts['f0']})" if texts["f0"] else ")")))
+            f"   (dm {texts['dm']}" + (f", f0 {texts['f0']})" if texts["f0"] else ")"),
+            f"\n{note}" if note else ""))
         lines: list[Content] = []
         for step in derivation.steps:
             lines.append(Content(""))
