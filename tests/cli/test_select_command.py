@@ -136,3 +136,51 @@ def test_select_cli_exit_codes(session_file: Path, tmp_path: Path,
     assert main(["select", str(session_file), "--bore-min", "5 kg"]) == 2
     assert main(["select", str(session_file), "--bearing", "nowhere"]) == 2
     assert "workbench:" in capsys.readouterr().err
+
+
+PAIR_SESSION = """schema = 1
+
+[session]
+title = "Pair position"
+
+[targets]
+life = "20000 h"
+
+[[bearings]]
+name = "DE angular pair"
+kind = "angular-contact"
+arrangement = "back-to-back"
+contact_angle = "40 deg"
+c = "24 kN"
+c0 = "20 kN"
+
+[[cases]]
+name = "Running"
+bearing = "DE angular pair"
+fr = "3 kN"
+fa = "1 kN"
+speed = "1000 r/min"
+"""
+
+PAIR_CSV = """designation,kind,arrangement,d_mm,D_mm,B_mm,C_kN,C0_kN,contact_angle_deg
+P-1,angular-contact,single,40,80,18,26.02,16.62,40
+"""
+
+
+def test_a_pair_position_rates_single_rows_as_pairs(tmp_path: Path,
+                                                     capsys: pytest.CaptureFixture[str]) -> None:
+    """ISO 281:2007 §5.1: the pair rates C = 2^0.7·C of one bearing; Table 3, 40° pair, Fa/Fr =
+    1/3 ≤ e = 1.14: X = 1, Y = 0.55 (from memory), P = 3550 N; L10h = 10⁶·(C/P)³/(60·n)."""
+    session, catalog = tmp_path / "pair.toml", tmp_path / "one.csv"
+    session.write_text(PAIR_SESSION, encoding="utf-8")
+    catalog.write_text(PAIR_CSV, encoding="utf-8")
+    assert main(["select", str(session), "--catalog", str(catalog), "--json"]) == 0
+    out = json.loads(capsys.readouterr().out)
+    assert out["position_arrangement"] == "back-to-back"
+    [row] = out["candidates"]
+    assert row["arrangement"] == "back-to-back"
+    hours = 1e6 * (26.02e3 * 2 ** 0.7 / 3550.0) ** 3 / (60 * 1000.0)
+    assert row["life_margin"] == pytest.approx(hours / 20000.0, rel=1e-9)
+    assert main(["select", str(session), "--catalog", str(catalog)]) == 0
+    assert "Rated    Each single-row bearing of a kind that comes as a back-to-back pair is " \
+        "rated as a pair of it" in capsys.readouterr().out
