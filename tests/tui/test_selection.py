@@ -11,7 +11,7 @@ import threading
 import pytest
 from textual.widgets import Checkbox, DataTable, Input, Select
 
-from screen_host import ScreenHost, column_texts, cut_widgets, settled, tab_to, users
+from screen_host import ScreenHost, column_texts, cut_widgets, painted, settled, tab_to, users
 from tui_helpers import selected_result
 from tui_sessions import rig_session
 
@@ -370,3 +370,23 @@ async def test_a_row_that_makes_no_such_pair_says_the_arrangement_is_now_single(
             f"Bearing DE angular pair now has the data of {deep}; arrangement back-to-back → "
             "single: a deep-groove ball bearing does not come as a back-to-back pair")
         assert app.document.session.bearing("DE angular pair").texts["arrangement"] == "single"
+
+
+async def test_the_help_line_and_the_steps_say_a_pairs_ratings_are_the_whole_pairs() -> None:
+    """ISO 281:2007 §5.1, ISO 76:2006 §5.1: a pair's C and C0 as typed are the whole pair's;
+    the C field's help line and the derivation's L10 and s0 steps say so, with the relation."""
+    app = WorkbenchApp(pair_session(), offer_recovery=False, autosave_delay=None)
+    async with app.run_test(size=(80, 24)) as pilot:
+        await pilot.pause()
+        screen = app.workbench_screen
+        line = screen.query_one("#help-line")
+        for name, words in (("c", "2^0.7 × one bearing's C"), ("c0", "2 × one bearing's C0")):
+            screen.query_one(f"#field-{name}").focus()
+            await pilot.pause()
+            said = " ".join(" ".join(painted(app.screen, line.content_region)).split())
+            assert "of the whole set for a pair or tandem" in said and words in said
+        result = selected_result(app)
+        notes = {step.key: step.note for step in app.document.with_steps(0).derivation.steps}
+        assert result is not None
+        assert "C is the whole back-to-back pair's rating: 2^0.7 × one bearing's C" in notes["L10"]
+        assert "C0 is the whole back-to-back pair's rating: 2 × one bearing's C0" in notes["s0"]

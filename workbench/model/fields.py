@@ -15,7 +15,7 @@ from typing import Mapping
 
 from ..engine import tables as T
 from ..engine.derive import RELIABILITY_MODELS, CaseInputs
-from ..engine.kinds import ARRANGEMENTS, Arrangement, Kind, is_bearing_set, unread_inputs
+from ..engine.kinds import ARRANGEMENTS, Kind, unread_inputs
 from .quantities import QuantityError, parse
 
 MAX_TEXT = 200
@@ -46,19 +46,17 @@ class FieldSpec:
 
 CLEANLINESS_CHOICES = tuple(T.CONTAMINATION_LEVELS)
 ALL_ARRANGEMENTS = tuple(dict.fromkeys(a.value for arr in ARRANGEMENTS.values() for a in arr))
-PAIR_NAMES = ", ".join(a for a in ALL_ARRANGEMENTS if is_bearing_set(Arrangement(a)))
-"""The arrangements whose C and C0 are a pair's (ISO 281:2007 §5.1/§7.1, bearing combinations)."""
 
 FIELDS: tuple[FieldSpec, ...] = (
     FieldSpec("kind", "--kind", "Bearing kind", "choice", choices=tuple(k.value for k in Kind),
               required=True, group="bearing"),
     FieldSpec("arrangement", "--arrangement", "Arrangement", "choice", choices=ALL_ARRANGEMENTS, group="bearing"),
     FieldSpec("c", "--c", "Dynamic rating C", "quantity", "force", "N", required=True, group="bearing",
-              hint=f"a pair's ({PAIR_NAMES}) is the whole pair's: 2^0.7 × one bearing's C, "
-                   "roller 2^(7/9) (ISO 281 §5.1/§7.1)"),
+              hint="of the whole set for a pair or tandem: 2^0.7 × one bearing's C "
+                   "(roller 2^(7/9)), ISO 281 §5.1/§7.1"),
     FieldSpec("c0", "--c0", "Static rating C0", "quantity", "force", "N", required=True, group="bearing",
-              hint=f"a pair's ({PAIR_NAMES}) is the whole pair's: 2 × one bearing's C0 "
-                   "(ISO 76 §5.1/§7.1)"),
+              hint="of the whole set for a pair or tandem: 2 × one bearing's C0, "
+                   "ISO 76 §5.1/§7.1"),
     FieldSpec("f0", "--f0", "Factor f0", "number", hint="ISO 76 factor; blank: Fa/C0 basis", group="bearing"),
     FieldSpec("contact_angle", "--contact-angle", "Contact angle α", "quantity", "angle", "°", group="bearing"),
     FieldSpec("e_given", "--e", "Maker's e", "number", hint="tapered, spherical, self-aligning", group="bearing"),
