@@ -80,8 +80,8 @@ class ShaftEditor(TableEditor):
     )
     MORE_LABELS = {"states": {"case": "its generated case"}}  # a state of the bearings' duty cycles
     BINDINGS = [
-        Binding("f2", "add_element", "Add gear or pulley"),
-        Binding("f3", "add_state", "Add state"),
+        Binding("f2", "add_element", "Add gear or pulley", priority=True),
+        Binding("f3", "add_state", "Add state", priority=True),
     ]
 
     def extra_groups(self, table: dict[str, Any]) -> ComposeResult:
@@ -171,7 +171,7 @@ class DutyEditor(TableEditor):
     ROWS = (Rows("states", "State", (Field("case", "Load case", "cases"),
                                      Field("share", "Share", hint="of the time or revolutions")),
                  {"case": "", "share": "0.5"}),)
-    BINDINGS = [Binding("f3", "add_state", "Add state")]
+    BINDINGS = [Binding("f3", "add_state", "Add state", priority=True)]
 
     async def action_add_state(self) -> None:
         """Add a state (choose its case, give its share)."""

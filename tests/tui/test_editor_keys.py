@@ -1,0 +1,95 @@
+"""Keys typed quickly after a key that opens a form or adds a row go to the new field; ↑/↓ in
+the session dialog never stop where nothing shows.
+
+Keys are sent as one burst (posted to the app as a terminal's burst arrives, no pause between
+them), so the test does not depend on timing: each key either acted before the next was
+handed on, or the text landed in the wrong field."""
+
+from __future__ import annotations
+
+from textual import events
+from textual.widgets import Input
+
+from workbench.model import files
+from workbench.tui.app import WorkbenchApp
+from workbench.tui.session_screen import SessionScreen
+from workbench.tui.shaft_editor import ShaftEditor
+
+
+def demo_app(*, cycles: bool = True) -> WorkbenchApp:
+    """The demo session; without ``cycles``, none of its own duty cycles (the shaft's stay)."""
+    session = files.open_session(files.demo_path()).session
+    assert session is not None
+    if not cycles:
+        session.reserved.pop("duty_cycles")
+    return WorkbenchApp(session, None, offer_recovery=False, autosave_delay=None)
+
+
+def burst(app: WorkbenchApp, *keys: str) -> None:
+    """``keys`` (a key name, or text typed character by character) as one burst."""
+    for key in keys:
+        if len(key) > 1 and " " not in key and (key.startswith(("alt+", "f", "ctrl+"))
+                                                 or key in ("down", "up", "enter")):
+            app.post_message(events.Key(key, None))
+            continue
+        for character in key:
+            name = "space" if character == " " else character
+            app.post_message(events.Key(name, character))
+
+
+def value(app: WorkbenchApp, widget_id: str) -> str:
+    return app.screen.query_one(f"#{widget_id}", Input).value
+
+
+async def test_a_state_added_by_f3_takes_the_keys_typed_behind_it() -> None:
+    """The newcomer's steps at 80×24: alt+h, f3, type "overload", ↓, type "30 kW", all in one
+    burst.  The text went into the shaft's name ("overload30 kW", renaming every generated
+    case) and the new state stayed "state 4"."""
+    app = demo_app()
+    async with app.run_test(size=(80, 24)) as pilot:
+        await pilot.pause()
+        burst(app, "alt+h", "f3", "overload", "down", "30 kW")
+        await pilot.pause()
+        assert isinstance(app.screen, ShaftEditor)
+        assert value(app, "t--name") == "RM-2 input shaft"
+        assert value(app, "t--states--3--name") == "overload"
+        assert value(app, "t--states--3--power") == "30 kW"
+        shaft = app.document.tables("shafts")[0]
+        assert shaft["name"] == "RM-2 input shaft"
+        assert shaft["states"][3]["name"] == "overload" and shaft["states"][3]["power"] == "30 kW"
+
+
+async def test_the_session_dialog_takes_the_title_typed_at_once() -> None:
+    """alt+i then typing at once: the typed title was lost (the keys reached the dialog before
+    its first field had the focus)."""
+    app = demo_app()
+    async with app.run_test(size=(80, 24)) as pilot:
+        await pilot.pause()
+        burst(app, "alt+i", "Gearbox input shaft")
+        await pilot.pause()
+        assert isinstance(app.screen, SessionScreen)
+        assert value(app, "detail-title") == "Gearbox input shaft"
+
+
+async def test_down_at_the_session_dialogs_last_field_stays_there() -> None:
+    """↓ from "Required s0" landed on an invisible stop (the scrolling box) where typing
+    vanished, and the next ↓ wrapped to the title, which typing then replaced.  Now ↓ stays on
+    s0 and the text typed goes there."""
+    app = demo_app()
+    async with app.run_test(size=(80, 24)) as pilot:
+        await pilot.pause()
+        await pilot.press("alt+i")
+        await pilot.pause()
+        title = value(app, "detail-title")
+        app.screen.set_focus(app.screen.query_one("#target-reliability"))
+        await pilot.press("down")
+        assert app.focused is not None and app.focused.id == "target-s0"
+        await pilot.press("down", "down")  # past the last field
+        assert app.focused is not None and app.focused.id == "target-s0"
+        await pilot.press("ctrl+u", *"2")
+        await pilot.pause()
+        assert value(app, "target-s0") == "2"
+        assert value(app, "detail-title") == title
+        app.screen.set_focus(app.screen.query_one("#detail-project"))
+        await pilot.press("up", "up", "up")  # and ↑ stops at the title, no stop before it
+        assert app.focused is not None and app.focused.id == "detail-title"
