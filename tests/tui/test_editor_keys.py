@@ -1,5 +1,5 @@
 """Keys typed quickly after a key that opens a form or adds a row go to the new field; ↑/↓ in
-the session dialog never stop where nothing shows.
+the session dialog never stop where nothing shows; alt+y never adds a duty cycle unasked.
 
 Keys are sent as one burst (posted to the app as a terminal's burst arrives, no pause between
 them), so the test does not depend on timing: each key either acted before the next was
@@ -11,9 +11,10 @@ from textual import events
 from textual.widgets import Input
 
 from workbench.model import files
+from workbench.model.shafts import GENERATED_NOTE
 from workbench.tui.app import WorkbenchApp
 from workbench.tui.session_screen import SessionScreen
-from workbench.tui.shaft_editor import ShaftEditor
+from workbench.tui.shaft_editor import DutyEditor, ShaftEditor
 
 
 def demo_app(*, cycles: bool = True) -> WorkbenchApp:
@@ -93,3 +94,38 @@ async def test_down_at_the_session_dialogs_last_field_stays_there() -> None:
         app.screen.set_focus(app.screen.query_one("#detail-project"))
         await pilot.press("up", "up", "up")  # and ↑ stops at the title, no stop before it
         assert app.focused is not None and app.focused.id == "detail-title"
+
+
+async def test_alt_y_on_a_generated_case_adds_no_duty_cycle() -> None:
+    """On a case a shaft generates, in a session with no duty cycle of its own, alt+y made a
+    stray one-state "Duty cycle" and marked the session unsaved; now it says that the shaft's
+    cycle is worked out from its states (alt+h) and changes nothing."""
+    app = demo_app(cycles=False)
+    async with app.run_test(size=(80, 24)) as pilot:
+        await pilot.pause()
+        screen = app.workbench_screen
+        generated = next(i for i, r in enumerate(app.document.results)
+                         if r.case.notes.startswith(GENERATED_NOTE))
+        screen.query_one("CaseTable").move_cursor(row=generated)
+        await pilot.pause()
+        assert screen.selected == generated
+        revision = app.document.revision
+        await pilot.press("alt+y")
+        await pilot.pause()
+        assert app.screen is screen
+        assert app.document.tables("duty_cycles") == []
+        assert app.document.revision == revision and not app.document.can_undo
+        shown = " ".join(str(n.message) for n in app._notifications)
+        assert "worked out from its operating states" in shown and "alt+h" in shown
+
+
+async def test_alt_y_opens_the_cycle_on_the_selected_cases_bearing() -> None:
+    """Where a cycle of the session's runs on the selected case's bearing, alt+y opens it."""
+    app = demo_app()
+    async with app.run_test(size=(80, 24)) as pilot:
+        await pilot.pause()
+        cycles = len(app.document.tables("duty_cycles"))
+        await pilot.press("alt+y")
+        await pilot.pause()
+        assert isinstance(app.screen, DutyEditor)
+        assert len(app.document.tables("duty_cycles")) == cycles

@@ -109,7 +109,7 @@ ACTIONS: tuple[Action, ...] = (
            "A shaft on two of the session's bearings, with one operating state to start from"),
     Action("duty.edit", "alt+y", "edit_duty_cycle", "Edit a duty cycle",
            "Edit the duty cycle on the selected case's bearing (else the first one): its "
-           "states, their load cases and shares",
+           "states, their load cases and shares; a shaft's own cycle is edited with alt+h",
            at_once=True),
     Action("duty.add", "", "add_duty_cycle", "Add a new duty cycle",
            "A duty cycle over the selected case, to which states are added"),

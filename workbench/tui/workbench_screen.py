@@ -40,7 +40,7 @@ from ..model.fields import FieldError, in_force_words
 from ..model.files import FileOutcome
 from ..model.session import Session
 from ..model.shafts import GENERATED_NOTE
-from ..model.user_text import clipped_path
+from ..model.user_text import clipped_path, quoted
 from .actions import bindings
 from .case_form import WIDE, CaseForm
 from .case_table import CaseTable
@@ -567,17 +567,28 @@ class WorkbenchScreen(Screen[None]):
         await self._open_table("shafts", index)
 
     async def action_edit_duty_cycle(self) -> None:
-        """Edit the duty cycle over the selected case's bearing, else the first; none: add."""
+        """Edit the duty cycle over the selected case's bearing, else the first one.
+
+        Never adds one (the palette's "Add a new duty cycle" does, asked): alt+y on a shaft's
+        generated case once made a stray one-state cycle beside the shaft's own.  A shaft's
+        cycle is worked out from its operating states and their shares, so for its cases, with
+        no cycle of the session's on their bearing, the notice says to edit the shaft."""
         cycles = self.document.tables("duty_cycles")
-        if not cycles:
-            await self.action_add_duty_cycle()
-            return
         case = self.document.case(self.selected)
         names = {r.case.name for r in self.document.results
                  if case is not None and r.case.bearing == case.bearing}
         index = next((i for i, table in enumerate(cycles)
-                      if any(state.get("case") in names for state in table.get("states", []))), 0)
-        await self._open_table("duty_cycles", index)
+                      if any(state.get("case") in names for state in table.get("states", []))),
+                     None)
+        shaft = self._generating_shaft()
+        if index is None and shaft is not None:
+            self.notify(f"The duty cycle of shaft {quoted(shaft)} is worked out from its "
+                        "operating states and their shares of time: alt+h edits them")
+        elif index is None and not cycles:
+            self.notify("No duty cycle yet: ctrl+p, \"Add a new duty cycle\" adds one over "
+                        "this case")
+        else:
+            await self._open_table("duty_cycles", index or 0)
 
     async def action_add_duty_cycle(self) -> None:
         """Add a duty cycle over the selected case and edit it."""
