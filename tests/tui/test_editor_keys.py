@@ -129,3 +129,42 @@ async def test_alt_y_opens_the_cycle_on_the_selected_cases_bearing() -> None:
         await pilot.pause()
         assert isinstance(app.screen, DutyEditor)
         assert len(app.document.tables("duty_cycles")) == cycles
+
+
+async def test_undo_says_shaft_edits_in_the_editors_words() -> None:
+    """Undo named a shaft edit by its 0-based path in the file ("edit shafts.0.name") and an
+    added state by nothing ("add to …"); now each is said as the editor shows it (the words
+    of ``model.table_words``)."""
+    app = demo_app()
+    async with app.run_test(size=(80, 24)) as pilot:
+        await pilot.pause()
+        await pilot.press("alt+h", "f3", *"overload", "down", *"30 kW")
+        await pilot.pause()
+        shaft = "Shaft 'RM-2 input shaft', operating state 4"
+        await pilot.press("escape", "ctrl+z")
+        await pilot.pause()
+        assert app._notifications and list(app._notifications)[-1].message == (
+            f"Undone: edit {shaft} 'overload', Power")
+        await pilot.press("ctrl+z")
+        await pilot.pause()
+        assert list(app._notifications)[-1].message == f"Undone: edit {shaft} 'overload', Name"
+        await pilot.press("ctrl+z")
+        await pilot.pause()
+        assert list(app._notifications)[-1].message == f"Undone: add {shaft} 'state 4'"
+
+
+def test_the_whatif_duty_error_says_the_key_in_the_editors_words() -> None:
+    """The What-if pane's line for a duty cycle that cannot be worked out named its file key
+    ("duty_cycles[1].states[2].share"); it is said as the duty-cycle editor says it."""
+    from workbench.model.analysis import DutyOutcome
+    from workbench.tui.shaft_editor import session_in_words
+    from workbench.tui.whatif_pane import duty_lines
+
+    app = demo_app()
+    failed = DutyOutcome("duty_cycles[1]", "Locating end, hand-resolved shift pattern", None,
+                         None, None, "duty_cycles[1].states[2].share: 'x' is not a number")
+    line = duty_lines([failed], "SI", session_in_words(app.document))[0].plain
+    assert line == ("✘ Locating end, hand-resolved shift pattern: Duty cycle 'Locating end, "
+                    "hand-resolved shift pattern', state 2 'Locating end, part load', Share: "
+                    "'x' is not a number")
+    assert "[" not in line

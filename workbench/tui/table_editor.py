@@ -221,7 +221,8 @@ class TableEditor(FieldMoves):
             self.action_close()
             return
         where, key = parse_control_id(widget_id)
-        self.document.set_table_text(self.TABLES, self.index, where, key, text)
+        self.document.set_table_text(self.TABLES, self.index, where, key, text,
+                                     words=self.table_words())
         if key in ("name", "case") and len(where) == 2:  # a row's title names it
             rows = next(r for r in self.ROWS if r.key == where[0])
             row = self.table.get(rows.key, [])[int(where[1])]
@@ -269,7 +270,8 @@ class TableEditor(FieldMoves):
         if self.gone:
             self.action_close()
             return
-        number = self.document.add_row(self.TABLES, self.index, rows.key, rows.new | texts)
+        number = self.document.add_row(self.TABLES, self.index, rows.key, rows.new | texts,
+                                       words=self.table_words())
         await self._rebuild(focus=control_id((rows.key, number), rows.fields[0].key))
         self._show()
 
@@ -285,7 +287,8 @@ class TableEditor(FieldMoves):
         if len(where) != 2 or not isinstance(where[1], int):
             self.notify("Put the focus in a row to delete it", severity="warning")
             return
-        self.document.delete_row(self.TABLES, self.index, str(where[0]), where[1])
+        self.document.delete_row(self.TABLES, self.index, str(where[0]), where[1],
+                                 words=self.table_words())
         await self._rebuild()
         self._show()
 
