@@ -14,6 +14,7 @@ from workbench.model import files
 from workbench.model.shafts import GENERATED_NOTE
 from workbench.tui.app import WorkbenchApp
 from workbench.tui.session_screen import SessionScreen
+from workbench.tui.line_pane import LinePane
 from workbench.tui.shaft_editor import DutyEditor, ShaftEditor
 
 
@@ -168,3 +169,31 @@ def test_the_whatif_duty_error_says_the_key_in_the_editors_words() -> None:
                     "hand-resolved shift pattern', state 2 'Locating end, part load', Share: "
                     "'x' is not a number")
     assert "[" not in line
+
+
+BEFORE_THE_ERROR = "The last results without an error, until it is put right:"
+
+
+async def test_a_shaft_error_keeps_the_last_good_results_under_it() -> None:
+    """A bad share of one state put the error in place of every bearing load; now the error
+    comes first and the last results without an error stay under it, said to be so."""
+    app = demo_app()
+    async with app.run_test(size=(80, 24)) as pilot:
+        await pilot.pause()
+        await pilot.press("alt+h")
+        await pilot.pause()
+        editor = app.screen
+        assert isinstance(editor, ShaftEditor)
+        before = editor.query_one("#table-results", LinePane).text.plain
+        assert "bearing A: Fr = " in before and "✘" not in before
+        editor.set_focus(editor.query_one("#t--states--0--share", Input))
+        await pilot.press("ctrl+u", *"xx")
+        await pilot.pause()
+        shown = editor.query_one("#table-results", LinePane).text.plain
+        assert shown.startswith("✘ Shaft 'RM-2 input shaft', operating state 1 'full load', "
+                                "Share of time: xx")
+        assert BEFORE_THE_ERROR in shown
+        # the last results without an error (the blank share of ctrl+u was one): the first
+        # state's bearing loads as before
+        kept = shown.split(BEFORE_THE_ERROR)[1]
+        assert before.split("\n")[:3] == kept.strip("\n").split("\n")[:3], kept[:300]
