@@ -225,6 +225,18 @@ def _table_check(action_id: str, screen: type) -> Check:
     return check
 
 
+async def check_duty_edit(pilot, app: WorkbenchApp) -> None:
+    """With no duty cycle yet, alt+y adds none (the palette's "Add a new duty cycle" does):
+    it says how to add one; with one, it opens it."""
+    await press(pilot, "duty.edit")
+    assert app.screen is app.workbench_screen and app.document.tables("duty_cycles") == []
+    assert "Add a new duty cycle" in " ".join(str(n.message) for n in app._notifications)
+    await press(pilot, "duty.add")
+    await pilot.press("escape")
+    await press(pilot, "duty.edit")
+    assert isinstance(app.screen, DutyEditor) and len(app.document.tables("duty_cycles")) == 1
+
+
 async def check_report(pilot, app: WorkbenchApp) -> None:
     from workbench.tui.report_screen import ReportScreen
 
@@ -287,7 +299,7 @@ CHECKS: dict[str, Check] = {
     "session.details": check_details,
     "shaft.edit": _table_check("shaft.edit", ShaftEditor),
     "shaft.add": _table_check("shaft.add", ShaftEditor),
-    "duty.edit": _table_check("duty.edit", DutyEditor),
+    "duty.edit": check_duty_edit,
     "duty.add": _table_check("duty.add", DutyEditor),
     "app.quit": check_quit,
 }

@@ -60,6 +60,8 @@ from .session import (
     GEOMETRY_KEYS, Bearing, CaseResult, LoadCase, Session, UNIT_SYSTEMS, case_texts, evaluate_case,
 )
 from .shafts import is_generated
+from .table_words import TableWords, key_in_words
+from .user_text import quoted
 
 MAX_NAME = 60
 UNDO_DEPTH = 500
@@ -321,6 +323,8 @@ class Document:
         if merge_key is None or top is None or top.merge_key != merge_key:
             self._undo.append(Step(label, inverse, case_index, merge_key))
             del self._undo[:-UNDO_DEPTH]
+        elif top.label != label:  # a run's label says the text as it now reads
+            self._undo[-1] = top._replace(label=label)
         self._changed(edit.touch, case_index)
 
     def _changed(self, touch: Touch, case_index: int | None = None) -> None:
@@ -754,13 +758,14 @@ class Document:
         self.apply(SetTable(name, tables or None), label, merge_key=merge_key)
 
     def set_table_text(self, name: str, index: int, where: tuple[str | int, ...], key: str,
-                       text: str) -> None:
+                       text: str, *, words: TableWords | None = None) -> None:
         """Set one text of table ``index`` of ``name`` (``where`` leads into it: () for the
         table itself, ("elements", 2) for its third element, ("case_fields",) …).
 
         Kept as typed, as in the file: a text that cannot be read is named by the analysis
         (the shaft or cycle then gives no cases or life) until it is put right.  Keystrokes in
-        one text merge into one undo step."""
+        one text merge into one undo step, labelled in the editor's ``words`` (else by the
+        file's key) as the text reads after the last of them."""
         tables = self.tables(name)
         target: Any = tables[index]
         for step in where:
@@ -772,7 +777,21 @@ class Document:
         else:
             target.pop(key, None)
         run_key = ".".join(map(str, (name, index, *where, key)))
-        self._set_tables(name, tables, f"edit {run_key}", merge_key=("table", index, run_key))
+        label = "edit " + self._table_key_words(tables, name, index, (*where, key), words)
+        self._set_tables(name, tables, label, merge_key=("table", index, run_key))
+
+    def _table_key_words(self, tables: list[dict[str, Any]], name: str, index: int,
+                         where: tuple[str | int, ...], words: TableWords | None) -> str:
+        """A place in table ``index`` of ``name`` as the undo list says it: in ``words``
+        (``table_words.key_in_words``), else by its key in the file (1-based, as the analysis
+        names it: ``shafts[1].states[4].name``)."""
+        key = f"{name}[{index + 1}]"
+        for step in where:
+            key += f"[{step + 1}]" if isinstance(step, int) else f".{step}"
+        if words is None:
+            return key
+        return key_in_words(key, tables[index], words,
+                            bearings=[bearing.name for bearing in self.session.bearings])
 
     def add_table(self, name: str, table: dict[str, Any]) -> int:
         """Add a shaft or duty cycle table; its index."""
@@ -780,30 +799,39 @@ class Document:
         taken = {str(item.get("name", "")) for item in tables}
         table = dict(table, name=self._unique(str(table.get("name", "")), taken))
         tables.append(table)
-        self._set_tables(name, tables, f"add {name[:-1].replace('_', ' ')} {table['name']}")
+        self._set_tables(name, tables, f"add {name[:-1].replace('_', ' ')} {quoted(table['name'])}")
         return len(tables) - 1
 
     def delete_table(self, name: str, index: int) -> None:
         """Delete a shaft or duty cycle table (undoable)."""
         tables = self.tables(name)
         removed = tables.pop(index)
-        self._set_tables(name, tables, f"delete {removed.get('name', '')}")
+        self._set_tables(name, tables,
+                         f"delete {name[:-1].replace('_', ' ')} {quoted(removed.get('name', ''))}")
 
-    def add_row(self, name: str, index: int, rows: str, row: dict[str, str]) -> int:
-        """Add a row (an element or state) to table ``index``; the row's index."""
+    def add_row(self, name: str, index: int, rows: str, row: dict[str, str], *,
+                words: TableWords | None = None) -> int:
+        """Add a row (an element or state) to table ``index``; the row's index.  The undo
+        step names the row in the editor's ``words`` ("add Shaft 'X', operating state 4 'state
+        4'")."""
         tables = self.tables(name)
         items = tables[index].setdefault(rows, [])
         if "name" in row:
             row = dict(row, name=self._unique(row["name"], {str(r.get("name", "")) for r in items}))
         items.append(row)
-        self._set_tables(name, tables, f"add to {tables[index].get('name', '')}")
-        return len(items) - 1
+        number = len(items) - 1
+        self._set_tables(name, tables,
+                         "add " + self._table_key_words(tables, name, index, (rows, number), words))
+        return number
 
-    def delete_row(self, name: str, index: int, rows: str, row: int) -> None:
-        """Delete row ``row`` of table ``index`` (undoable)."""
+    def delete_row(self, name: str, index: int, rows: str, row: int, *,
+                   words: TableWords | None = None) -> None:
+        """Delete row ``row`` of table ``index`` (undoable), named in the undo list as it
+        read before."""
         tables = self.tables(name)
+        label = "delete " + self._table_key_words(tables, name, index, (rows, row), words)
         del tables[index][rows][row]
-        self._set_tables(name, tables, f"delete from {tables[index].get('name', '')}")
+        self._set_tables(name, tables, label)
 
     # ---- session details and targets ------------------------------------------------------
     def target_problem(self, name: str, text: str) -> str | None:

@@ -34,11 +34,15 @@ class Action(NamedTuple):
     help: str
     scope: Scope = "screen"
     group: Binding.Group | None = None
+    at_once: bool = False
+    """Whether the key acts as the app takes it, before the keys typed behind it are handed on
+    (a priority binding): for a key that opens a form, whose first field those keys are for
+    (see ``field_moves``)."""
 
     def binding(self) -> Binding:
         """The Textual binding for this action (shown in the footer)."""
         return Binding(self.keys, self.action, self.title, id=self.id, group=self.group,
-                       tooltip=self.help)
+                       tooltip=self.help, priority=self.at_once)
 
     def key_text(self, keymap: Mapping[str, str] | None = None) -> str:
         """The keys as a person reads them ("ctrl+s, f12"), after the person's ``keymap``."""
@@ -96,15 +100,17 @@ ACTIONS: tuple[Action, ...] = (
            "selected case"),
     Action("session.details", "alt+i", "edit_session", "Details and targets",
            "Title, project, engineer, revision and notes; the life, reliability and s0 "
-           "targets every case must meet"),
+           "targets every case must meet", at_once=True),
     Action("shaft.edit", "alt+h", "edit_shaft", "Edit the shaft",
            "Edit the shaft the selected case comes from (else the first shaft): bearings, "
-           "positions, gears and pulleys, operating states; its cases follow as you type"),
+           "positions, gears and pulleys, operating states; its cases follow as you type",
+           at_once=True),
     Action("shaft.add", "", "add_shaft", "Add a new shaft",
            "A shaft on two of the session's bearings, with one operating state to start from"),
     Action("duty.edit", "alt+y", "edit_duty_cycle", "Edit a duty cycle",
            "Edit the duty cycle on the selected case's bearing (else the first one): its "
-           "states, their load cases and shares"),
+           "states, their load cases and shares; a shaft's own cycle is edited with alt+h",
+           at_once=True),
     Action("duty.add", "", "add_duty_cycle", "Add a new duty cycle",
            "A duty cycle over the selected case, to which states are added"),
     Action("bearing.add", "", "add_bearing", "Add a new bearing",

@@ -14,10 +14,12 @@ from textual.binding import Binding
 from textual.containers import Horizontal, VerticalScroll
 from textual.screen import ModalScreen
 from textual.validation import ValidationResult, Validator
+from textual.widget import Widget
 from textual.widgets import Input, Label, Static, TextArea
 
 from ..model.document import Document
 from ..model.edits import SESSION_TEXTS, TARGET_TEXTS
+from .field_moves import FieldMoves
 
 LABELS = {
     "title": "Title", "project": "Project", "engineer": "Engineer", "revision": "Revision",
@@ -65,14 +67,12 @@ class TargetValidator(Validator):
         return self.success() if problem is None else self.failure(problem, value)
 
 
-class SessionScreen(ModalScreen[bool]):
+class SessionScreen(FieldMoves, ModalScreen[bool]):
     """Edit the session's details and targets; dismisses True when something was kept."""
 
     BINDINGS = [
         Binding("escape", "close", "Cancel", show=True),
         Binding("ctrl+s", "keep", "Keep", show=True, priority=True),
-        Binding("down", "app.focus_next", show=False),
-        Binding("up", "app.focus_previous", show=False),
     ]
 
     DEFAULT_CSS = """
@@ -109,7 +109,8 @@ class SessionScreen(ModalScreen[bool]):
     def compose(self) -> ComposeResult:
         """A row per detail, then per target, each target with its hint."""
         session = self.document.session
-        with VerticalScroll(id="session-box"):
+        with VerticalScroll(id="session-box") as box:
+            box.can_focus = False  # no focus stop of its own: it scrolls to the focused field
             yield Static("Session details and targets", classes="dialog-title")
             for name in SESSION_TEXTS:
                 with Horizontal(classes="form-row" + (" -notes" if name == "notes" else "")):
@@ -133,8 +134,14 @@ class SessionScreen(ModalScreen[bool]):
                          id="session-keys")
 
     def on_mount(self) -> None:
-        """The focus starts on the title."""
-        self.query_one("#detail-title", Input).focus()
+        """The focus starts on the title, at once: ``focus()`` would queue the move behind
+        the keys typed after the one that opened the dialog, and they would be lost."""
+        self.set_focus(self.query_one("#detail-title", Input))
+
+    def moves_from(self, widget: Widget | None) -> bool:
+        """↑/↓ move from a text box; the notes take them while their cursor can move
+        (``NotesArea``)."""
+        return isinstance(widget, Input)
 
     @on(Input.Changed)
     def _checked(self, event: Input.Changed) -> None:

@@ -31,6 +31,7 @@ from .derivation_pane import step_content
 from .table_editor import Field, Rows, TableEditor
 
 ERROR_STYLE = "bold $text-error on $error-muted"
+BEFORE_THE_ERROR = "The last results without an error, until it is put right:"
 CASE_INPUTS = ("reliability", "af", "vg", "vi", "temp", "nu", "cleanliness", "static_duty")
 """The case inputs a shaft passes to every case it generates (its loads and speed it solves)."""
 
@@ -80,8 +81,8 @@ class ShaftEditor(TableEditor):
     )
     MORE_LABELS = {"states": {"case": "its generated case"}}  # a state of the bearings' duty cycles
     BINDINGS = [
-        Binding("f2", "add_element", "Add gear or pulley"),
-        Binding("f3", "add_state", "Add state"),
+        Binding("f2", "add_element", "Add gear or pulley", priority=True),
+        Binding("f3", "add_state", "Add state", priority=True),
     ]
 
     def extra_groups(self, table: dict[str, Any]) -> ComposeResult:
@@ -114,9 +115,27 @@ class ShaftEditor(TableEditor):
         """Add an operating state, named "state N" (see ``shafts.new_state_name``)."""
         await self.add_row(self.ROWS[1], name=new_state_name(self.table.get("states", [])))
 
+    def __init__(self, document: Document, index: int) -> None:
+        super().__init__(document, index)
+        self.last_good: list[Content] = []
+        """The results as they read when the shaft last had no error (see :meth:`results`)."""
+
     def results(self) -> list[Content]:
+        """What :meth:`worked_out` says now; while the shaft has an error, the error lines
+        first and the last results without one under them, marked as such (a typo in one
+        state's share used to blank every bearing load until it was put right)."""
+        lines = self.worked_out()
+        if not any(line.plain.lstrip().startswith("✘") for line in lines):
+            self.last_good = lines
+            return lines
+        if not self.last_good:
+            return lines
+        return [*lines, Content(""),
+                Content.styled(BEFORE_THE_ERROR, "italic $text-muted"), *self.last_good]
+
+    def worked_out(self) -> list[Content]:
         """Each state's bearing loads, the generated cases' lives, the system life and the
-        first state's free body."""
+        first state's free body, each error where it is."""
         document = self.document
         system = document.units
         outcomes = document.analysis.shafts
@@ -171,7 +190,7 @@ class DutyEditor(TableEditor):
     ROWS = (Rows("states", "State", (Field("case", "Load case", "cases"),
                                      Field("share", "Share", hint="of the time or revolutions")),
                  {"case": "", "share": "0.5"}),)
-    BINDINGS = [Binding("f3", "add_state", "Add state")]
+    BINDINGS = [Binding("f3", "add_state", "Add state", priority=True)]
 
     async def action_add_state(self) -> None:
         """Add a state (choose its case, give its share)."""

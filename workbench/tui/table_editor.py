@@ -18,7 +18,6 @@ from textual.app import ComposeResult
 from textual.binding import Binding
 from textual.containers import Horizontal, VerticalScroll
 from textual.content import Content
-from textual.screen import Screen
 from textual.widget import Widget
 from textual.widgets import Input, Label, Select, Static
 
@@ -27,6 +26,7 @@ from ..model.table_words import TableWords, error_in_words
 from .choice_box import ChoiceBox
 from .line_pane import LinePane
 from .field_box import FieldBox
+from .field_moves import FieldMoves
 from .key_footer import KeyFooter
 
 Choices = tuple[str, ...] | str | None
@@ -67,17 +67,9 @@ def parse_control_id(widget_id: str) -> tuple[tuple[str | int, ...], str]:
     return where, parts[-1]
 
 
-class TableForm(VerticalScroll):
-    """The editor's form; built again (``recompose``) when rows come or go.
-
-    ↑/↓ move between the fields, as everywhere else: a scroll container's own ↑/↓ (scroll by a
-    line) sit nearer the focused field than the screen's and used to win, so the form scrolled
-    and the focus stayed put."""
-
-    BINDINGS = [
-        Binding("down", "app.focus_next", show=False),
-        Binding("up", "app.focus_previous", show=False),
-    ]
+class TableForm(VerticalScroll, can_focus=False):
+    """The editor's form; built again (``recompose``) when rows come or go.  No focus stop of
+    its own: ↑/↓ move between its fields (``field_moves``) and it scrolls to the focused one."""
 
     def __init__(self, editor: TableEditor, *, id: str | None = None) -> None:
         super().__init__(id=id)
@@ -88,7 +80,7 @@ class TableForm(VerticalScroll):
         yield from self.editor.form_widgets()
 
 
-class TableEditor(Screen[None]):
+class TableEditor(FieldMoves):
     """The form of one table and its results; subclasses say what the table holds."""
 
     TABLES = ""
@@ -101,9 +93,9 @@ class TableEditor(Screen[None]):
 
     BINDINGS = [
         Binding("escape", "close", "Back"),
-        Binding("down", "app.focus_next", show=False),
-        Binding("up", "app.focus_previous", show=False),
-        Binding("f8", "delete_row", "Delete this row"),
+        # a row's coming and going acts as the key arrives, before the keys behind it
+        # (``field_moves``): the focus is in its place when they are handed on
+        Binding("f8", "delete_row", "Delete this row", priority=True),
         Binding("ctrl+z", "undo", "Undo", show=False),
         Binding("ctrl+y", "redo", "Redo", show=False),
     ]
@@ -213,23 +205,24 @@ class TableEditor(Screen[None]):
         await self.query_one(TableForm).recompose()
         if focus is not None:
             found = self.query(f"#{focus}")
-            if found:
-                found.first().focus()
+            if found:  # at once: ``focus()`` would queue the move behind the keys waiting
+                self.set_focus(found.first())
 
     # ---- editing ------------------------------------------------------------------------
     def on_mount(self) -> None:
         """Show the results, the focus on the first field."""
         self._show()
         first = self.query(Input)
-        if first:
-            first.first().focus()
+        if first:  # at once, before a key typed behind the one that opened the editor
+            self.set_focus(first.first())
 
     def _edited(self, widget_id: str, text: str) -> None:
         if self.gone:
             self.action_close()
             return
         where, key = parse_control_id(widget_id)
-        self.document.set_table_text(self.TABLES, self.index, where, key, text)
+        self.document.set_table_text(self.TABLES, self.index, where, key, text,
+                                     words=self.table_words())
         if key in ("name", "case") and len(where) == 2:  # a row's title names it
             rows = next(r for r in self.ROWS if r.key == where[0])
             row = self.table.get(rows.key, [])[int(where[1])]
@@ -277,7 +270,8 @@ class TableEditor(Screen[None]):
         if self.gone:
             self.action_close()
             return
-        number = self.document.add_row(self.TABLES, self.index, rows.key, rows.new | texts)
+        number = self.document.add_row(self.TABLES, self.index, rows.key, rows.new | texts,
+                                       words=self.table_words())
         await self._rebuild(focus=control_id((rows.key, number), rows.fields[0].key))
         self._show()
 
@@ -293,7 +287,8 @@ class TableEditor(Screen[None]):
         if len(where) != 2 or not isinstance(where[1], int):
             self.notify("Put the focus in a row to delete it", severity="warning")
             return
-        self.document.delete_row(self.TABLES, self.index, str(where[0]), where[1])
+        self.document.delete_row(self.TABLES, self.index, str(where[0]), where[1],
+                                 words=self.table_words())
         await self._rebuild()
         self._show()
 

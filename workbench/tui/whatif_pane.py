@@ -23,7 +23,7 @@ simply drawn (marking every answer busy drew the whole pane twice a key, once on
 from __future__ import annotations
 
 import math
-from collections.abc import Sequence
+from collections.abc import Callable, Sequence
 
 from textual import work
 from textual.content import Content
@@ -103,13 +103,15 @@ def duties_on(bearing: str, duties: Sequence[DutyOutcome]) -> list[DutyOutcome]:
     return [duty for duty in duties if duty.result is not None and duty.result.bearing == bearing]
 
 
-def duty_lines(duties: Sequence[DutyOutcome], system: str) -> list[Content]:
-    """Each duty cycle's Palmgren–Miner life and each state's share of the damage as a bar."""
+def duty_lines(duties: Sequence[DutyOutcome], system: str,
+               in_words: Callable[[str], str] = str) -> list[Content]:
+    """Each duty cycle's Palmgren–Miner life and each state's share of the damage as a bar; a
+    cycle's error with its file key said ``in_words`` (``shaft_editor.session_in_words``)."""
     lines: list[Content] = []
     for duty in duties:
         title = duty.name or duty.key
         if duty.result is None:
-            lines.append(Content.styled(f"✘ {title}: {duty.error}", ERROR_STYLE))
+            lines.append(Content.styled(f"✘ {title}: {in_words(duty.error or '')}", ERROR_STYLE))
             continue
         result = duty.result
         life_h = (format_quantity(result.life_h, "time", system)  # type: ignore[arg-type]
@@ -227,7 +229,9 @@ class WhatIfPane(LinePane):
         else:
             sensitivity = sensitivity_lines(items)
         if duties:
-            duty = duty_lines(duties, system)
+            from .shaft_editor import session_in_words  # loaded on first use, not at start
+
+            duty = duty_lines(duties, system, session_in_words(self.document))
         else:
             where = f" on bearing {result.case.bearing}" if result is not None else ""
             duty = [Content(f"No duty cycle{where}. A duty cycle or a shaft in the session "

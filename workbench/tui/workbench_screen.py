@@ -40,7 +40,7 @@ from ..model.fields import FieldError, in_force_words
 from ..model.files import FileOutcome
 from ..model.session import Session
 from ..model.shafts import GENERATED_NOTE
-from ..model.user_text import clipped_path
+from ..model.user_text import clipped_path, quoted
 from .actions import bindings
 from .case_form import WIDE, CaseForm
 from .case_table import CaseTable
@@ -521,8 +521,9 @@ class WorkbenchScreen(Screen[None]):
         self.app.push_screen(BearingsScreen(self.document, case.bearing if case else None),
                              chosen)
 
-    def action_edit_session(self) -> None:
-        """Edit the session's details and targets in one dialog."""
+    async def action_edit_session(self) -> None:
+        """Edit the session's details and targets in one dialog (open, with the focus on the
+        title, before the next key is handed on: ``Action.at_once``)."""
         from .session_screen import SessionScreen
 
         def closed(kept: bool | None) -> None:
@@ -530,27 +531,32 @@ class WorkbenchScreen(Screen[None]):
             if kept:
                 self.notify("Session details and targets kept (ctrl+z undoes them)")
 
-        self.app.push_screen(SessionScreen(self.document), closed)
+        await self.app.push_screen(SessionScreen(self.document), closed)
 
-    def _open_table(self, tables: str, index: int) -> None:
+    async def _open_table(self, tables: str, index: int) -> None:
         from .shaft_editor import DutyEditor, ShaftEditor
 
         editor = ShaftEditor if tables == "shafts" else DutyEditor
-        self.app.push_screen(editor(self.document, index), lambda _: self._changed())
+        await self.app.push_screen(editor(self.document, index), lambda _: self._changed())
 
-    def action_edit_shaft(self) -> None:
+    async def action_edit_shaft(self) -> None:
         """Edit the shaft the selected case comes from, else the first; none: add one."""
         shafts = self.document.tables("shafts")
         if not shafts:
-            self.action_add_shaft()
+            await self.action_add_shaft()
             return
+        shaft = self._generating_shaft()
+        index = next((i for i, table in enumerate(shafts)
+                      if str(table.get("name", "")) == shaft), 0)
+        await self._open_table("shafts", index)
+
+    def _generating_shaft(self) -> str | None:
+        """The name of the shaft the selected case was generated from (None: an own case)."""
         case = self.document.case(self.selected)
         notes = case.notes if case is not None else ""
-        index = next((i for i, table in enumerate(shafts)
-                      if notes == GENERATED_NOTE + str(table.get("name", ""))), 0)
-        self._open_table("shafts", index)
+        return notes.removeprefix(GENERATED_NOTE) if notes.startswith(GENERATED_NOTE) else None
 
-    def action_add_shaft(self) -> None:
+    async def action_add_shaft(self) -> None:
         """Add a shaft on the session's first two bearings and edit it."""
         from .shaft_editor import new_shaft
 
@@ -559,22 +565,33 @@ class WorkbenchScreen(Screen[None]):
         index = self.document.add_table(
             "shafts", new_shaft([b.name for b in self.document.session.bearings]))
         self._changed()
-        self._open_table("shafts", index)
+        await self._open_table("shafts", index)
 
-    def action_edit_duty_cycle(self) -> None:
-        """Edit the duty cycle over the selected case's bearing, else the first; none: add."""
+    async def action_edit_duty_cycle(self) -> None:
+        """Edit the duty cycle over the selected case's bearing, else the first one.
+
+        Never adds one (the palette's "Add a new duty cycle" does, asked): alt+y on a shaft's
+        generated case once made a stray one-state cycle beside the shaft's own.  A shaft's
+        cycle is worked out from its operating states and their shares, so for its cases, with
+        no cycle of the session's on their bearing, the notice says to edit the shaft."""
         cycles = self.document.tables("duty_cycles")
-        if not cycles:
-            self.action_add_duty_cycle()
-            return
         case = self.document.case(self.selected)
         names = {r.case.name for r in self.document.results
                  if case is not None and r.case.bearing == case.bearing}
         index = next((i for i, table in enumerate(cycles)
-                      if any(state.get("case") in names for state in table.get("states", []))), 0)
-        self._open_table("duty_cycles", index)
+                      if any(state.get("case") in names for state in table.get("states", []))),
+                     None)
+        shaft = self._generating_shaft()
+        if index is None and shaft is not None:
+            self.notify(f"The duty cycle of shaft {quoted(shaft)} is worked out from its "
+                        "operating states and their shares of time: alt+h edits them")
+        elif index is None and not cycles:
+            self.notify("No duty cycle yet: ctrl+p, \"Add a new duty cycle\" adds one over "
+                        "this case")
+        else:
+            await self._open_table("duty_cycles", index or 0)
 
-    def action_add_duty_cycle(self) -> None:
+    async def action_add_duty_cycle(self) -> None:
         """Add a duty cycle over the selected case and edit it."""
         from .shaft_editor import new_duty_cycle
 
@@ -582,7 +599,7 @@ class WorkbenchScreen(Screen[None]):
         index = self.document.add_table("duty_cycles",
                                         new_duty_cycle([case.name] if case else []))
         self._changed()
-        self._open_table("duty_cycles", index)
+        await self._open_table("duty_cycles", index)
 
     def action_add_bearing(self) -> None:
         """Add a bearing and show the session's bearings."""
