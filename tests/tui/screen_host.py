@@ -22,6 +22,7 @@ from textual.widgets import Button, DataTable, Input, Label, Select, Static
 from workbench.model.analysis import analyse
 from workbench.model.session import CaseResult, Session
 from workbench.model.sessionfile import demo_session_path, load_session
+from workbench.tui.app import WorkbenchApp
 from workbench.tui.theme_files import DEFAULT_THEME, load_theme_files
 from workbench.tui.view import ELLIPSIS
 
@@ -51,6 +52,11 @@ class ScreenHost(App[None]):
 def demo_session() -> Session:
     """The shipped demo session (shafts and duty cycles)."""
     return load_session(demo_session_path())
+
+
+def demo_app() -> WorkbenchApp:
+    """The workbench on the demo session, recovery and autosave off."""
+    return WorkbenchApp(demo_session(), None, offer_recovery=False, autosave_delay=None)
 
 
 def users(session: Session, bearing: str) -> list[CaseResult]:

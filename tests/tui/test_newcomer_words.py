@@ -8,23 +8,15 @@ from textual.widgets import Input, Static
 
 from tui_helpers import derivation_text, retype, selected_result
 
-from workbench.model import files
+from screen_host import demo_app, demo_session
+
 from workbench.model.analysis import analyse
-from workbench.model.session import Session
 from workbench.tui.app import WorkbenchApp
 from workbench.tui.line_pane import LinePane
 from workbench.tui.shaft_editor import ShaftEditor
 from workbench.tui.shafts_screen import ShaftsScreen
 
 
-def demo_session() -> Session:
-    session = files.open_session(files.demo_path()).session
-    assert session is not None
-    return session
-
-
-def demo_app() -> WorkbenchApp:
-    return WorkbenchApp(demo_session(), None, offer_recovery=False, autosave_delay=None)
 
 
 def test_the_demo_session_spells_every_speed_r_min() -> None:

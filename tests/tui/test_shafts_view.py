@@ -8,26 +8,15 @@ import pytest
 
 from textual.widgets import DataTable
 
-from screen_host import ScreenHost, column_texts, cut_widgets
+from screen_host import ScreenHost, column_texts, cut_widgets, demo_app, demo_session
 
 from workbench.model.analysis import analyse
 from workbench.model.quantities import format_quantity
-from workbench.model.session import Session
 from workbench.model.shafts import KIND_WORDS, is_generated
-from workbench.model import files
-from workbench.tui.app import WorkbenchApp
 from workbench.tui.case_table import CaseTable
 from workbench.tui.shafts_screen import ShaftsScreen
 
 
-def demo_session() -> Session:
-    session = files.open_session(files.demo_path()).session
-    assert session is not None
-    return session
-
-
-def demo_app() -> WorkbenchApp:
-    return WorkbenchApp(demo_session(), None, offer_recovery=False, autosave_delay=None)
 
 
 @pytest.mark.parametrize("size", [(80, 24), (120, 40)])
