@@ -2,7 +2,7 @@
 
 Built from Textual's own fields: a :class:`FieldBox` (an ``Input`` checked by the field table)
 for typed values, a :class:`ChoiceBox` (a ``Select``) for fixed choices and the bearing, a
-``Checkbox`` for a switch.  The form never writes to the session: each edit is announced with
+:class:`TickBox` (a ``Checkbox``) for a switch.  The form never writes to the session: each edit is announced with
 :class:`CaseForm.Edited` and the screen answers with :meth:`CaseForm.show_note`.  The form
 follows :attr:`view` (bound to the screen's) and shows what the document holds for the selected
 case; a rejected text stays in its field with its message under it while the value in force
